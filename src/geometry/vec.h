@@ -1,0 +1,45 @@
+/* Inline vector arithmetic for the math modules (internal). */
+#ifndef CORAX_VEC_H
+#define CORAX_VEC_H
+
+#include <math.h>
+
+#include "corax/geometry.h"
+
+static inline corax_vec3 vec3(double x, double y, double z)
+{
+    corax_vec3 v = {x, y, z};
+    return v;
+}
+static inline corax_vec3 vec_add(corax_vec3 a, corax_vec3 b) { return vec3(a.x + b.x, a.y + b.y, a.z + b.z); }
+static inline corax_vec3 vec_sub(corax_vec3 a, corax_vec3 b) { return vec3(a.x - b.x, a.y - b.y, a.z - b.z); }
+static inline corax_vec3 vec_scale(corax_vec3 a, double s) { return vec3(a.x * s, a.y * s, a.z * s); }
+static inline double vec_dot(corax_vec3 a, corax_vec3 b) { return a.x * b.x + a.y * b.y + a.z * b.z; }
+static inline double vec_norm(corax_vec3 a) { return sqrt(vec_dot(a, a)); }
+static inline corax_vec3 vec_neg(corax_vec3 a) { return vec3(-a.x, -a.y, -a.z); }
+
+static inline corax_vec3 vec_cross(corax_vec3 a, corax_vec3 b)
+{
+    return vec3(a.y * b.z - a.z * b.y, a.z * b.x - a.x * b.z, a.x * b.y - a.y * b.x);
+}
+
+/* a * s + b * t */
+static inline corax_vec3 vec_comb(corax_vec3 a, double s, corax_vec3 b, double t)
+{
+    return vec3(a.x * s + b.x * t, a.y * s + b.y * t, a.z * s + b.z * t);
+}
+
+/* The unit vector along a; a zero vector stays zero. */
+static inline corax_vec3 vec_unit(corax_vec3 a)
+{
+    double n = vec_norm(a);
+    return n > 0.0 ? vec_scale(a, 1.0 / n) : a;
+}
+
+/* The angle between two vectors in [0, pi], stable for tiny and near-pi angles. */
+static inline double vec_angle(corax_vec3 a, corax_vec3 b)
+{
+    return atan2(vec_norm(vec_cross(a, b)), vec_dot(a, b));
+}
+
+#endif
