@@ -1,0 +1,223 @@
+/* survey: the hole model. Desurveys a hole by minimum curvature and answers
+ * position and direction at any depth. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/survey.h"
+#include "geometry/vec.h"
+#include "survey/hole_int.h"
+#include "survey/mincurve.h"
+
+static int station_cmp(const void *a, const void *b)
+{
+    const corax_station *x = a, *y = b;
+    if (x->depth != y->depth)
+        return x->depth < y->depth ? -1 : 1;
+    return x->line < y->line ? -1 : x->line > y->line; /* keep a stable order */
+}
+
+/* Fill node positions from node tangents: the desurvey proper. */
+static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
+{
+    h->node[0].r = h->collar.position;
+    h->node[0].b = NAN;
+    for (size_t i = 1; i < h->n; i++) {
+        corax_hole_node *a = &h->node[i - 1], *z = &h->node[i];
+        double length = z->depth - a->depth;
+        if (z->straight) {
+            z->b = NAN;
+            z->r = vec_add(a->r, vec_scale(a->t, length));
+            continue;
+        }
+        z->b = corax_mc_dogleg(a->t, z->t);
+        if (z->b > CORAX_PI - 1e-9) {
+            const corax_station *sa = &h->given[i - 1 - h->offset];
+            const corax_station *sz = &h->given[i - h->offset];
+            return corax_error_set(err, CORAX_ESURVEY, NULL, sz->line,
+                                   "hole %s: the stations at depths %g (line %ld) and %g "
+                                   "(line %ld) point in opposite directions (a 180-degree "
+                                   "dogleg has no arc)",
+                                   h->name, sa->depth, sa->line, sz->depth, sz->line);
+        }
+        corax_vec3 t;
+        corax_mc_along(a->r, a->t, z->t, length, z->b, 1.0, &z->r, &t);
+    }
+    return CORAX_OK;
+}
+
+static corax_status check_station(const char *name, const corax_station *s, corax_error *err)
+{
+    if (!isfinite(s->depth) || s->depth < 0.0)
+        return corax_error_set(err, CORAX_EVALUE, NULL, s->line,
+                               "hole %s: survey depth %g is negative or not finite", name,
+                               s->depth);
+    if (!isfinite(s->azimuth) || !isfinite(s->plunge))
+        return corax_error_set(err, CORAX_EVALUE, NULL, s->line,
+                               "hole %s: survey at depth %g has no finite direction", name,
+                               s->depth);
+    return CORAX_OK;
+}
+
+/* Sort and check the stations, then lay out the path nodes. */
+static corax_status build_nodes(corax_hole *h, corax_error *err)
+{
+    size_t n = h->n_given;
+    qsort(h->given, n, sizeof *h->given, station_cmp);
+    for (size_t i = 0; i < n; i++) {
+        corax_status st = check_station(h->name, &h->given[i], err);
+        if (st != CORAX_OK)
+            return st;
+        if (i > 0 && h->given[i].depth == h->given[i - 1].depth)
+            return corax_error_set(err, CORAX_ESURVEY, NULL, h->given[i].line,
+                                   "hole %s: survey depth %g appears twice (lines %ld and %ld)",
+                                   h->name, h->given[i].depth, h->given[i - 1].line,
+                                   h->given[i].line);
+    }
+    h->offset = (n == 0 || h->given[0].depth > 0.0) ? 1 : 0;
+    h->n = n + h->offset;
+    h->node = calloc(h->n ? h->n : 1, sizeof *h->node);
+    if (!h->node)
+        return CORAX_ENOMEM;
+    if (h->offset) { /* the collar leads the path, straight to the first station */
+        const corax_collar *c = &h->collar;
+        h->node[0].depth = 0.0;
+        h->node[0].t = c->has_direction ? corax_direction(c->azimuth, c->plunge)
+                                        : corax_direction(h->given[0].azimuth, h->given[0].plunge);
+    }
+    for (size_t i = 0; i < n; i++) {
+        corax_hole_node *z = &h->node[i + h->offset];
+        z->depth = h->given[i].depth;
+        z->t = corax_direction(h->given[i].azimuth, h->given[i].plunge);
+        z->straight = (i == 0 && h->offset);
+    }
+    return desurvey_nodes(h, err);
+}
+
+corax_status corax_hole_new(const char *name, const corax_collar *collar,
+                            const corax_station *stations, size_t n,
+                            double azimuth_correction, corax_hole **out, corax_error *err)
+{
+    *out = NULL;
+    if (!name || !collar || (n && !stations))
+        return corax_error_set(err, CORAX_EARG, NULL, 0, "hole: missing argument");
+    corax_hole *h = calloc(1, sizeof *h);
+    if (!h)
+        return CORAX_ENOMEM;
+    corax_status st = CORAX_ENOMEM;
+    h->name = strdup(name);
+    h->given = malloc((n ? n : 1) * sizeof *h->given);
+    if (!h->name || !h->given)
+        goto fail;
+    h->collar = *collar;
+    h->n_given = n;
+    for (size_t i = 0; i < n; i++) {
+        h->given[i] = stations[i];
+        h->given[i].azimuth = corax_wrap_azimuth(stations[i].azimuth + azimuth_correction);
+    }
+    h->has_path = n > 0 || collar->has_direction;
+    if (h->has_path) {
+        st = build_nodes(h, err);
+        if (st != CORAX_OK)
+            goto fail;
+    }
+    double last = h->n ? h->node[h->n - 1].depth : 0.0;
+    h->has_length = isfinite(collar->length) && collar->length > 0.0;
+    h->length = h->has_length ? collar->length : last;
+    *out = h;
+    return CORAX_OK;
+fail:
+    corax_hole_free(h);
+    return st;
+}
+
+void corax_hole_free(corax_hole *h)
+{
+    if (!h)
+        return;
+    free(h->name);
+    free(h->given);
+    free(h->node);
+    free(h);
+}
+
+/* The node that starts the course holding depth d, given d < last node depth. */
+static size_t find_course(const corax_hole *h, double d, size_t *hint)
+{
+    size_t lo = 0, hi = h->n - 1; /* invariant: node[lo].depth <= d < node[hi].depth */
+    if (hint && *hint + 1 < h->n) {
+        size_t k = *hint;
+        if (h->node[k].depth <= d && d < h->node[k + 1].depth)
+            return k;
+        if (k + 2 < h->n && h->node[k + 1].depth <= d && d < h->node[k + 2].depth)
+            return *hint = k + 1;
+    }
+    while (hi - lo > 1) {
+        size_t mid = lo + (hi - lo) / 2;
+        if (h->node[mid].depth <= d)
+            lo = mid;
+        else
+            hi = mid;
+    }
+    if (hint)
+        *hint = lo;
+    return lo;
+}
+
+corax_status corax_hole_at(const corax_hole *h, double depth, size_t *hint,
+                           corax_hole_point *pt)
+{
+    if (!isfinite(depth) || depth < 0.0)
+        return CORAX_EVALUE;
+    if (!h->has_path) {
+        pt->position = h->collar.position;
+        pt->tangent = vec3(0.0, 0.0, 0.0);
+        pt->where = CORAX_WHERE_COLLAR_ONLY;
+        return CORAX_ENOTFOUND;
+    }
+    const corax_hole_node *last = &h->node[h->n - 1];
+    if (depth >= last->depth) { /* straight on below the last station */
+        pt->tangent = last->t;
+        pt->position = vec_add(last->r, vec_scale(last->t, depth - last->depth));
+        pt->where = h->n_given == 0 ? CORAX_WHERE_COLLAR_ONLY
+                    : depth > last->depth ? CORAX_WHERE_EXTRAPOLATED
+                                          : CORAX_WHERE_SURVEYED;
+    } else {
+        size_t i = find_course(h, depth, hint);
+        const corax_hole_node *a = &h->node[i], *z = &h->node[i + 1];
+        if (z->straight) {
+            pt->tangent = a->t;
+            pt->position = vec_add(a->r, vec_scale(a->t, depth - a->depth));
+        } else {
+            double length = z->depth - a->depth;
+            corax_mc_along(a->r, a->t, z->t, length, z->b, (depth - a->depth) / length,
+                           &pt->position, &pt->tangent);
+        }
+        pt->where = CORAX_WHERE_SURVEYED;
+    }
+    if (h->has_length && depth > h->length) /* an unknown length has no end to pass */
+        pt->where = CORAX_WHERE_BEYOND_END;
+    return CORAX_OK;
+}
+
+const char *corax_hole_name(const corax_hole *h) { return h->name; }
+const corax_collar *corax_hole_collar(const corax_hole *h) { return &h->collar; }
+double corax_hole_length(const corax_hole *h) { return h->length; }
+size_t corax_hole_station_count(const corax_hole *h) { return h->n_given; }
+
+corax_status corax_hole_station(const corax_hole *h, size_t i, corax_station *station,
+                                corax_vec3 *position, double *dogleg_severity)
+{
+    if (i >= h->n_given)
+        return CORAX_EARG;
+    const corax_hole_node *z = &h->node[i + h->offset];
+    if (station)
+        *station = h->given[i];
+    if (position)
+        *position = z->r;
+    if (dogleg_severity) {
+        double length = (i + h->offset > 0) ? z->depth - z[-1].depth : 0.0;
+        *dogleg_severity = (isnan(z->b) || length <= 0.0) ? (double)NAN : z->b * 30.0 / length;
+    }
+    return CORAX_OK;
+}
