@@ -1,0 +1,42 @@
+/* corax: building a drill program from its collar and survey tables. */
+#ifndef CORAX_LOAD_H
+#define CORAX_LOAD_H
+
+#include "corax/finding.h"
+#include "corax/survey.h"
+#include "corax/table.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* What the loader assumes about the tables. */
+typedef struct corax_load_options {
+    corax_table_format format;
+    const corax_column_map *columns; /* may be NULL */
+    corax_dip_convention dip_convention;
+    double declination; /* degrees, magnetic to true: added to survey azimuths */
+    double convergence; /* degrees, true to grid: subtracted from survey azimuths */
+} corax_load_options;
+
+/* Defaults: comma-separated, dip negative down, no azimuth correction. */
+corax_load_options corax_load_options_default(void);
+
+/* Read a collar table (hole, x, y, z; optional azimuth, dip, length) and a
+ * survey table (hole, depth, azimuth, dip) and desurvey every hole.
+ *
+ * File-level faults (cannot open, missing required column, repeated header
+ * name, broken quoting) stop the load: the status is returned, err says where.
+ * Row-level faults do not stop it: each becomes a finding in *problems
+ * (severity error for a row or hole that could not be used, warning for
+ * surveys of a hole with no collar), and the rest of the program is loaded.
+ * A hole with a fault in its survey is left out of the program; its collar
+ * alone does not stand in for it. The caller owns *out. */
+corax_status corax_program_load(const char *collars_path, const char *surveys_path,
+                                const corax_load_options *options, corax_program **out,
+                                corax_findings *problems, corax_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

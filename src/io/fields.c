@@ -1,0 +1,107 @@
+/* io: reading typed values out of table rows, with the words to explain a
+ * value that cannot be used. */
+#include <stdio.h>
+#include <string.h>
+
+#include "io/fields.h"
+
+corax_number_status corax_field_number(const corax_row *row, long col, char decimal,
+                                       const char *name, double *value, char *why,
+                                       size_t whylen)
+{
+    if (col < 0 || (size_t)col >= row->count) {
+        snprintf(why, whylen, "%s is missing (the row is short)", name);
+        return CORAX_NUMBER_EMPTY;
+    }
+    corax_number_status st =
+        corax_parse_number(row->field[col], row->length[col], decimal, value);
+    switch (st) {
+    case CORAX_NUMBER_OK:
+        break;
+    case CORAX_NUMBER_EMPTY:
+        snprintf(why, whylen, "%s is empty", name);
+        break;
+    case CORAX_NUMBER_NOT_NUMBER:
+        snprintf(why, whylen, "%s '%.40s' is not a number", name, row->field[col]);
+        break;
+    case CORAX_NUMBER_NOT_FINITE:
+        snprintf(why, whylen, "%s '%.40s' is not a finite number", name, row->field[col]);
+        break;
+    }
+    return st;
+}
+
+int corax_field_in_range(double value, double lo, double hi, const char *name, char *why,
+                         size_t whylen)
+{
+    if (value >= lo && value <= hi)
+        return 1;
+    snprintf(why, whylen, "%s %g is outside [%g, %g]", name, value, lo, hi);
+    return 0;
+}
+
+int corax_field_nonnegative(double value, const char *name, char *why, size_t whylen)
+{
+    if (value >= 0.0)
+        return 1;
+    snprintf(why, whylen, "%s %g is negative", name, value);
+    return 0;
+}
+
+const char *corax_field_text(const corax_row *row, long col, size_t *length)
+{
+    if (col < 0 || (size_t)col >= row->count) {
+        *length = 0;
+        return "";
+    }
+    *length = row->length[col];
+    return row->field[col];
+}
+
+corax_status corax_table_header(corax_reader *reader, const char *const *names, size_t n,
+                                size_t required, const corax_column_map *map, long *col,
+                                size_t *width, corax_row *header_out, corax_error *err)
+{
+    const char *path = corax_reader_path(reader);
+    corax_row header;
+    corax_status st = corax_reader_next(reader, &header, err);
+    if (st == CORAX_END)
+        return corax_error_set(err, CORAX_EFORMAT, path, 1, "the file is empty (no header row)");
+    if (st != CORAX_OK)
+        return st;
+    st = corax_header_check(&header, err);
+    if (st != CORAX_OK) {
+        err->file = path;
+        return st;
+    }
+    for (size_t i = 0; i < n; i++) {
+        col[i] = corax_column_find(&header, names[i], map);
+        if (col[i] < 0 && i < required) {
+            char list[160] = "";
+            size_t used = 0;
+            for (size_t k = 0; k < header.count && used + 2 < sizeof list; k++)
+                used += (size_t)snprintf(list + used, sizeof list - used, "%s%s",
+                                         k ? ", " : "", header.field[k]);
+            int semicolons = header.count == 1 && strchr(header.field[0], ';');
+            return corax_error_set(err, CORAX_EFORMAT, path, header.line,
+                                   "no '%s' column in the header (it has: %s)%s", names[i],
+                                   list,
+                                   semicolons ? "; the header looks semicolon-separated: try "
+                                                "--delimiter ';'"
+                                   : map      ? ""
+                                              : "; --columns can map another name");
+        }
+    }
+    *width = header.count;
+    if (header_out)
+        *header_out = header;
+    return CORAX_OK;
+}
+
+const char *corax_field_ragged(const corax_row *row, size_t width, char *why, size_t whylen)
+{
+    if (row->count == width)
+        return NULL;
+    snprintf(why, whylen, "the row has %zu fields but the header has %zu", row->count, width);
+    return why;
+}

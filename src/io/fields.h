@@ -1,0 +1,39 @@
+/* Typed values out of table rows (internal to io and the commands). */
+#ifndef CORAX_FIELDS_H
+#define CORAX_FIELDS_H
+
+#include <stddef.h>
+
+#include "corax/table.h"
+
+/* Parse column col of a row as a number. On anything but CORAX_NUMBER_OK,
+ * why gets a phrase such as "dip 'abc' is not a number" (name is the column's
+ * logical name). A column past the end of a short row counts as empty. */
+corax_number_status corax_field_number(const corax_row *row, long col, char decimal,
+                                       const char *name, double *value, char *why,
+                                       size_t whylen);
+
+/* 1 when lo <= value <= hi; else 0 and why says "name v is outside [lo, hi]". */
+int corax_field_in_range(double value, double lo, double hi, const char *name, char *why,
+                         size_t whylen);
+
+/* 1 when value >= 0; else 0 and why says "name v is negative". */
+int corax_field_nonnegative(double value, const char *name, char *why, size_t whylen);
+
+/* The text of column col ("" when col < 0 or past the end of the row). */
+const char *corax_field_text(const corax_row *row, long col, size_t *length);
+
+/* Read a table's header row and find the logical columns names[0..n) in it;
+ * the first `required` of them must be there. col[i] gets each index (-1 when
+ * absent) and *width the number of header fields. CORAX_EFORMAT (err names
+ * file and line) for an empty file, a repeated header name or a missing
+ * required column. header (may be NULL) gets the header row itself, valid
+ * until the next read. */
+corax_status corax_table_header(corax_reader *reader, const char *const *names, size_t n,
+                                size_t required, const corax_column_map *map, long *col,
+                                size_t *width, corax_row *header, corax_error *err);
+
+/* The phrase for a row whose width differs from the header's, or NULL. */
+const char *corax_field_ragged(const corax_row *row, size_t width, char *why, size_t whylen);
+
+#endif

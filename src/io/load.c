@@ -1,0 +1,348 @@
+/* io: a drill program from its collar and survey tables. Row faults become
+ * findings and the rest of the program still loads. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/load.h"
+#include "io/fields.h"
+
+corax_load_options corax_load_options_default(void)
+{
+    corax_load_options o;
+    memset(&o, 0, sizeof o);
+    o.format = corax_table_format_default();
+    o.columns = NULL;
+    o.dip_convention = CORAX_DIP_NEGATIVE_DOWN;
+    return o;
+}
+
+typedef struct collar_rec {
+    char *hole;
+    corax_collar collar;
+    long line;
+} collar_rec;
+
+typedef struct survey_rec {
+    char *hole;
+    corax_station station;
+} survey_rec;
+
+typedef struct records {
+    collar_rec *collar;
+    size_t ncollar, capcollar;
+    survey_rec *survey;
+    size_t nsurvey, capsurvey;
+} records;
+
+static void records_free(records *r)
+{
+    for (size_t i = 0; i < r->ncollar; i++)
+        free(r->collar[i].hole);
+    for (size_t i = 0; i < r->nsurvey; i++)
+        free(r->survey[i].hole);
+    free(r->collar);
+    free(r->survey);
+}
+
+static void *grow(void *p, size_t *cap, size_t size)
+{
+    size_t c = *cap ? 2 * *cap : 256;
+    void *q = realloc(p, c * size);
+    if (q)
+        *cap = c;
+    return q;
+}
+
+/* The dip range of a convention, for messages. */
+static void dip_range(corax_dip_convention c, double *lo, double *hi)
+{
+    *lo = c == CORAX_DIP_FROM_VERTICAL ? 0.0 : -90.0;
+    *hi = c == CORAX_DIP_FROM_VERTICAL ? 180.0 : 90.0;
+}
+
+/* Azimuth and dip from two columns; 1 ok, 0 both empty, -1 fault (why says). */
+static int read_direction(const corax_row *row, long caz, long cdip,
+                          const corax_load_options *o, double *az, double *plunge, char *why,
+                          size_t wl)
+{
+    double a, d, lo, hi;
+    corax_number_status sa = corax_field_number(row, caz, o->format.decimal, "azimuth", &a, why, wl);
+    if (sa != CORAX_NUMBER_OK && sa != CORAX_NUMBER_EMPTY)
+        return -1;
+    char why2[160];
+    corax_number_status sd = corax_field_number(row, cdip, o->format.decimal, "dip", &d, why2, sizeof why2);
+    if (sd != CORAX_NUMBER_OK && sd != CORAX_NUMBER_EMPTY) {
+        snprintf(why, wl, "%s", why2);
+        return -1;
+    }
+    if (sa == CORAX_NUMBER_EMPTY && sd == CORAX_NUMBER_EMPTY)
+        return 0;
+    if (sa == CORAX_NUMBER_EMPTY || sd == CORAX_NUMBER_EMPTY) {
+        snprintf(why, wl, "%s", sa == CORAX_NUMBER_EMPTY ? why : why2);
+        return -1;
+    }
+    if (!corax_field_in_range(a, 0.0, 360.0, "azimuth", why, wl))
+        return -1;
+    dip_range(o->dip_convention, &lo, &hi);
+    if (!corax_field_in_range(d, lo, hi, "dip", why, wl))
+        return -1;
+    corax_dip_to_plunge(d, o->dip_convention, plunge);
+    *az = corax_rad(a);
+    return 1;
+}
+
+static char *row_hole(const corax_row *row, long col)
+{
+    size_t n;
+    const char *s = corax_field_text(row, col, &n);
+    return n ? strndup(s, n) : NULL;
+}
+
+static corax_status read_collars(const char *path, const corax_load_options *o, records *rec,
+                                 corax_findings *problems, corax_error *err)
+{
+    static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length"};
+    long col[7];
+    size_t width;
+    corax_reader *r;
+    corax_status st = corax_reader_open(path, o->format, &r, err);
+    if (st != CORAX_OK)
+        return st;
+    st = corax_table_header(r, names, 7, 4, o->columns, col, &width, NULL, err);
+    corax_row row;
+    while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
+        char why[200];
+        size_t hl;
+        const char *hole = corax_field_text(&row, col[0], &hl);
+        corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
+        double *xyz[3] = {&c.position.x, &c.position.y, &c.position.z};
+        int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
+        if (!bad && hl == 0) {
+            snprintf(why, sizeof why, "the hole name is empty");
+            bad = 1;
+        }
+        for (int k = 0; k < 3 && !bad; k++)
+            bad = corax_field_number(&row, col[1 + k], o->format.decimal, names[1 + k], xyz[k],
+                                     why, sizeof why) != CORAX_NUMBER_OK;
+        if (!bad && col[4] >= 0 && col[5] >= 0) {
+            int d = read_direction(&row, col[4], col[5], o, &c.azimuth, &c.plunge, why, sizeof why);
+            bad = d < 0;
+            c.has_direction = d > 0;
+        }
+        if (!bad && col[6] >= 0) {
+            corax_number_status ls = corax_field_number(&row, col[6], o->format.decimal,
+                                                        "length", &c.length, why, sizeof why);
+            bad = ls == CORAX_NUMBER_NOT_NUMBER || ls == CORAX_NUMBER_NOT_FINITE ||
+                  (ls == CORAX_NUMBER_OK &&
+                   !corax_field_nonnegative(c.length, "length", why, sizeof why));
+            if (ls == CORAX_NUMBER_EMPTY)
+                c.length = NAN;
+        }
+        if (bad) {
+            st = corax_findings_add(problems, CORAX_ERROR, "collar-row", path, row.line,
+                                    hl ? hole : NULL, NAN, "%s", why);
+            continue;
+        }
+        if (rec->ncollar == rec->capcollar) {
+            collar_rec *p = grow(rec->collar, &rec->capcollar, sizeof *p);
+            if (!p) {
+                st = CORAX_ENOMEM;
+                break;
+            }
+            rec->collar = p;
+        }
+        collar_rec *cr = &rec->collar[rec->ncollar];
+        if (!(cr->hole = row_hole(&row, col[0]))) {
+            st = CORAX_ENOMEM;
+            break;
+        }
+        cr->collar = c;
+        cr->line = row.line;
+        rec->ncollar++;
+    }
+    corax_reader_close(r);
+    return st == CORAX_END ? CORAX_OK : st;
+}
+
+static corax_status read_surveys(const char *path, const corax_load_options *o, records *rec,
+                                 corax_findings *problems, corax_error *err)
+{
+    static const char *const names[] = {"hole", "depth", "azimuth", "dip"};
+    long col[4];
+    size_t width;
+    corax_reader *r;
+    corax_status st = corax_reader_open(path, o->format, &r, err);
+    if (st != CORAX_OK)
+        return st;
+    st = corax_table_header(r, names, 4, 4, o->columns, col, &width, NULL, err);
+    corax_row row;
+    while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
+        char why[200];
+        size_t hl;
+        const char *hole = corax_field_text(&row, col[0], &hl);
+        corax_station s = {NAN, 0, 0, row.line};
+        int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
+        if (!bad && hl == 0) {
+            snprintf(why, sizeof why, "the hole name is empty");
+            bad = 1;
+        }
+        if (!bad)
+            bad = corax_field_number(&row, col[1], o->format.decimal, "depth", &s.depth, why,
+                                     sizeof why) != CORAX_NUMBER_OK ||
+                  !corax_field_nonnegative(s.depth, "depth", why, sizeof why);
+        if (!bad) {
+            int d = read_direction(&row, col[2], col[3], o, &s.azimuth, &s.plunge, why, sizeof why);
+            if (d == 0)
+                snprintf(why, sizeof why, "the survey has no azimuth and no dip");
+            bad = d <= 0;
+        }
+        if (bad) {
+            st = corax_findings_add(problems, CORAX_ERROR, "survey-row", path, row.line,
+                                    hl ? hole : NULL, s.depth,
+                                    "%s", why);
+            continue;
+        }
+        if (rec->nsurvey == rec->capsurvey) {
+            survey_rec *p = grow(rec->survey, &rec->capsurvey, sizeof *p);
+            if (!p) {
+                st = CORAX_ENOMEM;
+                break;
+            }
+            rec->survey = p;
+        }
+        survey_rec *sr = &rec->survey[rec->nsurvey];
+        if (!(sr->hole = row_hole(&row, col[0]))) {
+            st = CORAX_ENOMEM;
+            break;
+        }
+        sr->station = s;
+        rec->nsurvey++;
+    }
+    corax_reader_close(r);
+    return st == CORAX_END ? CORAX_OK : st;
+}
+
+static int survey_cmp(const void *a, const void *b)
+{
+    const survey_rec *x = a, *y = b;
+    int c = strcmp(x->hole, y->hole);
+    if (c)
+        return c;
+    return x->station.line < y->station.line ? -1 : x->station.line > y->station.line;
+}
+
+/* The first survey record of a hole in the sorted records, or n. */
+static size_t first_survey(const records *rec, const char *hole)
+{
+    size_t lo = 0, hi = rec->nsurvey;
+    while (lo < hi) {
+        size_t mid = lo + (hi - lo) / 2;
+        if (strcmp(rec->survey[mid].hole, hole) < 0)
+            lo = mid + 1;
+        else
+            hi = mid;
+    }
+    return lo;
+}
+
+/* Desurvey each collar's hole from its stations and add it to the program. */
+static corax_status build_program(const char *cpath, const char *spath,
+                                  const corax_load_options *o, records *rec,
+                                  corax_program *prog, corax_findings *problems)
+{
+    double correction = corax_rad(o->declination - o->convergence);
+    corax_station *buf = NULL;
+    size_t cap = 0;
+    corax_status st = CORAX_OK;
+    for (size_t i = 0; i < rec->ncollar && st != CORAX_ENOMEM; i++) {
+        const collar_rec *c = &rec->collar[i];
+        if (corax_program_find(prog, c->hole, strlen(c->hole))) {
+            st = corax_findings_add(problems, CORAX_ERROR, "collar-repeated", cpath, c->line,
+                                    c->hole, NAN, "hole %s has a second collar row; it is ignored",
+                                    c->hole);
+            continue;
+        }
+        size_t k = first_survey(rec, c->hole), n = 0;
+        while (k + n < rec->nsurvey && strcmp(rec->survey[k + n].hole, c->hole) == 0)
+            n++;
+        if (n > cap) {
+            corax_station *p = realloc(buf, n * sizeof *p);
+            if (!p) {
+                st = CORAX_ENOMEM;
+                break;
+            }
+            buf = p;
+            cap = n;
+        }
+        for (size_t j = 0; j < n; j++)
+            buf[j] = rec->survey[k + j].station;
+        corax_hole *h;
+        corax_error e;
+        corax_error_clear(&e);
+        st = corax_hole_new(c->hole, &c->collar, buf, n, correction, &h, &e);
+        if (st == CORAX_OK)
+            st = corax_program_add(prog, h);
+        else if (st != CORAX_ENOMEM)
+            st = corax_findings_add(problems, CORAX_ERROR, "survey-path", spath, e.line,
+                                    c->hole, NAN, "%s", e.message);
+    }
+    free(buf);
+    return st;
+}
+
+/* Surveys of holes that have no collar: one warning per hole. */
+static corax_status orphan_surveys(const char *spath, const records *rec,
+                                   const corax_program *prog, corax_findings *problems)
+{
+    for (size_t i = 0; i < rec->nsurvey; i++) {
+        const survey_rec *s = &rec->survey[i];
+        if (i > 0 && strcmp(s->hole, rec->survey[i - 1].hole) == 0)
+            continue;
+        if (corax_program_find(prog, s->hole, strlen(s->hole)))
+            continue;
+        int collared = 0;
+        for (size_t j = 0; j < rec->ncollar && !collared; j++)
+            collared = strcmp(rec->collar[j].hole, s->hole) == 0;
+        if (collared)
+            continue; /* its collar is there; the survey fault is already a finding */
+        corax_status st = corax_findings_add(problems, CORAX_WARNING, "no-collar", spath,
+                                             s->station.line, s->hole, NAN,
+                                             "hole %s has surveys but no collar; it is left out",
+                                             s->hole);
+        if (st != CORAX_OK)
+            return st;
+    }
+    return CORAX_OK;
+}
+
+corax_status corax_program_load(const char *collars_path, const char *surveys_path,
+                                const corax_load_options *options, corax_program **out,
+                                corax_findings *problems, corax_error *err)
+{
+    corax_load_options defaults = corax_load_options_default();
+    const corax_load_options *o = options ? options : &defaults;
+    records rec;
+    memset(&rec, 0, sizeof rec);
+    *out = NULL;
+    corax_program *prog = corax_program_new();
+    if (!prog)
+        return CORAX_ENOMEM;
+    corax_status st = read_collars(collars_path, o, &rec, problems, err);
+    if (st == CORAX_OK)
+        st = read_surveys(surveys_path, o, &rec, problems, err);
+    if (st == CORAX_OK) {
+        qsort(rec.survey, rec.nsurvey, sizeof *rec.survey, survey_cmp);
+        st = build_program(collars_path, surveys_path, o, &rec, prog, problems);
+    }
+    if (st == CORAX_OK)
+        st = orphan_surveys(surveys_path, &rec, prog, problems);
+    records_free(&rec);
+    if (st != CORAX_OK) {
+        corax_program_free(prog);
+        return st;
+    }
+    *out = prog;
+    return CORAX_OK;
+}

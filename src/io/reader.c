@@ -1,0 +1,243 @@
+/* io: CSV tables read row by row through libcsv, with exact line numbers.
+ *
+ * libcsv pushes fields through callbacks and knows nothing of lines. We feed
+ * it one physical line at a time, so every call completes at most one row and
+ * the line count is exact, including for quoted fields spanning lines. */
+#include <csv.h>
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/table.h"
+
+enum { READ_BLOCK = 1 << 20 };
+
+struct corax_reader {
+    FILE *fp;
+    int own_fp;
+    const char *path;
+    struct csv_parser parser;
+    int parser_ready;
+
+    char *block; /* read buffer */
+    size_t have, pos;
+    int eof, first_block, prev_cr;
+    long line;     /* line number of the next byte fed */
+    long row_line; /* line where the row under construction starts, 0 if none */
+
+    /* the row under construction, then the row handed out */
+    char *text;
+    size_t text_len, text_cap;
+    size_t *offset, *length;
+    const char **field;
+    size_t count, cap;
+    int row_done, failed;
+};
+
+corax_table_format corax_table_format_default(void)
+{
+    corax_table_format f = {',', '.'};
+    return f;
+}
+
+static int grow_fields(corax_reader *r)
+{
+    size_t cap = r->cap ? 2 * r->cap : 32;
+    size_t *o = realloc(r->offset, cap * sizeof *o);
+    if (!o)
+        return 0;
+    r->offset = o;
+    size_t *l = realloc(r->length, cap * sizeof *l);
+    if (!l)
+        return 0;
+    r->length = l;
+    const char **f = realloc(r->field, cap * sizeof *f);
+    if (!f)
+        return 0;
+    r->field = f;
+    r->cap = cap;
+    return 1;
+}
+
+static void on_field(void *data, size_t len, void *user)
+{
+    corax_reader *r = user;
+    if (r->failed)
+        return;
+    if (r->count == r->cap && !grow_fields(r)) {
+        r->failed = 1;
+        return;
+    }
+    if (r->text_len + len + 1 > r->text_cap) {
+        size_t cap = r->text_cap ? r->text_cap : 256;
+        while (cap < r->text_len + len + 1)
+            cap *= 2;
+        char *t = realloc(r->text, cap);
+        if (!t) {
+            r->failed = 1;
+            return;
+        }
+        r->text = t;
+        r->text_cap = cap;
+    }
+    if (len)
+        memcpy(r->text + r->text_len, data, len);
+    r->offset[r->count] = r->text_len;
+    r->length[r->count] = len;
+    r->count++;
+    r->text_len += len;
+    r->text[r->text_len++] = '\0';
+}
+
+static void on_row(int terminator, void *user)
+{
+    (void)terminator;
+    corax_reader *r = user;
+    r->row_done = 1;
+}
+
+static int blank_or_space(unsigned char c) { return c == ' ' || c == '\t'; }
+
+corax_status corax_reader_open(const char *path, corax_table_format format,
+                               corax_reader **out, corax_error *err)
+{
+    *out = NULL;
+    corax_reader *r = calloc(1, sizeof *r);
+    if (!r)
+        return CORAX_ENOMEM;
+    r->path = path;
+    r->line = 1;
+    r->first_block = 1;
+    if (strcmp(path, "-") == 0) {
+        r->fp = stdin;
+    } else {
+        r->fp = fopen(path, "rb");
+        r->own_fp = 1;
+        if (!r->fp) {
+            int e = errno;
+            free(r);
+            return corax_error_set(err, CORAX_EIO, path, 0, "cannot open: %s", strerror(e));
+        }
+    }
+    r->block = malloc(READ_BLOCK);
+    if (!r->block || csv_init(&r->parser, CSV_STRICT_FINI) != 0) {
+        corax_reader_close(r);
+        return CORAX_ENOMEM;
+    }
+    r->parser_ready = 1;
+    csv_set_delim(&r->parser, (unsigned char)format.delimiter);
+    csv_set_space_func(&r->parser, blank_or_space);
+    *out = r;
+    return CORAX_OK;
+}
+
+/* Read the next block; keeps nothing from the previous one (we only ever
+ * leave a block after feeding all of it). */
+static corax_status refill(corax_reader *r, corax_error *err)
+{
+    r->have = fread(r->block, 1, READ_BLOCK, r->fp);
+    r->pos = 0;
+    if (r->have < READ_BLOCK) {
+        if (ferror(r->fp))
+            return corax_error_set(err, CORAX_EIO, r->path, r->line, "read error: %s",
+                                   strerror(errno));
+        r->eof = 1;
+    }
+    if (r->first_block) {
+        r->first_block = 0;
+        if (r->have >= 3 && memcmp(r->block, "\xEF\xBB\xBF", 3) == 0)
+            r->pos = 3; /* UTF-8 byte-order mark */
+    }
+    return CORAX_OK;
+}
+
+/* Feed up to and including the next line end. */
+static void feed_line(corax_reader *r)
+{
+    const char *s = r->block + r->pos;
+    size_t n = r->have - r->pos, i = 0;
+    if (r->prev_cr && n && s[0] == '\n') { /* the LF of a CRLF split from its CR */
+        r->prev_cr = 0;
+        i = 1;
+    } else {
+        r->prev_cr = 0;
+        while (i < n && s[i] != '\n' && s[i] != '\r')
+            i++;
+        if (i < n) {
+            r->prev_cr = s[i] == '\r';
+            i++;
+        }
+        if (r->row_line == 0) {
+            for (size_t k = 0; k < i; k++)
+                if (!blank_or_space((unsigned char)s[k]) && s[k] != '\n' && s[k] != '\r') {
+                    r->row_line = r->line;
+                    break;
+                }
+        }
+        if (i && (s[i - 1] == '\n' || s[i - 1] == '\r'))
+            r->line++;
+    }
+    if (i)
+        csv_parse(&r->parser, s, i, on_field, on_row, r);
+    r->pos += i;
+}
+
+corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err)
+{
+    r->count = 0;
+    r->text_len = 0;
+    r->row_done = 0;
+    while (!r->row_done) {
+        if (r->pos == r->have) {
+            if (r->eof) {
+                long start = r->row_line;
+                /* libcsv only reports an open quote at the end in its strict mode,
+                 * which also refuses stray quotes we accept; so look ourselves:
+                 * state 2 is "field begun", and the field began with a quote. */
+                int open_quote = r->parser.pstate == 2 && r->parser.quoted;
+                if (open_quote || csv_fini(&r->parser, on_field, on_row, r) != 0)
+                    return corax_error_set(err, CORAX_EFORMAT, r->path, start,
+                                           "a quoted field is never closed");
+                if (!r->row_done)
+                    return CORAX_END;
+                break;
+            }
+            corax_status st = refill(r, err);
+            if (st != CORAX_OK)
+                return st;
+            continue;
+        }
+        feed_line(r);
+        if (r->failed)
+            return CORAX_ENOMEM;
+    }
+    if (r->failed)
+        return CORAX_ENOMEM;
+    for (size_t i = 0; i < r->count; i++)
+        r->field[i] = r->text + r->offset[i];
+    row->count = r->count;
+    row->field = r->field;
+    row->length = r->length;
+    row->line = r->row_line;
+    r->row_line = 0;
+    return CORAX_OK;
+}
+
+const char *corax_reader_path(const corax_reader *r) { return r->path; }
+
+void corax_reader_close(corax_reader *r)
+{
+    if (!r)
+        return;
+    if (r->own_fp && r->fp)
+        fclose(r->fp);
+    if (r->parser_ready)
+        csv_free(&r->parser);
+    free(r->block);
+    free(r->text);
+    free(r->offset);
+    free(r->length);
+    free(r->field);
+    free(r);
+}

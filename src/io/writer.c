@@ -1,0 +1,280 @@
+/* io: buffered output with CSV quoting, fast fixed-point numbers, and files
+ * that appear under their real name only when whole. */
+#include <errno.h>
+#include <fcntl.h>
+#include <math.h>
+#include <stdarg.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "corax/geometry.h"
+#include "corax/output.h"
+
+enum { OUT_BUFFER = 1 << 18 };
+
+struct corax_writer {
+    int fd;
+    char *path;     /* real name, NULL for standard output */
+    char *tmp;      /* temporary name */
+    char *buf;
+    size_t used;
+    int failed;     /* errno of the first failed write, 0 if none */
+    int row_start;  /* no field written yet on this row */
+};
+
+static unsigned long tmp_counter;
+
+static char *temp_name(const char *path)
+{
+    const char *slash = strrchr(path, '/');
+    size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
+    const char *base = path + dirlen;
+    size_t n = strlen(path) + 64;
+    char *t = malloc(n);
+    if (t)
+        snprintf(t, n, "%.*s.%s.%ld.%lu.part", (int)dirlen, path, base, (long)getpid(),
+                 tmp_counter++);
+    return t;
+}
+
+corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err)
+{
+    *out = NULL;
+    corax_writer *w = calloc(1, sizeof *w);
+    if (!w)
+        return CORAX_ENOMEM;
+    w->fd = -1;
+    w->buf = malloc(OUT_BUFFER);
+    w->row_start = 1;
+    if (!w->buf)
+        goto nomem;
+    if (strcmp(path, "-") == 0) {
+        w->fd = STDOUT_FILENO;
+        *out = w;
+        return CORAX_OK;
+    }
+    w->path = strdup(path);
+    if (!w->path)
+        goto nomem;
+    for (int tries = 0; tries < 100; tries++) {
+        free(w->tmp);
+        w->tmp = temp_name(path);
+        if (!w->tmp)
+            goto nomem;
+        w->fd = open(w->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
+        if (w->fd >= 0 || errno != EEXIST)
+            break;
+    }
+    if (w->fd < 0) {
+        int e = errno;
+        corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
+        free(w->tmp);
+        w->tmp = NULL;
+        corax_writer_discard(w);
+        return CORAX_EIO;
+    }
+    *out = w;
+    return CORAX_OK;
+nomem:
+    corax_writer_discard(w);
+    return CORAX_ENOMEM;
+}
+
+static void write_all(corax_writer *w, const char *p, size_t n)
+{
+    while (n && !w->failed) {
+        ssize_t k = write(w->fd, p, n);
+        if (k < 0) {
+            if (errno != EINTR)
+                w->failed = errno;
+        } else {
+            p += k;
+            n -= (size_t)k;
+        }
+    }
+}
+
+static void flush(corax_writer *w)
+{
+    write_all(w, w->buf, w->used);
+    w->used = 0;
+}
+
+void corax_writer_text(corax_writer *w, const char *text, size_t n)
+{
+    if (w->used + n > OUT_BUFFER) {
+        flush(w);
+        if (n > OUT_BUFFER) { /* too big to buffer: straight through */
+            write_all(w, text, n);
+            return;
+        }
+    }
+    memcpy(w->buf + w->used, text, n);
+    w->used += n;
+}
+
+void corax_writer_printf(corax_writer *w, const char *fmt, ...)
+{
+    char small[512];
+    va_list ap;
+    va_start(ap, fmt);
+    int n = vsnprintf(small, sizeof small, fmt, ap);
+    va_end(ap);
+    if (n < 0)
+        return;
+    if ((size_t)n < sizeof small) {
+        corax_writer_text(w, small, (size_t)n);
+        return;
+    }
+    char *big = malloc((size_t)n + 1);
+    if (!big) {
+        w->failed = ENOMEM;
+        return;
+    }
+    va_start(ap, fmt);
+    vsnprintf(big, (size_t)n + 1, fmt, ap);
+    va_end(ap);
+    corax_writer_text(w, big, (size_t)n);
+    free(big);
+}
+
+static void separator(corax_writer *w)
+{
+    if (!w->row_start) {
+        if (w->used == OUT_BUFFER)
+            flush(w);
+        w->buf[w->used++] = ',';
+    }
+    w->row_start = 0;
+}
+
+static int needs_quotes(const char *s, size_t n)
+{
+    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t'))
+        return 1;
+    for (size_t i = 0; i < n; i++)
+        if (s[i] == ',' || s[i] == '"' || s[i] == '\n' || s[i] == '\r')
+            return 1;
+    return 0;
+}
+
+void corax_writer_field(corax_writer *w, const char *s, size_t n)
+{
+    separator(w);
+    if (!needs_quotes(s, n)) {
+        corax_writer_text(w, s, n);
+        return;
+    }
+    corax_writer_text(w, "\"", 1);
+    for (const char *q; (q = memchr(s, '"', n)) != NULL;) {
+        size_t k = (size_t)(q - s) + 1;
+        corax_writer_text(w, s, k);
+        corax_writer_text(w, "\"", 1); /* a quote inside is doubled */
+        s += k;
+        n -= k;
+    }
+    corax_writer_text(w, s, n);
+    corax_writer_text(w, "\"", 1);
+}
+
+size_t corax_format_fixed(char *buf, double v, int decimals)
+{
+    static const double scale[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9};
+    static const uint64_t iscale[] = {1, 10, 100, 1000, 10000, 100000, 1000000,
+                                      10000000, 100000000, 1000000000};
+    if (isnan(v))
+        return 0;
+    if (decimals < 0)
+        decimals = 0;
+    if (decimals > 9)
+        decimals = 9;
+    double scaled = fabs(v) * scale[decimals];
+    if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
+        return (size_t)snprintf(buf, 40, "%.17g", v);
+    uint64_t q = (uint64_t)llround(scaled);
+    char tmp[40];
+    size_t n = 0;
+    uint64_t whole = q / iscale[decimals], frac = q % iscale[decimals];
+    for (int i = 0; i < decimals; i++, frac /= 10)
+        tmp[n++] = (char)('0' + frac % 10);
+    if (decimals)
+        tmp[n++] = '.';
+    do {
+        tmp[n++] = (char)('0' + whole % 10);
+        whole /= 10;
+    } while (whole);
+    if (v < 0.0 && q != 0)
+        tmp[n++] = '-';
+    for (size_t i = 0; i < n; i++)
+        buf[i] = tmp[n - 1 - i];
+    return n;
+}
+
+void corax_writer_number(corax_writer *w, double v, int decimals)
+{
+    separator(w);
+    if (w->used + 40 > OUT_BUFFER)
+        flush(w);
+    w->used += corax_format_fixed(w->buf + w->used, v, decimals);
+}
+
+void corax_writer_azimuth(corax_writer *w, double degrees, int decimals)
+{
+    corax_writer_number(w, isnan(degrees) ? degrees : corax_wrap_degrees(degrees, decimals),
+                        decimals);
+}
+
+void corax_writer_integer(corax_writer *w, long long value)
+{
+    char tmp[32];
+    int n = snprintf(tmp, sizeof tmp, "%lld", value);
+    separator(w);
+    corax_writer_text(w, tmp, (size_t)n);
+}
+
+void corax_writer_end_row(corax_writer *w)
+{
+    corax_writer_text(w, "\n", 1);
+    w->row_start = 1;
+}
+
+corax_status corax_writer_commit(corax_writer *w, corax_error *err)
+{
+    flush(w);
+    const char *name = w->path ? w->path : "standard output";
+    if (w->path) {
+        if (!w->failed && fsync(w->fd) != 0)
+            w->failed = errno;
+        if (close(w->fd) != 0 && !w->failed)
+            w->failed = errno;
+        w->fd = -1;
+        if (!w->failed && rename(w->tmp, w->path) != 0)
+            w->failed = errno;
+        if (!w->failed) {
+            free(w->tmp); /* renamed: nothing left to remove */
+            w->tmp = NULL;
+        }
+    }
+    int failed = w->failed;
+    corax_writer_discard(w);
+    if (failed)
+        return corax_error_set(err, CORAX_EIO, name, 0, "cannot write: %s", strerror(failed));
+    return CORAX_OK;
+}
+
+void corax_writer_discard(corax_writer *w)
+{
+    if (!w)
+        return;
+    if (w->path && w->fd >= 0)
+        close(w->fd);
+    if (w->tmp)
+        unlink(w->tmp);
+    free(w->tmp);
+    free(w->path);
+    free(w->buf);
+    free(w);
+}
