@@ -1,0 +1,15 @@
+/* corax: oriented drill core, from survey to structure. The whole public API. */
+#ifndef CORAX_H
+#define CORAX_H
+
+#define CORAX_VERSION "0.1.0"
+
+#include "corax/finding.h"
+#include "corax/geometry.h"
+#include "corax/load.h"
+#include "corax/output.h"
+#include "corax/status.h"
+#include "corax/survey.h"
+#include "corax/table.h"
+
+#endif

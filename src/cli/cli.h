@@ -1,0 +1,106 @@
+/* The command line: shared pieces of the commands (internal to src/cli). */
+#ifndef CORAX_CLI_H
+#define CORAX_CLI_H
+
+#include <getopt.h>
+#include <stdio.h>
+
+#include "corax/corax.h"
+
+/* Exit statuses. */
+enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
+
+/* Options shared by the commands that read a drill program. */
+typedef struct cli_common {
+    const char *command; /* for messages */
+    const char *collars, *surveys;
+    const char *output;  /* "-" for standard output */
+    const char *about;   /* side file; NULL: OUTPUT.about when output is a file */
+    corax_column_map *columns;
+    corax_load_options load;
+    int quiet;
+} cli_common;
+
+/* getopt_long codes of the shared options (beyond single letters). */
+enum {
+    OPT_COLLARS = 1000,
+    OPT_SURVEYS,
+    OPT_COLUMNS,
+    OPT_DIP_CONVENTION,
+    OPT_DECLINATION,
+    OPT_CONVERGENCE,
+    OPT_DELIMITER,
+    OPT_DECIMAL_COMMA,
+    OPT_ABOUT,
+    OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
+};
+
+/* Long options for the shared set; commands append them to their own table. */
+#define CLI_COMMON_OPTIONS                                                   \
+    {"collars", required_argument, NULL, OPT_COLLARS},                       \
+        {"surveys", required_argument, NULL, OPT_SURVEYS},                   \
+        {"columns", required_argument, NULL, OPT_COLUMNS},                   \
+        {"dip-convention", required_argument, NULL, OPT_DIP_CONVENTION},     \
+        {"declination", required_argument, NULL, OPT_DECLINATION},           \
+        {"convergence", required_argument, NULL, OPT_CONVERGENCE},           \
+        {"delimiter", required_argument, NULL, OPT_DELIMITER},               \
+        {"decimal-comma", no_argument, NULL, OPT_DECIMAL_COMMA},             \
+        {"about", required_argument, NULL, OPT_ABOUT},                       \
+        {"output", required_argument, NULL, 'o'},                            \
+        {"quiet", no_argument, NULL, 'q'}, {"help", no_argument, NULL, 'h'}
+
+/* Help text for the shared options. */
+extern const char cli_common_help[];
+
+void cli_common_init(cli_common *c, const char *command);
+void cli_common_free(cli_common *c);
+
+/* Parse a command's options: the shared ones into c, the rest through
+ * own(ctx, opt, arg), which returns 0 or EXIT_USAGE (message printed).
+ * help is printed, followed by the shared help when `shared_help`, for -h.
+ * Returns 0 to go on, -1 after help, EXIT_USAGE on a usage error. Positional
+ * arguments are left at argv[optind..]. */
+int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopts,
+              const char *help, int shared_help, int (*own)(void *ctx, int opt, const char *arg),
+              void *ctx);
+
+/* Handle one shared option: 1 handled, 0 not a shared option, -1 usage error
+ * (already printed). */
+int cli_common_option(cli_common *c, int opt, const char *arg);
+
+/* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
+int cli_common_finish(cli_common *c, int need_program);
+
+/* Load the drill program, printing findings; NULL (message printed) when it
+ * cannot be used. */
+corax_program *cli_load_program(cli_common *c);
+
+/* Messages on stderr: `corax: FILE:LINE: message` or `corax: message`. */
+void cli_error(const char *file, long line, const char *fmt, ...)
+    __attribute__((format(printf, 3, 4)));
+void cli_error_record(const corax_error *err, corax_status st);
+void cli_finding(const corax_finding *f);
+
+/* A usage error: prints the message and a pointer to --help; returns EXIT_USAGE. */
+int cli_usage(const char *command, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+
+/* Parse a number option (degrees, metres); 0 ok, -1 usage error printed. */
+int cli_number(const char *command, const char *option, const char *arg, double lo, double hi,
+               double *value);
+
+/* The name of a dip convention as the options spell it. */
+const char *cli_dip_convention_name(corax_dip_convention c);
+
+/* The record of what a run assumed, written next to its output. */
+typedef struct cli_about cli_about;
+cli_about *cli_about_new(const char *command, const cli_common *c);
+void cli_about_section(cli_about *a, const char *section);
+void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
+    __attribute__((format(printf, 3, 4)));
+/* Write it (when there is somewhere to write) and free it; 0 ok. */
+int cli_about_commit(cli_about *a, const cli_common *c);
+
+/* Commands. */
+int cmd_trace(int argc, char **argv);
+
+#endif

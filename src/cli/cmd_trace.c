@@ -1,0 +1,293 @@
+/* cli: `corax trace`, the desurveyed holes: positions and directions at the
+ * depths asked for, or down every hole at a step. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli/cli.h"
+#include "io/fields.h"
+
+static const char trace_help[] =
+    "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES] [-o FILE]\n"
+    "\n"
+    "Desurvey every hole by minimum curvature and report where each hole is and\n"
+    "which way it points.\n"
+    "\n"
+    "  --at FILE             a table with hole and depth columns: one output row per\n"
+    "                        input row, in order, its columns first and untouched, then\n"
+    "                        x, y, z, azimuth, dip, status, note\n"
+    "  --step METRES         points every METRES down each hole, plus the collar, every\n"
+    "                        station and the end of the hole, with the dogleg severity\n"
+    "                        (degrees per 30 m) at stations\n"
+    "                        Without --at or --step: the collar, stations and hole end.\n"
+    "\n"
+    "Status: ok; extrapolated (below the last station); collar-only (no survey: straight\n"
+    "along the collar's azimuth and dip); beyond-end (deeper than the hole's length);\n"
+    "no-survey (neither stations nor a collar direction); unknown-hole; bad-depth.\n"
+    "\n";
+
+typedef struct trace_opts {
+    cli_common c;
+    const char *at;
+    double step;
+} trace_opts;
+
+enum { OPT_AT = OPT_COMMAND_BASE, OPT_STEP };
+
+static void write_point(corax_writer *w, const corax_hole_point *pt,
+                        corax_dip_convention conv)
+{
+    double az, plunge;
+    corax_direction_angles(pt->tangent, &az, &plunge);
+    corax_writer_number(w, pt->position.x, 3);
+    corax_writer_number(w, pt->position.y, 3);
+    corax_writer_number(w, pt->position.z, 3);
+    corax_writer_azimuth(w, corax_deg(az), 3);
+    corax_writer_number(w, corax_plunge_to_dip(plunge, conv), 3);
+}
+
+static void write_blank_point(corax_writer *w)
+{
+    for (int i = 0; i < 5; i++)
+        corax_writer_field(w, "", 0);
+}
+
+static void write_text(corax_writer *w, const char *s) { corax_writer_field(w, s, strlen(s)); }
+
+/* One --at row: its own fields, then the answer. */
+static void trace_row(const trace_opts *o, const corax_program *prog, const corax_row *row,
+                      const long *col, size_t width, corax_writer *w)
+{
+    char note[240] = "";
+    for (size_t i = 0; i < width; i++)
+        corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
+    if (row->count > width) { /* keep the surplus fields: nothing is lost */
+        size_t used = (size_t)snprintf(note, sizeof note, "extra fields: ");
+        for (size_t i = width; i < row->count && used < sizeof note; i++)
+            used += (size_t)snprintf(note + used, sizeof note - used, "%s%s",
+                                     i > width ? "," : "", row->field[i]);
+    }
+    size_t hl;
+    const char *hole_name = corax_field_text(row, col[0], &hl);
+    const corax_hole *hole = corax_program_find(prog, hole_name, hl);
+    double depth;
+    char why[200];
+    corax_number_status ds = corax_field_number(row, col[1], o->c.load.format.decimal, "depth",
+                                                &depth, why, sizeof why);
+    const char *status;
+    corax_hole_point pt;
+    if (!hole) {
+        status = "unknown-hole";
+        write_blank_point(w);
+    } else if (ds != CORAX_NUMBER_OK || depth < 0.0) {
+        status = "bad-depth";
+        if (ds == CORAX_NUMBER_OK)
+            snprintf(why, sizeof why, "depth %g is negative", depth);
+        snprintf(note + strlen(note), sizeof note - strlen(note), "%s%s", note[0] ? "; " : "", why);
+        write_blank_point(w);
+    } else if (corax_hole_at(hole, depth, NULL, &pt) == CORAX_ENOTFOUND) {
+        status = "no-survey";
+        write_blank_point(w);
+    } else {
+        status = corax_where_name(pt.where);
+        write_point(w, &pt, o->c.load.dip_convention);
+    }
+    write_text(w, status);
+    write_text(w, note);
+    corax_writer_end_row(w);
+}
+
+static int trace_at(const trace_opts *o, const corax_program *prog, corax_writer *w)
+{
+    static const char *const names[] = {"hole", "depth"};
+    long col[2];
+    size_t width;
+    corax_row row;
+    corax_reader *r;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_reader_open(o->at, o->c.load.format, &r, &err);
+    if (st == CORAX_OK)
+        st = corax_table_header(r, names, 2, 2, o->c.columns, col, &width, &row, &err);
+    if (st == CORAX_OK) {
+        for (size_t i = 0; i < row.count; i++)
+            corax_writer_field(w, row.field[i], row.length[i]);
+        static const char *const out[] = {"x", "y", "z", "azimuth", "dip", "status", "note"};
+        for (size_t i = 0; i < 7; i++)
+            write_text(w, out[i]);
+        corax_writer_end_row(w);
+        while ((st = corax_reader_next(r, &row, &err)) == CORAX_OK)
+            trace_row(o, prog, &row, col, width, w);
+    }
+    corax_reader_close(r);
+    if (st != CORAX_END) {
+        cli_error_record(&err, st);
+        return EXIT_DATA;
+    }
+    return EXIT_OK;
+}
+
+/* A point down a hole; on equal depths the higher kind wins. */
+enum { POINT_STEP, POINT_COLLAR, POINT_END, POINT_STATION };
+static const char *const point_name[] = {"step", "collar", "end", "station"};
+
+typedef struct point {
+    double depth;
+    int kind;
+    size_t station;
+} point;
+
+static int point_cmp(const void *a, const void *b)
+{
+    const point *x = a, *y = b;
+    if (x->depth != y->depth)
+        return x->depth < y->depth ? -1 : 1;
+    return y->kind - x->kind;
+}
+
+/* Points down one hole: collar, steps, stations and end, in depth order. */
+static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
+{
+    size_t ns = corax_hole_station_count(h);
+    double length = corax_hole_length(h);
+    size_t nsteps = o->step > 0.0 ? (size_t)floor(length / o->step) + 1 : 0;
+    size_t n = 0;
+    point *p = malloc((nsteps + ns + 2) * sizeof *p);
+    if (!p)
+        return -1;
+    p[n++] = (point){0.0, POINT_COLLAR, 0};
+    for (size_t k = 1; k < nsteps; k++)
+        p[n++] = (point){(double)k * o->step, POINT_STEP, 0};
+    for (size_t i = 0; i < ns; i++) {
+        corax_station s;
+        corax_hole_station(h, i, &s, NULL, NULL);
+        p[n++] = (point){s.depth, POINT_STATION, i};
+    }
+    if (length > 0.0)
+        p[n++] = (point){length, POINT_END, 0};
+    qsort(p, n, sizeof *p, point_cmp);
+    const char *name = corax_hole_name(h);
+    size_t hint = 0;
+    for (size_t k = 0; k < n; k++) {
+        if (k > 0 && p[k].depth - p[k - 1].depth < 1e-9)
+            continue; /* the same place, already written under a higher kind */
+        double dls = NAN;
+        if (p[k].kind == POINT_STATION)
+            corax_hole_station(h, p[k].station, NULL, NULL, &dls);
+        corax_hole_point pt;
+        corax_writer_field(w, name, strlen(name));
+        corax_writer_number(w, p[k].depth, 3);
+        const char *status;
+        if (corax_hole_at(h, p[k].depth, &hint, &pt) == CORAX_ENOTFOUND) {
+            if (p[k].depth == 0.0) { /* the collar is all we know */
+                corax_writer_number(w, pt.position.x, 3);
+                corax_writer_number(w, pt.position.y, 3);
+                corax_writer_number(w, pt.position.z, 3);
+                corax_writer_field(w, "", 0);
+                corax_writer_field(w, "", 0);
+            } else {
+                write_blank_point(w);
+            }
+            status = "no-survey";
+        } else {
+            write_point(w, &pt, o->c.load.dip_convention);
+            status = corax_where_name(pt.where);
+        }
+        corax_writer_number(w, corax_deg(dls), 3);
+        write_text(w, point_name[p[k].kind]);
+        write_text(w, status);
+        corax_writer_end_row(w);
+    }
+    free(p);
+    return 0;
+}
+
+static int trace_all(const trace_opts *o, const corax_program *prog, corax_writer *w)
+{
+    static const char header[] =
+        "hole,depth,x,y,z,azimuth,dip,dogleg_severity,point,status\n";
+    corax_writer_text(w, header, sizeof header - 1);
+    for (size_t i = 0; i < corax_program_size(prog); i++)
+        if (trace_hole(o, corax_program_hole(prog, i), w) != 0) {
+            cli_error(NULL, 0, "out of memory");
+            return EXIT_DATA;
+        }
+    return EXIT_OK;
+}
+
+static int trace_option(void *ctx, int opt, const char *arg)
+{
+    trace_opts *o = ctx;
+    switch (opt) {
+    case OPT_AT: o->at = arg; return 0;
+    case OPT_STEP: return cli_number("trace", "--step", arg, 1e-3, 1e5, &o->step) ? EXIT_USAGE : 0;
+    }
+    return cli_usage("trace", "unknown option");
+}
+
+static int parse(int argc, char **argv, trace_opts *o)
+{
+    static const struct option longopts[] = {
+        CLI_COMMON_OPTIONS,
+        {"at", required_argument, NULL, OPT_AT},
+        {"step", required_argument, NULL, OPT_STEP},
+        {NULL, 0, NULL, 0},
+    };
+    int rc = cli_parse(argc, argv, &o->c, longopts, trace_help, 1, trace_option, o);
+    if (rc != 0)
+        return rc;
+    if (optind < argc)
+        return cli_usage("trace", "unexpected argument '%s'", argv[optind]);
+    if (o->at && o->step > 0.0)
+        return cli_usage("trace", "--at and --step do not go together");
+    return cli_common_finish(&o->c, 1);
+}
+
+int cmd_trace(int argc, char **argv)
+{
+    trace_opts o;
+    memset(&o, 0, sizeof o);
+    cli_common_init(&o.c, "trace");
+    int rc = parse(argc, argv, &o);
+    if (rc != 0) {
+        cli_common_free(&o.c);
+        return rc < 0 ? EXIT_OK : rc;
+    }
+    corax_program *prog = cli_load_program(&o.c);
+    if (!prog) {
+        cli_common_free(&o.c);
+        return EXIT_DATA;
+    }
+    corax_writer *w;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_writer_open(o.c.output, &w, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        rc = EXIT_DATA;
+    } else {
+        rc = o.at ? trace_at(&o, prog, w) : trace_all(&o, prog, w);
+        if (rc == EXIT_OK) {
+            st = corax_writer_commit(w, &err);
+            if (st != CORAX_OK) {
+                cli_error_record(&err, st);
+                rc = EXIT_DATA;
+            }
+        } else {
+            corax_writer_discard(w);
+        }
+    }
+    if (rc == EXIT_OK) {
+        cli_about *a = cli_about_new("trace", &o.c);
+        cli_about_section(a, "trace");
+        if (o.at)
+            cli_about_set(a, "at", "%s", o.at);
+        else
+            cli_about_set(a, "step", "%g", o.step);
+        if (cli_about_commit(a, &o.c) != 0)
+            rc = EXIT_DATA;
+    }
+    corax_program_free(prog);
+    cli_common_free(&o.c);
+    return rc;
+}

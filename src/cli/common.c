@@ -1,0 +1,334 @@
+/* cli: options shared by the commands, messages, and the side file that
+ * records what a run assumed. */
+#include <math.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+#include "cli/cli.h"
+
+const char cli_common_help[] =
+    "Drill program:\n"
+    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length\n"
+    "  --surveys FILE        survey table: hole, depth, azimuth, dip\n"
+    "  --columns MAP         header names for corax's columns, e.g.\n"
+    "                        hole=HOLE_NO,depth=DEPTH_M (names match without case)\n"
+    "  --dip-convention C    negative-down (default: -60 is a downward hole),\n"
+    "                        positive-down, or from-vertical (0 = straight down)\n"
+    "  --declination DEG     magnetic declination, east positive; added to survey\n"
+    "                        azimuths (magnetic to true). Default 0\n"
+    "  --convergence DEG     grid convergence or local grid rotation, positive when\n"
+    "                        grid north is east of true north; subtracted from\n"
+    "                        survey azimuths (true to grid). Default 0\n"
+    "  --delimiter ,|;       field separator of the input tables (default ,)\n"
+    "  --decimal-comma       numbers use a decimal comma (needs --delimiter ';')\n"
+    "Output:\n"
+    "  -o, --output FILE     output file (default: standard output)\n"
+    "  --about FILE          record of the run's assumptions (default: OUTPUT.about\n"
+    "                        when -o names a file)\n"
+    "  -q, --quiet           no progress or warnings on standard error\n"
+    "  -h, --help            this help\n";
+
+void cli_common_init(cli_common *c, const char *command)
+{
+    memset(c, 0, sizeof *c);
+    c->command = command;
+    c->output = "-";
+    c->load = corax_load_options_default();
+}
+
+void cli_common_free(cli_common *c)
+{
+    corax_column_map_free(c->columns);
+    c->columns = NULL;
+}
+
+void cli_error(const char *file, long line, const char *fmt, ...)
+{
+    va_list ap;
+    fputs("corax: ", stderr);
+    if (file && line > 0)
+        fprintf(stderr, "%s:%ld: ", file, line);
+    else if (file)
+        fprintf(stderr, "%s: ", file);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
+
+void cli_error_record(const corax_error *err, corax_status st)
+{
+    cli_error(err->file, err->line, "%s", err->message[0] ? err->message : corax_strerror(st));
+}
+
+void cli_finding(const corax_finding *f)
+{
+    cli_error(f->file, f->line, "%s%s", f->severity == CORAX_WARNING ? "warning: " : "",
+              f->message);
+}
+
+int cli_usage(const char *command, const char *fmt, ...)
+{
+    va_list ap;
+    fputs("corax: ", stderr);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    if (command)
+        fprintf(stderr, "\nTry 'corax %s --help'.\n", command);
+    else
+        fputs("\nTry 'corax --help'.\n", stderr);
+    return EXIT_USAGE;
+}
+
+int cli_number(const char *command, const char *option, const char *arg, double lo, double hi,
+               double *value)
+{
+    double v;
+    if (corax_parse_number(arg, strlen(arg), '.', &v) != CORAX_NUMBER_OK) {
+        cli_usage(command, "%s: '%s' is not a number", option, arg);
+        return -1;
+    }
+    if (v < lo || v > hi) {
+        cli_usage(command, "%s: %s is outside [%g, %g]", option, arg, lo, hi);
+        return -1;
+    }
+    *value = v;
+    return 0;
+}
+
+static const char *const dip_names[] = {"negative-down", "positive-down", "from-vertical"};
+
+const char *cli_dip_convention_name(corax_dip_convention c)
+{
+    return (unsigned)c < 3 ? dip_names[c] : "unknown";
+}
+
+int cli_common_option(cli_common *c, int opt, const char *arg)
+{
+    corax_error err;
+    switch (opt) {
+    case OPT_COLLARS: c->collars = arg; return 1;
+    case OPT_SURVEYS: c->surveys = arg; return 1;
+    case OPT_ABOUT: c->about = arg; return 1;
+    case 'o': c->output = arg; return 1;
+    case 'q': c->quiet = 1; return 1;
+    case OPT_COLUMNS:
+        corax_error_clear(&err);
+        if (corax_column_map_add(&c->columns, arg, &err) != CORAX_OK) {
+            cli_usage(c->command, "--columns: %s", err.message);
+            return -1;
+        }
+        c->load.columns = c->columns;
+        return 1;
+    case OPT_DIP_CONVENTION:
+        for (int i = 0; i < 3; i++)
+            if (strcmp(arg, dip_names[i]) == 0) {
+                c->load.dip_convention = (corax_dip_convention)i;
+                return 1;
+            }
+        cli_usage(c->command, "--dip-convention: '%s' is not negative-down, positive-down or "
+                        "from-vertical", arg);
+        return -1;
+    case OPT_DECLINATION:
+        return cli_number(c->command, "--declination", arg, -180, 180, &c->load.declination) ? -1 : 1;
+    case OPT_CONVERGENCE:
+        return cli_number(c->command, "--convergence", arg, -180, 180, &c->load.convergence) ? -1 : 1;
+    case OPT_DELIMITER:
+        if ((arg[0] == ',' || arg[0] == ';') && arg[1] == '\0') {
+            c->load.format.delimiter = arg[0];
+            return 1;
+        }
+        if (strcmp(arg, "comma") == 0 || strcmp(arg, "semicolon") == 0) {
+            c->load.format.delimiter = arg[0] == 'c' ? ',' : ';';
+            return 1;
+        }
+        cli_usage(c->command, "--delimiter: '%s' is not ',' or ';'", arg);
+        return -1;
+    case OPT_DECIMAL_COMMA: c->load.format.decimal = ','; return 1;
+    }
+    return 0;
+}
+
+int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopts,
+              const char *help, int shared_help, int (*own)(void *ctx, int opt, const char *arg),
+              void *ctx)
+{
+    int opt;
+    optind = 1;
+    opterr = 0; /* our own messages, in our own words */
+    while ((opt = getopt_long(argc, argv, ":o:qh", longopts, NULL)) != -1) {
+        if (opt == 'h') {
+            fputs(help, stdout);
+            if (shared_help)
+                fputs(cli_common_help, stdout);
+            return -1;
+        }
+        if (opt == '?')
+            return cli_usage(c->command, "unknown option '%s'", argv[optind - 1]);
+        if (opt == ':')
+            return cli_usage(c->command, "option '%s' needs a value", argv[optind - 1]);
+        int k = cli_common_option(c, opt, optarg);
+        if (k < 0)
+            return EXIT_USAGE;
+        if (k == 0 && own(ctx, opt, optarg) != 0)
+            return EXIT_USAGE;
+    }
+    return 0;
+}
+
+int cli_common_finish(cli_common *c, int need_program)
+{
+    if (c->load.format.decimal == ',' && c->load.format.delimiter != ';')
+        return cli_usage(c->command, "--decimal-comma needs --delimiter ';' (a comma cannot both "
+                               "separate fields and mark decimals)");
+    if (need_program && (!c->collars || !c->surveys))
+        return cli_usage(c->command, "--collars and --surveys are both needed");
+    return 0;
+}
+
+corax_program *cli_load_program(cli_common *c)
+{
+    corax_program *prog = NULL;
+    corax_findings problems = {0};
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_program_load(c->collars, c->surveys, &c->load, &prog, &problems, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        corax_findings_clear(&problems);
+        return NULL;
+    }
+    size_t errors = corax_findings_count(&problems, CORAX_ERROR), shown = 0;
+    for (size_t i = 0; i < problems.count; i++) {
+        const corax_finding *f = &problems.item[i];
+        if (f->severity < CORAX_ERROR && (c->quiet || errors))
+            continue;
+        if (shown++ == 50) {
+            cli_error(NULL, 0, "... and more problems; fix these first");
+            break;
+        }
+        cli_finding(f);
+    }
+    corax_findings_clear(&problems);
+    if (errors) {
+        cli_error(NULL, 0, "%zu problem%s in the collar and survey tables; nothing written",
+                  errors, errors == 1 ? "" : "s");
+        corax_program_free(prog);
+        return NULL;
+    }
+    return prog;
+}
+
+/* ---- the side file ---- */
+
+struct cli_about {
+    char *text;
+    size_t len, cap;
+};
+
+static void about_add(cli_about *a, const char *s)
+{
+    size_t n = strlen(s);
+    if (!a)
+        return;
+    if (a->len + n + 1 > a->cap) {
+        size_t cap = a->cap ? a->cap : 1024;
+        while (cap < a->len + n + 1)
+            cap *= 2;
+        char *t = realloc(a->text, cap);
+        if (!t)
+            return;
+        a->text = t;
+        a->cap = cap;
+    }
+    memcpy(a->text + a->len, s, n + 1);
+    a->len += n;
+}
+
+void cli_about_section(cli_about *a, const char *section)
+{
+    about_add(a, "\n[");
+    about_add(a, section);
+    about_add(a, "]\n");
+}
+
+void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
+{
+    char value[1024];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(value, sizeof value, fmt, ap);
+    va_end(ap);
+    about_add(a, key);
+    about_add(a, " = ");
+    about_add(a, value);
+    about_add(a, "\n");
+}
+
+cli_about *cli_about_new(const char *command, const cli_common *c)
+{
+    cli_about *a = calloc(1, sizeof *a);
+    about_add(a, "; What this corax run assumed. Keep it with the output it describes.\n");
+    cli_about_section(a, "run");
+    cli_about_set(a, "command", "%s", command);
+    cli_about_set(a, "corax_version", "%s", CORAX_VERSION);
+    char when[64];
+    time_t now = time(NULL);
+    struct tm tm;
+    strftime(when, sizeof when, "%Y-%m-%dT%H:%M:%SZ", gmtime_r(&now, &tm));
+    cli_about_set(a, "time", "%s", when);
+    cli_about_set(a, "output", "%s", strcmp(c->output, "-") ? c->output : "standard output");
+    cli_about_section(a, "inputs");
+    if (c->collars)
+        cli_about_set(a, "collars", "%s", c->collars);
+    if (c->surveys)
+        cli_about_set(a, "surveys", "%s", c->surveys);
+    cli_about_set(a, "delimiter", "%s", c->load.format.delimiter == ';' ? "semicolon" : "comma");
+    cli_about_set(a, "decimal_mark", "%s", c->load.format.decimal == ',' ? "comma" : "point");
+    cli_about_section(a, "survey");
+    cli_about_set(a, "dip_convention", "%s", cli_dip_convention_name(c->load.dip_convention));
+    cli_about_set(a, "declination", "%g", c->load.declination);
+    cli_about_set(a, "convergence", "%g", c->load.convergence);
+    cli_about_set(a, "azimuth_correction", "%g (added to every survey azimuth; collar "
+                  "azimuths are taken as given)", c->load.declination - c->load.convergence);
+    cli_about_set(a, "desurvey", "minimum curvature; straight from the collar above the first "
+                  "station; straight on along the last tangent below the last station");
+    return a;
+}
+
+int cli_about_commit(cli_about *a, const cli_common *c)
+{
+    if (!a)
+        return -1;
+    int rc = 0;
+    char *path = NULL;
+    if (c->about) {
+        path = strdup(c->about);
+    } else if (strcmp(c->output, "-") != 0) {
+        size_t n = strlen(c->output) + 8;
+        if ((path = malloc(n)))
+            snprintf(path, n, "%s.about", c->output);
+    }
+    if (path) {
+        corax_writer *w;
+        corax_error err;
+        corax_error_clear(&err);
+        corax_status st = corax_writer_open(path, &w, &err);
+        if (st == CORAX_OK) {
+            corax_writer_text(w, a->text, a->len);
+            st = corax_writer_commit(w, &err);
+        }
+        if (st != CORAX_OK) {
+            cli_error_record(&err, st);
+            rc = -1;
+        }
+    }
+    free(path);
+    free(a->text);
+    free(a);
+    return rc;
+}

@@ -1,0 +1,62 @@
+/* cli: the corax command. Dispatches to one function per command; knows argv,
+ * stderr and exit codes so the library does not have to. */
+#include <gsl/gsl_errno.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "cli/cli.h"
+
+typedef struct command {
+    const char *name;
+    int (*run)(int argc, char **argv);
+    const char *summary;
+} command;
+
+static const command commands[] = {
+    {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
+};
+
+enum { NCOMMANDS = sizeof commands / sizeof commands[0] };
+
+static void help(FILE *f)
+{
+    fputs("usage: corax COMMAND [options] [FILE...]\n"
+          "\n"
+          "corax turns oriented drill core readings and hole surveys into located,\n"
+          "true orientations, for a whole drill program.\n"
+          "\n"
+          "Commands:\n",
+          f);
+    for (int i = 0; i < NCOMMANDS; i++)
+        fprintf(f, "  %-10s %s\n", commands[i].name, commands[i].summary);
+    fputs("\n'corax COMMAND --help' shows a command's options; 'corax --version' the version.\n",
+          f);
+}
+
+int main(int argc, char **argv)
+{
+    gsl_set_error_handler_off(); /* the library reports GSL failures as statuses */
+    if (argc < 2) {
+        help(stderr);
+        return EXIT_USAGE;
+    }
+    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
+        strcmp(argv[1], "help") == 0) {
+        help(stdout);
+        return fflush(stdout) == 0 ? EXIT_OK : EXIT_DATA;
+    }
+    if (strcmp(argv[1], "--version") == 0) {
+        printf("corax %s\n", CORAX_VERSION);
+        return fflush(stdout) == 0 ? EXIT_OK : EXIT_DATA;
+    }
+    for (int i = 0; i < NCOMMANDS; i++)
+        if (strcmp(argv[1], commands[i].name) == 0) {
+            int rc = commands[i].run(argc - 1, argv + 1);
+            if (fflush(stdout) != 0 && rc == EXIT_OK) {
+                cli_error(NULL, 0, "cannot write to standard output");
+                rc = EXIT_DATA;
+            }
+            return rc;
+        }
+    return cli_usage(NULL, "'%s' is not a corax command", argv[1]);
+}
