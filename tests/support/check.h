@@ -1,0 +1,32 @@
+/* Test helpers shared by the cmocka suites. */
+#ifndef CORAX_TEST_CHECK_H
+#define CORAX_TEST_CHECK_H
+
+#include <setjmp.h>
+#include <stdarg.h>
+#include <stddef.h>
+#include <stdint.h>
+
+#include <cmocka.h>
+
+/* |a - b| <= atol + rtol |b|, else fail with both values and the context
+ * (which should name the source of the expected value). cmocka 1.1.5 has no
+ * double assertion, and assert_float_equal rounds to float. */
+void check_close_at(double actual, double expected, double rtol, double atol,
+                    const char *what, const char *file, int line);
+#define assert_close(a, b, rtol, atol, what) \
+    check_close_at((a), (b), (rtol), (atol), (what), __FILE__, __LINE__)
+
+/* The angle between two azimuths in degrees, in [0, 180]. */
+double azimuth_gap(double a, double b);
+
+/* A fixed-seed uniform number in [0, 1) for property tests (splitmix64). */
+double test_uniform(uint64_t *state);
+
+/* A path for a scratch file under the build's temporary folder. */
+const char *test_tmp_path(const char *name);
+
+/* Write text to a file (for table tests); fails the test on error. */
+void test_write_file(const char *path, const char *text);
+
+#endif

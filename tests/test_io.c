@@ -1,0 +1,356 @@
+/* Tests of the io module: numbers, CSV reading and writing, column names,
+ * whole-or-nothing output files, and loading a drill program. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "corax/load.h"
+#include "corax/output.h"
+#include "corax/table.h"
+#include "support/check.h"
+
+static corax_number_status parse(const char *s, char decimal, double *v)
+{
+    return corax_parse_number(s, strlen(s), decimal, v);
+}
+
+static void test_numbers_parse_like_strtod(void **state)
+{
+    (void)state;
+    static const char *const ok[] = {
+        "0", "-0", "12", "+12", "12.5", ".5", "5.", "-0.000123", "1e3", "1.5E-7", "  42.25\t",
+        "123456789012345678901234567890", "0.1", "0.3", "359.99", "1e308", "4.9e-324",
+        "9007199254740993", "3.141592653589793238462643383279", "1e-400",
+    };
+    for (size_t i = 0; i < sizeof ok / sizeof ok[0]; i++) {
+        double v = -1, ref = strtod(ok[i], NULL);
+        assert_int_equal(parse(ok[i], '.', &v), CORAX_NUMBER_OK);
+        /* strtod (C library) is the reference: correctly rounded */
+        assert_memory_equal(&v, &ref, sizeof v);
+    }
+    uint64_t seed = 11;
+    char buf[64];
+    for (int i = 0; i < 100000; i++) { /* random short decimals, as in drill logs */
+        double x = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 12) - 4);
+        snprintf(buf, sizeof buf, "%.*f", (int)(test_uniform(&seed) * 9), x);
+        double v, ref = strtod(buf, NULL);
+        assert_int_equal(parse(buf, '.', &v), CORAX_NUMBER_OK);
+        if (v != ref)
+            fail_msg("'%s' parsed as %.17g, strtod gives %.17g", buf, v, ref);
+    }
+}
+
+static void test_numbers_refused(void **state)
+{
+    (void)state;
+    double v = 7;
+    assert_int_equal(parse("", '.', &v), CORAX_NUMBER_EMPTY);
+    assert_int_equal(parse("   ", '.', &v), CORAX_NUMBER_EMPTY);
+    static const char *const bad[] = {"abc", "12abc", "1.2.3", "--1", "1e", "e5", ".", "-",
+                                      "0x10", "1,5", "12 3", "1e+"};
+    for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++)
+        assert_int_equal(parse(bad[i], '.', &v), CORAX_NUMBER_NOT_NUMBER);
+    static const char *const inf[] = {"nan", "NaN", "-inf", "Infinity", "1e400", "-1e309"};
+    for (size_t i = 0; i < sizeof inf / sizeof inf[0]; i++)
+        assert_int_equal(parse(inf[i], '.', &v), CORAX_NUMBER_NOT_FINITE);
+    assert_close(v, 7, 0, 0, "a refused number leaves the value alone");
+}
+
+static void test_decimal_comma(void **state)
+{
+    (void)state;
+    double v;
+    assert_int_equal(parse("-12,75", ',', &v), CORAX_NUMBER_OK);
+    assert_close(v, -12.75, 0, 0, "decimal comma");
+    assert_int_equal(parse("1,5e2", ',', &v), CORAX_NUMBER_OK);
+    assert_close(v, 150, 0, 0, "decimal comma with exponent");
+    assert_int_equal(parse("12.75", ',', &v), CORAX_NUMBER_NOT_NUMBER);
+}
+
+static void test_fixed_format_matches_printf(void **state)
+{
+    (void)state;
+    uint64_t seed = 5;
+    char a[64], b[64];
+    for (int i = 0; i < 200000; i++) {
+        double x = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 10) - 3);
+        int d = (int)(test_uniform(&seed) * 7);
+        size_t n = corax_format_fixed(a, x, d);
+        a[n] = '\0';
+        snprintf(b, sizeof b, "%.*f", d, x);
+        if (strcmp(b, "-0") == 0 || strncmp(b, "-0.", 3) == 0) { /* we never print -0 */
+            double back = strtod(b, NULL);
+            if (back == 0.0)
+                memmove(b, b + 1, strlen(b));
+        }
+        /* printf rounds the exact binary value; we round the scaled value. They may
+         * differ only on a last-digit tie: accept a difference of one unit there. */
+        if (strcmp(a, b) != 0) {
+            double ua = strtod(a, NULL), ub = strtod(b, NULL);
+            if (fabs(ua - ub) > 1.01 * pow(10, -d))
+                fail_msg("%.17g to %d places: '%s', printf '%s'", x, d, a, b);
+        }
+    }
+    assert_int_equal(corax_format_fixed(a, NAN, 2), 0);
+    a[corax_format_fixed(a, -0.0001, 2)] = '\0';
+    assert_string_equal(a, "0.00");
+    a[corax_format_fixed(a, -1e300, 1)] = '\0';
+    assert_close(strtod(a, NULL), -1e300, 1e-16, 0, "huge values keep all their digits");
+}
+
+/* Read a whole small table into one string: fields joined by '|', rows by '/',
+ * each row prefixed with its line. */
+static corax_status slurp(const char *path, corax_table_format fmt, char *out, size_t n,
+                          corax_error *err)
+{
+    corax_reader *r;
+    corax_status st = corax_reader_open(path, fmt, &r, err);
+    if (st != CORAX_OK)
+        return st;
+    corax_row row;
+    size_t used = 0;
+    out[0] = '\0';
+    while ((st = corax_reader_next(r, &row, err)) == CORAX_OK) {
+        used += (size_t)snprintf(out + used, n - used, "%ld:", row.line);
+        for (size_t i = 0; i < row.count; i++)
+            used += (size_t)snprintf(out + used, n - used, "%s%s", i ? "|" : "", row.field[i]);
+        used += (size_t)snprintf(out + used, n - used, "/");
+    }
+    corax_reader_close(r);
+    return st;
+}
+
+static void test_reader_handles_real_world_csv(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("real.csv");
+    char got[1024];
+    corax_table_format f = corax_table_format_default();
+    /* byte-order mark, CRLF, blank line, quoted comma, doubled quote, quoted
+     * newline, trailing spaces, last line without a line end */
+    test_write_file(path, "\xEF\xBB\xBFhole,depth,note\r\nA,1.5,\"x, y\"\r\n\r\n"
+                          "B , 2 ,\"say \"\"hi\"\"\"\r\nC,3,\"two\r\nlines\"\r\nD,4,end");
+    assert_int_equal(slurp(path, f, got, sizeof got, NULL), CORAX_END);
+    assert_string_equal(got, "1:hole|depth|note/2:A|1.5|x, y/4:B|2|say \"hi\"/"
+                             "5:C|3|two\r\nlines/7:D|4|end/");
+    /* old Mac line ends (CR only) count as lines too */
+    test_write_file(path, "a,b\rc,d\re,f\r");
+    assert_int_equal(slurp(path, f, got, sizeof got, NULL), CORAX_END);
+    assert_string_equal(got, "1:a|b/2:c|d/3:e|f/");
+    /* semicolons, with decimal commas left inside fields */
+    f.delimiter = ';';
+    f.decimal = ',';
+    test_write_file(path, "hole;depth\nA;12,5\n");
+    assert_int_equal(slurp(path, f, got, sizeof got, NULL), CORAX_END);
+    assert_string_equal(got, "1:hole|depth/2:A|12,5/");
+    unlink(path);
+}
+
+static void test_reader_faults(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("broken.csv");
+    char got[256];
+    corax_error err;
+    corax_table_format f = corax_table_format_default();
+    test_write_file(path, "a,b\n1,2\n3,\"never closed\n4,5\n");
+    assert_int_equal(slurp(path, f, got, sizeof got, &err), CORAX_EFORMAT);
+    assert_int_equal(err.line, 3);
+    assert_string_equal(err.file, path);
+    unlink(path);
+    assert_int_equal(slurp(path, f, got, sizeof got, &err), CORAX_EIO);
+    assert_non_null(strstr(err.message, "cannot open"));
+    test_write_file(path, "");
+    assert_int_equal(slurp(path, f, got, sizeof got, &err), CORAX_END);
+    assert_string_equal(got, "");
+    unlink(path);
+}
+
+/* A table bigger than the reader's block, with rows straddling block edges. */
+static void test_reader_large_file(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("large.csv");
+    FILE *fp = fopen(path, "w");
+    assert_non_null(fp);
+    fprintf(fp, "hole,depth,text\n");
+    for (int i = 0; i < 120000; i++)
+        fprintf(fp, "H%d,%d.5,\"quoted, %d\"\r\n", i % 97, i, i);
+    fclose(fp);
+    corax_reader *r;
+    assert_int_equal(corax_reader_open(path, corax_table_format_default(), &r, NULL), CORAX_OK);
+    corax_row row;
+    long n = 0;
+    char want[64];
+    while (corax_reader_next(r, &row, NULL) == CORAX_OK) {
+        if (n > 0) {
+            assert_int_equal(row.count, 3);
+            snprintf(want, sizeof want, "quoted, %ld", n - 1);
+            assert_string_equal(row.field[2], want);
+            assert_int_equal(row.line, n + 1);
+        }
+        n++;
+    }
+    assert_int_equal(n, 120001);
+    corax_reader_close(r);
+    unlink(path);
+}
+
+static void test_writer_quotes_and_commits_whole(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("out.csv");
+    unlink(path);
+    corax_writer *w;
+    assert_int_equal(corax_writer_open(path, &w, NULL), CORAX_OK);
+    corax_writer_field(w, "plain", 5);
+    corax_writer_field(w, "a,b", 3);
+    corax_writer_field(w, "say \"hi\"", 8);
+    corax_writer_field(w, " lead", 5);
+    corax_writer_number(w, 12.3456, 2);
+    corax_writer_azimuth(w, 359.996, 2);
+    corax_writer_number(w, NAN, 2);
+    corax_writer_integer(w, -17);
+    corax_writer_end_row(w);
+    assert_int_equal(access(path, F_OK), -1); /* nothing under the real name yet */
+    assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
+    char got[256];
+    assert_int_equal(slurp(path, corax_table_format_default(), got, sizeof got, NULL), CORAX_END);
+    FILE *fp = fopen(path, "r");
+    char line[256];
+    assert_non_null(fgets(line, sizeof line, fp));
+    fclose(fp);
+    assert_string_equal(line, "plain,\"a,b\",\"say \"\"hi\"\"\",\" lead\",12.35,0.00,,-17\n");
+
+    /* a discarded output leaves the earlier file untouched and no temporary */
+    assert_int_equal(corax_writer_open(path, &w, NULL), CORAX_OK);
+    corax_writer_text(w, "half", 4);
+    corax_writer_discard(w);
+    fp = fopen(path, "r");
+    assert_non_null(fgets(line, sizeof line, fp));
+    fclose(fp);
+    assert_string_equal(line, "plain,\"a,b\",\"say \"\"hi\"\"\",\" lead\",12.35,0.00,,-17\n");
+    unlink(path);
+
+    corax_error err;
+    assert_int_equal(corax_writer_open("/nonexistent-dir/x.csv", &w, &err), CORAX_EIO);
+    assert_string_equal(err.file, "/nonexistent-dir/x.csv");
+}
+
+static void test_column_names_and_mapping(void **state)
+{
+    (void)state;
+    const char *names[] = {"HOLE_NO", "Depth_M", "Easting", "Z", "depth"};
+    size_t len[5];
+    for (int i = 0; i < 5; i++)
+        len[i] = strlen(names[i]);
+    corax_row header = {5, names, len, 1};
+    assert_int_equal(corax_column_find(&header, "x", NULL), 2);
+    assert_int_equal(corax_column_find(&header, "z", NULL), 3);
+    assert_int_equal(corax_column_find(&header, "hole", NULL), -1);
+    assert_int_equal(corax_column_find(&header, "depth", NULL), 4);
+    corax_column_map *map = NULL;
+    corax_error err;
+    assert_int_equal(corax_column_map_add(&map, "hole=hole_no, depth = DEPTH_M", &err), CORAX_OK);
+    assert_int_equal(corax_column_find(&header, "hole", map), 0);
+    assert_int_equal(corax_column_find(&header, "depth", map), 1);
+    assert_int_equal(corax_column_map_add(&map, "depth=Z", &err), CORAX_OK);
+    assert_int_equal(corax_column_find(&header, "depth", map), 3);
+    assert_int_equal(corax_column_map_add(&map, "colour=red", &err), CORAX_EARG);
+    assert_non_null(strstr(err.message, "colour"));
+    assert_int_equal(corax_column_map_add(&map, "hole", &err), CORAX_EARG);
+    assert_int_equal(corax_column_map_add(&map, "hole=", &err), CORAX_EARG);
+    corax_column_map_free(map);
+
+    const char *dup[] = {"hole", "depth", "DEPTH"};
+    size_t dlen[] = {4, 5, 5};
+    corax_row h2 = {3, dup, dlen, 3};
+    assert_int_equal(corax_header_check(&h2, &err), CORAX_EFORMAT);
+    assert_int_equal(err.line, 3);
+    assert_non_null(strstr(err.message, "columns 2 and 3"));
+}
+
+/* Loading a program: row faults become findings at their file and line. */
+static void test_load_program_reports_row_faults(void **state)
+{
+    (void)state;
+    const char *cpath = test_tmp_path("collars.csv"), *spath = test_tmp_path("surveys.csv");
+    test_write_file(cpath, "hole,x,y,z,azimuth,dip,length\n"
+                           "A,100,200,50,90,-60,300\n"
+                           "B,abc,200,50,,,\n"          /* line 3: bad x */
+                           "C,0,0,0,,,\n"               /* no direction, no surveys */
+                           "D,1,2,3,45,-95,\n"          /* line 5: dip out of range */
+                           "A,1,1,1,,,\n");             /* line 6: second collar */
+    test_write_file(spath, "hole,depth,azimuth,dip\n"
+                           "A,0,90,-60\n"
+                           "A,100,361,-60\n"            /* line 3: azimuth out of range */
+                           "A,50,92,-59\n"
+                           "Z,0,10,-50\n"               /* line 5: no collar */
+                           "E,0,nan,-50\n");            /* line 6: not finite */
+    corax_program *prog;
+    corax_findings found = {0};
+    corax_load_options o = corax_load_options_default();
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, NULL), CORAX_OK);
+    static const struct {
+        long line;
+        corax_severity sev;
+        const char *words;
+    } want[] = {
+        {3, CORAX_ERROR, "x 'abc' is not a number"},
+        {5, CORAX_ERROR, "dip -95 is outside [-90, 90]"},
+        {3, CORAX_ERROR, "azimuth 361 is outside [0, 360]"},
+        {6, CORAX_ERROR, "azimuth 'nan' is not a finite number"},
+        {6, CORAX_ERROR, "second collar"},
+        {5, CORAX_WARNING, "has surveys but no collar"},
+    };
+    assert_int_equal(found.count, 6);
+    for (size_t i = 0; i < 6; i++) {
+        assert_int_equal(found.item[i].line, want[i].line);
+        assert_int_equal(found.item[i].severity, want[i].sev);
+        if (!strstr(found.item[i].message, want[i].words))
+            fail_msg("finding %zu: '%s' lacks '%s'", i, found.item[i].message, want[i].words);
+    }
+    assert_int_equal(corax_program_size(prog), 2);
+    const corax_hole *a = corax_program_find(prog, "A", 1);
+    assert_non_null(a);
+    assert_int_equal(corax_hole_station_count(a), 2);
+    corax_findings_clear(&found);
+    corax_program_free(prog);
+
+    /* a missing required column stops the load, naming the file and line */
+    test_write_file(spath, "hole,at,azimuth,dip\nA,0,90,-60\n");
+    corax_error err;
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, &err), CORAX_EFORMAT);
+    assert_string_equal(err.file, spath);
+    assert_int_equal(err.line, 1);
+    assert_non_null(strstr(err.message, "no 'depth' column"));
+    /* ... and a mapping fixes it */
+    corax_column_map *map = NULL;
+    assert_int_equal(corax_column_map_add(&map, "depth=at", NULL), CORAX_OK);
+    o.columns = map;
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, &err), CORAX_OK);
+    corax_program_free(prog);
+    corax_column_map_free(map);
+    corax_findings_clear(&found);
+    unlink(cpath);
+    unlink(spath);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_numbers_parse_like_strtod),
+        cmocka_unit_test(test_numbers_refused),
+        cmocka_unit_test(test_decimal_comma),
+        cmocka_unit_test(test_fixed_format_matches_printf),
+        cmocka_unit_test(test_reader_handles_real_world_csv),
+        cmocka_unit_test(test_reader_faults),
+        cmocka_unit_test(test_reader_large_file),
+        cmocka_unit_test(test_writer_quotes_and_commits_whole),
+        cmocka_unit_test(test_column_names_and_mapping),
+        cmocka_unit_test(test_load_program_reports_row_faults),
+    };
+    return cmocka_run_group_tests_name("io", tests, NULL, NULL);
+}
