@@ -46,13 +46,22 @@ static void records_free(records *r)
     free(r->survey);
 }
 
-static void *grow(void *p, size_t *cap, size_t size)
+/* A new slot at the end of an array of `size`-byte items, or NULL. arrayp
+ * points to the array's pointer (any object pointer type; copied as bytes). */
+static void *append(void *arrayp, size_t *count, size_t *cap, size_t size)
 {
-    size_t c = *cap ? 2 * *cap : 256;
-    void *q = realloc(p, c * size);
-    if (q)
+    char *base;
+    memcpy(&base, arrayp, sizeof base);
+    if (*count == *cap) {
+        size_t c = *cap ? 2 * *cap : 256;
+        char *q = realloc(base, c * size);
+        if (!q)
+            return NULL;
+        base = q;
+        memcpy(arrayp, &base, sizeof base);
         *cap = c;
-    return q;
+    }
+    return base + (*count)++ * size;
 }
 
 /* The dip range of a convention, for messages. */
@@ -145,22 +154,14 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
                                     hl ? hole : NULL, NAN, "%s", why);
             continue;
         }
-        if (rec->ncollar == rec->capcollar) {
-            collar_rec *p = grow(rec->collar, &rec->capcollar, sizeof *p);
-            if (!p) {
-                st = CORAX_ENOMEM;
-                break;
-            }
-            rec->collar = p;
-        }
-        collar_rec *cr = &rec->collar[rec->ncollar];
-        if (!(cr->hole = row_hole(&row, col[0]))) {
+        collar_rec *cr = append(&rec->collar, &rec->ncollar, &rec->capcollar, sizeof *cr);
+        if (!cr || !(cr->hole = row_hole(&row, col[0]))) {
+            rec->ncollar -= cr != NULL;
             st = CORAX_ENOMEM;
             break;
         }
         cr->collar = c;
         cr->line = row.line;
-        rec->ncollar++;
     }
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
@@ -204,21 +205,13 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
                                     "%s", why);
             continue;
         }
-        if (rec->nsurvey == rec->capsurvey) {
-            survey_rec *p = grow(rec->survey, &rec->capsurvey, sizeof *p);
-            if (!p) {
-                st = CORAX_ENOMEM;
-                break;
-            }
-            rec->survey = p;
-        }
-        survey_rec *sr = &rec->survey[rec->nsurvey];
-        if (!(sr->hole = row_hole(&row, col[0]))) {
+        survey_rec *sr = append(&rec->survey, &rec->nsurvey, &rec->capsurvey, sizeof *sr);
+        if (!sr || !(sr->hole = row_hole(&row, col[0]))) {
+            rec->nsurvey -= sr != NULL;
             st = CORAX_ENOMEM;
             break;
         }
         sr->station = s;
-        rec->nsurvey++;
     }
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
