@@ -338,6 +338,38 @@ static void test_load_program_reports_row_faults(void **state)
     unlink(spath);
 }
 
+/* A whole table in memory keeps every row, ragged or not, with its line. */
+static void test_table_in_memory(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("table.csv");
+    test_write_file(path, "Hole,Depth,Kind\nA,1.5,vein\n\nB,x\nC,3,\"joint, open\",extra\n");
+    corax_table *t;
+    assert_int_equal(corax_table_load(path, corax_table_format_default(), &t, NULL), CORAX_OK);
+    assert_int_equal(corax_table_rows(t), 3);
+    assert_int_equal(corax_table_columns(t), 3);
+    assert_string_equal(corax_table_header_name(t, 2), "Kind");
+    assert_int_equal(corax_table_find(t, "depth"), 1);
+    assert_int_equal(corax_table_find(t, "dip"), -1);
+    assert_int_equal(corax_table_width(t, 1), 2);
+    assert_int_equal(corax_table_width(t, 2), 4);
+    assert_int_equal(corax_table_line(t, 1), 4);
+    assert_string_equal(corax_table_cell(t, 2, 2, NULL), "joint, open");
+    assert_string_equal(corax_table_cell(t, 1, 2, NULL), "");
+    assert_string_equal(corax_table_cell(t, 1, -1, NULL), "");
+    double v;
+    assert_int_equal(corax_table_number(t, 0, 1, &v), CORAX_NUMBER_OK);
+    assert_close(v, 1.5, 0, 0, "number cell");
+    assert_int_equal(corax_table_number(t, 1, 1, &v), CORAX_NUMBER_NOT_NUMBER);
+    assert_true(isnan(v));
+    corax_table_free(t);
+    corax_error err;
+    test_write_file(path, "a,b,A\n1,2,3\n");
+    assert_int_equal(corax_table_load(path, corax_table_format_default(), &t, &err), CORAX_EFORMAT);
+    assert_string_equal(err.file, path);
+    unlink(path);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -351,6 +383,7 @@ int main(void)
         cmocka_unit_test(test_writer_quotes_and_commits_whole),
         cmocka_unit_test(test_column_names_and_mapping),
         cmocka_unit_test(test_load_program_reports_row_faults),
+        cmocka_unit_test(test_table_in_memory),
     };
     return cmocka_run_group_tests_name("io", tests, NULL, NULL);
 }

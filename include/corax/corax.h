@@ -10,6 +10,7 @@
 #include "corax/output.h"
 #include "corax/status.h"
 #include "corax/survey.h"
+#include "corax/svg.h"
 #include "corax/table.h"
 
 #endif

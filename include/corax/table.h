@@ -12,6 +12,14 @@
 extern "C" {
 #endif
 
+/* The outcome of parsing one number. */
+typedef enum corax_number_status {
+    CORAX_NUMBER_OK = 0,
+    CORAX_NUMBER_EMPTY,      /* the field is empty (or blanks only) */
+    CORAX_NUMBER_NOT_NUMBER, /* text that is not a number */
+    CORAX_NUMBER_NOT_FINITE  /* NaN, infinity or out of the double range */
+} corax_number_status;
+
 /* How a table is written. */
 typedef struct corax_table_format {
     char delimiter; /* ',' (default) or ';' */
@@ -72,13 +80,40 @@ long corax_column_find(const corax_row *header, const char *logical,
  * message naming the name and both columns. */
 corax_status corax_header_check(const corax_row *header, corax_error *err);
 
-/* The outcome of parsing one number. */
-typedef enum corax_number_status {
-    CORAX_NUMBER_OK = 0,
-    CORAX_NUMBER_EMPTY,      /* the field is empty (or blanks only) */
-    CORAX_NUMBER_NOT_NUMBER, /* text that is not a number */
-    CORAX_NUMBER_NOT_FINITE  /* NaN, infinity or out of the double range */
-} corax_number_status;
+/* A whole table held in memory (for commands that read converted output
+ * more than once, group it or sort it). Rows keep their order and line. */
+typedef struct corax_table corax_table;
+
+/* Read a whole CSV table. CORAX_EFORMAT for an empty file (no header), a
+ * repeated header name or broken quoting; CORAX_EIO when it cannot be read.
+ * Ragged rows are kept as they are (see corax_table_width()). */
+corax_status corax_table_load(const char *path, corax_table_format format, corax_table **out,
+                              corax_error *err);
+void corax_table_free(corax_table *table);
+
+const char *corax_table_path(const corax_table *table);
+size_t corax_table_rows(const corax_table *table);
+size_t corax_table_columns(const corax_table *table);
+const char *corax_table_header_name(const corax_table *table, size_t column);
+
+/* The index of a column by header name, without regard to case, or -1. */
+long corax_table_find(const corax_table *table, const char *name);
+
+/* Number of fields in a row (may differ from the header's count). */
+size_t corax_table_width(const corax_table *table, size_t row);
+
+/* Line where a row starts in its file. */
+long corax_table_line(const corax_table *table, size_t row);
+
+/* A cell's text ("" past the end of a short row, or for column -1); *length
+ * (may be NULL) gets its length. */
+const char *corax_table_cell(const corax_table *table, size_t row, long column, size_t *length);
+
+/* A cell as a number (see corax_parse_number); NaN and a status other than
+ * CORAX_NUMBER_OK when it is not one. */
+corax_number_status corax_table_number(const corax_table *table, size_t row, long column,
+                                       double *value);
+
 
 /* Parse a decimal number (optional sign, digits, decimal mark, exponent),
  * allowing surrounding blanks. decimal is '.' or ','. */
