@@ -99,7 +99,7 @@ demo-run: all $(TOOLS)
 	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) tools/demo.sh
 
 bench: all $(BENCHES)
-	@set -e; for b in $(BENCHES); do echo "== $$b"; $$b; done
+	@set -e; for b in $(BENCHES); do echo "== $$b"; CORAX=$(abspath $(BIN)) $$b; done
 
 install: all
 	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/lib \

@@ -17,6 +17,17 @@ typedef struct corax_writer corax_writer;
  * corax_writer_commit(), so a failed run never leaves half a file. */
 corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err);
 
+/* A writer that keeps its output in memory (for building pieces of a table
+ * in parallel); read it with corax_writer_contents(), free it with
+ * corax_writer_discard(). */
+corax_status corax_writer_memory(corax_writer **out);
+
+/* What a memory writer holds so far (valid until the next write). */
+const char *corax_writer_contents(const corax_writer *w, size_t *length);
+
+/* Empty a memory writer for reuse. */
+void corax_writer_reset(corax_writer *w);
+
 /* Raw bytes, as they are. */
 void corax_writer_text(corax_writer *w, const char *text, size_t length);
 

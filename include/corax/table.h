@@ -91,6 +91,23 @@ corax_status corax_table_load(const char *path, corax_table_format format, corax
                               corax_error *err);
 void corax_table_free(corax_table *table);
 
+/* An empty table with the given header (copied), for rows added one by one
+ * with corax_table_append(); NULL when out of memory. */
+corax_table *corax_table_new(const char *path, char decimal, const corax_row *header);
+
+/* Append a copy of a row. */
+corax_status corax_table_append(corax_table *table, const corax_row *row);
+
+/* Drop every row but the header, keeping the memory for reuse. */
+void corax_table_truncate(corax_table *table);
+
+/* Row `row` as a corax_row view (valid until the table changes). field must
+ * have room for corax_table_widest() pointers. */
+void corax_table_row(const corax_table *table, size_t row, const char **field, corax_row *out);
+
+/* The most fields in any row, the header included. */
+size_t corax_table_widest(const corax_table *table);
+
 const char *corax_table_path(const corax_table *table);
 size_t corax_table_rows(const corax_table *table);
 size_t corax_table_columns(const corax_table *table);

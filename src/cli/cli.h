@@ -16,9 +16,12 @@ typedef struct cli_common {
     const char *collars, *surveys;
     const char *output;  /* "-" for standard output */
     const char *about;   /* side file; NULL: OUTPUT.about when output is a file */
+    const char *project; /* the project file read, or NULL */
     corax_column_map *columns;
     corax_load_options load;
     int quiet;
+    char **owned;        /* strings made while reading options (project paths) */
+    size_t nowned;
 } cli_common;
 
 /* getopt_long codes of the shared options (beyond single letters). */
@@ -31,11 +34,13 @@ enum {
     OPT_CONVERGENCE,
     OPT_DELIMITER,
     OPT_DECIMAL_COMMA,
+    OPT_DECIMAL_MARK,
     OPT_ABOUT,
+    OPT_PROJECT,
     OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
 };
 
-/* Long options for the shared set; commands append them to their own table. */
+/* Long options for the shared set; commands put them first in their table. */
 #define CLI_COMMON_OPTIONS                                                   \
     {"collars", required_argument, NULL, OPT_COLLARS},                       \
         {"surveys", required_argument, NULL, OPT_SURVEYS},                   \
@@ -45,7 +50,9 @@ enum {
         {"convergence", required_argument, NULL, OPT_CONVERGENCE},           \
         {"delimiter", required_argument, NULL, OPT_DELIMITER},               \
         {"decimal-comma", no_argument, NULL, OPT_DECIMAL_COMMA},             \
+        {"decimal-mark", required_argument, NULL, OPT_DECIMAL_MARK},         \
         {"about", required_argument, NULL, OPT_ABOUT},                       \
+        {"project", required_argument, NULL, OPT_PROJECT},                   \
         {"output", required_argument, NULL, 'o'},                            \
         {"quiet", no_argument, NULL, 'q'}, {"help", no_argument, NULL, 'h'}
 
@@ -55,21 +62,29 @@ extern const char cli_common_help[];
 void cli_common_init(cli_common *c, const char *command);
 void cli_common_free(cli_common *c);
 
-/* Parse a command's options: the shared ones into c, the rest through
- * own(ctx, opt, arg), which returns 0 or EXIT_USAGE (message printed).
- * help is printed, followed by the shared help when `shared_help`, for -h.
- * Returns 0 to go on, -1 after help, EXIT_USAGE on a usage error. Positional
+/* A command's own option handler: apply option opt with its argument (NULL
+ * for a flag). 0 when applied; -1 with a phrase in why (such as "'abc' is
+ * not a number") when the value cannot be used. */
+typedef int (*cli_option_fn)(void *ctx, int opt, const char *arg, char *why, size_t whylen);
+
+/* Parse a command's options. First the project file (-p/--project), whose
+ * keys map onto the long options in longopts, then the command line, which
+ * overrides it. Shared options go into c, the rest through own(ctx, ...).
+ * For -h the help text is printed, then the shared help when shared_help.
+ * Returns 0 to go on, -1 after help, EXIT_USAGE on a usage error and
+ * EXIT_DATA on a fault in the project file (messages printed). Positional
  * arguments are left at argv[optind..]. */
 int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopts,
-              const char *help, int shared_help, int (*own)(void *ctx, int opt, const char *arg),
-              void *ctx);
-
-/* Handle one shared option: 1 handled, 0 not a shared option, -1 usage error
- * (already printed). */
-int cli_common_option(cli_common *c, int opt, const char *arg);
+              const char *help, int shared_help, cli_option_fn own, void *ctx);
 
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);
+
+/* Value helpers for option handlers: 0 ok, -1 with why filled. */
+int cli_value_number(const char *arg, double lo, double hi, double *value, char *why,
+                     size_t whylen);
+int cli_value_choice(const char *arg, const char *const *names, int count, int *value,
+                     char *why, size_t whylen);
 
 /* Load the drill program, printing findings; NULL (message printed) when it
  * cannot be used. */
@@ -83,10 +98,6 @@ void cli_finding(const corax_finding *f);
 
 /* A usage error: prints the message and a pointer to --help; returns EXIT_USAGE. */
 int cli_usage(const char *command, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
-
-/* Parse a number option (degrees, metres); 0 ok, -1 usage error printed. */
-int cli_number(const char *command, const char *option, const char *arg, double lo, double hi,
-               double *value);
 
 /* The name of a dip convention as the options spell it. */
 const char *cli_dip_convention_name(corax_dip_convention c);
@@ -102,5 +113,6 @@ int cli_about_commit(cli_about *a, const cli_common *c);
 
 /* Commands. */
 int cmd_trace(int argc, char **argv);
+int cmd_convert(int argc, char **argv);
 
 #endif

@@ -215,14 +215,15 @@ static int trace_all(const trace_opts *o, const corax_program *prog, corax_write
     return EXIT_OK;
 }
 
-static int trace_option(void *ctx, int opt, const char *arg)
+static int trace_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
 {
     trace_opts *o = ctx;
     switch (opt) {
     case OPT_AT: o->at = arg; return 0;
-    case OPT_STEP: return cli_number("trace", "--step", arg, 1e-3, 1e5, &o->step) ? EXIT_USAGE : 0;
+    case OPT_STEP: return cli_value_number(arg, 1e-3, 1e5, &o->step, why, wl);
     }
-    return cli_usage("trace", "unknown option");
+    snprintf(why, wl, "not an option of this command");
+    return -1;
 }
 
 static int parse(int argc, char **argv, trace_opts *o)

@@ -24,26 +24,15 @@ const char cli_common_help[] =
     "                        survey azimuths (true to grid). Default 0\n"
     "  --delimiter ,|;       field separator of the input tables (default ,)\n"
     "  --decimal-comma       numbers use a decimal comma (needs --delimiter ';')\n"
+    "  --decimal-mark M      point (default) or comma; same as --decimal-comma\n"
+    "  -p, --project FILE    read inputs, columns and conventions from a project file\n"
+    "                        (INI); options on the command line override it\n"
     "Output:\n"
     "  -o, --output FILE     output file (default: standard output)\n"
     "  --about FILE          record of the run's assumptions (default: OUTPUT.about\n"
     "                        when -o names a file)\n"
     "  -q, --quiet           no progress or warnings on standard error\n"
     "  -h, --help            this help\n";
-
-void cli_common_init(cli_common *c, const char *command)
-{
-    memset(c, 0, sizeof *c);
-    c->command = command;
-    c->output = "-";
-    c->load = corax_load_options_default();
-}
-
-void cli_common_free(cli_common *c)
-{
-    corax_column_map_free(c->columns);
-    c->columns = NULL;
-}
 
 void cli_error(const char *file, long line, const char *fmt, ...)
 {
@@ -82,112 +71,6 @@ int cli_usage(const char *command, const char *fmt, ...)
     else
         fputs("\nTry 'corax --help'.\n", stderr);
     return EXIT_USAGE;
-}
-
-int cli_number(const char *command, const char *option, const char *arg, double lo, double hi,
-               double *value)
-{
-    double v;
-    if (corax_parse_number(arg, strlen(arg), '.', &v) != CORAX_NUMBER_OK) {
-        cli_usage(command, "%s: '%s' is not a number", option, arg);
-        return -1;
-    }
-    if (v < lo || v > hi) {
-        cli_usage(command, "%s: %s is outside [%g, %g]", option, arg, lo, hi);
-        return -1;
-    }
-    *value = v;
-    return 0;
-}
-
-static const char *const dip_names[] = {"negative-down", "positive-down", "from-vertical"};
-
-const char *cli_dip_convention_name(corax_dip_convention c)
-{
-    return (unsigned)c < 3 ? dip_names[c] : "unknown";
-}
-
-int cli_common_option(cli_common *c, int opt, const char *arg)
-{
-    corax_error err;
-    switch (opt) {
-    case OPT_COLLARS: c->collars = arg; return 1;
-    case OPT_SURVEYS: c->surveys = arg; return 1;
-    case OPT_ABOUT: c->about = arg; return 1;
-    case 'o': c->output = arg; return 1;
-    case 'q': c->quiet = 1; return 1;
-    case OPT_COLUMNS:
-        corax_error_clear(&err);
-        if (corax_column_map_add(&c->columns, arg, &err) != CORAX_OK) {
-            cli_usage(c->command, "--columns: %s", err.message);
-            return -1;
-        }
-        c->load.columns = c->columns;
-        return 1;
-    case OPT_DIP_CONVENTION:
-        for (int i = 0; i < 3; i++)
-            if (strcmp(arg, dip_names[i]) == 0) {
-                c->load.dip_convention = (corax_dip_convention)i;
-                return 1;
-            }
-        cli_usage(c->command, "--dip-convention: '%s' is not negative-down, positive-down or "
-                        "from-vertical", arg);
-        return -1;
-    case OPT_DECLINATION:
-        return cli_number(c->command, "--declination", arg, -180, 180, &c->load.declination) ? -1 : 1;
-    case OPT_CONVERGENCE:
-        return cli_number(c->command, "--convergence", arg, -180, 180, &c->load.convergence) ? -1 : 1;
-    case OPT_DELIMITER:
-        if ((arg[0] == ',' || arg[0] == ';') && arg[1] == '\0') {
-            c->load.format.delimiter = arg[0];
-            return 1;
-        }
-        if (strcmp(arg, "comma") == 0 || strcmp(arg, "semicolon") == 0) {
-            c->load.format.delimiter = arg[0] == 'c' ? ',' : ';';
-            return 1;
-        }
-        cli_usage(c->command, "--delimiter: '%s' is not ',' or ';'", arg);
-        return -1;
-    case OPT_DECIMAL_COMMA: c->load.format.decimal = ','; return 1;
-    }
-    return 0;
-}
-
-int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopts,
-              const char *help, int shared_help, int (*own)(void *ctx, int opt, const char *arg),
-              void *ctx)
-{
-    int opt;
-    optind = 1;
-    opterr = 0; /* our own messages, in our own words */
-    while ((opt = getopt_long(argc, argv, ":o:qh", longopts, NULL)) != -1) {
-        if (opt == 'h') {
-            fputs(help, stdout);
-            if (shared_help)
-                fputs(cli_common_help, stdout);
-            return -1;
-        }
-        if (opt == '?')
-            return cli_usage(c->command, "unknown option '%s'", argv[optind - 1]);
-        if (opt == ':')
-            return cli_usage(c->command, "option '%s' needs a value", argv[optind - 1]);
-        int k = cli_common_option(c, opt, optarg);
-        if (k < 0)
-            return EXIT_USAGE;
-        if (k == 0 && own(ctx, opt, optarg) != 0)
-            return EXIT_USAGE;
-    }
-    return 0;
-}
-
-int cli_common_finish(cli_common *c, int need_program)
-{
-    if (c->load.format.decimal == ',' && c->load.format.delimiter != ';')
-        return cli_usage(c->command, "--decimal-comma needs --delimiter ';' (a comma cannot both "
-                               "separate fields and mark decimals)");
-    if (need_program && (!c->collars || !c->surveys))
-        return cli_usage(c->command, "--collars and --surveys are both needed");
-    return 0;
 }
 
 corax_program *cli_load_program(cli_common *c)

@@ -40,7 +40,7 @@ corax_vec3 corax_direction(double azimuth, double plunge)
 
 void corax_direction_angles(corax_vec3 v, double *azimuth, double *plunge)
 {
-    double h = hypot(v.x, v.y);
+    double h = sqrt(v.x * v.x + v.y * v.y);
     *azimuth = h > 0.0 ? corax_wrap_azimuth(atan2(v.x, v.y)) : 0.0;
     *plunge = atan2(-v.z, h);
 }
@@ -58,7 +58,7 @@ corax_plane corax_plane_from_normal(corax_vec3 n, corax_vec3 *up)
     if (n.z < 0.0)
         n = vec_neg(n);
     n = vec_unit(n);
-    double h = hypot(n.x, n.y);
+    double h = sqrt(n.x * n.x + n.y * n.y); /* n is a unit vector: no overflow */
     p.dip = atan2(h, n.z);
     p.dip_direction = h > 0.0 ? corax_wrap_azimuth(atan2(n.x, n.y)) : 0.0;
     if (up)

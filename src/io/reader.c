@@ -97,6 +97,8 @@ static void on_row(int terminator, void *user)
     r->row_done = 1;
 }
 
+/* libcsv's own test for blanks (space and tab) is inline; we use the same
+ * set to spot lines holding nothing but blanks. */
 static int blank_or_space(unsigned char c) { return c == ' ' || c == '\t'; }
 
 corax_status corax_reader_open(const char *path, corax_table_format format,
@@ -127,7 +129,6 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
     }
     r->parser_ready = 1;
     csv_set_delim(&r->parser, (unsigned char)format.delimiter);
-    csv_set_space_func(&r->parser, blank_or_space);
     *out = r;
     return CORAX_OK;
 }

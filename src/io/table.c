@@ -13,6 +13,7 @@ struct corax_table {
     char *text;          /* every cell, NUL-terminated, back to back */
     size_t text_len, text_cap;
     size_t *cell;        /* offset of each cell in text */
+    size_t *cell_len;    /* its length */
     size_t ncell, cell_cap;
     size_t *row_first;   /* index in cell[] of each row's first cell; row 0 is the header */
     long *row_line;
@@ -54,6 +55,10 @@ static int push_row(corax_table *t, const corax_row *row)
         if (!c)
             return 0;
         t->cell = c;
+        c = realloc(t->cell_len, cap * sizeof *c);
+        if (!c)
+            return 0;
+        t->cell_len = c;
         t->cell_cap = cap;
     }
     t->row_first[t->nrow] = t->ncell;
@@ -61,11 +66,59 @@ static int push_row(corax_table *t, const corax_row *row)
     t->nrow++;
     t->row_first[t->nrow] = t->ncell + row->count; /* sentinel: end of this row */
     for (size_t i = 0; i < row->count; i++) {
+        t->cell_len[t->ncell] = row->length[i];
         t->cell[t->ncell++] = t->text_len;
         memcpy(t->text + t->text_len, row->field[i], row->length[i] + 1);
         t->text_len += row->length[i] + 1;
     }
     return 1;
+}
+
+corax_table *corax_table_new(const char *path, char decimal, const corax_row *header)
+{
+    corax_table *t = calloc(1, sizeof *t);
+    if (!t)
+        return NULL;
+    t->path = path;
+    t->decimal = decimal;
+    if (!push_row(t, header)) {
+        corax_table_free(t);
+        return NULL;
+    }
+    return t;
+}
+
+corax_status corax_table_append(corax_table *t, const corax_row *row)
+{
+    return push_row(t, row) ? CORAX_OK : CORAX_ENOMEM;
+}
+
+void corax_table_truncate(corax_table *t)
+{
+    size_t header_cells = t->row_first[1];
+    t->nrow = 1;
+    t->ncell = header_cells;
+    t->text_len = header_cells ? t->cell[header_cells - 1] + t->cell_len[header_cells - 1] + 1 : 0;
+}
+
+void corax_table_row(const corax_table *t, size_t row, const char **field, corax_row *out)
+{
+    size_t first = t->row_first[row + 1], n = t->row_first[row + 2] - first;
+    for (size_t i = 0; i < n; i++)
+        field[i] = t->text + t->cell[first + i];
+    out->count = n;
+    out->field = field;
+    out->length = t->cell_len + first;
+    out->line = t->row_line[row + 1];
+}
+
+size_t corax_table_widest(const corax_table *t)
+{
+    size_t w = 0;
+    for (size_t r = 0; r < t->nrow; r++)
+        if (t->row_first[r + 1] - t->row_first[r] > w)
+            w = t->row_first[r + 1] - t->row_first[r];
+    return w;
 }
 
 corax_status corax_table_load(const char *path, corax_table_format format, corax_table **out,
@@ -114,6 +167,7 @@ void corax_table_free(corax_table *t)
         return;
     free(t->text);
     free(t->cell);
+    free(t->cell_len);
     free(t->row_first);
     free(t->row_line);
     free(t);
@@ -150,10 +204,10 @@ const char *corax_table_cell(const corax_table *t, size_t row, long column, size
             *length = 0;
         return "";
     }
-    const char *c = t->text + t->cell[t->row_first[row + 1] + (size_t)column];
+    size_t k = t->row_first[row + 1] + (size_t)column;
     if (length)
-        *length = strlen(c);
-    return c;
+        *length = t->cell_len[k];
+    return t->text + t->cell[k];
 }
 
 corax_number_status corax_table_number(const corax_table *t, size_t row, long column,

@@ -16,7 +16,9 @@
 enum { OUT_BUFFER = 1 << 18 };
 
 struct corax_writer {
-    int fd;
+    int fd;         /* -1 for a memory writer */
+    int memory;     /* output stays in buf, which grows */
+    size_t cap;
     char *path;     /* real name, NULL for standard output */
     char *tmp;      /* temporary name */
     char *buf;
@@ -47,7 +49,8 @@ corax_status corax_writer_open(const char *path, corax_writer **out, corax_error
     if (!w)
         return CORAX_ENOMEM;
     w->fd = -1;
-    w->buf = malloc(OUT_BUFFER);
+    w->cap = OUT_BUFFER;
+    w->buf = malloc(w->cap);
     w->row_start = 1;
     if (!w->buf)
         goto nomem;
@@ -103,17 +106,79 @@ static void flush(corax_writer *w)
     w->used = 0;
 }
 
+/* Room for n more bytes in buf: a memory writer grows, a file writer
+ * flushes. 0 when there is no room (n too big for a file writer's buffer, or
+ * out of memory). */
+static int grow_room(corax_writer *w, size_t n);
+
+static inline int make_room(corax_writer *w, size_t n)
+{
+    return w->used + n <= w->cap || grow_room(w, n);
+}
+
+static int grow_room(corax_writer *w, size_t n)
+{
+    if (!w->memory) {
+        flush(w);
+        return n <= w->cap;
+    }
+    size_t cap = w->cap;
+    while (cap < w->used + n)
+        cap *= 2;
+    char *b = realloc(w->buf, cap);
+    if (!b) {
+        w->failed = ENOMEM;
+        return 0;
+    }
+    w->buf = b;
+    w->cap = cap;
+    return 1;
+}
+
 void corax_writer_text(corax_writer *w, const char *text, size_t n)
 {
-    if (w->used + n > OUT_BUFFER) {
-        flush(w);
-        if (n > OUT_BUFFER) { /* too big to buffer: straight through */
+    if (!make_room(w, n)) {
+        if (!w->memory) /* too big to buffer: straight through */
             write_all(w, text, n);
-            return;
-        }
+        return;
     }
-    memcpy(w->buf + w->used, text, n);
+    if (n <= 16) { /* most fields: a short copy beats a call */
+        for (size_t i = 0; i < n; i++)
+            w->buf[w->used + i] = text[i];
+    } else {
+        memcpy(w->buf + w->used, text, n);
+    }
     w->used += n;
+}
+
+corax_status corax_writer_memory(corax_writer **out)
+{
+    corax_writer *w = calloc(1, sizeof *w);
+    if (!w)
+        return CORAX_ENOMEM;
+    w->fd = -1;
+    w->memory = 1;
+    w->row_start = 1;
+    w->cap = 1 << 16;
+    w->buf = malloc(w->cap);
+    if (!w->buf) {
+        free(w);
+        return CORAX_ENOMEM;
+    }
+    *out = w;
+    return CORAX_OK;
+}
+
+const char *corax_writer_contents(const corax_writer *w, size_t *length)
+{
+    *length = w->used;
+    return w->buf;
+}
+
+void corax_writer_reset(corax_writer *w)
+{
+    w->used = 0;
+    w->row_start = 1;
 }
 
 void corax_writer_printf(corax_writer *w, const char *fmt, ...)
@@ -143,11 +208,8 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
 
 static void separator(corax_writer *w)
 {
-    if (!w->row_start) {
-        if (w->used == OUT_BUFFER)
-            flush(w);
+    if (!w->row_start && make_room(w, 1))
         w->buf[w->used++] = ',';
-    }
     w->row_start = 0;
 }
 
@@ -155,9 +217,12 @@ static int needs_quotes(const char *s, size_t n)
 {
     if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t'))
         return 1;
-    for (size_t i = 0; i < n; i++)
-        if (s[i] == ',' || s[i] == '"' || s[i] == '\n' || s[i] == '\r')
+    for (size_t i = 0; i < n; i++) {
+        unsigned char c = (unsigned char)s[i];
+        /* every special byte is below '-': one comparison clears most text */
+        if (c < '-' && (c == ',' || c == '"' || c == '\n' || c == '\r'))
             return 1;
+    }
     return 0;
 }
 
@@ -180,11 +245,15 @@ void corax_writer_field(corax_writer *w, const char *s, size_t n)
     corax_writer_text(w, "\"", 1);
 }
 
+/* "00" .. "99": two digits at a time halves the divisions */
+static const char digit_pairs[201] =
+    "00010203040506070809101112131415161718192021222324252627282930313233343536373839"
+    "40414243444546474849505152535455565758596061626364656667686970717273747576777879"
+    "8081828384858687888990919293949596979899";
+
 size_t corax_format_fixed(char *buf, double v, int decimals)
 {
     static const double scale[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9};
-    static const uint64_t iscale[] = {1, 10, 100, 1000, 10000, 100000, 1000000,
-                                      10000000, 100000000, 1000000000};
     if (isnan(v))
         return 0;
     if (decimals < 0)
@@ -194,37 +263,61 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
     double scaled = fabs(v) * scale[decimals];
     if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
         return (size_t)snprintf(buf, 40, "%.17g", v);
-    uint64_t q = (uint64_t)llround(scaled);
+    uint64_t q = (uint64_t)(scaled + 0.5); /* round half away from zero */
+    int negative = v < 0.0 && q != 0;      /* never "-0.00" */
     char tmp[40];
-    size_t n = 0;
-    uint64_t whole = q / iscale[decimals], frac = q % iscale[decimals];
-    for (int i = 0; i < decimals; i++, frac /= 10)
-        tmp[n++] = (char)('0' + frac % 10);
+    char *p = tmp + sizeof tmp; /* digits are written backwards from the end */
+    int frac = decimals;
+    while (frac >= 2) {
+        const char *d = digit_pairs + 2 * (q % 100);
+        *--p = d[1];
+        *--p = d[0];
+        q /= 100;
+        frac -= 2;
+    }
+    if (frac) {
+        *--p = (char)('0' + q % 10);
+        q /= 10;
+    }
     if (decimals)
-        tmp[n++] = '.';
-    do {
-        tmp[n++] = (char)('0' + whole % 10);
-        whole /= 10;
-    } while (whole);
-    if (v < 0.0 && q != 0)
-        tmp[n++] = '-';
-    for (size_t i = 0; i < n; i++)
-        buf[i] = tmp[n - 1 - i];
-    return n;
+        *--p = '.';
+    while (q >= 100) {
+        const char *d = digit_pairs + 2 * (q % 100);
+        *--p = d[1];
+        *--p = d[0];
+        q /= 100;
+    }
+    if (q >= 10) {
+        *--p = digit_pairs[2 * q + 1];
+        *--p = digit_pairs[2 * q];
+    } else {
+        *--p = (char)('0' + q);
+    }
+    size_t n = (size_t)(tmp + sizeof tmp - p);
+    if (negative)
+        *buf++ = '-';
+    memcpy(buf, p, n);
+    return n + (size_t)negative;
 }
 
 void corax_writer_number(corax_writer *w, double v, int decimals)
 {
     separator(w);
-    if (w->used + 40 > OUT_BUFFER)
-        flush(w);
-    w->used += corax_format_fixed(w->buf + w->used, v, decimals);
+    if (make_room(w, 48))
+        w->used += corax_format_fixed(w->buf + w->used, v, decimals);
 }
 
 void corax_writer_azimuth(corax_writer *w, double degrees, int decimals)
 {
-    corax_writer_number(w, isnan(degrees) ? degrees : corax_wrap_degrees(degrees, decimals),
-                        decimals);
+    if (!(degrees >= 0.0 && degrees < 360.0) && !isnan(degrees))
+        degrees = corax_wrap_degrees(degrees, decimals);
+    separator(w);
+    if (!make_room(w, 48))
+        return;
+    size_t n = corax_format_fixed(w->buf + w->used, degrees, decimals);
+    if (n >= 3 && memcmp(w->buf + w->used, "360", 3) == 0) /* 359.999 rounded up */
+        n = corax_format_fixed(w->buf + w->used, 0.0, decimals);
+    w->used += n;
 }
 
 void corax_writer_integer(corax_writer *w, long long value)
@@ -243,7 +336,8 @@ void corax_writer_end_row(corax_writer *w)
 
 corax_status corax_writer_commit(corax_writer *w, corax_error *err)
 {
-    flush(w);
+    if (!w->memory)
+        flush(w);
     const char *name = w->path ? w->path : "standard output";
     if (w->path) {
         if (!w->failed && fsync(w->fd) != 0)

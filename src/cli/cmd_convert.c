@@ -1,0 +1,269 @@
+/* cli: `corax convert`, core readings to located, true orientations for a
+ * whole drill program; or one reading at the core shed. */
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli/cli.h"
+#include "cli/convert_rows.h"
+#include "io/fields.h"
+
+static const char convert_help[] =
+    "usage: corax convert --collars FILE --surveys FILE [options] [-o FILE] STRUCTURES...\n"
+    "       corax convert --hole-azimuth A --hole-dip D --alpha A --beta B [--gamma G]\n"
+    "       corax convert --hole-azimuth A --hole-dip D --plane DIP/DIPDIR | --line TREND/PLUNGE\n"
+    "\n"
+    "Convert core readings into true orientations at real coordinates.\n"
+    "\n"
+    "STRUCTURES are core logs (CSV, or - for standard input) with hole and depth,\n"
+    "and alpha with beta (planes), gamma (a line on the plane), or line_alpha with\n"
+    "line_beta (a line measured on its own). Every other column is carried through.\n"
+    "One output row per input row, in order: the input's columns, then x, y, z,\n"
+    "hole_azimuth, hole_dip, dip, dip_direction, strike, pole_trend, pole_plunge,\n"
+    "nx, ny, nz (the upward unit normal), trend, plunge (when the log has lines),\n"
+    "apparent_dip, apparent_dip_toward (with --section-azimuth), status, note.\n"
+    "\n"
+    "Conventions (defaults first):\n"
+    "  --reference-line bottom|top       the orientation line marks the bottom or top\n"
+    "                                    of the hole\n"
+    "  --beta-end down-hole|up-hole      beta runs to this end of the ellipse's long axis\n"
+    "  --beta-sense clockwise|anticlockwise   looking down the hole\n"
+    "  --gamma-zero down-hole|up-hole    gamma runs from this end of the long axis\n"
+    "  --gamma-sense clockwise|anticlockwise  seen from the up-hole side of the plane\n"
+    "  (hole dips: --dip-convention, below)\n"
+    "Flags and extras:\n"
+    "  --near-parallel DEG       flag alpha below this (default 10)\n"
+    "  --near-perpendicular DEG  flag alpha above this (default 80)\n"
+    "  --vertical-limit DEG      a hole within this of vertical has no usable\n"
+    "                            bottom-of-hole line (default 5)\n"
+    "  --section-azimuth DEG     add each plane's apparent dip in a vertical section\n"
+    "                            of this azimuth, and the azimuth it dips toward\n"
+    "  --structures FILE         a core log (as a positional argument; may repeat)\n"
+    "One reading (prints a labelled answer):\n"
+    "  --hole-azimuth DEG --hole-dip DEG   the hole at the reading\n"
+    "  --alpha DEG --beta DEG [--gamma DEG]\n"
+    "  --plane DIP/DIPDIR        the alpha and beta this plane would show in the hole\n"
+    "  --line TREND/PLUNGE       the line_alpha and line_beta this line would show\n"
+    "\n"
+    "Status: converted; extrapolated; near-parallel; near-perpendicular; collar-only;\n"
+    "beyond-end (these carry an orientation); unoriented; no-reference-line;\n"
+    "no-survey; unknown-hole; invalid (the note says why).\n"
+    "\n";
+
+enum {
+    OPT_REFERENCE = OPT_COMMAND_BASE,
+    OPT_BETA_END,
+    OPT_BETA_SENSE,
+    OPT_GAMMA_ZERO,
+    OPT_GAMMA_SENSE,
+    OPT_NEAR_PARALLEL,
+    OPT_NEAR_PERPENDICULAR,
+    OPT_VERTICAL_LIMIT,
+    OPT_SECTION,
+    OPT_STRUCTURES,
+    OPT_HOLE_AZIMUTH,
+    OPT_HOLE_DIP,
+    OPT_ALPHA,
+    OPT_BETA,
+    OPT_GAMMA,
+    OPT_PLANE,
+    OPT_LINE,
+};
+
+typedef struct convert_opts {
+    cli_common c;
+    convert_setup setup;
+    const char **files;
+    size_t nfiles;
+    /* one reading */
+    double hole_azimuth, hole_dip, alpha, beta, gamma;
+    double plane[2], line[2];
+    int single;
+} convert_opts;
+
+static int add_file(convert_opts *o, const char *path)
+{
+    const char **f = realloc(o->files, (o->nfiles + 1) * sizeof *f);
+    if (!f)
+        return -1;
+    o->files = f;
+    o->files[o->nfiles++] = path;
+    return 0;
+}
+
+/* "A/B" as two numbers. */
+static int pair(const char *arg, double *a, double *b, char *why, size_t wl)
+{
+    const char *slash = strchr(arg, '/');
+    if (!slash || corax_parse_number(arg, (size_t)(slash - arg), '.', a) != CORAX_NUMBER_OK ||
+        corax_parse_number(slash + 1, strlen(slash + 1), '.', b) != CORAX_NUMBER_OK) {
+        snprintf(why, wl, "'%s' is not two numbers as A/B", arg);
+        return -1;
+    }
+    return 0;
+}
+
+static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
+{
+    static const char *const ref[] = {"bottom", "top"};
+    static const char *const ends[] = {"down-hole", "up-hole"};
+    static const char *const senses[] = {"clockwise", "anticlockwise"};
+    convert_opts *o = ctx;
+    corax_core_conventions *cv = &o->setup.convert.conventions;
+    double v;
+    switch (opt) {
+    case OPT_REFERENCE: return cli_value_choice(arg, ref, 2, &cv->top_reference, why, wl);
+    case OPT_BETA_END: return cli_value_choice(arg, ends, 2, &cv->beta_to_uphole_end, why, wl);
+    case OPT_BETA_SENSE: return cli_value_choice(arg, senses, 2, &cv->beta_anticlockwise, why, wl);
+    case OPT_GAMMA_ZERO: return cli_value_choice(arg, ends, 2, &cv->gamma_from_uphole, why, wl);
+    case OPT_GAMMA_SENSE: return cli_value_choice(arg, senses, 2, &cv->gamma_anticlockwise, why, wl);
+    case OPT_NEAR_PARALLEL:
+    case OPT_NEAR_PERPENDICULAR:
+    case OPT_VERTICAL_LIMIT:
+        if (cli_value_number(arg, 0, 90, &v, why, wl))
+            return -1;
+        *(opt == OPT_NEAR_PARALLEL        ? &o->setup.convert.near_parallel
+          : opt == OPT_NEAR_PERPENDICULAR ? &o->setup.convert.near_perpendicular
+                                          : &o->setup.convert.vertical_limit) = corax_rad(v);
+        return 0;
+    case OPT_SECTION:
+        if (cli_value_number(arg, -360, 360, &v, why, wl))
+            return -1;
+        o->setup.has_section = 1;
+        o->setup.section_azimuth = corax_rad(v);
+        return 0;
+    case OPT_STRUCTURES:
+        if (add_file(o, arg) == 0)
+            return 0;
+        snprintf(why, wl, "out of memory");
+        return -1;
+    case OPT_HOLE_AZIMUTH: o->single = 1; return cli_value_number(arg, 0, 360, &o->hole_azimuth, why, wl);
+    case OPT_HOLE_DIP: o->single = 1; return cli_value_number(arg, -90, 180, &o->hole_dip, why, wl);
+    case OPT_ALPHA: o->single = 1; return cli_value_number(arg, 0, 90, &o->alpha, why, wl);
+    case OPT_BETA: o->single = 1; return cli_value_number(arg, 0, 360, &o->beta, why, wl);
+    case OPT_GAMMA: o->single = 1; return cli_value_number(arg, 0, 360, &o->gamma, why, wl);
+    case OPT_PLANE:
+        o->single = 1;
+        if (pair(arg, &o->plane[0], &o->plane[1], why, wl))
+            return -1;
+        if (!(o->plane[0] >= 0 && o->plane[0] <= 90 && o->plane[1] >= 0 && o->plane[1] <= 360)) {
+            snprintf(why, wl, "'%s': dip must be in [0, 90] and dip direction in [0, 360]", arg);
+            return -1;
+        }
+        return 0;
+    case OPT_LINE:
+        o->single = 1;
+        if (pair(arg, &o->line[0], &o->line[1], why, wl))
+            return -1;
+        if (!(o->line[0] >= 0 && o->line[0] <= 360 && o->line[1] >= -90 && o->line[1] <= 90)) {
+            snprintf(why, wl, "'%s': trend must be in [0, 360] and plunge in [-90, 90]", arg);
+            return -1;
+        }
+        return 0;
+    }
+    snprintf(why, wl, "not an option of this command");
+    return -1;
+}
+
+static int parse(int argc, char **argv, convert_opts *o)
+{
+    static const struct option longopts[] = {
+        CLI_COMMON_OPTIONS,
+        {"reference-line", required_argument, NULL, OPT_REFERENCE},
+        {"beta-end", required_argument, NULL, OPT_BETA_END},
+        {"beta-sense", required_argument, NULL, OPT_BETA_SENSE},
+        {"gamma-zero", required_argument, NULL, OPT_GAMMA_ZERO},
+        {"gamma-sense", required_argument, NULL, OPT_GAMMA_SENSE},
+        {"near-parallel", required_argument, NULL, OPT_NEAR_PARALLEL},
+        {"near-perpendicular", required_argument, NULL, OPT_NEAR_PERPENDICULAR},
+        {"vertical-limit", required_argument, NULL, OPT_VERTICAL_LIMIT},
+        {"section-azimuth", required_argument, NULL, OPT_SECTION},
+        {"structures", required_argument, NULL, OPT_STRUCTURES},
+        {"hole-azimuth", required_argument, NULL, OPT_HOLE_AZIMUTH},
+        {"hole-dip", required_argument, NULL, OPT_HOLE_DIP},
+        {"alpha", required_argument, NULL, OPT_ALPHA},
+        {"beta", required_argument, NULL, OPT_BETA},
+        {"gamma", required_argument, NULL, OPT_GAMMA},
+        {"plane", required_argument, NULL, OPT_PLANE},
+        {"line", required_argument, NULL, OPT_LINE},
+        {NULL, 0, NULL, 0},
+    };
+    int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
+    if (rc != 0)
+        return rc;
+    if (optind < argc) { /* files named on the command line replace the project's */
+        o->nfiles = 0;
+        for (int i = optind; i < argc; i++)
+            if (add_file(o, argv[i]))
+                return EXIT_DATA;
+    }
+    size_t stdin_count = 0;
+    for (size_t i = 0; i < o->nfiles; i++)
+        stdin_count += strcmp(o->files[i], "-") == 0;
+    if (stdin_count > 1)
+        return cli_usage("convert", "standard input (-) can be read only once");
+    if (o->single) {
+        if (isnan(o->hole_azimuth) || isnan(o->hole_dip))
+            return cli_usage("convert", "one reading needs --hole-azimuth and --hole-dip");
+        int forward = !isnan(o->alpha), plane = !isnan(o->plane[0]), line = !isnan(o->line[0]);
+        if (forward + plane + line != 1)
+            return cli_usage("convert", "give one of --alpha (with --beta), --plane or --line");
+        if (!forward && (!isnan(o->beta) || !isnan(o->gamma)))
+            return cli_usage("convert", "--beta and --gamma go with --alpha");
+        if (o->nfiles)
+            return cli_usage("convert", "one reading takes no STRUCTURES files");
+        return cli_common_finish(&o->c, 0);
+    }
+    if (o->nfiles == 0)
+        return cli_usage("convert", "no STRUCTURES file (a core log, or - for standard input)");
+    return cli_common_finish(&o->c, 1);
+}
+
+/* Record what the run assumed. */
+static int write_about(const convert_opts *o)
+{
+    const corax_convert_options *cv = &o->setup.convert;
+    cli_about *a = cli_about_new("convert", &o->c);
+    cli_about_section(a, "convert");
+    for (size_t i = 0; i < o->nfiles; i++)
+        cli_about_set(a, "structures", "%s", o->files[i]);
+    convert_about_conventions(a, cv);
+    if (o->setup.has_section)
+        cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
+    return cli_about_commit(a, &o->c);
+}
+
+int cmd_convert(int argc, char **argv)
+{
+    convert_opts o;
+    memset(&o, 0, sizeof o);
+    cli_common_init(&o.c, "convert");
+    o.setup.convert = corax_convert_options_default();
+    o.hole_azimuth = o.hole_dip = o.alpha = o.beta = o.gamma = NAN;
+    o.plane[0] = o.line[0] = NAN;
+    int rc = parse(argc, argv, &o);
+    if (rc != 0)
+        goto done;
+    if (o.single) {
+        rc = convert_one_reading(&o.c, &o.setup, o.hole_azimuth, o.hole_dip, o.alpha, o.beta,
+                                 o.gamma, o.plane, o.line);
+        goto done;
+    }
+    corax_program *prog = cli_load_program(&o.c);
+    if (!prog) {
+        rc = EXIT_DATA;
+        goto done;
+    }
+    o.setup.dip_convention = o.c.load.dip_convention;
+    o.setup.format = o.c.load.format;
+    o.setup.columns = o.c.columns;
+    o.setup.quiet = o.c.quiet;
+    rc = convert_files(prog, &o.setup, o.files, o.nfiles, o.c.output);
+    if (rc == EXIT_OK && write_about(&o) != 0)
+        rc = EXIT_DATA;
+    corax_program_free(prog);
+done:
+    free(o.files);
+    cli_common_free(&o.c);
+    return rc < 0 ? EXIT_OK : rc;
+}

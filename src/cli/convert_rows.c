@@ -1,0 +1,520 @@
+/* cli: the row engine of `corax convert`. Streams core logs row by row:
+ * fields to a reading, the reading through the library, the answer out. Every
+ * input row gives exactly one output row, in order. */
+#include <math.h>
+#include <omp.h>
+#include <stdlib.h>
+#include <string.h>
+#include <strings.h>
+
+#include "cli/convert_rows.h"
+#include "io/fields.h"
+
+/* Logical columns of a core log. */
+enum { COL_HOLE, COL_DEPTH, COL_ALPHA, COL_BETA, COL_GAMMA, COL_LALPHA, COL_LBETA, NCOLS };
+static const char *const col_names[NCOLS] = {"hole",  "depth",      "alpha",    "beta",
+                                             "gamma", "line_alpha", "line_beta"};
+
+static const char *const out_names[] = {
+    "x",          "y",           "z",     "hole_azimuth", "hole_dip", "dip", "dip_direction",
+    "strike",     "pole_trend",  "pole_plunge", "nx",     "ny",       "nz",
+};
+
+/* What every row of a run shares; read-only while rows are converted. */
+typedef struct run {
+    const corax_program *prog;
+    const convert_setup *s;
+    corax_writer *w; /* the output */
+    int has_lines;
+    size_t width;
+    long col[NCOLS];
+} run;
+
+/* One thread's share of a batch of rows. */
+typedef struct lane {
+    corax_writer *w; /* the chunk being written (in memory) */
+    /* the hole of the previous row, to skip the look-up down a log */
+    char last_name[128];
+    size_t last_len;
+    const corax_hole *last_hole;
+    size_t hint;
+    size_t count[CORAX_COND_COUNT + 1]; /* rows by status; the last is "converted" */
+    size_t rows;
+    const char **field; /* room for a row's field pointers */
+} lane;
+
+/* Rows are read a batch at a time and converted in chunks on every thread. */
+enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
+
+static void write_header(run *r, const corax_row *header)
+{
+    corax_writer *w = r->w;
+    for (size_t i = 0; i < header->count; i++)
+        corax_writer_field(w, header->field[i], header->length[i]);
+    for (size_t i = 0; i < sizeof out_names / sizeof out_names[0]; i++)
+        corax_writer_field(w, out_names[i], strlen(out_names[i]));
+    if (r->has_lines) {
+        corax_writer_field(w, "trend", 5);
+        corax_writer_field(w, "plunge", 6);
+    }
+    if (r->s->has_section) {
+        corax_writer_field(w, "apparent_dip", 12);
+        corax_writer_field(w, "apparent_dip_toward", 19);
+    }
+    corax_writer_field(w, "status", 6);
+    corax_writer_field(w, "note", 4);
+    corax_writer_end_row(w);
+}
+
+static const corax_hole *find_hole(const run *shared, lane *r, const char *name, size_t len)
+{
+    if (len == r->last_len && len < sizeof r->last_name && memcmp(name, r->last_name, len) == 0)
+        return r->last_hole;
+    r->last_hole = corax_program_find(shared->prog, name, len);
+    r->hint = 0;
+    if (len < sizeof r->last_name) {
+        memcpy(r->last_name, name, len);
+        r->last_len = len;
+    } else {
+        r->last_len = (size_t)-1;
+    }
+    return r->last_hole;
+}
+
+/* Read the reading's numbers; a phrase in why for the first that is not one. */
+static int read_numbers(const run *r, const corax_row *row, corax_reading *rd, char *why,
+                        size_t wl)
+{
+    double *slot[NCOLS] = {NULL, &rd->depth, &rd->alpha, &rd->beta, &rd->gamma,
+                           &rd->line_alpha, &rd->line_beta};
+    *rd = corax_reading_empty();
+    int ok = 1;
+    for (int k = COL_DEPTH; k < NCOLS; k++) {
+        if (r->col[k] < 0)
+            continue;
+        double v;
+        char phrase[160];
+        corax_number_status st = corax_field_number(row, r->col[k], r->s->format.decimal,
+                                                    col_names[k], &v, phrase, sizeof phrase);
+        if (st == CORAX_NUMBER_OK)
+            *slot[k] = k == COL_DEPTH ? v : corax_rad(v);
+        else if (st != CORAX_NUMBER_EMPTY || k == COL_DEPTH) {
+            if (ok)
+                snprintf(why, wl, "%s", phrase);
+            ok = 0;
+            if (k == COL_DEPTH)
+                rd->depth = NAN;
+        }
+    }
+    return ok;
+}
+
+static void write_blanks(corax_writer *w, int n)
+{
+    for (int i = 0; i < n; i++)
+        corax_writer_field(w, "", 0);
+}
+
+static void write_result(const run *r, corax_writer *w, const corax_result *res)
+{
+    if (res->located) {
+        double az, plunge;
+        corax_direction_angles(res->point.tangent, &az, &plunge);
+        corax_writer_number(w, res->point.position.x, 3);
+        corax_writer_number(w, res->point.position.y, 3);
+        corax_writer_number(w, res->point.position.z, 3);
+        corax_writer_azimuth(w, corax_deg(az), 2);
+        corax_writer_number(w, corax_plunge_to_dip(plunge, r->s->dip_convention), 2);
+    } else {
+        write_blanks(w, 5);
+    }
+    if (res->has_plane) {
+        double dd = corax_deg(res->plane.dip_direction), dip = corax_deg(res->plane.dip);
+        corax_writer_number(w, dip, 2);
+        corax_writer_azimuth(w, dd, 2);
+        corax_writer_azimuth(w, dd - 90.0, 2);
+        corax_writer_azimuth(w, dd + 180.0, 2);
+        corax_writer_number(w, 90.0 - dip, 2);
+        corax_writer_number(w, res->normal.x, 5);
+        corax_writer_number(w, res->normal.y, 5);
+        corax_writer_number(w, res->normal.z, 5);
+    } else {
+        write_blanks(w, 8);
+    }
+    if (r->has_lines) {
+        if (res->has_line) {
+            corax_writer_azimuth(w, corax_deg(res->trend), 2);
+            corax_writer_number(w, corax_deg(res->plunge), 2);
+        } else {
+            write_blanks(w, 2);
+        }
+    }
+    if (r->s->has_section) {
+        if (res->has_plane) {
+            int toward;
+            double a = corax_apparent_dip(res->plane, r->s->section_azimuth, &toward);
+            corax_writer_number(w, corax_deg(a), 2);
+            if (toward)
+                corax_writer_azimuth(w, corax_deg(r->s->section_azimuth) + (toward < 0 ? 180 : 0), 2);
+            else
+                write_blanks(w, 1);
+        } else {
+            write_blanks(w, 2);
+        }
+    }
+}
+
+static void convert_row(const run *r, lane *ln, const corax_row *row)
+{
+    corax_writer *w = ln->w;
+    char note[600], why[200] = "";
+    size_t nl = 0;
+    for (size_t i = 0; i < r->width; i++)
+        corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
+    corax_reading rd = corax_reading_empty();
+    int ragged = corax_field_ragged(row, r->width, why, sizeof why) != NULL;
+    int usable = !ragged && read_numbers(r, row, &rd, why, sizeof why);
+    size_t hl;
+    const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
+    const corax_hole *hole = find_hole(r, ln, name, hl);
+    corax_result res;
+    if (usable) {
+        corax_convert_reading(hole, &rd, &r->s->convert, &ln->hint, &res);
+    } else { /* the row's own phrase first, then what is known of its place */
+        corax_convert_locate(hole, ragged ? (double)NAN : rd.depth, &ln->hint, &res);
+        res.conditions |= CORAX_COND_INVALID;
+        nl = (size_t)snprintf(note, sizeof note, "%s", why);
+    }
+    write_result(r, w, &res);
+    unsigned c = res.conditions;
+    const char *status = corax_condition_status(c);
+    corax_writer_field(w, status, strlen(status));
+    if (c) {
+        char more[400];
+        if (corax_result_note(&res, &rd, hole, &r->s->convert, more, sizeof more))
+            nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", more);
+    }
+    if (row->count > r->width && nl < sizeof note) { /* keep the surplus: nothing lost */
+        nl += (size_t)snprintf(note + nl, sizeof note - nl, "%sextra fields: ", nl ? "; " : "");
+        for (size_t i = r->width; i < row->count && nl < sizeof note; i++)
+            nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", i > r->width ? "," : "",
+                                   row->field[i]);
+    }
+    corax_writer_field(w, note, nl < sizeof note ? nl : sizeof note - 1);
+    corax_writer_end_row(w);
+    unsigned k = 0;
+    while (k < CORAX_COND_COUNT && !(c & (1u << k)))
+        k++;
+    ln->count[k]++;
+    ln->rows++;
+}
+
+/* Same header names, in the same order (without regard to case). */
+static int same_header(const corax_row *h, char **names, size_t n)
+{
+    if (h->count != n)
+        return 0;
+    for (size_t i = 0; i < n; i++)
+        if (strcasecmp(h->field[i], names[i]) != 0)
+            return 0;
+    return 1;
+}
+
+static void free_names(char **names, size_t n)
+{
+    for (size_t i = 0; i < n; i++)
+        free(names[i]);
+    free(names);
+}
+
+/* Fill a batch with up to BATCH_ROWS rows: the reader's status (CORAX_OK when
+ * more may follow, CORAX_END at the end, or an error). */
+static corax_status fill_batch(corax_reader *rd, corax_table *batch, corax_error *err)
+{
+    corax_row row;
+    corax_status st = CORAX_OK;
+    corax_table_truncate(batch);
+    while (corax_table_rows(batch) < BATCH_ROWS && (st = corax_reader_next(rd, &row, err)) == CORAX_OK)
+        if (corax_table_append(batch, &row) != CORAX_OK)
+            return CORAX_ENOMEM;
+    return st;
+}
+
+/* Convert batch `cur` on every thread, in chunks taken in turn, while one
+ * thread first reads the following batch into `next` (when rd is not NULL).
+ * The chunks are then written out in row order, so the output does not depend
+ * on the number of threads. */
+static corax_status convert_batch(const run *r, const corax_table *cur, lane *lanes, int nlanes,
+                                  corax_writer **chunk, corax_reader *rd, corax_table *next,
+                                  corax_status *read_status, corax_error *read_err)
+{
+    size_t n = corax_table_rows(cur), widest = corax_table_widest(cur);
+    for (int k = 0; k < nlanes; k++) {
+        const char **field = realloc(lanes[k].field, (widest ? widest : 1) * sizeof *field);
+        if (!field)
+            return CORAX_ENOMEM;
+        lanes[k].field = field;
+    }
+    size_t taken = 0;
+#pragma omp parallel num_threads(nlanes)
+    {
+#pragma omp single nowait
+        if (rd)
+            *read_status = fill_batch(rd, next, read_err);
+        lane *ln = &lanes[omp_get_thread_num()];
+        for (;;) {
+            size_t c;
+#pragma omp atomic capture
+            c = taken++;
+            if (c >= BATCH_CHUNKS)
+                break;
+            corax_writer_reset(chunk[c]);
+            ln->w = chunk[c];
+            for (size_t i = n * c / BATCH_CHUNKS; i < n * (c + 1) / BATCH_CHUNKS; i++) {
+                corax_row row;
+                corax_table_row(cur, i, ln->field, &row);
+                convert_row(r, ln, &row);
+            }
+        }
+    }
+    for (size_t c = 0; c < BATCH_CHUNKS; c++) {
+        size_t len;
+        const char *text = corax_writer_contents(chunk[c], &len);
+        corax_writer_text(r->w, text, len);
+    }
+    return CORAX_OK;
+}
+
+static int convert_one_file(run *r, lane *lanes, int nlanes, corax_writer **chunk,
+                            const char *path, char ***first, size_t *nfirst)
+{
+    corax_reader *rd;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_reader_open(path, r->s->format, &rd, &err);
+    corax_row row;
+    if (st == CORAX_OK)
+        st = corax_table_header(rd, col_names, NCOLS, 2, r->s->columns, r->col, &r->width, &row, &err);
+    if (st == CORAX_OK && r->col[COL_ALPHA] < 0 && r->col[COL_LALPHA] < 0)
+        st = corax_error_set(&err, CORAX_EFORMAT, path, row.line,
+                             "no 'alpha' or 'line_alpha' column: nothing to convert");
+    if (st == CORAX_OK && !*first) { /* the first file sets the output's columns */
+        r->has_lines = r->col[COL_GAMMA] >= 0 || r->col[COL_LALPHA] >= 0;
+        write_header(r, &row);
+        *first = calloc(row.count ? row.count : 1, sizeof **first);
+        for (size_t i = 0; *first && i < row.count; i++)
+            (*first)[i] = strdup(row.field[i]);
+        *nfirst = row.count;
+    } else if (st == CORAX_OK && !same_header(&row, *first, *nfirst)) {
+        st = corax_error_set(&err, CORAX_EFORMAT, path, row.line,
+                             "the header differs from the first core log's; convert them "
+                             "separately or give them the same columns");
+    }
+    corax_table *cur = NULL, *next = NULL;
+    if (st == CORAX_OK) {
+        cur = corax_table_new(path, r->s->format.decimal, &row);
+        next = cur ? corax_table_new(path, r->s->format.decimal, &row) : NULL;
+        st = next ? fill_batch(rd, cur, &err) : CORAX_ENOMEM;
+    }
+    while ((st == CORAX_OK || st == CORAX_END) && corax_table_rows(cur) > 0) {
+        corax_status read_st = CORAX_END;
+        corax_error read_err;
+        corax_error_clear(&read_err);
+        corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, st == CORAX_OK ? rd : NULL,
+                                        next, &read_st, &read_err);
+        if (bs != CORAX_OK) {
+            st = bs;
+            break;
+        }
+        if (st == CORAX_END)
+            break;
+        st = read_st;
+        err = read_err;
+        corax_table *t = cur; /* the batch just read is converted next */
+        cur = next;
+        next = t;
+    }
+    corax_table_free(cur);
+    corax_table_free(next);
+    corax_reader_close(rd);
+    if (st != CORAX_END) {
+        cli_error_record(&err, st);
+        return EXIT_DATA;
+    }
+    return EXIT_OK;
+}
+
+static void summary(const lane *lanes, int nlanes)
+{
+    lane total;
+    memset(&total, 0, sizeof total);
+    for (int k = 0; k < nlanes; k++) {
+        total.rows += lanes[k].rows;
+        for (unsigned c = 0; c <= CORAX_COND_COUNT; c++)
+            total.count[c] += lanes[k].count[c];
+    }
+    const lane *r = &total;
+    fprintf(stderr, "corax: %zu row%s:", r->rows, r->rows == 1 ? "" : "s");
+    int first = 1;
+    if (r->count[CORAX_COND_COUNT]) {
+        fprintf(stderr, " %zu converted", r->count[CORAX_COND_COUNT]);
+        first = 0;
+    }
+    for (unsigned k = 0; k < CORAX_COND_COUNT; k++)
+        if (r->count[k]) {
+            fprintf(stderr, "%s %zu %s", first ? "" : ",", r->count[k], corax_condition_name(k));
+            first = 0;
+        }
+    fputc('\n', stderr);
+}
+
+int convert_files(const corax_program *prog, const convert_setup *s, const char *const *files,
+                  size_t nfiles, const char *output)
+{
+    run r;
+    memset(&r, 0, sizeof r);
+    r.prog = prog;
+    r.s = s;
+    int nlanes = omp_get_max_threads();
+    lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
+    corax_writer *chunk[BATCH_CHUNKS] = {NULL};
+    int rc = lanes ? EXIT_OK : EXIT_DATA;
+    for (int k = 0; k < nlanes && rc == EXIT_OK; k++)
+        lanes[k].last_len = (size_t)-1;
+    for (int c = 0; c < BATCH_CHUNKS && rc == EXIT_OK; c++)
+        if (corax_writer_memory(&chunk[c]) != CORAX_OK)
+            rc = EXIT_DATA;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = rc == EXIT_OK ? corax_writer_open(output, &r.w, &err) : CORAX_ENOMEM;
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        rc = EXIT_DATA;
+    }
+    char **first = NULL;
+    size_t nfirst = 0;
+    for (size_t i = 0; i < nfiles && rc == EXIT_OK; i++)
+        rc = convert_one_file(&r, lanes, nlanes, chunk, files[i], &first, &nfirst);
+    free_names(first, first ? nfirst : 0);
+    if (rc != EXIT_OK) {
+        corax_writer_discard(r.w);
+    } else if ((st = corax_writer_commit(r.w, &err)) != CORAX_OK) {
+        cli_error_record(&err, st);
+        rc = EXIT_DATA;
+    } else if (!s->quiet) {
+        summary(lanes, nlanes);
+    }
+    for (int k = 0; lanes && k < nlanes; k++)
+        free(lanes[k].field);
+    for (int c = 0; c < BATCH_CHUNKS; c++)
+        corax_writer_discard(chunk[c]);
+    free(lanes);
+    return rc;
+}
+
+void convert_about_conventions(cli_about *a, const corax_convert_options *cv)
+{
+    const corax_core_conventions *c = &cv->conventions;
+    cli_about_set(a, "reference_line", "%s", c->top_reference ? "top" : "bottom");
+    cli_about_set(a, "beta_end", "%s", c->beta_to_uphole_end ? "up-hole" : "down-hole");
+    cli_about_set(a, "beta_sense", "%s (looking down the hole)",
+                  c->beta_anticlockwise ? "anticlockwise" : "clockwise");
+    cli_about_set(a, "gamma_zero", "%s", c->gamma_from_uphole ? "up-hole" : "down-hole");
+    cli_about_set(a, "gamma_sense", "%s (seen from the up-hole side of the plane)",
+                  c->gamma_anticlockwise ? "anticlockwise" : "clockwise");
+    cli_about_set(a, "near_parallel", "%g", corax_deg(cv->near_parallel));
+    cli_about_set(a, "near_perpendicular", "%g", corax_deg(cv->near_perpendicular));
+    cli_about_set(a, "vertical_limit", "%g", corax_deg(cv->vertical_limit));
+}
+
+/* ---- one reading ---- */
+
+static void print_conventions(const corax_core_conventions *c)
+{
+    printf("conventions  %s-of-hole line; beta %s looking down the hole, to the %s end;\n"
+           "             gamma from the %s end, %s seen from up-hole\n",
+           c->top_reference ? "top" : "bottom",
+           c->beta_anticlockwise ? "anticlockwise" : "clockwise",
+           c->beta_to_uphole_end ? "up-hole" : "down-hole",
+           c->gamma_from_uphole ? "up-hole" : "down-hole",
+           c->gamma_anticlockwise ? "anticlockwise" : "clockwise");
+}
+
+int convert_one_reading(const cli_common *cc, const convert_setup *s, double hole_azimuth,
+                        double hole_dip, double alpha, double beta, double gamma,
+                        const double plane[2], const double line[2])
+{
+    const corax_convert_options *o = &s->convert;
+    double plunge;
+    if (corax_dip_to_plunge(hole_dip, cc->load.dip_convention, &plunge) != CORAX_OK)
+        return cli_usage("convert", "--hole-dip %g is outside the range of %s", hole_dip,
+                         cli_dip_convention_name(cc->load.dip_convention));
+    corax_vec3 t = corax_direction(corax_rad(hole_azimuth), plunge);
+    printf("hole         azimuth %.2f, dip %.2f (%s)\n", corax_wrap_degrees(hole_azimuth, 2),
+           hole_dip, cli_dip_convention_name(cc->load.dip_convention));
+    print_conventions(&o->conventions);
+    corax_core_frame f;
+    int framed = corax_core_off_vertical(t) >= o->vertical_limit &&
+                 corax_core_frame_of(t, &f) == CORAX_OK;
+    if (!isnan(plane[0]) || !isnan(line[0])) { /* the inverse: what the core would show */
+        if (!framed) {
+            printf("answer       none: the hole is within %g degrees of vertical, so there is no "
+                   "bottom-of-hole line to measure beta from\n",
+                   corax_deg(o->vertical_limit));
+            return EXIT_DATA;
+        }
+        double a, b;
+        if (!isnan(plane[0])) {
+            corax_plane p = {corax_rad(plane[0]), corax_rad(plane[1])};
+            corax_core_plane_angles(&f, corax_plane_normal(p), &o->conventions, &a, &b);
+            printf("plane        dip %.2f, dip direction %.2f\n", plane[0],
+                   corax_wrap_degrees(plane[1], 2));
+            if (isnan(b))
+                printf("would show   alpha %.2f, beta any (the ellipse is a circle)\n",
+                       corax_deg(a));
+            else
+                printf("would show   alpha %.2f, beta %.2f\n", corax_deg(a),
+                       corax_wrap_degrees(corax_deg(b), 2));
+        } else {
+            corax_vec3 l = corax_direction(corax_rad(line[0]), corax_rad(line[1]));
+            corax_core_line_angles(&f, l, &o->conventions, &a, &b);
+            printf("line         trend %.2f, plunge %.2f\n", corax_wrap_degrees(line[0], 2), line[1]);
+            printf("would show   line_alpha %.2f, line_beta %.2f\n", corax_deg(a),
+                   isnan(b) ? 0.0 : corax_wrap_degrees(corax_deg(b), 2));
+        }
+        return EXIT_OK;
+    }
+    /* a straight hole through the reading gives the library its hole */
+    corax_collar collar = {{0, 0, 0}, corax_rad(hole_azimuth), plunge, 1, NAN};
+    corax_hole *h;
+    if (corax_hole_new("reading", &collar, NULL, 0, 0, &h, NULL) != CORAX_OK)
+        return EXIT_DATA;
+    corax_reading rd = corax_reading_empty();
+    rd.alpha = corax_rad(alpha);
+    rd.beta = isnan(beta) ? beta : corax_rad(beta);
+    rd.gamma = isnan(gamma) ? gamma : corax_rad(gamma);
+    corax_result res;
+    corax_convert_reading(h, &rd, o, NULL, &res);
+    res.conditions &= ~(unsigned)CORAX_COND_COLLAR_ONLY; /* the hole is given, not surveyed */
+    printf("reading      alpha %.2f, beta %s", alpha, isnan(beta) ? "none" : "");
+    if (!isnan(beta))
+        printf("%.2f", beta);
+    if (!isnan(gamma))
+        printf(", gamma %.2f", gamma);
+    printf("\n");
+    if (res.has_plane) {
+        double dd = corax_deg(res.plane.dip_direction), dip = corax_deg(res.plane.dip);
+        printf("plane        dip %.2f, dip direction %.2f\n", dip, corax_wrap_degrees(dd, 2));
+        printf("strike       %.2f (dip to the right)\n", corax_wrap_degrees(dd - 90, 2));
+        printf("pole         trend %.2f, plunge %.2f\n", corax_wrap_degrees(dd + 180, 2), 90 - dip);
+    }
+    if (res.has_line)
+        printf("line         trend %.2f, plunge %.2f\n",
+               corax_wrap_degrees(corax_deg(res.trend), 2), corax_deg(res.plunge));
+    printf("status       %s\n", corax_condition_status(res.conditions));
+    char note[600];
+    if (corax_result_note(&res, &rd, h, o, note, sizeof note))
+        printf("note         %s\n", note);
+    corax_hole_free(h);
+    return res.has_plane || res.has_line ? EXIT_OK : EXIT_DATA;
+}
