@@ -7,14 +7,19 @@ cd "$(dirname "$0")/.."
 OUT=demo-output
 mkdir -p "$OUT"
 # The demo surveys are magnetic; the local grid is 0.8 degrees east of true north
-# and the declination 6.2 degrees east (both invented for the demo).
-P="--collars surveys/collars.csv --surveys surveys/surveys.csv --declination 6.2 --convergence 0.8"
+# and the declination 6.2 degrees east (both invented for the demo). The project
+# file says so, with the inputs and the core conventions.
+PROJECT=examples/quillon_creek.ini
 
-"$CORAX" trace $P -o "$OUT/stations.csv"
-"$CORAX" trace $P --step 5 -o "$OUT/traces.csv"
+"$CORAX" trace -p "$PROJECT" -o "$OUT/stations.csv"
+"$CORAX" trace -p "$PROJECT" --step 5 -o "$OUT/traces.csv"
+summary=$("$CORAX" convert -p "$PROJECT" --section-azimuth 135 -o "$OUT/structures.csv" 2>&1)
 
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
-echo "corax demo: Quillon Creek, $holes holes"
+rows=$(tail -n +2 examples/core_log.csv | wc -l)
+echo "corax demo: Quillon Creek, $holes holes, $rows core readings"
 echo "  desurveyed stations:     $OUT/stations.csv"
 echo "  traces every 5 m:        $OUT/traces.csv"
+echo "  converted structures:    $OUT/structures.csv"
+echo "      ${summary#corax: }"
 echo "  what each run assumed:   $OUT/*.about"

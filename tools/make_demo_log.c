@@ -1,0 +1,196 @@
+/* Makes the demo core log of the invented Quillon Creek program from an
+ * invented structural model, through corax's own inverse: the alpha, beta and
+ * gamma each true structure would show in the hole at its depth, with reading
+ * noise, orientation runs of about 3 m, unoriented broken ground, and a few
+ * deliberate slips for the QA checks to find.
+ *
+ *   build/tools/make_demo_log surveys/collars.csv surveys/surveys.csv \
+ *       examples/core_log.csv examples/runs.csv
+ *
+ * The slips (what a careful QA pass should report):
+ *   QC007 195-204 m  orientation line marked on the wrong side (beta + 180)
+ *   QC011 120-129 m  beta read the wrong way round (360 - beta)
+ *   QC012 all        every beta turned 40 degrees (a wrong convention for the hole)
+ *   QC004 below 88.4 m   the first reading typed twice
+ *   QC001 below 47 m     alpha 95 (out of range); QC005 below 61.3 m beta 365;
+ *   QC002 below 75 m     alpha "n/a"
+ */
+#include <gsl/gsl_randist.h>
+#include <gsl/gsl_rng.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/corax.h"
+#include "corax/core.h"
+
+typedef struct kind_model {
+    const char *name;
+    double dip, dip_direction, spread; /* degrees: the set's mean plane and scatter */
+} kind_model;
+
+/* The invented geology: bedding folded about a gently plunging axis, a steep
+ * foliation, two vein sets, faults and joints. */
+static const kind_model model[] = {
+    {"bedding", 55, 290, 9}, {"foliation", 75, 305, 6}, {"vein", 80, 20, 8},
+    {"vein", 35, 250, 8},    {"fault", 65, 160, 10},    {"joint", 85, 70, 12},
+};
+
+static corax_vec3 scatter(gsl_rng *rng, corax_vec3 mean, double spread_deg)
+{
+    /* a small random tilt of the normal (a Gaussian on each side) */
+    corax_vec3 a = fabs(mean.z) < 0.9 ? (corax_vec3){0, 0, 1} : (corax_vec3){1, 0, 0};
+    corax_vec3 u = {mean.y * a.z - mean.z * a.y, mean.z * a.x - mean.x * a.z,
+                    mean.x * a.y - mean.y * a.x};
+    double nu = sqrt(u.x * u.x + u.y * u.y + u.z * u.z);
+    u = (corax_vec3){u.x / nu, u.y / nu, u.z / nu};
+    corax_vec3 v = {mean.y * u.z - mean.z * u.y, mean.z * u.x - mean.x * u.z,
+                    mean.x * u.y - mean.y * u.x};
+    double s = corax_rad(spread_deg);
+    double p = gsl_ran_gaussian(rng, s), q = gsl_ran_gaussian(rng, s);
+    corax_vec3 n = {mean.x + p * u.x + q * v.x, mean.y + p * u.y + q * v.y,
+                    mean.z + p * u.z + q * v.z};
+    double nn = sqrt(n.x * n.x + n.y * n.y + n.z * n.z);
+    return (corax_vec3){n.x / nn, n.y / nn, n.z / nn};
+}
+
+static int pick_kind(gsl_rng *rng, double depth)
+{
+    /* lithology by depth: bedded sediments above 150 m, schist below */
+    double u = gsl_rng_uniform(rng);
+    if (depth < 150)
+        return u < 0.45 ? 0 : u < 0.6 ? 2 : u < 0.7 ? 3 : u < 0.8 ? 4 : 5;
+    return u < 0.45 ? 1 : u < 0.6 ? 2 : u < 0.72 ? 3 : u < 0.8 ? 4 : 5;
+}
+
+static const char *confidence_of(double u) { return u < 0.7 ? "good" : u < 0.92 ? "fair" : "poor"; }
+
+int main(int argc, char **argv)
+{
+    if (argc != 5) {
+        fprintf(stderr, "usage: make_demo_log COLLARS SURVEYS CORE_LOG RUNS\n");
+        return 2;
+    }
+    corax_load_options lo = corax_load_options_default();
+    lo.declination = 6.2;
+    lo.convergence = 0.8;
+    corax_program *prog;
+    corax_findings problems = {0};
+    corax_error err;
+    if (corax_program_load(argv[1], argv[2], &lo, &prog, &problems, &err) != CORAX_OK ||
+        corax_findings_count(&problems, CORAX_ERROR)) {
+        fprintf(stderr, "make_demo_log: cannot load the demo program\n");
+        return 1;
+    }
+    FILE *log = fopen(argv[3], "w"), *runs = fopen(argv[4], "w");
+    if (!log || !runs) {
+        perror("make_demo_log");
+        return 1;
+    }
+    gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937);
+    gsl_rng_set(rng, 20261201);
+    corax_core_conventions conv = {0, 0, 0, 0, 0};
+    fprintf(log, "hole,depth,alpha,beta,gamma,kind,confidence,logged_by,comment\n");
+    fprintf(runs, "hole,from,to,confidence\n");
+    static const char *const loggers[] = {"MK", "TJ", "RW"};
+    for (size_t h = 0; h < corax_program_size(prog); h++) {
+        const corax_hole *hole = corax_program_hole(prog, h);
+        const char *name = corax_hole_name(hole);
+        const char *logger = loggers[h % 3];
+        double length = corax_hole_length(hole);
+        double run_from = 6.0, line_error = 0;
+        int unoriented_run = 0;
+        const char *run_conf = "good";
+        size_t hint = 0;
+        for (double d = 6.0 + gsl_rng_uniform(rng); d < length - 1; d += 0.2 + gsl_ran_exponential(rng, 0.55)) {
+            if (d >= run_from + 3.0 || d == 6.0) { /* a new orientation run */
+                if (d > 6.0)
+                    fprintf(runs, "%s,%.2f,%.2f,%s\n", name, run_from, run_from + 3.0,
+                            unoriented_run ? "none" : run_conf);
+                while (d >= run_from + 3.0)
+                    run_from += 3.0;
+                double u = gsl_rng_uniform(rng);
+                run_conf = confidence_of(u);
+                unoriented_run = gsl_rng_uniform(rng) < 0.06; /* broken ground: no line */
+                line_error = gsl_ran_gaussian(rng, strcmp(run_conf, "good") == 0 ? 3
+                                                   : strcmp(run_conf, "fair") == 0 ? 8 : 20);
+            }
+            corax_hole_point pt;
+            if (corax_hole_at(hole, d, &hint, &pt) != CORAX_OK)
+                continue;
+            corax_core_frame f;
+            int framed = corax_core_frame_of(pt.tangent, &f) == CORAX_OK;
+            int k = pick_kind(rng, d);
+            corax_plane mean = {corax_rad(model[k].dip), corax_rad(model[k].dip_direction)};
+            if (k == 0) /* the bedding folds: its dip direction swings with depth */
+                mean.dip_direction += corax_rad(15 * sin(d / 40.0));
+            corax_vec3 n = scatter(rng, corax_plane_normal(mean), model[k].spread);
+            double alpha, beta;
+            if (!framed)
+                continue;
+            corax_core_plane_angles(&f, n, &conv, &alpha, &beta);
+            alpha = corax_deg(alpha) + gsl_ran_gaussian(rng, 2);
+            beta = corax_deg(beta) + gsl_ran_gaussian(rng, 4) + line_error;
+            if (alpha < 0)
+                alpha = -alpha;
+            if (alpha > 90)
+                alpha = 180 - alpha;
+            /* the slips */
+            if (strcmp(name, "QC007") == 0 && d >= 195 && d < 204)
+                beta += 180;
+            if (strcmp(name, "QC011") == 0 && d >= 120 && d < 129)
+                beta = 360 - beta;
+            if (strcmp(name, "QC012") == 0)
+                beta += 40;
+            beta = fmod(fmod(beta, 360) + 360, 360);
+            char gamma[16] = "", alpha_text[16], beta_text[16];
+            const char *kind = model[k].name, *comment = "";
+            if (k == 1 && gsl_rng_uniform(rng) < 0.25) { /* a stretching lineation on S1 */
+                corax_vec3 l = corax_direction(corax_rad(330), corax_rad(40));
+                double g = corax_core_gamma_of(&f, n, l, &conv);
+                if (!isnan(g)) {
+                    snprintf(gamma, sizeof gamma, "%.0f",
+                             fmod(round(corax_deg(g) + gsl_ran_gaussian(rng, 5)) + 720, 360));
+                    kind = "foliation+lineation";
+                }
+            }
+            snprintf(alpha_text, sizeof alpha_text, "%.0f", alpha);
+            snprintf(beta_text, sizeof beta_text, "%.0f", fmod(round(beta), 360));
+            if (unoriented_run) {
+                beta_text[0] = gamma[0] = '\0';
+                comment = "broken; no orientation line";
+            }
+            static int slip_alpha, slip_beta, slip_text, slip_twice; /* each once */
+            if (!slip_alpha && strcmp(name, "QC001") == 0 && d > 47) {
+                slip_alpha = 1;
+                snprintf(alpha_text, sizeof alpha_text, "95");
+                comment = "check";
+            }
+            if (!slip_beta && strcmp(name, "QC005") == 0 && d > 61.3 && beta_text[0]) {
+                slip_beta = 1;
+                snprintf(beta_text, sizeof beta_text, "365");
+            }
+            if (!slip_text && strcmp(name, "QC002") == 0 && d > 75) {
+                slip_text = 1;
+                snprintf(alpha_text, sizeof alpha_text, "n/a");
+                comment = "core lost";
+            }
+            fprintf(log, "%s,%.2f,%s,%s,%s,%s,%s,%s,%s\n", name, d, alpha_text, beta_text, gamma,
+                    kind, unoriented_run ? "none" : run_conf, logger, comment);
+            if (!slip_twice && strcmp(name, "QC004") == 0 && d > 88.4) { /* typed twice */
+                slip_twice = 1;
+                fprintf(log, "%s,%.2f,%s,%s,%s,%s,%s,%s,%s\n", name, d, alpha_text, beta_text,
+                        gamma, kind, run_conf, logger, "");
+            }
+        }
+        fprintf(runs, "%s,%.2f,%.2f,%s\n", name, run_from, run_from + 3.0,
+                unoriented_run ? "none" : run_conf);
+    }
+    gsl_rng_free(rng);
+    fclose(log);
+    fclose(runs);
+    corax_program_free(prog);
+    corax_findings_clear(&problems);
+    return 0;
+}
