@@ -2,6 +2,7 @@
 #include <math.h>
 
 #include "corax/geometry.h"
+#include "geometry/vec.h"
 #include "support/check.h"
 
 static void test_wrapping(void **state)
@@ -114,6 +115,23 @@ static void test_apparent_dip_derived_grid(void **state)
                  "a vertical plane shows vertical unless cut along strike");
 }
 
+/* The fast arctangent agrees with the C library's atan2 (the reference) in
+ * every quadrant, on the axes and at the origin. */
+static void test_fast_atan2_matches_atan2(void **state)
+{
+    (void)state;
+    uint64_t seed = 17;
+    for (int i = 0; i < 200000; i++) {
+        double y = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 8) - 4);
+        double x = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 8) - 4);
+        assert_close(fast_atan2(y, x), atan2(y, x), 4e-16, 4e-16, "fast_atan2 against atan2");
+    }
+    const double axes[][2] = {{0, 1}, {1, 0}, {0, -1}, {-1, 0}, {0, 0}, {1, 1}, {-1, -1}};
+    for (int i = 0; i < 7; i++)
+        assert_close(fast_atan2(axes[i][0], axes[i][1]), atan2(axes[i][0], axes[i][1]), 0, 4e-16,
+                     "fast_atan2 on the axes");
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -123,6 +141,7 @@ int main(void)
         cmocka_unit_test(test_plane_from_normal),
         cmocka_unit_test(test_apparent_dip_jukes_1859),
         cmocka_unit_test(test_apparent_dip_derived_grid),
+        cmocka_unit_test(test_fast_atan2_matches_atan2),
     };
     return cmocka_run_group_tests_name("geometry", tests, NULL, NULL);
 }

@@ -39,6 +39,23 @@ static const char convert_help[] =
     "  --section-azimuth DEG     add each plane's apparent dip in a vertical section\n"
     "                            of this azimuth, and the azimuth it dips toward\n"
     "  --structures FILE         a core log (as a positional argument; may repeat)\n"
+    "Uncertainty (Monte Carlo; 1-sigma errors in degrees, depth in metres):\n"
+    "  --draws N                 draw every reading N times; adds dip_sd,\n"
+    "                            dip_direction_sd, cone95, kappa, position_sd\n"
+    "  --seed S                  the generator's seed (default 1)\n"
+    "  --alpha-error DEG         alpha reading (default 2)\n"
+    "  --beta-error DEG          beta reading (default 5)\n"
+    "  --line-error DEG          the orientation line itself (default 5)\n"
+    "  --depth-error M           depth of a reading (default 0.05)\n"
+    "  --azimuth-error DEG       survey azimuth, each station (default 1)\n"
+    "  --dip-error DEG           survey dip, each station (default 0.5)\n"
+    "  --azimuth-error-per-hole DEG  survey azimuth, shared by a hole (default 0.5)\n"
+    "  --dip-error-per-hole DEG  survey dip, shared by a hole (default 0.25)\n"
+    "  --confidence-errors MAP   line error for each value of the log's confidence\n"
+    "                            column (default good=3,fair=8,poor=20)\n"
+    "  --cloud FILE              every draw: hole, depth, draw, dip, dip_direction, x, y, z\n"
+    "  A log's own alpha_error, beta_error, line_error, depth_error columns override\n"
+    "  the errors row by row.\n"
     "One reading (prints a labelled answer):\n"
     "  --hole-azimuth DEG --hole-dip DEG   the hole at the reading\n"
     "  --alpha DEG --beta DEG [--gamma DEG]\n"
@@ -68,6 +85,18 @@ enum {
     OPT_GAMMA,
     OPT_PLANE,
     OPT_LINE,
+    OPT_DRAWS,
+    OPT_SEED,
+    OPT_ALPHA_ERROR,
+    OPT_BETA_ERROR,
+    OPT_LINE_ERROR,
+    OPT_DEPTH_ERROR,
+    OPT_AZIMUTH_ERROR,
+    OPT_DIP_ERROR,
+    OPT_AZIMUTH_ERROR_HOLE,
+    OPT_DIP_ERROR_HOLE,
+    OPT_CONFIDENCE_ERRORS,
+    OPT_CLOUD,
 };
 
 typedef struct convert_opts {
@@ -101,6 +130,74 @@ static int pair(const char *arg, double *a, double *b, char *why, size_t wl)
         return -1;
     }
     return 0;
+}
+
+/* "good=3,fair=8,poor=20" into the confidence table. */
+static int confidence_map(convert_setup *s, const char *arg, char *why, size_t wl)
+{
+    s->nconfidence = 0;
+    for (const char *p = arg; *p;) {
+        const char *end = strchr(p, ',');
+        if (!end)
+            end = p + strlen(p);
+        const char *eq = memchr(p, '=', (size_t)(end - p));
+        double v;
+        if (!eq || eq == p || (size_t)(eq - p) >= sizeof s->confidence[0].name ||
+            corax_parse_number(eq + 1, (size_t)(end - eq - 1), '.', &v) != CORAX_NUMBER_OK ||
+            v < 0 || v > 180 || s->nconfidence == sizeof s->confidence / sizeof s->confidence[0]) {
+            snprintf(why, wl, "'%.*s' is not LEVEL=DEGREES (a level, a 1-sigma in [0, 180])",
+                     (int)(end - p), p);
+            return -1;
+        }
+        convert_confidence *c = &s->confidence[s->nconfidence++];
+        snprintf(c->name, sizeof c->name, "%.*s", (int)(eq - p), p);
+        c->sigma = corax_rad(v);
+        p = *end ? end + 1 : end;
+    }
+    return 0;
+}
+
+static int uncertainty_option(convert_opts *o, int opt, const char *arg, char *why, size_t wl)
+{
+    corax_error_model *e = &o->setup.errors;
+    double v;
+    switch (opt) {
+    case OPT_DRAWS:
+        if (cli_value_number(arg, 2, 1e6, &v, why, wl))
+            return -1;
+        if (v != floor(v)) {
+            snprintf(why, wl, "'%s' is not a whole number", arg);
+            return -1;
+        }
+        o->setup.draws = (size_t)v;
+        return 0;
+    case OPT_SEED:
+        if (cli_value_number(arg, 0, 4294967295.0, &v, why, wl))
+            return -1;
+        o->setup.seed = (uint64_t)v;
+        return 0;
+    case OPT_CONFIDENCE_ERRORS: return confidence_map(&o->setup, arg, why, wl);
+    case OPT_CLOUD: o->setup.cloud = arg; return 0;
+    }
+    static const struct {
+        int opt;
+        double max;
+        int metres;
+    } sigma[] = {{OPT_ALPHA_ERROR, 45, 0},       {OPT_BETA_ERROR, 180, 0},
+                 {OPT_LINE_ERROR, 180, 0},       {OPT_DEPTH_ERROR, 100, 1},
+                 {OPT_AZIMUTH_ERROR, 45, 0},     {OPT_DIP_ERROR, 45, 0},
+                 {OPT_AZIMUTH_ERROR_HOLE, 45, 0}, {OPT_DIP_ERROR_HOLE, 45, 0}};
+    double *slot[] = {&e->alpha,   &e->beta, &e->line,         &e->depth,
+                      &e->azimuth, &e->dip,  &e->azimuth_hole, &e->dip_hole};
+    for (int i = 0; i < 8; i++)
+        if (sigma[i].opt == opt) {
+            if (cli_value_number(arg, 0, sigma[i].max, &v, why, wl))
+                return -1;
+            *slot[i] = sigma[i].metres ? v : corax_rad(v);
+            return 0;
+        }
+    snprintf(why, wl, "not an option of this command");
+    return -1;
 }
 
 static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
@@ -161,8 +258,7 @@ static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t
         }
         return 0;
     }
-    snprintf(why, wl, "not an option of this command");
-    return -1;
+    return uncertainty_option(o, opt, arg, why, wl);
 }
 
 static int parse(int argc, char **argv, convert_opts *o)
@@ -186,6 +282,18 @@ static int parse(int argc, char **argv, convert_opts *o)
         {"gamma", required_argument, NULL, OPT_GAMMA},
         {"plane", required_argument, NULL, OPT_PLANE},
         {"line", required_argument, NULL, OPT_LINE},
+        {"draws", required_argument, NULL, OPT_DRAWS},
+        {"seed", required_argument, NULL, OPT_SEED},
+        {"alpha-error", required_argument, NULL, OPT_ALPHA_ERROR},
+        {"beta-error", required_argument, NULL, OPT_BETA_ERROR},
+        {"line-error", required_argument, NULL, OPT_LINE_ERROR},
+        {"depth-error", required_argument, NULL, OPT_DEPTH_ERROR},
+        {"azimuth-error", required_argument, NULL, OPT_AZIMUTH_ERROR},
+        {"dip-error", required_argument, NULL, OPT_DIP_ERROR},
+        {"azimuth-error-per-hole", required_argument, NULL, OPT_AZIMUTH_ERROR_HOLE},
+        {"dip-error-per-hole", required_argument, NULL, OPT_DIP_ERROR_HOLE},
+        {"confidence-errors", required_argument, NULL, OPT_CONFIDENCE_ERRORS},
+        {"cloud", required_argument, NULL, OPT_CLOUD},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
@@ -230,6 +338,31 @@ static int write_about(const convert_opts *o)
     convert_about_conventions(a, cv);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
+    if (o->setup.draws) {
+        const corax_error_model *e = &o->setup.errors;
+        cli_about_section(a, "uncertainty");
+        cli_about_set(a, "draws", "%zu", o->setup.draws);
+        cli_about_set(a, "seed", "%llu", (unsigned long long)o->setup.seed);
+        cli_about_set(a, "generator", "GSL taus2, Gaussians by the ziggurat method; one "
+                      "stream per hole, seeded from the seed and the hole's name");
+        cli_about_set(a, "alpha_error", "%g", corax_deg(e->alpha));
+        cli_about_set(a, "beta_error", "%g", corax_deg(e->beta));
+        cli_about_set(a, "line_error", "%g", corax_deg(e->line));
+        cli_about_set(a, "depth_error", "%g", e->depth);
+        cli_about_set(a, "azimuth_error", "%g", corax_deg(e->azimuth));
+        cli_about_set(a, "dip_error", "%g", corax_deg(e->dip));
+        cli_about_set(a, "azimuth_error_per_hole", "%g", corax_deg(e->azimuth_hole));
+        cli_about_set(a, "dip_error_per_hole", "%g", corax_deg(e->dip_hole));
+        char map[600] = "";
+        size_t used = 0;
+        for (size_t i = 0; i < o->setup.nconfidence && used < sizeof map; i++)
+            used += (size_t)snprintf(map + used, sizeof map - used, "%s%s=%g", i ? "," : "",
+                                     o->setup.confidence[i].name,
+                                     corax_deg(o->setup.confidence[i].sigma));
+        cli_about_set(a, "confidence_errors", "%s", map);
+        if (o->setup.cloud)
+            cli_about_set(a, "cloud", "%s", o->setup.cloud);
+    }
     return cli_about_commit(a, &o->c);
 }
 
@@ -239,6 +372,10 @@ int cmd_convert(int argc, char **argv)
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "convert");
     o.setup.convert = corax_convert_options_default();
+    o.setup.errors = corax_error_model_default();
+    o.setup.seed = 1;
+    char map_why[200];
+    confidence_map(&o.setup, "good=3,fair=8,poor=20", map_why, sizeof map_why);
     o.hole_azimuth = o.hole_dip = o.alpha = o.beta = o.gamma = NAN;
     o.plane[0] = o.line[0] = NAN;
     int rc = parse(argc, argv, &o);

@@ -10,43 +10,19 @@
 #include "cli/convert_rows.h"
 #include "io/fields.h"
 
-/* Logical columns of a core log. */
-enum { COL_HOLE, COL_DEPTH, COL_ALPHA, COL_BETA, COL_GAMMA, COL_LALPHA, COL_LBETA, NCOLS };
-static const char *const col_names[NCOLS] = {"hole",  "depth",      "alpha",    "beta",
-                                             "gamma", "line_alpha", "line_beta"};
+static const char *const col_names[NCOLS] = {
+    "hole", "depth", "alpha", "beta", "gamma", "line_alpha", "line_beta",
+    "alpha_error", "beta_error", "line_error", "depth_error", "confidence"};
 
 static const char *const out_names[] = {
     "x",          "y",           "z",     "hole_azimuth", "hole_dip", "dip", "dip_direction",
     "strike",     "pole_trend",  "pole_plunge", "nx",     "ny",       "nz",
 };
 
-/* What every row of a run shares; read-only while rows are converted. */
-typedef struct run {
-    const corax_program *prog;
-    const convert_setup *s;
-    corax_writer *w; /* the output */
-    int has_lines;
-    size_t width;
-    long col[NCOLS];
-} run;
-
-/* One thread's share of a batch of rows. */
-typedef struct lane {
-    corax_writer *w; /* the chunk being written (in memory) */
-    /* the hole of the previous row, to skip the look-up down a log */
-    char last_name[128];
-    size_t last_len;
-    const corax_hole *last_hole;
-    size_t hint;
-    size_t count[CORAX_COND_COUNT + 1]; /* rows by status; the last is "converted" */
-    size_t rows;
-    const char **field; /* room for a row's field pointers */
-} lane;
-
 /* Rows are read a batch at a time and converted in chunks on every thread. */
 enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
 
-static void write_header(run *r, const corax_row *header)
+static void write_header(convert_run *r, const corax_row *header)
 {
     corax_writer *w = r->w;
     for (size_t i = 0; i < header->count; i++)
@@ -61,12 +37,18 @@ static void write_header(run *r, const corax_row *header)
         corax_writer_field(w, "apparent_dip", 12);
         corax_writer_field(w, "apparent_dip_toward", 19);
     }
+    if (r->s->draws) {
+        static const char *const spread[] = {"dip_sd", "dip_direction_sd", "cone95", "kappa",
+                                             "position_sd"};
+        for (int i = 0; i < 5; i++)
+            corax_writer_field(w, spread[i], strlen(spread[i]));
+    }
     corax_writer_field(w, "status", 6);
     corax_writer_field(w, "note", 4);
     corax_writer_end_row(w);
 }
 
-static const corax_hole *find_hole(const run *shared, lane *r, const char *name, size_t len)
+static const corax_hole *find_hole(const convert_run *shared, convert_lane *r, const char *name, size_t len)
 {
     if (len == r->last_len && len < sizeof r->last_name && memcmp(name, r->last_name, len) == 0)
         return r->last_hole;
@@ -82,14 +64,14 @@ static const corax_hole *find_hole(const run *shared, lane *r, const char *name,
 }
 
 /* Read the reading's numbers; a phrase in why for the first that is not one. */
-static int read_numbers(const run *r, const corax_row *row, corax_reading *rd, char *why,
+static int read_numbers(const convert_run *r, const corax_row *row, corax_reading *rd, char *why,
                         size_t wl)
 {
-    double *slot[NCOLS] = {NULL, &rd->depth, &rd->alpha, &rd->beta, &rd->gamma,
+    double *slot[COL_LBETA + 1] = {NULL, &rd->depth, &rd->alpha, &rd->beta, &rd->gamma,
                            &rd->line_alpha, &rd->line_beta};
     *rd = corax_reading_empty();
     int ok = 1;
-    for (int k = COL_DEPTH; k < NCOLS; k++) {
+    for (int k = COL_DEPTH; k <= COL_LBETA; k++) {
         if (r->col[k] < 0)
             continue;
         double v;
@@ -115,7 +97,7 @@ static void write_blanks(corax_writer *w, int n)
         corax_writer_field(w, "", 0);
 }
 
-static void write_result(const run *r, corax_writer *w, const corax_result *res)
+static void write_result(const convert_run *r, corax_writer *w, const corax_result *res)
 {
     if (res->located) {
         double az, plunge;
@@ -164,36 +146,109 @@ static void write_result(const run *r, corax_writer *w, const corax_result *res)
     }
 }
 
-static void convert_row(const run *r, lane *ln, const corax_row *row)
+/* This row's reading errors: the run's, a confidence's line error, and the
+ * row's own columns. 0 with why filled when one cannot be used. */
+static int row_errors(const convert_run *r, const corax_row *row, corax_error_model *e,
+                      char *why, size_t wl)
+{
+    const convert_setup *s = r->s;
+    *e = s->errors;
+    if (r->col[COL_CONFIDENCE] >= 0) {
+        size_t n;
+        const char *c = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
+        if (n) {
+            size_t k = 0;
+            while (k < s->nconfidence &&
+                   !(strlen(s->confidence[k].name) == n && strncasecmp(s->confidence[k].name, c, n) == 0))
+                k++;
+            if (k == s->nconfidence) {
+                snprintf(why, wl, "no uncertainty: confidence '%.40s' has no line error "
+                         "(--confidence-errors)", c);
+                return 0;
+            }
+            e->line = s->confidence[k].sigma;
+        }
+    }
+    static const int cols[] = {COL_ALPHA_ERROR, COL_BETA_ERROR, COL_LINE_ERROR, COL_DEPTH_ERROR};
+    double *slot[] = {&e->alpha, &e->beta, &e->line, &e->depth};
+    for (int i = 0; i < 4; i++) {
+        if (r->col[cols[i]] < 0)
+            continue;
+        double v;
+        char phrase[120];
+        corax_number_status st = corax_field_number(row, r->col[cols[i]], s->format.decimal,
+                                                    col_names[cols[i]], &v, phrase, sizeof phrase);
+        if (st == CORAX_NUMBER_EMPTY)
+            continue;
+        if (st != CORAX_NUMBER_OK || v < 0.0) {
+            if (st == CORAX_NUMBER_OK)
+                snprintf(phrase, sizeof phrase, "%s %g is negative", col_names[cols[i]], v);
+            snprintf(why, wl, "no uncertainty: %s", phrase);
+            return 0;
+        }
+        *slot[i] = cols[i] == COL_DEPTH_ERROR ? v : corax_rad(v);
+    }
+    return 1;
+}
+
+void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
+                      convert_eval *ev)
+{
+    ev->rd = corax_reading_empty();
+    ev->why[0] = ev->mc_why[0] = '\0';
+    int ragged = corax_field_ragged(row, r->width, ev->why, sizeof ev->why) != NULL;
+    ev->usable = !ragged && read_numbers(r, row, &ev->rd, ev->why, sizeof ev->why);
+    size_t hl;
+    const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
+    ev->hole = find_hole(r, ln, name, hl);
+    if (ev->usable) {
+        corax_convert_reading(ev->hole, &ev->rd, &r->s->convert, &ln->hint, &ev->res);
+    } else { /* the row's own phrase first, then what is known of its place */
+        corax_convert_locate(ev->hole, ragged ? (double)NAN : ev->rd.depth, &ln->hint, &ev->res);
+        ev->res.conditions |= CORAX_COND_INVALID;
+    }
+    ev->simulate = 0;
+    if (r->s->draws && (ev->res.has_plane || ev->res.has_line))
+        ev->simulate = row_errors(r, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
+}
+
+static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp)
+{
+    if (!r->s->draws)
+        return;
+    if (!sp || !sp->has_orientation || sp->draws < 2) {
+        write_blanks(w, 5);
+        return;
+    }
+    corax_writer_number(w, corax_deg(sp->dip_sd), 2);
+    corax_writer_number(w, corax_deg(sp->dip_direction_sd), 2);
+    corax_writer_number(w, corax_deg(sp->cone95), 2);
+    corax_writer_number(w, isfinite(sp->kappa) ? sp->kappa : (double)NAN, 1);
+    corax_writer_number(w, sp->position_sd, 3);
+}
+
+void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
+                   const convert_eval *ev, const corax_spread *sp)
 {
     corax_writer *w = ln->w;
-    char note[600], why[200] = "";
+    char note[800];
     size_t nl = 0;
     for (size_t i = 0; i < r->width; i++)
         corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
-    corax_reading rd = corax_reading_empty();
-    int ragged = corax_field_ragged(row, r->width, why, sizeof why) != NULL;
-    int usable = !ragged && read_numbers(r, row, &rd, why, sizeof why);
-    size_t hl;
-    const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
-    const corax_hole *hole = find_hole(r, ln, name, hl);
-    corax_result res;
-    if (usable) {
-        corax_convert_reading(hole, &rd, &r->s->convert, &ln->hint, &res);
-    } else { /* the row's own phrase first, then what is known of its place */
-        corax_convert_locate(hole, ragged ? (double)NAN : rd.depth, &ln->hint, &res);
-        res.conditions |= CORAX_COND_INVALID;
-        nl = (size_t)snprintf(note, sizeof note, "%s", why);
-    }
-    write_result(r, w, &res);
-    unsigned c = res.conditions;
+    write_result(r, w, &ev->res);
+    write_spread(r, w, sp);
+    unsigned c = ev->res.conditions;
     const char *status = corax_condition_status(c);
     corax_writer_field(w, status, strlen(status));
+    if (!ev->usable)
+        nl = (size_t)snprintf(note, sizeof note, "%s", ev->why);
     if (c) {
         char more[400];
-        if (corax_result_note(&res, &rd, hole, &r->s->convert, more, sizeof more))
+        if (corax_result_note(&ev->res, &ev->rd, ev->hole, &r->s->convert, more, sizeof more))
             nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", more);
     }
+    if (ev->mc_why[0] && nl < sizeof note)
+        nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", ev->mc_why);
     if (row->count > r->width && nl < sizeof note) { /* keep the surplus: nothing lost */
         nl += (size_t)snprintf(note + nl, sizeof note - nl, "%sextra fields: ", nl ? "; " : "");
         for (size_t i = r->width; i < row->count && nl < sizeof note; i++)
@@ -207,6 +262,13 @@ static void convert_row(const run *r, lane *ln, const corax_row *row)
         k++;
     ln->count[k]++;
     ln->rows++;
+}
+
+static void convert_row(const convert_run *r, convert_lane *ln, const corax_row *row)
+{
+    convert_eval ev;
+    convert_evaluate(r, ln, row, &ev);
+    convert_write(r, ln, row, &ev, NULL);
 }
 
 /* Same header names, in the same order (without regard to case). */
@@ -244,7 +306,7 @@ static corax_status fill_batch(corax_reader *rd, corax_table *batch, corax_error
  * thread first reads the following batch into `next` (when rd is not NULL).
  * The chunks are then written out in row order, so the output does not depend
  * on the number of threads. */
-static corax_status convert_batch(const run *r, const corax_table *cur, lane *lanes, int nlanes,
+static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes, int nlanes,
                                   corax_writer **chunk, corax_reader *rd, corax_table *next,
                                   corax_status *read_status, corax_error *read_err)
 {
@@ -261,7 +323,7 @@ static corax_status convert_batch(const run *r, const corax_table *cur, lane *la
 #pragma omp single nowait
         if (rd)
             *read_status = fill_batch(rd, next, read_err);
-        lane *ln = &lanes[omp_get_thread_num()];
+        convert_lane *ln = &lanes[omp_get_thread_num()];
         for (;;) {
             size_t c;
 #pragma omp atomic capture
@@ -285,31 +347,44 @@ static corax_status convert_batch(const run *r, const corax_table *cur, lane *la
     return CORAX_OK;
 }
 
-static int convert_one_file(run *r, lane *lanes, int nlanes, corax_writer **chunk,
-                            const char *path, char ***first, size_t *nfirst)
+corax_status convert_open_log(convert_run *r, const char *path, corax_reader **reader,
+                              corax_row *header, corax_error *err)
+{
+    corax_status st = corax_reader_open(path, r->s->format, reader, err);
+    if (st != CORAX_OK)
+        return st;
+    st = corax_table_header(*reader, col_names, NCOLS, 2, r->s->columns, r->col, &r->width,
+                            header, err);
+    if (st == CORAX_OK && r->col[COL_ALPHA] < 0 && r->col[COL_LALPHA] < 0)
+        st = corax_error_set(err, CORAX_EFORMAT, path, header->line,
+                             "no 'alpha' or 'line_alpha' column: nothing to convert");
+    if (st == CORAX_OK && !r->first) { /* the first log sets the output's columns */
+        r->has_lines = r->col[COL_GAMMA] >= 0 || r->col[COL_LALPHA] >= 0;
+        write_header(r, header);
+        r->first = calloc(header->count ? header->count : 1, sizeof *r->first);
+        for (size_t i = 0; r->first && i < header->count; i++)
+            r->first[i] = strdup(header->field[i]);
+        r->nfirst = header->count;
+    } else if (st == CORAX_OK && !same_header(header, r->first, r->nfirst)) {
+        st = corax_error_set(err, CORAX_EFORMAT, path, header->line,
+                             "the header differs from the first core log's; convert them "
+                             "separately or give them the same columns");
+    }
+    if (st != CORAX_OK) {
+        corax_reader_close(*reader);
+        *reader = NULL;
+    }
+    return st;
+}
+
+static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
+                            corax_writer **chunk, const char *path)
 {
     corax_reader *rd;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_reader_open(path, r->s->format, &rd, &err);
     corax_row row;
-    if (st == CORAX_OK)
-        st = corax_table_header(rd, col_names, NCOLS, 2, r->s->columns, r->col, &r->width, &row, &err);
-    if (st == CORAX_OK && r->col[COL_ALPHA] < 0 && r->col[COL_LALPHA] < 0)
-        st = corax_error_set(&err, CORAX_EFORMAT, path, row.line,
-                             "no 'alpha' or 'line_alpha' column: nothing to convert");
-    if (st == CORAX_OK && !*first) { /* the first file sets the output's columns */
-        r->has_lines = r->col[COL_GAMMA] >= 0 || r->col[COL_LALPHA] >= 0;
-        write_header(r, &row);
-        *first = calloc(row.count ? row.count : 1, sizeof **first);
-        for (size_t i = 0; *first && i < row.count; i++)
-            (*first)[i] = strdup(row.field[i]);
-        *nfirst = row.count;
-    } else if (st == CORAX_OK && !same_header(&row, *first, *nfirst)) {
-        st = corax_error_set(&err, CORAX_EFORMAT, path, row.line,
-                             "the header differs from the first core log's; convert them "
-                             "separately or give them the same columns");
-    }
+    corax_status st = convert_open_log(r, path, &rd, &row, &err);
     corax_table *cur = NULL, *next = NULL;
     if (st == CORAX_OK) {
         cur = corax_table_new(path, r->s->format.decimal, &row);
@@ -344,16 +419,16 @@ static int convert_one_file(run *r, lane *lanes, int nlanes, corax_writer **chun
     return EXIT_OK;
 }
 
-static void summary(const lane *lanes, int nlanes)
+static void summary(const convert_lane *lanes, int nlanes)
 {
-    lane total;
+    convert_lane total;
     memset(&total, 0, sizeof total);
     for (int k = 0; k < nlanes; k++) {
         total.rows += lanes[k].rows;
         for (unsigned c = 0; c <= CORAX_COND_COUNT; c++)
             total.count[c] += lanes[k].count[c];
     }
-    const lane *r = &total;
+    const convert_lane *r = &total;
     fprintf(stderr, "corax: %zu row%s:", r->rows, r->rows == 1 ? "" : "s");
     int first = 1;
     if (r->count[CORAX_COND_COUNT]) {
@@ -371,12 +446,12 @@ static void summary(const lane *lanes, int nlanes)
 int convert_files(const corax_program *prog, const convert_setup *s, const char *const *files,
                   size_t nfiles, const char *output)
 {
-    run r;
+    convert_run r;
     memset(&r, 0, sizeof r);
     r.prog = prog;
     r.s = s;
     int nlanes = omp_get_max_threads();
-    lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
+    convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
     corax_writer *chunk[BATCH_CHUNKS] = {NULL};
     int rc = lanes ? EXIT_OK : EXIT_DATA;
     for (int k = 0; k < nlanes && rc == EXIT_OK; k++)
@@ -391,11 +466,11 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
         cli_error_record(&err, st);
         rc = EXIT_DATA;
     }
-    char **first = NULL;
-    size_t nfirst = 0;
-    for (size_t i = 0; i < nfiles && rc == EXIT_OK; i++)
-        rc = convert_one_file(&r, lanes, nlanes, chunk, files[i], &first, &nfirst);
-    free_names(first, first ? nfirst : 0);
+    if (rc == EXIT_OK && s->draws)
+        rc = convert_with_draws(&r, lanes, nlanes, files, nfiles);
+    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !s->draws; i++)
+        rc = convert_one_file(&r, lanes, nlanes, chunk, files[i]);
+    free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != EXIT_OK) {
         corax_writer_discard(r.w);
     } else if ((st = corax_writer_commit(r.w, &err)) != CORAX_OK) {

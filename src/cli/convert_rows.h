@@ -4,6 +4,13 @@
 
 #include "cli/cli.h"
 #include "corax/convert.h"
+#include "corax/uncertainty.h"
+
+/* A confidence level and the orientation line's error it stands for. */
+typedef struct convert_confidence {
+    char name[32];
+    double sigma; /* radians */
+} convert_confidence;
 
 typedef struct convert_setup {
     corax_convert_options convert;
@@ -13,7 +20,77 @@ typedef struct convert_setup {
     int has_section;
     double section_azimuth; /* radians */
     int quiet;
+    /* uncertainty (draws 0: none) */
+    size_t draws;
+    uint64_t seed;
+    corax_error_model errors;
+    convert_confidence confidence[16];
+    size_t nconfidence;
+    const char *cloud; /* every draw, or NULL */
 } convert_setup;
+
+/* Logical columns of a core log. */
+enum {
+    COL_HOLE, COL_DEPTH, COL_ALPHA, COL_BETA, COL_GAMMA, COL_LALPHA, COL_LBETA,
+    COL_ALPHA_ERROR, COL_BETA_ERROR, COL_LINE_ERROR, COL_DEPTH_ERROR, COL_CONFIDENCE, NCOLS
+};
+
+/* What every row of a run shares; read-only while rows are converted. */
+typedef struct convert_run {
+    const corax_program *prog;
+    const convert_setup *s;
+    corax_writer *w; /* the output */
+    int has_lines;
+    size_t width;
+    long col[NCOLS];
+    char **first;    /* the first log's header names: later logs must match */
+    size_t nfirst;
+} convert_run;
+
+/* One thread's state: where its rows go and what it has seen. */
+typedef struct convert_lane {
+    corax_writer *w; /* the chunk being written */
+    /* the hole of the previous row, to skip the look-up down a log */
+    char last_name[128];
+    size_t last_len;
+    const corax_hole *last_hole;
+    size_t hint;
+    size_t count[CORAX_COND_COUNT + 1]; /* rows by status; the last is "converted" */
+    size_t rows;
+    const char **field; /* room for a row's field pointers */
+} convert_lane;
+
+/* One row, evaluated. */
+typedef struct convert_eval {
+    corax_reading rd;
+    const corax_hole *hole;
+    corax_result res;
+    int usable;            /* the row's fields could be read */
+    char why[200];         /* why not, else "" */
+    int simulate;          /* uncertainty is wanted and can be drawn */
+    corax_error_model errors; /* the row's reading errors */
+    char mc_why[200];      /* why the row gets no uncertainty, else "" */
+} convert_eval;
+
+/* Read a row into ev (the plain conversion; with draws, its errors too). */
+void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
+                      convert_eval *ev);
+
+/* Write a row: its fields, the conversion, the spread (sp NULL: none), the
+ * status and the note; and count it. */
+void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
+                   const convert_eval *ev, const corax_spread *sp);
+
+/* Open a core log, read and check its header (the first log writes the
+ * output's header; later ones must match it). On CORAX_OK *reader stands
+ * after the header and *header holds it until the next read. */
+corax_status convert_open_log(convert_run *r, const char *path, corax_reader **reader,
+                              corax_row *header, corax_error *err);
+
+/* The uncertainty run: every log in memory, holes simulated in parallel,
+ * rows written in order. An exit status (messages printed). */
+int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
+                       const char *const *files, size_t nfiles);
 
 /* Stream every structures file through the conversion into one output.
  * Returns an exit status (messages printed). */

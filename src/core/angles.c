@@ -60,7 +60,7 @@ corax_status corax_core_frame_of(corax_vec3 t, corax_core_frame *f)
 
 double corax_core_off_vertical(corax_vec3 t)
 {
-    return atan2(sqrt(t.x * t.x + t.y * t.y), fabs(t.z));
+    return fast_atan2(sqrt(t.x * t.x + t.y * t.y), fabs(t.z));
 }
 
 /* The direction around the core at canonical angle b from the bottom line. */
@@ -106,7 +106,7 @@ static double split(const corax_core_frame *f, corax_vec3 v, corax_vec3 *across,
 
 static double angle_around(const corax_core_frame *f, corax_vec3 e)
 {
-    return corax_wrap_azimuth(atan2(vec_dot(e, f->s), vec_dot(e, f->r)));
+    return corax_wrap_azimuth(fast_atan2(vec_dot(e, f->s), vec_dot(e, f->r)));
 }
 
 void corax_core_plane_angles(const corax_core_frame *f, corax_vec3 n,

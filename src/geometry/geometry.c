@@ -9,6 +9,12 @@ double corax_deg(double radians) { return radians / CORAX_DEG; }
 
 double corax_wrap_azimuth(double radians)
 {
+    if (radians >= 0.0 && radians < 2.0 * CORAX_PI)
+        return radians;
+    if (radians < 0.0 && radians >= -2.0 * CORAX_PI) { /* atan2's range: one turn back */
+        double a = radians + 2.0 * CORAX_PI;
+        return a < 2.0 * CORAX_PI ? a : 0.0;
+    }
     double a = fmod(radians, 2.0 * CORAX_PI);
     if (a < 0.0)
         a += 2.0 * CORAX_PI;
@@ -41,8 +47,8 @@ corax_vec3 corax_direction(double azimuth, double plunge)
 void corax_direction_angles(corax_vec3 v, double *azimuth, double *plunge)
 {
     double h = sqrt(v.x * v.x + v.y * v.y);
-    *azimuth = h > 0.0 ? corax_wrap_azimuth(atan2(v.x, v.y)) : 0.0;
-    *plunge = atan2(-v.z, h);
+    *azimuth = h > 0.0 ? corax_wrap_azimuth(fast_atan2(v.x, v.y)) : 0.0;
+    *plunge = fast_atan2(-v.z, h);
 }
 
 void corax_line_trend_plunge(corax_vec3 v, double *trend, double *plunge)
@@ -59,8 +65,8 @@ corax_plane corax_plane_from_normal(corax_vec3 n, corax_vec3 *up)
         n = vec_neg(n);
     n = vec_unit(n);
     double h = sqrt(n.x * n.x + n.y * n.y); /* n is a unit vector: no overflow */
-    p.dip = atan2(h, n.z);
-    p.dip_direction = h > 0.0 ? corax_wrap_azimuth(atan2(n.x, n.y)) : 0.0;
+    p.dip = fast_atan2(h, n.z);
+    p.dip_direction = h > 0.0 ? corax_wrap_azimuth(fast_atan2(n.x, n.y)) : 0.0;
     if (up)
         *up = n;
     return p;

@@ -21,17 +21,17 @@ static int station_cmp(const void *a, const void *b)
 static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
 {
     h->node[0].r = h->collar.position;
-    h->node[0].b = NAN;
+    h->node[0].course.b = NAN;
     for (size_t i = 1; i < h->n; i++) {
         corax_hole_node *a = &h->node[i - 1], *z = &h->node[i];
         double length = z->depth - a->depth;
         if (z->straight) {
-            z->b = NAN;
+            z->course.b = NAN;
             z->r = vec_add(a->r, vec_scale(a->t, length));
             continue;
         }
-        z->b = corax_mc_dogleg(a->t, z->t);
-        if (z->b > CORAX_PI - 1e-9) {
+        z->course = corax_mc_course_of(a->t, z->t, length);
+        if (z->course.b > CORAX_PI - 1e-9) {
             const corax_station *sa = &h->given[i - 1 - h->offset];
             const corax_station *sz = &h->given[i - h->offset];
             return corax_error_set(err, CORAX_ESURVEY, NULL, sz->line,
@@ -41,7 +41,7 @@ static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
                                    h->name, sa->depth, sa->line, sz->depth, sz->line);
         }
         corax_vec3 t;
-        corax_mc_along(a->r, a->t, z->t, length, z->b, 1.0, &z->r, &t);
+        corax_mc_along(a->r, a->t, z->t, &z->course, 1.0, &z->r, &t);
     }
     return CORAX_OK;
 }
@@ -82,13 +82,16 @@ static corax_status build_nodes(corax_hole *h, corax_error *err)
     if (h->offset) { /* the collar leads the path, straight to the first station */
         const corax_collar *c = &h->collar;
         h->node[0].depth = 0.0;
-        h->node[0].t = c->has_direction ? corax_direction(c->azimuth, c->plunge)
-                                        : corax_direction(h->given[0].azimuth, h->given[0].plunge);
+        h->node[0].azimuth = c->has_direction ? c->azimuth : h->given[0].azimuth;
+        h->node[0].plunge = c->has_direction ? c->plunge : h->given[0].plunge;
+        h->node[0].t = corax_direction(h->node[0].azimuth, h->node[0].plunge);
     }
     for (size_t i = 0; i < n; i++) {
         corax_hole_node *z = &h->node[i + h->offset];
         z->depth = h->given[i].depth;
-        z->t = corax_direction(h->given[i].azimuth, h->given[i].plunge);
+        z->azimuth = h->given[i].azimuth;
+        z->plunge = h->given[i].plunge;
+        z->t = corax_direction(z->azimuth, z->plunge);
         z->straight = (i == 0 && h->offset);
     }
     return desurvey_nodes(h, err);
@@ -129,6 +132,38 @@ corax_status corax_hole_new(const char *name, const corax_collar *collar,
 fail:
     corax_hole_free(h);
     return st;
+}
+
+corax_hole *corax_hole_copy(const corax_hole *base)
+{
+    corax_hole *h = calloc(1, sizeof *h);
+    if (!h)
+        return NULL;
+    *h = *base;
+    h->name = strdup(base->name);
+    h->given = malloc((base->n_given ? base->n_given : 1) * sizeof *h->given);
+    h->node = malloc((base->n ? base->n : 1) * sizeof *h->node);
+    if (!h->name || !h->given || !h->node) {
+        corax_hole_free(h);
+        return NULL;
+    }
+    memcpy(h->given, base->given, base->n_given * sizeof *h->given);
+    memcpy(h->node, base->node, base->n * sizeof *h->node);
+    return h;
+}
+
+size_t corax_hole_node_count(const corax_hole *h) { return h->n; }
+
+corax_status corax_hole_resurvey(corax_hole *work, const corax_hole *base,
+                                 const double *d_azimuth, const double *d_plunge)
+{
+    for (size_t i = 0; i < base->n; i++) {
+        /* a collar node without its own direction borrows the first station's */
+        size_t k = (i == 0 && base->offset && !base->collar.has_direction && base->n > 1) ? 1 : i;
+        const corax_hole_node *b = &base->node[i];
+        work->node[i].t = corax_direction(b->azimuth + d_azimuth[k], b->plunge + d_plunge[k]);
+    }
+    return desurvey_nodes(work, NULL);
 }
 
 void corax_hole_free(corax_hole *h)
@@ -189,8 +224,7 @@ corax_status corax_hole_at(const corax_hole *h, double depth, size_t *hint,
             pt->tangent = a->t;
             pt->position = vec_add(a->r, vec_scale(a->t, depth - a->depth));
         } else {
-            double length = z->depth - a->depth;
-            corax_mc_along(a->r, a->t, z->t, length, z->b, (depth - a->depth) / length,
+            corax_mc_along(a->r, a->t, z->t, &z->course, (depth - a->depth) / z->course.length,
                            &pt->position, &pt->tangent);
         }
         pt->where = CORAX_WHERE_SURVEYED;
@@ -217,7 +251,8 @@ corax_status corax_hole_station(const corax_hole *h, size_t i, corax_station *st
         *position = z->r;
     if (dogleg_severity) {
         double length = (i + h->offset > 0) ? z->depth - z[-1].depth : 0.0;
-        *dogleg_severity = (isnan(z->b) || length <= 0.0) ? (double)NAN : z->b * 30.0 / length;
+        *dogleg_severity =
+            (isnan(z->course.b) || length <= 0.0) ? (double)NAN : z->course.b * 30.0 / length;
     }
     return CORAX_OK;
 }

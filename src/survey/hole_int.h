@@ -3,13 +3,15 @@
 #define CORAX_HOLE_INT_H
 
 #include "corax/survey.h"
+#include "survey/mincurve.h"
 
 /* A point of the desurveyed path: the collar (when it leads) or a station. */
 typedef struct corax_hole_node {
     double depth;
+    double azimuth, plunge; /* the direction as surveyed (corrected), radians */
     corax_vec3 t;  /* unit tangent down the hole */
     corax_vec3 r;  /* position */
-    double b;      /* dogleg of the course ending here, radians; NaN if none */
+    corax_mc_course course; /* the course ending here; its dogleg b is NaN if none */
     int straight;  /* the course ending here runs straight from the collar */
 } corax_hole_node;
 
@@ -25,5 +27,21 @@ struct corax_hole {
     double length;  /* the collar's, else the deepest station's */
     int has_length; /* the collar gave the length */
 };
+
+/* A copy of a hole to resurvey again and again (allocates once); NULL when
+ * out of memory. Free it with corax_hole_free(). */
+corax_hole *corax_hole_copy(const corax_hole *base);
+
+/* Number of path nodes (the collar, when it leads, then the stations). */
+size_t corax_hole_node_count(const corax_hole *hole);
+
+/* Desurvey `work`, a copy of `base`, again with every node's direction turned
+ * by d_azimuth[i] and d_plunge[i] (radians; node_count entries each). A
+ * plunge turned past the vertical swings the hole over, as it should. A collar
+ * node that only borrows the first station's direction turns with it.
+ * CORAX_ESURVEY when two nodes end up opposite (the work hole is then unusable
+ * for this draw). */
+corax_status corax_hole_resurvey(corax_hole *work, const corax_hole *base,
+                                 const double *d_azimuth, const double *d_plunge);
 
 #endif

@@ -7,7 +7,7 @@
 
 double corax_mc_dogleg(corax_vec3 t1, corax_vec3 t2)
 {
-    return 2.0 * atan2(vec_norm(vec_sub(t2, t1)), vec_norm(vec_add(t2, t1)));
+    return 2.0 * fast_atan2(vec_norm(vec_sub(t2, t1)), vec_norm(vec_add(t2, t1)));
 }
 
 double corax_mc_ratio_factor(double b)
@@ -19,19 +19,31 @@ double corax_mc_ratio_factor(double b)
     return 2.0 / b * tan(0.5 * b);
 }
 
-void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, double length,
-                    double b, double f, corax_vec3 *r, corax_vec3 *t)
+corax_mc_course corax_mc_course_of(corax_vec3 t1, corax_vec3 t2, double length)
 {
-    corax_vec3 tf;
-    if (b == 0.0) {
-        tf = t1;
-    } else if (f == 1.0) {
-        tf = t2;
-    } else {
-        double s = sin(b);
-        tf = vec_unit(vec_comb(t1, sin((1.0 - f) * b) / s, t2, sin(f * b) / s));
+    corax_mc_course c;
+    c.length = length;
+    c.b = corax_mc_dogleg(t1, t2);
+    c.sin_b = sin(c.b);
+    c.cos_b = cos(c.b);
+    return c;
+}
+
+void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, const corax_mc_course *c,
+                    double f, corax_vec3 *r, corax_vec3 *t)
+{
+    corax_vec3 tf = t1;
+    double fb = f * c->b, rf = 1.0;
+    if (c->b > 0.0) {
+        /* one sine and cosine of f b serve the arc and its ratio factor:
+         * sin((1 - f) b) = sin b cos(fb) - cos b sin(fb) (the weights are then
+         * normalised, so no division by sin b), and for fb not small
+         * RF(fb) = (2 / fb) tan(fb / 2) = (2 / fb) sin(fb) / (1 + cos(fb)) */
+        double sfb = sin(fb), cfb = cos(fb);
+        tf = f == 1.0 ? t2 : vec_unit(vec_comb(t1, c->sin_b * cfb - c->cos_b * sfb, t2, sfb));
+        rf = fb < 0.02 ? corax_mc_ratio_factor(fb) : 2.0 / fb * sfb / (1.0 + cfb);
     }
-    double k = 0.5 * f * length * corax_mc_ratio_factor(f * b);
+    double k = 0.5 * f * c->length * rf;
     *r = vec_add(r1, vec_scale(vec_add(t1, tf), k));
     *t = tf;
 }

@@ -11,9 +11,18 @@ double corax_mc_dogleg(corax_vec3 t1, corax_vec3 t2);
 /* Ratio factor RF(b) = (2/b) tan(b/2), by its series for small b. */
 double corax_mc_ratio_factor(double b);
 
-/* Position and tangent at fraction f in [0, 1] of a course of length L from
- * (r1, t1) to tangent t2 with dogleg b, on the arc. f = 1 gives the end. */
-void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, double length,
-                    double b, double f, corax_vec3 *r, corax_vec3 *t);
+/* A course between two stations: its length and dogleg, with the dogleg's
+ * sine and cosine kept for interpolation. */
+typedef struct corax_mc_course {
+    double length, b, sin_b, cos_b;
+} corax_mc_course;
+
+/* The course of length L between tangents t1 and t2. */
+corax_mc_course corax_mc_course_of(corax_vec3 t1, corax_vec3 t2, double length);
+
+/* Position and tangent at fraction f in [0, 1] of a course from (r1, t1) to
+ * tangent t2, on the arc. f = 1 gives the end. */
+void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, const corax_mc_course *c,
+                    double f, corax_vec3 *r, corax_vec3 *t);
 
 #endif

@@ -1,0 +1,183 @@
+/* Benchmark: Monte Carlo draws per second on all threads, beside the cost
+ * floor of a draw (its Gaussian draws and trigonometry alone), measured in the
+ * same run; then `corax convert --draws 1000` end to end on a program of
+ * 100,000 structures (needs CORAX, the command, in the environment). */
+#include <gsl/gsl_randist.h>
+#include <gsl/gsl_rng.h>
+#include <math.h>
+#include <omp.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/wait.h>
+#include <time.h>
+#include <unistd.h>
+
+#include "corax/corax.h"
+#include "corax/uncertainty.h"
+
+enum { HOLES = 500, PER_HOLE = 200, STATIONS = 20, DRAWS = 1000 };
+
+static double now(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+static double uniform(uint64_t *s)
+{
+    uint64_t z = (*s += 0x9E3779B97F4A7C15u);
+    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9u;
+    z = (z ^ (z >> 27)) * 0x94D049BB133111EBu;
+    return (double)((z ^ (z >> 31)) >> 11) * 0x1.0p-53;
+}
+
+/* A synthetic hole and its readings, converted plainly. */
+static corax_hole *make_hole(int h, uint64_t *seed, corax_mc_reading *m,
+                             const corax_convert_options *o)
+{
+    char name[16];
+    snprintf(name, sizeof name, "B%04d", h);
+    double az = 2 * CORAX_PI * uniform(seed), pl = corax_rad(50 + 30 * uniform(seed));
+    corax_station st[STATIONS];
+    for (int k = 0; k < STATIONS; k++) {
+        st[k] = (corax_station){k * 25.0, az, pl, 0};
+        az += corax_rad(uniform(seed) - 0.4);
+        pl -= corax_rad(0.5 * uniform(seed));
+    }
+    corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
+    corax_hole *hole;
+    if (corax_hole_new(name, &c, st, STATIONS, 0, &hole, NULL) != CORAX_OK)
+        exit(1);
+    for (int i = 0; i < PER_HOLE; i++) {
+        m[i].reading = corax_reading_empty();
+        m[i].reading.depth = 470.0 * (i + 0.5) / PER_HOLE;
+        m[i].reading.alpha = corax_rad(15 + 70 * uniform(seed));
+        m[i].reading.beta = 2 * CORAX_PI * uniform(seed) * 0.999;
+        m[i].errors = corax_error_model_default();
+        size_t hint = 0;
+        corax_convert_reading(hole, &m[i].reading, o, &hint, &m[i].nominal);
+    }
+    return hole;
+}
+
+/* The floor: per draw, the Gaussian draws (depth, alpha, beta) from the same
+ * generator, and the trigonometry a draw does (sine and cosine of alpha, of
+ * beta and of the arc to its depth, and an arctangent for the dip). */
+static double floor_rate(long draws)
+{
+    double sink = 0, t0 = now();
+#pragma omp parallel reduction(+ : sink)
+    {
+        gsl_rng *rng = gsl_rng_alloc(gsl_rng_taus2);
+        gsl_rng_set(rng, (unsigned long)omp_get_thread_num() + 1);
+#pragma omp for
+        for (long i = 0; i < draws; i++) {
+            double d = gsl_ran_gaussian_ziggurat(rng, 0.05);
+            double a = 0.7 + gsl_ran_gaussian_ziggurat(rng, 0.03);
+            double b = 1.1 + gsl_ran_gaussian_ziggurat(rng, 0.1);
+            double f = 0.3 + d;
+            sink += atan(sin(a) * cos(b) * sin(f) / (cos(a) * sin(b) + cos(f) + 3.0));
+        }
+        gsl_rng_free(rng);
+    }
+    double t = now() - t0;
+    if (sink == 42.0)
+        printf(" ");
+    return (double)draws / t;
+}
+
+static int end_to_end(const char *corax)
+{
+    char dir[] = "/tmp/corax-bench-mc-XXXXXX";
+    if (!mkdtemp(dir))
+        return 1;
+    char c[300], s[300], l[300], out[300];
+    snprintf(c, sizeof c, "%s/c.csv", dir);
+    snprintf(s, sizeof s, "%s/s.csv", dir);
+    snprintf(l, sizeof l, "%s/l.csv", dir);
+    snprintf(out, sizeof out, "%s/o.csv", dir);
+    FILE *fc = fopen(c, "w"), *fs = fopen(s, "w"), *fl = fopen(l, "w");
+    if (!fc || !fs || !fl)
+        return 1;
+    uint64_t seed = 9;
+    fprintf(fc, "hole,x,y,z\n");
+    fprintf(fs, "hole,depth,azimuth,dip\n");
+    fprintf(fl, "hole,depth,alpha,beta,confidence\n");
+    for (int h = 0; h < HOLES; h++) {
+        double az = 360 * uniform(&seed), dip = -50 - 30 * uniform(&seed);
+        fprintf(fc, "B%04d,%.1f,%.1f,400\n", h, 1e4 * uniform(&seed), 1e4 * uniform(&seed));
+        for (int k = 0; k < STATIONS; k++)
+            fprintf(fs, "B%04d,%d,%.2f,%.2f\n", h, k * 25, fmod(az + 360 + k * 0.3, 360), dip + 0.3 * k);
+        for (int i = 0; i < PER_HOLE; i++)
+            fprintf(fl, "B%04d,%.2f,%.0f,%.0f,%s\n", h, 470.0 * (i + 0.5) / PER_HOLE,
+                    15 + 70 * uniform(&seed), 359 * uniform(&seed), i % 3 ? "good" : "fair");
+    }
+    fclose(fc);
+    fclose(fs);
+    fclose(fl);
+    double t0 = now();
+    pid_t pid = fork();
+    if (pid == 0) {
+        execl(corax, corax, "convert", "-q", "--draws", "1000", "--collars", c, "--surveys", s,
+              "-o", out, l, (char *)NULL);
+        _exit(127);
+    }
+    int status;
+    if (pid < 0 || waitpid(pid, &status, 0) < 0 || !WIFEXITED(status) || WEXITSTATUS(status))
+        return 1;
+    printf("  corax convert --draws 1000 on %d structures in %d holes: %.2f s end to end\n",
+           HOLES * PER_HOLE, HOLES, now() - t0);
+    if (getenv("CORAX_BENCH_KEEP")) {
+        printf("  files kept in %s\n", dir);
+        return 0;
+    }
+    char cmd[400];
+    snprintf(cmd, sizeof cmd, "rm -rf '%s'", dir);
+    return system(cmd) == 0 ? 0 : 1;
+}
+
+int main(void)
+{
+    corax_convert_options o = corax_convert_options_default();
+    corax_error_model survey = corax_error_model_default();
+    corax_mc_reading *m = malloc((size_t)HOLES * PER_HOLE * sizeof *m);
+    corax_spread *sp = malloc((size_t)HOLES * PER_HOLE * sizeof *sp);
+    corax_hole **holes = malloc(HOLES * sizeof *holes);
+    if (!m || !sp || !holes)
+        return 1;
+    uint64_t seed = 3;
+    for (int h = 0; h < HOLES; h++)
+        holes[h] = make_hole(h, &seed, m + (size_t)h * PER_HOLE, &o);
+    int threads = omp_get_max_threads();
+    double t0 = now();
+    int failed = 0;
+#pragma omp parallel
+    {
+        corax_mc *mc = corax_mc_new();
+#pragma omp for schedule(dynamic, 1)
+        for (int h = 0; h < HOLES; h++)
+            if (corax_mc_hole(mc, holes[h], m + (size_t)h * PER_HOLE, PER_HOLE, &o, &survey, DRAWS,
+                              1, sp + (size_t)h * PER_HOLE, NULL, NULL) != CORAX_OK)
+                failed = 1;
+        corax_mc_free(mc);
+    }
+    double t = now() - t0;
+    if (failed)
+        return 1;
+    double draws = (double)HOLES * PER_HOLE * DRAWS;
+    double floor = floor_rate((long)draws / 4);
+    printf("Monte Carlo on %d threads: %d readings x %d draws\n", threads, HOLES * PER_HOLE, DRAWS);
+    printf("  %.1f million measurement draws per second (%.2f s)\n", draws / t / 1e6, t);
+    printf("  floor (Gaussian draws and trigonometry only): %.1f million per second; "
+           "%.2fx of the floor\n", floor / 1e6, floor / (draws / t));
+    for (int h = 0; h < HOLES; h++)
+        corax_hole_free(holes[h]);
+    free(holes);
+    free(m);
+    free(sp);
+    const char *corax = getenv("CORAX");
+    return corax ? end_to_end(corax) : 0;
+}

@@ -1,0 +1,244 @@
+/* cli: `corax convert --draws N`. Holds the logs in memory, simulates the
+ * holes in parallel (each from its own seeded stream), writes the rows in
+ * their order, and the optional cloud of every draw hole by hole. */
+#include <omp.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "cli/convert_rows.h"
+
+/* Every log, in one table. */
+static int load_logs(convert_run *r, const char *const *files, size_t nfiles, corax_table **out)
+{
+    corax_table *all = NULL;
+    for (size_t f = 0; f < nfiles; f++) {
+        corax_reader *rd;
+        corax_row row;
+        corax_error err;
+        corax_error_clear(&err);
+        corax_status st = convert_open_log(r, files[f], &rd, &row, &err);
+        if (st == CORAX_OK && !all && !(all = corax_table_new(files[0], r->s->format.decimal, &row)))
+            st = CORAX_ENOMEM;
+        while (st == CORAX_OK && (st = corax_reader_next(rd, &row, &err)) == CORAX_OK)
+            st = corax_table_append(all, &row);
+        corax_reader_close(rd);
+        if (st != CORAX_END) {
+            cli_error_record(&err, st);
+            corax_table_free(all);
+            return EXIT_DATA;
+        }
+    }
+    *out = all;
+    return EXIT_OK;
+}
+
+typedef struct member {
+    const corax_hole *hole;
+    size_t row;
+    size_t first; /* the first row of its hole: holes go in order of appearance */
+} member;
+
+static int by_hole(const void *a, const void *b)
+{
+    const member *x = a, *y = b;
+    if (x->hole != y->hole)
+        return x->hole < y->hole ? -1 : 1;
+    return (x->row > y->row) - (x->row < y->row);
+}
+
+static int by_first(const void *a, const void *b)
+{
+    const member *x = a, *y = b;
+    if (x->first != y->first)
+        return x->first < y->first ? -1 : 1;
+    return (x->row > y->row) - (x->row < y->row);
+}
+
+/* The rows to simulate, grouped by hole, holes in order of first appearance;
+ * *groups gets each group's first index (ngroups + 1 entries). */
+static member *group_rows(const convert_eval *ev, size_t n, size_t *count, size_t **groups,
+                          size_t *ngroups)
+{
+    size_t m = 0;
+    member *g = malloc((n ? n : 1) * sizeof *g);
+    if (!g)
+        return NULL;
+    for (size_t i = 0; i < n; i++)
+        if (ev[i].simulate)
+            g[m++] = (member){ev[i].hole, i, 0};
+    qsort(g, m, sizeof *g, by_hole);
+    for (size_t i = 0; i < m; i++)
+        g[i].first = (i > 0 && g[i].hole == g[i - 1].hole) ? g[i - 1].first : g[i].row;
+    qsort(g, m, sizeof *g, by_first);
+    size_t *start = malloc((m + 1) * sizeof *start);
+    if (!start) {
+        free(g);
+        return NULL;
+    }
+    size_t k = 0;
+    for (size_t i = 0; i < m; i++)
+        if (i == 0 || g[i].hole != g[i - 1].hole)
+            start[k++] = i;
+    start[k] = m;
+    *count = m;
+    *groups = start;
+    *ngroups = k;
+    return g;
+}
+
+/* The cloud of one hole, gathered in memory before its turn to be written. */
+typedef struct cloud_ctx {
+    corax_writer *w;
+    const char *hole;
+    const corax_mc_reading *readings;
+} cloud_ctx;
+
+static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p, const corax_plane *plane)
+{
+    cloud_ctx *c = user;
+    corax_writer_field(c->w, c->hole, strlen(c->hole));
+    corax_writer_number(c->w, c->readings[i].reading.depth, 3);
+    corax_writer_integer(c->w, (long long)draw + 1);
+    if (plane) {
+        corax_writer_number(c->w, corax_deg(plane->dip), 2);
+        corax_writer_azimuth(c->w, corax_deg(plane->dip_direction), 2);
+    } else {
+        corax_writer_field(c->w, "", 0);
+        corax_writer_field(c->w, "", 0);
+    }
+    corax_writer_number(c->w, p->x, 3);
+    corax_writer_number(c->w, p->y, 3);
+    corax_writer_number(c->w, p->z, 3);
+    corax_writer_end_row(c->w);
+}
+
+/* Simulate every group; spread[k] for member k. The cloud (may be NULL) gets
+ * the holes in group order. */
+static int simulate(const convert_run *r, const member *g, const size_t *groups, size_t ngroups,
+                    const convert_eval *ev, corax_spread *spread, corax_writer *cloud, int nlanes)
+{
+    const convert_setup *s = r->s;
+    size_t count = groups[ngroups];
+    corax_mc_reading *mr = malloc((count ? count : 1) * sizeof *mr);
+    corax_mc **mc = calloc((size_t)nlanes, sizeof *mc);
+    corax_writer **cw = calloc((size_t)nlanes, sizeof *cw);
+    int failed = !mr || !mc || !cw;
+    for (int k = 0; !failed && k < nlanes; k++)
+        failed = !(mc[k] = corax_mc_new()) ||
+                 (cloud && corax_writer_memory(&cw[k]) != CORAX_OK);
+    for (size_t k = 0; !failed && k < count; k++) {
+        const convert_eval *e = &ev[g[k].row];
+        mr[k] = (corax_mc_reading){e->rd, e->errors, e->res};
+    }
+    int progress = !s->quiet && isatty(STDERR_FILENO);
+    size_t done = 0;
+    if (!failed) {
+#pragma omp parallel for ordered schedule(dynamic, 1) num_threads(nlanes)
+        for (size_t h = 0; h < ngroups; h++) {
+            int t = omp_get_thread_num();
+            size_t a = groups[h], n = groups[h + 1] - a;
+            const corax_hole *hole = g[a].hole;
+            cloud_ctx ctx = {cw[t], corax_hole_name(hole), mr + a};
+            if (cloud)
+                corax_writer_reset(cw[t]);
+            corax_status st = corax_mc_hole(mc[t], hole, mr + a, n, &s->convert, &s->errors,
+                                            s->draws, s->seed, spread + a,
+                                            cloud ? on_draw : NULL, &ctx);
+            if (st != CORAX_OK) {
+#pragma omp atomic write
+                failed = 1;
+            }
+#pragma omp ordered
+            {
+                if (cloud) {
+                    size_t len;
+                    const char *text = corax_writer_contents(cw[t], &len);
+                    corax_writer_text(cloud, text, len);
+                }
+                if (progress)
+                    fprintf(stderr, "\rcorax: uncertainty: %zu of %zu holes", ++done, ngroups);
+            }
+        }
+        if (progress)
+            fputc('\n', stderr);
+    }
+    for (int k = 0; mc && k < nlanes; k++)
+        corax_mc_free(mc[k]);
+    for (int k = 0; cw && k < nlanes; k++)
+        corax_writer_discard(cw[k]);
+    free(mc);
+    free(cw);
+    free(mr);
+    if (failed)
+        cli_error(NULL, 0, "out of memory while drawing");
+    return failed ? EXIT_DATA : EXIT_OK;
+}
+
+int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
+                       const char *const *files, size_t nfiles)
+{
+    corax_table *all = NULL;
+    int rc = load_logs(r, files, nfiles, &all);
+    if (rc != EXIT_OK)
+        return rc;
+    size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL;
+    convert_eval *ev = calloc(n ? n : 1, sizeof *ev);
+    const char **field = malloc((corax_table_widest(all) + 1) * sizeof *field);
+    corax_writer *cloud = NULL;
+    corax_error err;
+    corax_error_clear(&err);
+    rc = ev && field ? EXIT_OK : EXIT_DATA;
+    for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
+        corax_row row;
+        corax_table_row(all, i, field, &row);
+        convert_evaluate(r, &lanes[0], &row, &ev[i]);
+    }
+    member *g = rc == EXIT_OK ? group_rows(ev, n, &count, &groups, &ngroups) : NULL;
+    corax_spread *spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
+    if (rc == EXIT_OK && !spread)
+        rc = EXIT_DATA;
+    if (rc == EXIT_OK && r->s->cloud) {
+        corax_status st = corax_writer_open(r->s->cloud, &cloud, &err);
+        if (st != CORAX_OK) {
+            cli_error_record(&err, st);
+            rc = EXIT_DATA;
+        } else {
+            static const char head[] = "hole,depth,draw,dip,dip_direction,x,y,z\n";
+            corax_writer_text(cloud, head, sizeof head - 1);
+        }
+    }
+    if (rc == EXIT_OK)
+        rc = simulate(r, g, groups, ngroups, ev, spread, cloud, nlanes);
+    /* back to row order, and out */
+    const corax_spread **by_row = rc == EXIT_OK ? calloc(n ? n : 1, sizeof *by_row) : NULL;
+    if (rc == EXIT_OK && !by_row)
+        rc = EXIT_DATA;
+    for (size_t k = 0; rc == EXIT_OK && k < count; k++)
+        by_row[g[k].row] = &spread[k];
+    lanes[0].w = r->w;
+    for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
+        corax_row row;
+        corax_table_row(all, i, field, &row);
+        convert_write(r, &lanes[0], &row, &ev[i], by_row[i]);
+    }
+    if (cloud) {
+        corax_status st = rc == EXIT_OK ? corax_writer_commit(cloud, &err) : CORAX_OK;
+        if (rc != EXIT_OK)
+            corax_writer_discard(cloud);
+        if (st != CORAX_OK) {
+            cli_error_record(&err, st);
+            rc = EXIT_DATA;
+        }
+    }
+    free(by_row);
+    free(spread);
+    free(groups);
+    free(g);
+    free(field);
+    free(ev);
+    corax_table_free(all);
+    if (rc != EXIT_OK && rc != EXIT_DATA)
+        rc = EXIT_DATA;
+    return rc;
+}
