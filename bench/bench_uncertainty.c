@@ -43,7 +43,7 @@ static corax_hole *make_hole(int h, uint64_t *seed, corax_mc_reading *m,
     double az = 2 * CORAX_PI * uniform(seed), pl = corax_rad(50 + 30 * uniform(seed));
     corax_station st[STATIONS];
     for (int k = 0; k < STATIONS; k++) {
-        st[k] = (corax_station){k * 25.0, az, pl, 0};
+        st[k] = (corax_station){k * 25.0, az, pl, 0, 0, 0, 0};
         az += corax_rad(uniform(seed) - 0.4);
         pl -= corax_rad(0.5 * uniform(seed));
     }

@@ -280,7 +280,7 @@ static void test_convention_switches_equal_their_mappings(void **state)
 static corax_hole *straight_hole(double az, double dip, double length)
 {
     corax_collar c = {{100, 200, 300}, corax_rad(az), corax_rad(-dip), 1, length};
-    corax_station s[2] = {{0, corax_rad(az), corax_rad(-dip), 0}, {50, corax_rad(az), corax_rad(-dip), 0}};
+    corax_station s[2] = {{0, corax_rad(az), corax_rad(-dip), 0, 0, 0, 0}, {50, corax_rad(az), corax_rad(-dip), 0, 0, 0, 0}};
     corax_hole *h;
     assert_int_equal(corax_hole_new("H", &c, s, 2, 0, &h, NULL), CORAX_OK);
     return h;

@@ -12,7 +12,7 @@
 /* A station from inclination-from-vertical and azimuth in degrees. */
 static corax_station inc_station(double depth, double inc, double az)
 {
-    corax_station s = {depth, corax_rad(az), corax_rad(90.0 - inc), 0};
+    corax_station s = {depth, corax_rad(az), corax_rad(90.0 - inc), 0, 0, 0, 0};
     return s;
 }
 
@@ -149,7 +149,7 @@ static void test_straight_hole_is_a_line(void **state)
     (void)state;
     corax_station s[4];
     for (int i = 0; i < 4; i++)
-        s[i] = (corax_station){i * 50.0, corax_rad(212.0), corax_rad(63.0), 0};
+        s[i] = (corax_station){i * 50.0, corax_rad(212.0), corax_rad(63.0), 0, 0, 0, 0};
     corax_collar c = {{1000, 2000, 300}, 0, 0, 0, NAN};
     corax_hole *h = make_hole(s, 4, &c);
     corax_vec3 t = corax_direction(corax_rad(212.0), corax_rad(63.0));
@@ -174,8 +174,8 @@ static void test_interpolated_points_lie_on_the_arc(void **state)
         double az1 = 360 * test_uniform(&seed), az2 = az1 + 40 * (test_uniform(&seed) - 0.5);
         double p1 = 80 * test_uniform(&seed) - 10, p2 = p1 + 30 * (test_uniform(&seed) - 0.5);
         double len = 5 + 100 * test_uniform(&seed);
-        corax_station s[2] = {{0, corax_rad(az1), corax_rad(p1), 0},
-                              {len, corax_rad(az2), corax_rad(p2), 0}};
+        corax_station s[2] = {{0, corax_rad(az1), corax_rad(p1), 0, 0, 0, 0},
+                              {len, corax_rad(az2), corax_rad(p2), 0, 0, 0, 0}};
         corax_hole *h = make_hole(s, 2, NULL);
         corax_vec3 t1 = corax_direction(s[0].azimuth, s[0].plunge);
         corax_vec3 t2 = corax_direction(s[1].azimuth, s[1].plunge);
@@ -212,7 +212,7 @@ static void test_station_order_does_not_matter(void **state)
     corax_station s[12], shuffled[12];
     for (int i = 0; i < 12; i++)
         s[i] = (corax_station){i * 25.0 + (i > 0 ? 6 : 0), corax_rad(100 + 3.0 * i),
-                               corax_rad(70 - 1.5 * i), i + 2};
+                               corax_rad(70 - 1.5 * i), i + 2, 0, 0, 0};
     memcpy(shuffled, s, sizeof s);
     uint64_t seed = 7;
     for (int i = 11; i > 0; i--) {
@@ -255,7 +255,7 @@ static void test_hint_gives_the_same_answers(void **state)
 static void test_straight_from_collar_above_first_station(void **state)
 {
     (void)state;
-    corax_station s[2] = {{30, corax_rad(90), corax_rad(45), 0}, {60, corax_rad(95), corax_rad(44), 0}};
+    corax_station s[2] = {{30, corax_rad(90), corax_rad(45), 0, 0, 0, 0}, {60, corax_rad(95), corax_rad(44), 0, 0, 0, 0}};
     corax_collar c = {{0, 0, 100}, corax_rad(80), corax_rad(50), 1, NAN};
     corax_hole *h = make_hole(s, 2, &c);
     corax_hole_point p;
@@ -304,15 +304,15 @@ static void test_bad_surveys_are_refused(void **state)
     corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
     corax_hole *h = NULL;
     corax_error err;
-    corax_station dup[3] = {{0, 0, 1, 10}, {30, 0, 1, 11}, {30, 0.1, 1, 14}};
+    corax_station dup[3] = {{0, 0, 1, 10, 0, 0, 0}, {30, 0, 1, 11, 0, 0, 0}, {30, 0.1, 1, 14, 0, 0, 0}};
     assert_int_equal(corax_hole_new("D", &c, dup, 3, 0, &h, &err), CORAX_ESURVEY);
     assert_null(h);
     assert_non_null(strstr(err.message, "lines 11 and 14"));
-    corax_station flip[2] = {{0, 0, corax_rad(60), 20}, {30, corax_rad(180), corax_rad(-60), 21}};
+    corax_station flip[2] = {{0, 0, corax_rad(60), 20, 0, 0, 0}, {30, corax_rad(180), corax_rad(-60), 21, 0, 0, 0}};
     assert_int_equal(corax_hole_new("F", &c, flip, 2, 0, &h, &err), CORAX_ESURVEY);
     assert_int_equal(err.line, 21);
     assert_non_null(strstr(err.message, "180-degree"));
-    corax_station neg[1] = {{-5, 0, 1, 30}};
+    corax_station neg[1] = {{-5, 0, 1, 30, 0, 0, 0}};
     assert_int_equal(corax_hole_new("N", &c, neg, 1, 0, &h, &err), CORAX_EVALUE);
     assert_int_equal(err.line, 30);
 }
@@ -322,7 +322,7 @@ static void test_azimuth_correction(void **state)
 {
     (void)state;
     corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
-    corax_station s[1] = {{0, corax_rad(355), corax_rad(60), 0}};
+    corax_station s[1] = {{0, corax_rad(355), corax_rad(60), 0, 0, 0, 0}};
     corax_hole *h = NULL;
     assert_int_equal(corax_hole_new("A", &c, s, 1, corax_rad(10.0 - 2.0), &h, NULL), CORAX_OK);
     corax_hole_point p;
@@ -340,7 +340,7 @@ static void test_azimuth_correction(void **state)
 static void test_up_hole_and_dogleg_severity(void **state)
 {
     (void)state;
-    corax_station s[2] = {{0, corax_rad(300), corax_rad(-35), 0}, {30, corax_rad(300), corax_rad(-38), 0}};
+    corax_station s[2] = {{0, corax_rad(300), corax_rad(-35), 0, 0, 0, 0}, {30, corax_rad(300), corax_rad(-38), 0, 0, 0, 0}};
     corax_collar c = {{0, 0, 185}, 0, 0, 0, NAN};
     corax_hole *h = make_hole(s, 2, &c);
     corax_hole_point p;

@@ -18,7 +18,7 @@ static corax_hole *straight_hole(double az, double dip_neg_down)
 {
     double p = corax_rad(-dip_neg_down);
     corax_collar c = {{1000, 2000, 300}, corax_rad(az), p, 1, NAN};
-    corax_station s[3] = {{0, corax_rad(az), p, 0}, {100, corax_rad(az), p, 0}, {200, corax_rad(az), p, 0}};
+    corax_station s[3] = {{0, corax_rad(az), p, 0, 0, 0, 0}, {100, corax_rad(az), p, 0, 0, 0, 0}, {200, corax_rad(az), p, 0, 0, 0, 0}};
     corax_hole *h;
     assert_int_equal(corax_hole_new("MC-1", &c, s, 3, 0, &h, NULL), CORAX_OK);
     return h;
@@ -195,6 +195,28 @@ static void test_positions_take_the_survey_errors(void **state)
     corax_hole_free(h);
 }
 
+/* A station's own errors (a gyro survey, say) replace the run's: with its
+ * stations given as exact, the hole does not move however large the run's. */
+static void test_station_errors_replace_the_runs(void **state)
+{
+    (void)state;
+    double p = corax_rad(50);
+    corax_collar c = {{0, 0, 0}, corax_rad(45), p, 0, NAN};
+    corax_station s[2] = {{0, corax_rad(45), p, 0, 1, 0, 0}, {200, corax_rad(45), p, 0, 1, 0, 0}};
+    corax_hole *h;
+    assert_int_equal(corax_hole_new("GYRO", &c, s, 2, 0, &h, NULL), CORAX_OK);
+    corax_error_model sv = no_errors();
+    sv.azimuth = sv.dip = corax_rad(3);
+    corax_spread exact = simulate(h, 150, 40, 70, no_errors(), sv, 2000, 4);
+    assert_close(exact.position_sd, 0, 0, 1e-9, "exact stations: no scatter");
+    corax_hole_free(h);
+    s[0].has_errors = s[1].has_errors = 0;
+    assert_int_equal(corax_hole_new("MAG", &c, s, 2, 0, &h, NULL), CORAX_OK);
+    corax_spread loose = simulate(h, 150, 40, 70, no_errors(), sv, 2000, 4);
+    assert_true(loose.position_sd > 1.0);
+    corax_hole_free(h);
+}
+
 /* The same seed gives the same answer; another seed, another sample. The seed
  * of a hole depends on the run's seed and its name only. */
 static void test_reproducible_streams(void **state)
@@ -222,6 +244,7 @@ int main(void)
         cmocka_unit_test(test_spread_blows_up_near_vertical),
         cmocka_unit_test(test_dip_direction_spread_of_flat_planes),
         cmocka_unit_test(test_positions_take_the_survey_errors),
+        cmocka_unit_test(test_station_errors_replace_the_runs),
         cmocka_unit_test(test_reproducible_streams),
     };
     return cmocka_run_group_tests_name("uncertainty", tests, NULL, NULL);

@@ -46,6 +46,8 @@ typedef struct corax_station {
     double azimuth; /* radians, as surveyed; the hole adds its azimuth correction */
     double plunge;  /* radians, positive down */
     long line;      /* source line for messages, 0 when none */
+    int has_errors; /* this station's own one-sigma errors below replace the run's */
+    double azimuth_error, dip_error; /* radians, when has_errors */
 } corax_station;
 
 /* Where a queried depth falls, in increasing order of doubt. */

@@ -102,6 +102,36 @@ static int read_direction(const corax_row *row, long caz, long cdip,
     return 1;
 }
 
+/* A station's own one-sigma errors (degrees in the table), when its row gives
+ * them: both or neither. 1 ok, 0 with why filled. */
+static int read_station_errors(const corax_row *row, const long *col, char decimal,
+                               corax_station *s, char *why, size_t wl)
+{
+    static const char *const names[] = {"azimuth_error", "dip_error"};
+    double v[2];
+    int given = 0;
+    for (int i = 0; i < 2; i++) {
+        if (col[i] < 0)
+            continue;
+        corax_number_status st = corax_field_number(row, col[i], decimal, names[i], &v[i], why, wl);
+        if (st == CORAX_NUMBER_EMPTY)
+            continue;
+        if (st != CORAX_NUMBER_OK || !corax_field_in_range(v[i], 0.0, 45.0, names[i], why, wl))
+            return 0;
+        given |= 1 << i;
+    }
+    if (given == 0)
+        return 1;
+    if (given != 3) {
+        snprintf(why, wl, "give both azimuth_error and dip_error for a station, or neither");
+        return 0;
+    }
+    s->has_errors = 1;
+    s->azimuth_error = corax_rad(v[0]);
+    s->dip_error = corax_rad(v[1]);
+    return 1;
+}
+
 static char *row_hole(const corax_row *row, long col)
 {
     size_t n;
@@ -170,20 +200,21 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
 static corax_status read_surveys(const char *path, const corax_load_options *o, records *rec,
                                  corax_findings *problems, corax_error *err)
 {
-    static const char *const names[] = {"hole", "depth", "azimuth", "dip"};
-    long col[4];
+    static const char *const names[] = {"hole", "depth", "azimuth", "dip", "azimuth_error",
+                                        "dip_error"};
+    long col[6];
     size_t width;
     corax_reader *r;
     corax_status st = corax_reader_open(path, o->format, &r, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(r, names, 4, 4, o->columns, col, &width, NULL, err);
+    st = corax_table_header(r, names, 6, 4, o->columns, col, &width, NULL, err);
     corax_row row;
     while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
         char why[200];
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
-        corax_station s = {NAN, 0, 0, row.line};
+        corax_station s = {NAN, 0, 0, row.line, 0, NAN, NAN};
         int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
         if (!bad && hl == 0) {
             snprintf(why, sizeof why, "the hole name is empty");
@@ -199,6 +230,8 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
                 snprintf(why, sizeof why, "the survey has no azimuth and no dip");
             bad = d <= 0;
         }
+        if (!bad)
+            bad = !read_station_errors(&row, col + 4, o->format.decimal, &s, why, sizeof why);
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "survey-row", path, row.line,
                                     hl ? hole : NULL, s.depth,

@@ -85,12 +85,15 @@ static corax_status build_nodes(corax_hole *h, corax_error *err)
         h->node[0].azimuth = c->has_direction ? c->azimuth : h->given[0].azimuth;
         h->node[0].plunge = c->has_direction ? c->plunge : h->given[0].plunge;
         h->node[0].t = corax_direction(h->node[0].azimuth, h->node[0].plunge);
+        h->node[0].azimuth_error = h->node[0].dip_error = NAN;
     }
     for (size_t i = 0; i < n; i++) {
         corax_hole_node *z = &h->node[i + h->offset];
         z->depth = h->given[i].depth;
         z->azimuth = h->given[i].azimuth;
         z->plunge = h->given[i].plunge;
+        z->azimuth_error = h->given[i].has_errors ? h->given[i].azimuth_error : (double)NAN;
+        z->dip_error = h->given[i].has_errors ? h->given[i].dip_error : (double)NAN;
         z->t = corax_direction(z->azimuth, z->plunge);
         z->straight = (i == 0 && h->offset);
     }
@@ -153,6 +156,12 @@ corax_hole *corax_hole_copy(const corax_hole *base)
 }
 
 size_t corax_hole_node_count(const corax_hole *h) { return h->n; }
+
+void corax_hole_node_errors(const corax_hole *h, size_t i, double *azimuth_error, double *dip_error)
+{
+    *azimuth_error = i < h->n ? h->node[i].azimuth_error : (double)NAN;
+    *dip_error = i < h->n ? h->node[i].dip_error : (double)NAN;
+}
 
 corax_status corax_hole_resurvey(corax_hole *work, const corax_hole *base,
                                  const double *d_azimuth, const double *d_plunge)

@@ -9,6 +9,7 @@
 typedef struct corax_hole_node {
     double depth;
     double azimuth, plunge; /* the direction as surveyed (corrected), radians */
+    double azimuth_error, dip_error; /* the station's own one-sigma errors, or NaN */
     corax_vec3 t;  /* unit tangent down the hole */
     corax_vec3 r;  /* position */
     corax_mc_course course; /* the course ending here; its dogleg b is NaN if none */
@@ -34,6 +35,10 @@ corax_hole *corax_hole_copy(const corax_hole *base);
 
 /* Number of path nodes (the collar, when it leads, then the stations). */
 size_t corax_hole_node_count(const corax_hole *hole);
+
+/* A node's own survey errors (radians; NaN when the run's apply). */
+void corax_hole_node_errors(const corax_hole *hole, size_t i, double *azimuth_error,
+                            double *dip_error);
 
 /* Desurvey `work`, a copy of `base`, again with every node's direction turned
  * by d_azimuth[i] and d_plunge[i] (radians; node_count entries each). A

@@ -105,14 +105,20 @@ static int reserve(void *pp, size_t *cap, size_t count, size_t size)
 
 /* Every draw's survey errors for every node: random per node, plus one
  * systematic error per draw shared by all nodes. */
-static void draw_survey(corax_mc *mc, size_t nodes, size_t draws, const corax_error_model *e)
+static void draw_survey(corax_mc *mc, const corax_hole *hole, size_t draws,
+                        const corax_error_model *e)
 {
+    size_t nodes = corax_hole_node_count(hole);
     for (size_t d = 0; d < draws; d++) {
         double sys_az = gsl_ran_gaussian_ziggurat(mc->rng, e->azimuth_hole);
         double sys_dip = gsl_ran_gaussian_ziggurat(mc->rng, e->dip_hole);
         for (size_t i = 0; i < nodes; i++) {
-            mc->d_azimuth[d * nodes + i] = sys_az + gsl_ran_gaussian_ziggurat(mc->rng, e->azimuth);
-            mc->d_plunge[d * nodes + i] = sys_dip + gsl_ran_gaussian_ziggurat(mc->rng, e->dip);
+            double sa, sd; /* a station's own errors, from its survey row */
+            corax_hole_node_errors(hole, i, &sa, &sd);
+            sa = isnan(sa) ? e->azimuth : sa;
+            sd = isnan(sd) ? e->dip : sd;
+            mc->d_azimuth[d * nodes + i] = sys_az + gsl_ran_gaussian_ziggurat(mc->rng, sa);
+            mc->d_plunge[d * nodes + i] = sys_dip + gsl_ran_gaussian_ziggurat(mc->rng, sd);
         }
     }
 }
@@ -227,7 +233,7 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
         return CORAX_ENOMEM;
     const char *name = corax_hole_name(hole);
     gsl_rng_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 0));
-    draw_survey(mc, nodes, draws, survey);
+    draw_survey(mc, hole, draws, survey);
     gsl_rng_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 1));
     for (size_t first = 0; first < n; first += block) {
         size_t count = n - first < block ? n - first : block;
