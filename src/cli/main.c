@@ -14,6 +14,7 @@ typedef struct command {
 
 static const command commands[] = {
     {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
+    {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
 };
 
 enum { NCOMMANDS = sizeof commands / sizeof commands[0] };

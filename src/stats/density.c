@@ -44,11 +44,11 @@ static double count_at(const corax_density *d, corax_vec3 u, const corax_vec3 *v
     double sum = 0.0;
     if (d->method == CORAX_DENSITY_SMOOTH) {
         for (size_t i = 0; i < d->n; i++)
-            sum += stats_weight(w, i, scale) * exp(d->k * (fabs(vec_dot(u, v[i])) - 1.0));
+            sum += corax_stats_weight(w, i, scale) * exp(d->k * (fabs(vec_dot(u, v[i])) - 1.0));
     } else {
         for (size_t i = 0; i < d->n; i++)
             if (fabs(vec_dot(u, v[i])) >= d->cos_cap)
-                sum += stats_weight(w, i, scale);
+                sum += corax_stats_weight(w, i, scale);
     }
     return sum;
 }
@@ -57,7 +57,7 @@ double corax_density_at(const corax_density *d, corax_vec3 u, const corax_vec3 *
                         const double *w)
 {
     double scale;
-    if (stats_weight_scale(w, d->n, &scale, NULL) != CORAX_OK)
+    if (corax_stats_weight_scale(w, d->n, &scale, NULL) != CORAX_OK)
         return NAN;
     return count_at(d, u, v, w, scale);
 }
@@ -68,7 +68,7 @@ corax_status corax_density_grid(const corax_density *d, const corax_vec3 *v, con
     if (size < 3)
         return CORAX_EARG;
     double scale;
-    corax_status st = stats_weight_scale(w, d->n, &scale, NULL);
+    corax_status st = corax_stats_weight_scale(w, d->n, &scale, NULL);
     if (st != CORAX_OK)
         return st;
     const double edge = sqrt(2.0), h = 2.0 * edge / (double)(size - 1);

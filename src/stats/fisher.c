@@ -15,12 +15,12 @@ corax_status corax_fisher_mean(const corax_vec3 *v, const double *w, size_t n,
     if (n == 0)
         return CORAX_OK;
     double scale;
-    corax_status st = stats_weight_scale(w, n, &scale, NULL);
+    corax_status st = corax_stats_weight_scale(w, n, &scale, NULL);
     if (st != CORAX_OK)
         return st;
     corax_vec3 sum = vec3(0, 0, 0);
     for (size_t i = 0; i < n; i++)
-        sum = vec_add(sum, vec_scale(v[i], stats_weight(w, i, scale)));
+        sum = vec_add(sum, vec_scale(v[i], corax_stats_weight(w, i, scale)));
     double r = vec_norm(sum), nn = (double)n;
     out->resultant = r;
     out->mean = vec_unit(sum);

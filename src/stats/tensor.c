@@ -30,12 +30,12 @@ corax_status corax_tensor_compute(const corax_vec3 *v, const double *w, size_t n
     if (n == 0)
         return CORAX_EARG;
     double scale;
-    corax_status st = stats_weight_scale(w, n, &scale, NULL);
+    corax_status st = corax_stats_weight_scale(w, n, &scale, NULL);
     if (st != CORAX_OK)
         return st;
     double t[9] = {0};
     for (size_t i = 0; i < n; i++) {
-        double c[3] = {v[i].x, v[i].y, v[i].z}, wi = stats_weight(w, i, scale) / (double)n;
+        double c[3] = {v[i].x, v[i].y, v[i].z}, wi = corax_stats_weight(w, i, scale) / (double)n;
         for (int r = 0; r < 3; r++)
             for (int k = 0; k < 3; k++)
                 t[3 * r + k] += wi * c[r] * c[k];
@@ -81,7 +81,7 @@ corax_status corax_axial_summary_compute(const corax_vec3 *v, const double *w, s
     if (n == 0)
         return CORAX_OK;
     double scale;
-    corax_status st = stats_weight_scale(w, n, &scale, &out->weight_sum);
+    corax_status st = corax_stats_weight_scale(w, n, &scale, &out->weight_sum);
     if (st == CORAX_OK)
         st = corax_tensor_compute(v, w, n, &out->tensor);
     if (st != CORAX_OK)

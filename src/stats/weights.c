@@ -4,7 +4,7 @@
 
 #include "stats/stats_int.h"
 
-corax_status stats_weight_scale(const double *w, size_t n, double *scale, double *sum)
+corax_status corax_stats_weight_scale(const double *w, size_t n, double *scale, double *sum)
 {
     double s = (double)n;
     if (w) {
