@@ -117,13 +117,14 @@ int main(int argc, char **argv)
                    h->azimuth, h->dip, corax_wrap_degrees(corax_deg(trend), 2), corax_deg(pl));
             continue;
         }
-        const family *f = &families[(size_t)(uniform() * NFAMILIES)];
-        corax_vec3 mean = corax_plane_normal((corax_plane){corax_rad(f->dip),
-                                                           corax_rad(f->dip_direction)});
+        const family *f;
         corax_vec3 n;
-        do /* the hole meets a plane with probability |cos delta| */
+        do { /* the hole meets a plane with probability |cos delta| */
+            f = &families[(size_t)(uniform() * NFAMILIES)];
+            corax_vec3 mean = corax_plane_normal((corax_plane){corax_rad(f->dip),
+                                                               corax_rad(f->dip_direction)});
             n = corax_fisher_draw(mean, f->kappa, uniform(), uniform());
-        while (uniform() > fabs(dot(n, t)));
+        } while (uniform() > fabs(dot(n, t)));
         plane_row(h, depth, f->kind, n, t, fabs(dot(n, t)) < 0.17 ? "near-parallel" : "ok");
     }
     return 0;
