@@ -13,8 +13,26 @@ P="--collars surveys/collars.csv --surveys surveys/surveys.csv --declination 6.2
 "$CORAX" trace $P -o "$OUT/stations.csv"
 "$CORAX" trace $P --step 5 -o "$OUT/traces.csv"
 
+# Stereonets of the converted structures (once `corax convert` writes them):
+# all structures, by feature kind on one net, one net per hole, with the
+# statistics of each grouping.
+S="$OUT/structures.csv"
+if [ -f "$S" ]; then
+    "$CORAX" stereonet "$S" --title "Quillon Creek: all structures" \
+        -o "$OUT/net_all.svg" --stats "$OUT/net_all_stats.csv"
+    "$CORAX" stereonet "$S" --group-by kind --title "Quillon Creek: by feature kind" \
+        -o "$OUT/net_by_kind.svg" --stats "$OUT/net_by_kind_stats.csv"
+    "$CORAX" stereonet "$S" --group-by hole --net-per-group --terzaghi \
+        --title "Quillon Creek: by hole, Terzaghi weighted" \
+        -o "$OUT/net_by_hole.svg" --stats "$OUT/net_by_hole_stats.csv"
+fi
+
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
 echo "corax demo: Quillon Creek, $holes holes"
 echo "  desurveyed stations:     $OUT/stations.csv"
 echo "  traces every 5 m:        $OUT/traces.csv"
+if [ -f "$S" ]; then
+    echo "  stereonets:              $OUT/net_all.svg, net_by_kind.svg, net_by_hole.svg"
+    echo "  orientation statistics:  $OUT/net_*_stats.csv"
+fi
 echo "  what each run assumed:   $OUT/*.about"

@@ -395,7 +395,7 @@ static void draw_axes(const net *n, const corax_axial_summary *s)
         return;
     for (int k = 0; k < 3; k++) {
         double x, y;
-        char label[4];
+        char label[12];
         place(n, s->tensor.axis[k], &x, &y);
         corax_svg_rect(n->svg, x - 6, y - 6, 12, 12, "axisbox");
         snprintf(label, sizeof label, "%d", k + 1);
@@ -447,7 +447,8 @@ static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 *
     size_t k = 0;
     for (size_t i = 0; i < nsets; i++) {
         size_t m = *of_lines ? sets[i].nlines : sets[i].npoles;
-        memcpy(*v + k, *of_lines ? sets[i].lines : sets[i].poles, m * sizeof **v);
+        if (m) /* an empty set may hold NULL */
+            memcpy(*v + k, *of_lines ? sets[i].lines : sets[i].poles, m * sizeof **v);
         for (size_t j = 0; *w && j < m; j++)
             (*w)[k + j] = sets[i].pole_weight ? sets[i].pole_weight[j] : 1.0;
         k += m;

@@ -43,8 +43,13 @@ static double count_at(const corax_density *d, corax_vec3 u, const corax_vec3 *v
 {
     double sum = 0.0;
     if (d->method == CORAX_DENSITY_SMOOTH) {
-        for (size_t i = 0; i < d->n; i++)
-            sum += corax_stats_weight(w, i, scale) * exp(d->k * (fabs(vec_dot(u, v[i])) - 1.0));
+        for (size_t i = 0; i < d->n; i++) {
+            /* a reading whose term is below e^-40 adds nothing a double can keep
+             * beside the expected count n/k: skip its exp */
+            double e = d->k * (fabs(vec_dot(u, v[i])) - 1.0);
+            if (e > -40.0)
+                sum += corax_stats_weight(w, i, scale) * exp(e);
+        }
     } else {
         for (size_t i = 0; i < d->n; i++)
             if (fabs(vec_dot(u, v[i])) >= d->cos_cap)
