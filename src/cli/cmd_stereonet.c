@@ -77,9 +77,13 @@ typedef struct group {
     corax_axial_summary pole_summary, line_summary;
 } group;
 
+/* More groups than this make a page no one can read: refuse them. */
+enum { MAX_GROUPS = 500 };
+
 typedef struct groups {
     group *item;
     size_t count, cap, last;
+    int full;      /* a row would have made group MAX_GROUPS + 1 */
     size_t skipped, invalid, warned;
 } groups;
 
@@ -207,6 +211,10 @@ static group *find_group(groups *gs, const char *name, size_t len)
             gs->last = i;
             return &gs->item[i];
         }
+    if (gs->count == MAX_GROUPS) {
+        gs->full = 1;
+        return NULL;
+    }
     if (gs->count == gs->cap) {
         size_t cap = gs->cap ? 2 * gs->cap : 16;
         group *p = realloc(gs->item, cap * sizeof *p);
@@ -323,6 +331,12 @@ static void row_warning(const stereo_opts *o, groups *gs, const corax_table *t, 
     cli_error(corax_table_path(t), corax_table_line(t, row), "warning: %s; %s", why, what);
 }
 
+static int out_of_memory(void)
+{
+    cli_error(NULL, 0, "out of memory");
+    return EXIT_DATA;
+}
+
 /* The Terzaghi weight of a plane, from the hole's direction on the row. */
 static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, const columns *col,
                         corax_vec3 normal, double *w, char *why, size_t whylen)
@@ -345,7 +359,8 @@ static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, 
     return 1;
 }
 
-/* One row: its plane and its line into its group. 0 when out of memory. */
+/* One row: its plane and its line into its group. 0, or EXIT_DATA (message
+ * printed) when out of memory or groups. */
 static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size_t row,
                     const columns *col)
 {
@@ -357,8 +372,13 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
             name = "(blank)", len = 7;
     }
     group *g = find_group(gs, name, len);
+    if (!g && gs->full)
+        cli_error(corax_table_path(t), corax_table_line(t, row), "more than %d groups by %s: "
+                  "filter with --where or group by another column", MAX_GROUPS, o->group_by);
+    else if (!g)
+        cli_error(NULL, 0, "out of memory");
     if (!g)
-        return 0;
+        return EXIT_DATA;
     const angle_spec plane[2] = {{col->dip, "dip", 0, 90}, {col->dip_direction, "dip_direction", 0, 360}};
     const angle_spec line[2] = {{col->trend, "trend", 0, 360}, {col->plunge, "plunge", 0, 90}};
     char why[200];
@@ -370,7 +390,7 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         if (o->style.weighted && !plane_weight(o, t, row, col, n, &w, why, sizeof why))
             r = PAIR_BAD;
         else if (!push(&g->poles, &g->weight, &g->npoles, &g->pole_cap, n, w))
-            return 0;
+            return out_of_memory();
         else
             used = 1;
     }
@@ -382,7 +402,7 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
     if (r == PAIR_OK) {
         if (!push(&g->lines, NULL, &g->nlines, &g->line_cap,
                   corax_direction(corax_rad(v[0]), corax_rad(v[1])), 1.0))
-            return 0;
+            return out_of_memory();
         used = 1;
     } else if (r == PAIR_BAD) {
         row_warning(o, gs, t, row, why, "line left out");
@@ -393,7 +413,7 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         gs->skipped++;
         gs->invalid += bad;
     }
-    return 1;
+    return 0;
 }
 
 /* Find the columns of one table; usage errors for unknown --group-by and
@@ -463,10 +483,8 @@ static int read_table(const stereo_opts *o, const char *path, groups *gs)
     columns col = {.where = where};
     int rc = find_columns(o, t, &col);
     for (size_t row = 0; rc == 0 && row < corax_table_rows(t); row++)
-        if (keep_row(o, t, row, &col) && !read_row(o, gs, t, row, &col)) {
-            cli_error(NULL, 0, "out of memory");
-            rc = EXIT_DATA;
-        }
+        if (keep_row(o, t, row, &col))
+            rc = read_row(o, gs, t, row, &col);
     corax_table_free(t);
     return rc;
 }
@@ -492,7 +510,7 @@ static int group_cmp(const void *a, const void *b)
 static int summarise(const stereo_opts *o, groups *gs)
 {
     if (gs->count == 0 && !find_group(gs, "all", 3))
-        return EXIT_DATA;
+        return out_of_memory();
     qsort(gs->item, gs->count, sizeof *gs->item, group_cmp);
     for (size_t i = 0; i < gs->count; i++) {
         group *g = &gs->item[i];
@@ -670,6 +688,8 @@ static int run(stereo_opts *o, int nfiles, char **files)
         rc = read_table(o, files[i], &gs);
     if (rc == 0)
         rc = summarise(o, &gs);
+    if (rc == 0 && gs.warned > 20 && !o->c.quiet)
+        cli_error(NULL, 0, "%zu more warnings not shown", gs.warned - 20);
     if (rc == 0 && gs.skipped && !o->c.quiet)
         cli_error(NULL, 0, "%zu row%s skipped: no usable angles (%zu with bad values)",
                   gs.skipped, gs.skipped == 1 ? "" : "s", gs.invalid);

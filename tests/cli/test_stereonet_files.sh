@@ -70,6 +70,13 @@ if "$CORAX" stereonet "$T/structures.csv" -o /nonexistent/dir/net.svg 2> "$T/err
 fi
 grep -q '^corax: /nonexistent/dir/net.svg: cannot write' "$T/err" || fail "unclear write error"
 
+# grouping by a column of (nearly) unique values is refused, not drawn
+if "$CORAX" stereonet "$T/structures.csv" --group-by x -o "$T/many.svg" 2> "$T/err"; then
+    fail "thousands of groups accepted"
+fi
+grep -q 'more than 500 groups by x: filter with --where' "$T/err" || fail "unclear group limit: $(cat "$T/err")"
+[ ! -e "$T/many.svg" ] || fail "a refused run wrote its net"
+
 # Terzaghi (1965): the invented holes meet each family of planes in proportion
 # to |cos| of the angle between pole and hole, while the families are equally
 # common in the ground; the weighted counts must undo most of that bias.
