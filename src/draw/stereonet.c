@@ -495,14 +495,14 @@ static corax_status draw_net(net *n, const plan *p)
     }
     for (size_t i = 0; i < p->nsets; i++)
         draw_set(n, &p->sets[i], p->index0 + i);
+    if (p->nsets == 1 && p->sets[0].pole_summary && p->sets[0].npoles)
+        draw_axes(n, p->sets[0].pole_summary); /* beneath the means, which matter more */
     for (size_t i = 0; i < p->nsets; i++) {
         const corax_net_set *set = &p->sets[i];
         if (set->pole_summary && set->npoles)
             draw_mean(n, set->pole_summary, p->index0 + i, 1);
         if (set->line_summary && set->nlines)
             draw_mean(n, set->line_summary, p->index0 + i, 0);
-        if (p->nsets == 1 && set->pole_summary && set->npoles)
-            draw_axes(n, set->pole_summary);
     }
     draw_frame(n);
     if (readings(p, &has_lines) == 0)
