@@ -15,6 +15,17 @@ PROJECT=examples/quillon_creek.ini
 "$CORAX" trace -p "$PROJECT" --step 5 -o "$OUT/traces.csv"
 summary=$("$CORAX" convert -p "$PROJECT" --section-azimuth 135 -o "$OUT/structures.csv" 2>&1)
 
+# Stereonets of the converted structures: all structures, by feature kind on
+# one net, one net per hole, with the statistics of each grouping.
+S="$OUT/structures.csv"
+"$CORAX" stereonet "$S" --title "Quillon Creek: all structures" \
+    -o "$OUT/net_all.svg" --stats "$OUT/net_all_stats.csv"
+"$CORAX" stereonet "$S" --group-by kind --title "Quillon Creek: by feature kind" \
+    -o "$OUT/net_by_kind.svg" --stats "$OUT/net_by_kind_stats.csv"
+"$CORAX" stereonet "$S" --group-by hole --net-per-group --terzaghi \
+    --title "Quillon Creek: by hole, Terzaghi weighted" \
+    -o "$OUT/net_by_hole.svg" --stats "$OUT/net_by_hole_stats.csv"
+
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
 rows=$(tail -n +2 examples/core_log.csv | wc -l)
 echo "corax demo: Quillon Creek, $holes holes, $rows core readings"
@@ -22,4 +33,6 @@ echo "  desurveyed stations:     $OUT/stations.csv"
 echo "  traces every 5 m:        $OUT/traces.csv"
 echo "  converted structures:    $OUT/structures.csv"
 echo "      ${summary#corax: }"
+echo "  stereonets:              $OUT/net_all.svg, net_by_kind.svg, net_by_hole.svg"
+echo "  orientation statistics:  $OUT/net_*_stats.csv"
 echo "  what each run assumed:   $OUT/*.about"

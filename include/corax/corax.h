@@ -4,10 +4,13 @@
 
 #define CORAX_VERSION "0.1.0"
 
+#include "corax/contour.h"
 #include "corax/finding.h"
 #include "corax/geometry.h"
 #include "corax/load.h"
 #include "corax/output.h"
+#include "corax/projection.h"
+#include "corax/stats.h"
 #include "corax/status.h"
 #include "corax/survey.h"
 #include "corax/svg.h"

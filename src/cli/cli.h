@@ -114,5 +114,6 @@ int cli_about_commit(cli_about *a, const cli_common *c);
 /* Commands. */
 int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
+int cmd_stereonet(int argc, char **argv);
 
 #endif

@@ -174,6 +174,8 @@ cli_about *cli_about_new(const char *command, const cli_common *c)
     cli_about_set(a, "decimal_mark", "%s", c->load.format.decimal == ',' ? "comma" : "point");
     cli_about_section(a, "survey");
     cli_about_set(a, "dip_convention", "%s", cli_dip_convention_name(c->load.dip_convention));
+    if (!c->collars && !c->surveys) /* a command that reads no surveys: no desurvey either */
+        return a;
     cli_about_set(a, "declination", "%g", c->load.declination);
     cli_about_set(a, "convergence", "%g", c->load.convergence);
     cli_about_set(a, "azimuth_correction", "%g (added to every survey azimuth; collar "

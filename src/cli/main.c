@@ -15,6 +15,7 @@ typedef struct command {
 static const command commands[] = {
     {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
     {"convert", cmd_convert, "core readings to true orientations at real coordinates"},
+    {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
 };
 
 enum { NCOMMANDS = sizeof commands / sizeof commands[0] };

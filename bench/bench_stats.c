@@ -1,0 +1,78 @@
+/* Benchmark: orientation statistics and density contouring of 100,000 poles
+ * (an invented cluster and girdle); reports rates and peak memory. */
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <sys/resource.h>
+#include <time.h>
+
+#include "bench.h"
+#include "corax/corax.h"
+#include "corax/stereonet.h"
+
+enum { POLES = 100000, GRID = 121 };
+
+int main(void)
+{
+    corax_vec3 *poles = malloc(POLES * sizeof *poles);
+    double *grid = malloc(GRID * GRID * sizeof *grid);
+    if (!poles || !grid)
+        return 1;
+    uint64_t seed = 1;
+    corax_vec3 a = corax_direction(corax_rad(300), corax_rad(50));
+    corax_vec3 b = corax_direction(corax_rad(120), corax_rad(10));
+    for (size_t i = 0; i < POLES; i++)
+        poles[i] = corax_fisher_draw(i % 3 ? a : b, i % 3 ? 25 : 8, uniform(&seed), uniform(&seed));
+
+    double t0 = now();
+    corax_axial_summary s;
+    if (corax_axial_summary_compute(poles, NULL, POLES, &s) != CORAX_OK)
+        return 1;
+    double t_stats = now() - t0;
+    printf("%d poles, density grid %d x %d\n", POLES, GRID, GRID);
+    printf("  Fisher mean and orientation tensor: %.1f million poles per second\n",
+           POLES / t_stats / 1e6);
+    for (int m = 0; m < 2; m++) {
+        corax_density d;
+        corax_density_init(&d, (corax_density_method)m, POLES);
+        t0 = now();
+        corax_density_grid(&d, poles, NULL, GRID, grid);
+        double t = now() - t0;
+        printf("  %-6s density grid: %.3f s (%.0f million pole-node pairs per second)\n",
+               corax_density_method_name((corax_density_method)m), t,
+               (double)POLES * GRID * GRID / t / 1e6);
+    }
+    double edge = sqrt(2.0), h = 2 * edge / (GRID - 1);
+    corax_grid g = {GRID, GRID, -edge, -edge, h, h, grid};
+    corax_isolines lines = {0};
+    double top = 0;
+    for (size_t k = 0; k < GRID * GRID; k++)
+        top = fmax(top, grid[k]);
+    t0 = now();
+    size_t points = 0;
+    for (int k = 1; k <= 50; k++) {
+        corax_isolines_trace(&g, (double)k * top / 51.0, &lines);
+        points += lines.points;
+    }
+    printf("  isolines: 50 levels in %.4f s (%zu points)\n", now() - t0, points);
+    corax_isolines_clear(&lines);
+
+    corax_net_set set = {"bench", poles, NULL, POLES, NULL, 0, &s, NULL, 0};
+    corax_net_style style = corax_net_style_default();
+    corax_svg *svg;
+    t0 = now();
+    if (corax_stereonet_page(&set, 1, &style, 0, &svg) != CORAX_OK)
+        return 1;
+    size_t bytes;
+    corax_svg_finish(svg, &bytes);
+    printf("  whole net (Kamb, poles drawn): %.3f s, %.1f MB of SVG\n", now() - t0, bytes / 1e6);
+    corax_svg_free(svg);
+
+    struct rusage ru;
+    getrusage(RUSAGE_SELF, &ru);
+    printf("  peak memory (resident): %.1f MiB\n", (double)ru.ru_maxrss / 1024.0);
+    free(poles);
+    free(grid);
+    return 0;
+}

@@ -1,0 +1,636 @@
+/* draw: stereonets as SVG. A net is a disc on the page: density bands and
+ * contours first, then great circles, points, means and cones, then the
+ * primitive, ticks and north mark on top; a side panel holds the legend,
+ * counts, statistics and notes. */
+#include <math.h>
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/contour.h"
+#include "corax/stereonet.h"
+#include "draw/palette.h"
+#include "geometry/vec.h"
+
+enum { MAX_LEVELS = CORAX_BANDS };
+
+typedef struct net {
+    corax_svg *svg;
+    const corax_net_style *style;
+    double cx, cy, r;    /* centre and radius of the primitive, pixels */
+    double px, py;       /* side panel: left edge and the next text line */
+    int id;              /* unique on the page, for the clip path */
+} net;
+
+corax_net_style corax_net_style_default(void)
+{
+    corax_net_style s = {CORAX_EQUAL_AREA, CORAX_NET_POLES, 1, CORAX_DENSITY_KAMB, 2.0, 121, 0,
+                         corax_rad(15.0), NULL};
+    return s;
+}
+
+static void screen(const net *n, double x, double y, double *sx, double *sy)
+{
+    *sx = n->cx + n->r * x;
+    *sy = n->cy - n->r * y;
+}
+
+static void place(const net *n, corax_vec3 v, double *sx, double *sy)
+{
+    double x, y;
+    corax_project(n->style->projection, v, &x, &y);
+    screen(n, x, y, sx, sy);
+}
+
+/* ---- curves on the sphere ---- */
+
+static void curve_to(const net *n, corax_vec3 v, int move)
+{
+    double x, y;
+    place(n, v, &x, &y);
+    if (move)
+        corax_svg_path_move(n->svg, x, y);
+    else
+        corax_svg_path_line(n->svg, x, y);
+}
+
+/* A curve through the unit vectors p[0..m) (back to p[0] when closed), as it
+ * falls on the lower hemisphere: a part above the horizontal is drawn by its
+ * opposite ends, so the curve breaks where it crosses the primitive and goes
+ * on from the opposite side. */
+static void sphere_curve(const net *n, const corax_vec3 *p, size_t m, int closed, const char *cls)
+{
+    double side = p[0].z > 0.0 ? -1.0 : 1.0;
+    corax_svg_path_begin(n->svg, cls);
+    curve_to(n, vec_scale(p[0], side), 1);
+    for (size_t k = 1; k < (closed ? m + 1 : m); k++) {
+        corax_vec3 a = p[k - 1], b = p[k % m];
+        double bside = b.z > 0.0 ? -1.0 : 1.0;
+        if (bside != side) {
+            corax_vec3 c = vec_comb(a, 1.0, vec_sub(b, a), a.z / (a.z - b.z));
+            c.z = 0.0;
+            c = vec_unit(c);
+            curve_to(n, vec_scale(c, side), 0);
+            side = bside;
+            curve_to(n, vec_scale(c, side), 1);
+        }
+        curve_to(n, vec_scale(b, side), 0);
+    }
+    corax_svg_path_end(n->svg, 0);
+}
+
+/* Two unit vectors making a right-handed frame with the unit vector m. */
+static void frame_about(corax_vec3 m, corax_vec3 *a, corax_vec3 *b)
+{
+    corax_vec3 helper = fabs(m.z) < 0.9 ? vec3(0, 0, 1) : vec3(1, 0, 0);
+    *a = vec_unit(vec_cross(helper, m));
+    *b = vec_cross(m, *a);
+}
+
+/* The great circle of the plane with unit normal `normal`. */
+static void great_circle(const net *n, corax_vec3 normal, const char *cls)
+{
+    corax_vec3 p[37], a, b;
+    frame_about(normal, &a, &b);
+    for (int k = 0; k < 37; k++) {
+        double t = CORAX_PI * k / 36.0;
+        p[k] = vec_comb(a, cos(t), b, sin(t));
+    }
+    sphere_curve(n, p, 37, 0, cls); /* half the circle: the other half is its antipode */
+}
+
+/* The small circle of half-angle `angle` (radians) about the unit axis m. */
+static void small_circle(const net *n, corax_vec3 m, double angle, const char *cls)
+{
+    corax_vec3 p[90], a, b;
+    frame_about(m, &a, &b);
+    for (int k = 0; k < 90; k++) {
+        double t = 2.0 * CORAX_PI * k / 90.0;
+        p[k] = vec_comb(m, cos(angle), vec_comb(a, cos(t), b, sin(t)), sin(angle));
+    }
+    sphere_curve(n, p, 90, 1, cls);
+}
+
+/* ---- density ---- */
+
+/* Where a point of the equal-area density grid falls on this net: the same
+ * place on an equal-area net; on an equal-angle one, the same direction, and
+ * beyond the primitive (only ever clipped away) a radius that goes on
+ * smoothly from it. */
+static void grid_to_net(const net *n, double x, double y, double *sx, double *sy)
+{
+    double r = hypot(x, y);
+    if (n->style->projection == CORAX_EQUAL_ANGLE && r > 0.0) {
+        double theta = 2.0 * asin(fmin(1.0, r / sqrt(2.0)));
+        double r2 = theta <= 0.5 * CORAX_PI ? tan(0.5 * theta) : 1.0 + (theta - 0.5 * CORAX_PI);
+        x *= r2 / r;
+        y *= r2 / r;
+    }
+    screen(n, x, y, sx, sy);
+}
+
+static void band_path(const net *n, const corax_isolines *lines, size_t band)
+{
+    char cls[32];
+    snprintf(cls, sizeof cls, "band b%zu", band < CORAX_BANDS ? band : CORAX_BANDS - 1);
+    corax_svg_path_begin(n->svg, cls);
+    for (size_t i = 0; i < lines->count; i++)
+        for (size_t k = lines->start[i]; k < lines->start[i + 1]; k++) {
+            double x, y;
+            grid_to_net(n, lines->xy[2 * k], lines->xy[2 * k + 1], &x, &y);
+            if (k == lines->start[i])
+                corax_svg_path_move(n->svg, x, y);
+            else
+                corax_svg_path_line(n->svg, x, y);
+        }
+    corax_svg_path_end(n->svg, 1);
+}
+
+/* What one net will show, worked out before anything is drawn so that the
+ * page can be sized to its longest side panel. */
+typedef struct plan {
+    const corax_net_set *sets;
+    size_t nsets, index0; /* index0: the palette index of sets[0] */
+    const char *title;
+    double *grid;         /* density in multiples of sigma; NULL: no contours */
+    double step;          /* contour interval, sigma */
+    size_t levels;        /* contour levels reached */
+    size_t count;         /* readings contoured */
+    int of_lines;         /* contoured lines, not poles */
+} plan;
+
+static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 **v, double **w,
+                           size_t *count, int *of_lines);
+
+/* The density of the net's readings on the grid, in multiples of sigma, and
+ * the contour levels it reaches. */
+static corax_status plan_density(plan *p, const corax_net_style *s)
+{
+    corax_vec3 *v = NULL;
+    double *w = NULL;
+    corax_status st = gather(p->sets, p->nsets, &v, &w, &p->count, &p->of_lines);
+    if (st != CORAX_OK || !s->contours || p->count < CORAX_FISHER_MIN_READINGS)
+        goto done;
+    corax_density d;
+    size_t cells = s->grid * s->grid;
+    if ((st = corax_density_init(&d, s->density, p->count)) != CORAX_OK)
+        goto done;
+    if (!(p->grid = malloc(cells * sizeof *p->grid))) {
+        st = CORAX_ENOMEM;
+        goto done;
+    }
+    if ((st = corax_density_grid(&d, v, w, s->grid, p->grid)) != CORAX_OK)
+        goto done;
+    double top = 0.0;
+    for (size_t k = 0; k < cells; k++) {
+        p->grid[k] /= d.sigma;
+        top = fmax(top, p->grid[k]);
+    }
+    p->step = s->contour_step;
+    p->levels = (size_t)floor(top / p->step);
+    if (p->levels > MAX_LEVELS) { /* keep the net legible: widen the interval */
+        p->step *= ceil((double)p->levels / MAX_LEVELS);
+        p->levels = (size_t)floor(top / p->step);
+    }
+done:
+    free(v);
+    free(w);
+    return st;
+}
+
+/* Shade and contour the planned density, clipped to the primitive. */
+static corax_status draw_density(const net *n, const plan *p)
+{
+    const corax_net_style *s = n->style;
+    double edge = sqrt(2.0), h = 2.0 * edge / (double)(s->grid - 1);
+    corax_grid g = {s->grid, s->grid, -edge, -edge, h, h, p->grid};
+    corax_isolines lines = {0};
+    corax_status st = CORAX_OK;
+    corax_svg_raw(n->svg, "<clipPath id=\"corax-net-%d\"><circle cx=\"%.2f\" cy=\"%.2f\" "
+                  "r=\"%.2f\"/></clipPath>\n<g clip-path=\"url(#corax-net-%d)\">\n", n->id, n->cx,
+                  n->cy, n->r, n->id);
+    for (size_t k = 1; k <= p->levels && st == CORAX_OK; k++) {
+        st = corax_isolines_trace(&g, (double)k * p->step, &lines);
+        if (st == CORAX_OK && lines.count)
+            band_path(n, &lines, k - 1);
+    }
+    corax_svg_end_group(n->svg);
+    corax_isolines_clear(&lines);
+    return st;
+}
+
+/* ---- the frame of a net ---- */
+
+static void draw_frame(const net *n)
+{
+    corax_svg *svg = n->svg;
+    corax_svg_group(svg, "frame", NULL);
+    corax_svg_circle(svg, n->cx, n->cy, n->r, "primitive");
+    for (int deg = 0; deg < 360; deg += 10) {
+        double a = corax_rad(deg), len = deg % 90 ? 6.0 : 11.0, sa = sin(a), ca = cos(a);
+        corax_svg_line(svg, n->cx + n->r * sa, n->cy - n->r * ca, n->cx + (n->r + len) * sa,
+                       n->cy - (n->r + len) * ca, "tick");
+    }
+    corax_svg_line(svg, n->cx - 5, n->cy, n->cx + 5, n->cy, "tick");
+    corax_svg_line(svg, n->cx, n->cy - 5, n->cx, n->cy + 5, "tick");
+    double north[6] = {n->cx, n->cy - n->r - 30, n->cx - 6, n->cy - n->r - 14, n->cx + 6,
+                       n->cy - n->r - 14};
+    corax_svg_poly(svg, north, 3, 1, "north");
+    corax_svg_text(svg, n->cx + 10, n->cy - n->r - 16, "label", "start", "N");
+    corax_svg_end_group(svg);
+}
+
+/* ---- the side panel ---- */
+
+static void panel_text(net *n, const char *cls, double indent, const char *fmt, ...)
+    __attribute__((format(printf, 4, 5)));
+
+static void panel_text(net *n, const char *cls, double indent, const char *fmt, ...)
+{
+    char text[256];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(text, sizeof text, fmt, ap);
+    va_end(ap);
+    if (n->svg) /* NULL while measuring the panel */
+        corax_svg_text(n->svg, n->px + indent, n->py, cls, "start", text);
+    n->py += 17.0;
+}
+
+static double azimuth_deg(double radians) { return corax_wrap_degrees(corax_deg(radians), 1); }
+
+static void set_classes(size_t set, char *fill, char *stroke, size_t len)
+{
+    size_t c = corax_palette_colour_of(set);
+    snprintf(fill, len, "pt f%zu", c);
+    snprintf(stroke, len, "k%zu", c);
+}
+
+static void describe_summary(net *n, const corax_axial_summary *s, int planes)
+{
+    if (s->n == 0)
+        return;
+    double trend, plunge;
+    corax_line_trend_plunge(s->fisher.mean, &trend, &plunge);
+    if (planes) {
+        corax_plane p = corax_plane_from_normal(s->fisher.mean, NULL);
+        panel_text(n, "small", 18, "mean plane: dip %.1f° toward %05.1f°", corax_deg(p.dip),
+                   azimuth_deg(p.dip_direction));
+    } else {
+        panel_text(n, "small", 18, "mean line: plunge %.1f° toward %05.1f°", corax_deg(plunge),
+                   azimuth_deg(trend));
+    }
+    if (s->n < CORAX_FISHER_MIN_READINGS)
+        panel_text(n, "note", 18, "too few for kappa and cone (%d needed)",
+                   CORAX_FISHER_MIN_READINGS);
+    else if (isinf(s->fisher.kappa))
+        panel_text(n, "small", 18, "readings identical: no spread");
+    else
+        panel_text(n, "small", 18, "kappa %.1f, 95%% cone %.1f°", s->fisher.kappa,
+                   corax_deg(s->fisher.alpha95));
+}
+
+static void describe_axes(net *n, const corax_axial_summary *s)
+{
+    if (s->n < 2)
+        return;
+    for (int k = 0; k < 3; k++) {
+        double trend, plunge;
+        corax_line_trend_plunge(s->tensor.axis[k], &trend, &plunge);
+        panel_text(n, "small", 18, "axis %d: %05.1f°/%.1f°, eigenvalue %.3f", k + 1,
+                   azimuth_deg(trend), corax_deg(plunge), s->tensor.eigenvalue[k]);
+    }
+    if (!isnan(s->tensor.shape) && !isnan(s->tensor.strength))
+        panel_text(n, "small", 18, "Woodcock K %.2f, C %.2f", s->tensor.shape, s->tensor.strength);
+}
+
+static void legend_entry(net *n, const corax_net_set *set, size_t index, int one_set)
+{
+    char fill[16], stroke[16];
+    set_classes(index, fill, stroke, sizeof fill);
+    if (n->svg)
+        corax_palette_symbol(n->svg, corax_palette_shape_of(index), n->px + 6, n->py - 4, 10,
+                             fill);
+    n->px += 18;
+    panel_text(n, "label", 0, "%s", set->name);
+    n->px -= 18;
+    panel_text(n, "small", 18, "%zu pole%s, %zu line%s", set->npoles, set->npoles == 1 ? "" : "s",
+               set->nlines, set->nlines == 1 ? "" : "s");
+    if (n->style->weighted && set->pole_summary && set->npoles)
+        panel_text(n, "small", 18, "weighted count %.1f (Terzaghi)", set->pole_summary->weight_sum);
+    if (set->skipped)
+        panel_text(n, "note", 18, "%zu row%s skipped (no usable angles)", set->skipped,
+                   set->skipped == 1 ? "" : "s");
+    if (set->pole_summary && set->npoles) {
+        describe_summary(n, set->pole_summary, 1);
+        if (one_set)
+            describe_axes(n, set->pole_summary);
+    }
+    if (set->line_summary && set->nlines)
+        describe_summary(n, set->line_summary, 0);
+    n->py += 6;
+}
+
+static void density_legend(net *n, double step, size_t levels, size_t count, int of_lines)
+{
+    const corax_net_style *s = n->style;
+    panel_text(n, "label", 0, "Density of %s", of_lines ? "lines" : "poles");
+    panel_text(n, "small", 0, "%s, interval %g σ", s->density == CORAX_DENSITY_SMOOTH
+                                                       ? "smoothed Kamb (Vollmer 1995)"
+                                                       : "Kamb (1959) counting",
+               step);
+    panel_text(n, "small", 0, "uniform data: 3 σ; n %zu", count);
+    if (levels == 0)
+        panel_text(n, "note", 0, "nowhere above %g σ", step);
+    for (size_t k = 0; k < levels; k++) {
+        char cls[32];
+        snprintf(cls, sizeof cls, "band b%zu", k < CORAX_BANDS ? k : CORAX_BANDS - 1);
+        if (n->svg)
+            corax_svg_rect(n->svg, n->px, n->py - 11, 22, 12, cls);
+        n->px += 30;
+        panel_text(n, "small", 0, "%g σ and above", (double)(k + 1) * step);
+        n->px -= 30;
+    }
+    n->py += 6;
+}
+
+static void symbol_key(net *n, int one_set, int has_lines)
+{
+    panel_text(n, "label", 0, "Key");
+    panel_text(n, "small", 0, "filled: poles of planes%s", has_lines ? "; hollow: lines" : "");
+    panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
+    panel_text(n, "small", 0, "dashed: the mean plane");
+    if (one_set)
+        panel_text(n, "small", 0, "boxed 1, 2, 3: principal axes");
+}
+
+/* ---- the net ---- */
+
+static void draw_mean(const net *n, const corax_axial_summary *s, size_t index, int planes)
+{
+    if (s->n == 0)
+        return;
+    char fill[16], stroke[16], cls[32];
+    set_classes(index, fill, stroke, sizeof fill);
+    if (planes) {
+        snprintf(cls, sizeof cls, "meanplane %s", stroke);
+        great_circle(n, s->fisher.mean, cls);
+    }
+    if (s->n >= CORAX_FISHER_MIN_READINGS && s->fisher.alpha95 > 0.0 &&
+        s->fisher.alpha95 < 0.5 * CORAX_PI) {
+        snprintf(cls, sizeof cls, "cone %s", stroke);
+        small_circle(n, s->fisher.mean, s->fisher.alpha95, cls);
+    }
+    double x, y;
+    place(n, s->fisher.mean, &x, &y);
+    snprintf(cls, sizeof cls, "meanring %s", stroke);
+    corax_svg_circle(n->svg, x, y, 6.5, cls);
+    corax_svg_circle(n->svg, x, y, 1.8, fill);
+}
+
+static void draw_axes(const net *n, const corax_axial_summary *s)
+{
+    if (s->n < 2)
+        return;
+    for (int k = 0; k < 3; k++) {
+        double x, y;
+        char label[12];
+        place(n, s->tensor.axis[k], &x, &y);
+        corax_svg_rect(n->svg, x - 6, y - 6, 12, 12, "axisbox");
+        snprintf(label, sizeof label, "%d", k + 1);
+        corax_svg_text(n->svg, x, y + 4, "axislabel", "middle", label);
+    }
+}
+
+static void draw_set(const net *n, const corax_net_set *set, size_t index)
+{
+    char fill[16], stroke[16], cls[32];
+    set_classes(index, fill, stroke, sizeof fill);
+    corax_shape shape = corax_palette_shape_of(index);
+    if (n->style->planes & CORAX_NET_GREAT_CIRCLES) {
+        snprintf(cls, sizeof cls, "gc %s", stroke);
+        for (size_t i = 0; i < set->npoles; i++)
+            great_circle(n, set->poles[i], cls);
+    }
+    double x, y;
+    if (n->style->planes & CORAX_NET_POLES)
+        for (size_t i = 0; i < set->npoles; i++) {
+            place(n, set->poles[i], &x, &y);
+            corax_palette_symbol(n->svg, shape, x, y, 8, fill);
+        }
+    snprintf(cls, sizeof cls, "hollow %s", stroke);
+    for (size_t i = 0; i < set->nlines; i++) {
+        place(n, set->lines[i], &x, &y);
+        corax_palette_symbol(n->svg, shape, x, y, 8, cls);
+    }
+}
+
+/* Gather the readings to contour: the poles of every set on the net, or
+ * their lines when there are no poles. */
+static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 **v, double **w,
+                           size_t *count, int *of_lines)
+{
+    size_t poles = 0, lines = 0;
+    int weighted = 0;
+    for (size_t i = 0; i < nsets; i++) {
+        poles += sets[i].npoles;
+        lines += sets[i].nlines;
+        weighted |= sets[i].pole_weight != NULL;
+    }
+    *of_lines = poles == 0;
+    *count = poles ? poles : lines;
+    *v = malloc((*count ? *count : 1) * sizeof **v);
+    *w = weighted && poles ? malloc(*count * sizeof **w) : NULL;
+    if (!*v || (weighted && poles && !*w))
+        return CORAX_ENOMEM;
+    size_t k = 0;
+    for (size_t i = 0; i < nsets; i++) {
+        size_t m = *of_lines ? sets[i].nlines : sets[i].npoles;
+        if (m) /* an empty set may hold NULL */
+            memcpy(*v + k, *of_lines ? sets[i].lines : sets[i].poles, m * sizeof **v);
+        for (size_t j = 0; *w && j < m; j++)
+            (*w)[k + j] = sets[i].pole_weight ? sets[i].pole_weight[j] : 1.0;
+        k += m;
+    }
+    return CORAX_OK;
+}
+
+static size_t readings(const plan *p, int *has_lines)
+{
+    size_t total = 0;
+    *has_lines = 0;
+    for (size_t i = 0; i < p->nsets; i++) {
+        total += p->sets[i].npoles + p->sets[i].nlines;
+        *has_lines |= p->sets[i].nlines > 0;
+    }
+    return total;
+}
+
+/* The side panel: legend, counts, statistics, density levels, key. */
+static void draw_panel(net *n, const plan *p)
+{
+    int has_lines, one_set = p->nsets == 1;
+    size_t total = readings(p, &has_lines);
+    for (size_t i = 0; i < p->nsets; i++)
+        legend_entry(n, &p->sets[i], p->index0 + i, one_set);
+    if (p->grid)
+        density_legend(n, p->step, p->levels, p->count, p->of_lines);
+    else if (n->style->contours && total)
+        panel_text(n, "note", 0, "no contours: fewer than %d readings", CORAX_FISHER_MIN_READINGS);
+    if (total)
+        symbol_key(n, one_set, has_lines);
+}
+
+static corax_status draw_net(net *n, const plan *p)
+{
+    corax_svg *svg = n->svg;
+    int has_lines;
+    corax_svg_text(svg, n->cx - n->r - 20, n->cy - n->r - 48, "heading", "start", p->title);
+    corax_svg_circle(svg, n->cx, n->cy, n->r, "paper");
+    if (p->grid) {
+        corax_status st = draw_density(n, p);
+        if (st != CORAX_OK)
+            return st;
+    }
+    for (size_t i = 0; i < p->nsets; i++)
+        draw_set(n, &p->sets[i], p->index0 + i);
+    if (p->nsets == 1 && p->sets[0].pole_summary && p->sets[0].npoles)
+        draw_axes(n, p->sets[0].pole_summary); /* beneath the means, which matter more */
+    for (size_t i = 0; i < p->nsets; i++) {
+        const corax_net_set *set = &p->sets[i];
+        if (set->pole_summary && set->npoles)
+            draw_mean(n, set->pole_summary, p->index0 + i, 1);
+        if (set->line_summary && set->nlines)
+            draw_mean(n, set->line_summary, p->index0 + i, 0);
+    }
+    draw_frame(n);
+    if (readings(p, &has_lines) == 0)
+        corax_svg_text(svg, n->cx, n->cy + 30, "note", "middle", "no readings");
+    draw_panel(n, p);
+    return CORAX_OK;
+}
+
+static void page_style(corax_svg *svg)
+{
+    char css[4096];
+    size_t used = (size_t)snprintf(css, sizeof css,
+        "text { font-family: 'DejaVu Sans', Verdana, sans-serif; fill: #1a1a1a; }\n"
+        ".title { font-size: 20px; font-weight: bold; }\n"
+        ".subtitle { font-size: 13px; fill: #444; }\n"
+        ".heading { font-size: 16px; font-weight: bold; }\n"
+        ".label { font-size: 13px; font-weight: bold; }\n"
+        ".small { font-size: 12px; }\n"
+        ".note { font-size: 12px; font-style: italic; fill: #7a3b00; }\n"
+        ".paper { fill: #ffffff; stroke: none; }\n"
+        ".primitive { fill: none; stroke: #1a1a1a; stroke-width: 1.6; }\n"
+        ".tick { stroke: #1a1a1a; stroke-width: 1; }\n"
+        ".north { fill: #1a1a1a; }\n"
+        ".band { fill-rule: evenodd; stroke: #5b5140; stroke-width: 0.7; }\n"
+        ".pt { stroke: #1a1a1a; stroke-width: 0.6; }\n"
+        ".hollow { fill: #ffffff; stroke-width: 1.6; }\n"
+        ".gc { fill: none; stroke-width: 0.8; stroke-opacity: 0.75; }\n"
+        ".meanplane { fill: none; stroke-width: 2.2; stroke-dasharray: 7 4; }\n"
+        ".cone { fill: none; stroke-width: 1.8; }\n"
+        ".meanring { fill: #ffffff; fill-opacity: 0.6; stroke-width: 2.6; }\n"
+        ".axisbox { fill: #ffffff; stroke: #1a1a1a; stroke-width: 1.2; }\n"
+        ".axislabel { font-size: 10px; font-weight: bold; }\n");
+    for (size_t i = 0; i < CORAX_PALETTE_SIZE; i++)
+        used += (size_t)snprintf(css + used, sizeof css - used, ".f%zu { fill: %s; }\n"
+                                 ".k%zu { stroke: %s; }\n", i, corax_palette[i], i, corax_palette[i]);
+    for (size_t i = 0; i < CORAX_BANDS; i++)
+        used += (size_t)snprintf(css + used, sizeof css - used, ".b%zu { fill: %s; }\n", i,
+                                 corax_band_fill[i]);
+    corax_svg_style(svg, css);
+}
+
+static void page_heading(corax_svg *svg, const corax_net_style *s)
+{
+    char sub[256], weighting[64] = "";
+    if (s->weighted)
+        snprintf(weighting, sizeof weighting, ", Terzaghi weighting (minimum angle %g°)",
+                 corax_deg(s->min_angle));
+    snprintf(sub, sizeof sub, "lower hemisphere, %s%s%s", corax_projection_name(s->projection),
+             s->planes == CORAX_NET_GREAT_CIRCLES ? ", planes as great circles"
+             : s->planes == (CORAX_NET_POLES | CORAX_NET_GREAT_CIRCLES)
+                 ? ", planes as poles and great circles"
+                 : ", planes as poles",
+             weighting);
+    corax_svg_text(svg, 20, 30, "title", "start", s->title ? s->title : "Stereonet");
+    corax_svg_text(svg, 20, 50, "subtitle", "start", sub);
+}
+
+/* Page geometry, pixels: the side panel's width, the space above a net. */
+enum { SIDE = 300, TOP = 130, MARGIN = 50 };
+
+/* The nets of the page, planned: one per set, or one for all. */
+static corax_status plan_page(const corax_net_set *sets, size_t nsets,
+                              const corax_net_style *style, int net_per_set, plan *plans,
+                              size_t nets)
+{
+    corax_status st = CORAX_OK;
+    for (size_t k = 0; k < nets && st == CORAX_OK; k++) {
+        plan *p = &plans[k];
+        p->sets = net_per_set ? &sets[k] : sets;
+        p->nsets = net_per_set ? 1 : nsets;
+        p->index0 = net_per_set ? k : 0;
+        p->title = p->nsets == 1 ? p->sets[0].name : "All sets";
+        st = plan_density(p, style);
+    }
+    return st;
+}
+
+corax_status corax_stereonet_page(const corax_net_set *sets, size_t nsets,
+                                  const corax_net_style *style, int net_per_set,
+                                  corax_svg **out)
+{
+    *out = NULL;
+    if (nsets == 0 || !(style->contour_step > 0.0) || style->grid < 3 ||
+        !(style->planes & (CORAX_NET_POLES | CORAX_NET_GREAT_CIRCLES)))
+        return CORAX_EARG;
+    size_t nets = net_per_set ? nsets : 1;
+    size_t cols = nets < 3 ? nets : 3, rows = (nets + cols - 1) / cols;
+    double r = nets > 1 ? 160.0 : 220.0, pw = MARGIN + 2 * r + 40 + SIDE;
+    plan *plans = calloc(nets, sizeof *plans);
+    double *row_top = calloc(rows + 1, sizeof *row_top);
+    corax_svg *svg = NULL;
+    corax_status st = plans && row_top ? plan_page(sets, nsets, style, net_per_set, plans, nets)
+                                       : CORAX_ENOMEM;
+    /* each row of nets as tall as its net or its longest panel */
+    row_top[0] = 20.0;
+    for (size_t k = 0; k < nets && st == CORAX_OK; k++) {
+        net measure = {NULL, style, 0, 0, r, 0, 0, 0};
+        draw_panel(&measure, &plans[k]);
+        double h = TOP - 40 + fmax(2 * r + 100, measure.py + 30);
+        row_top[k / cols + 1] = fmax(row_top[k / cols + 1], h);
+    }
+    for (size_t i = 1; i <= rows; i++)
+        row_top[i] += row_top[i - 1];
+    if (st == CORAX_OK && !(svg = corax_svg_new(pw * (double)cols, row_top[rows])))
+        st = CORAX_ENOMEM;
+    if (st == CORAX_OK) {
+        page_style(svg);
+        corax_svg_rect(svg, 0, 0, pw * (double)cols, row_top[rows], "paper");
+        page_heading(svg, style);
+    }
+    for (size_t k = 0; k < nets && st == CORAX_OK; k++) {
+        double ox = pw * (double)(k % cols), oy = row_top[k / cols];
+        net n = {svg, style, ox + MARGIN + r, oy + TOP + r - 20, r, ox + MARGIN + 2 * r + 40,
+                 oy + TOP - 40, (int)k};
+        corax_svg_group(svg, "net", NULL);
+        st = draw_net(&n, &plans[k]);
+        corax_svg_end_group(svg);
+    }
+    for (size_t k = 0; plans && k < nets; k++)
+        free(plans[k].grid);
+    free(plans);
+    free(row_top);
+    if (st == CORAX_OK && !corax_svg_finish(svg, NULL))
+        st = CORAX_ENOMEM;
+    if (st != CORAX_OK) {
+        corax_svg_free(svg);
+        return st;
+    }
+    *out = svg;
+    return CORAX_OK;
+}

@@ -1,0 +1,224 @@
+/* Tests of the stereonet drawing: the palette stays legible to colour-blind
+ * readers, and a page holds what a net must show. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "corax/stereonet.h"
+#include "draw/palette.h"
+#include "support/check.h"
+
+/* sRGB to linear light (IEC 61966-2-1, published standard). */
+static double linear(int c)
+{
+    double v = c / 255.0;
+    return v <= 0.04045 ? v / 12.92 : pow((v + 0.055) / 1.055, 2.4);
+}
+
+static double lab_f(double t)
+{
+    return t > 216.0 / 24389.0 ? cbrt(t) : (24389.0 / 27.0 * t + 16.0) / 116.0;
+}
+
+/* CIE 1976 L*a*b* of linear RGB (D65 white; published standard). */
+static void to_lab(const double rgb[3], double lab[3])
+{
+    double x = 0.4124 * rgb[0] + 0.3576 * rgb[1] + 0.1805 * rgb[2];
+    double y = 0.2126 * rgb[0] + 0.7152 * rgb[1] + 0.0722 * rgb[2];
+    double z = 0.0193 * rgb[0] + 0.1192 * rgb[1] + 0.9505 * rgb[2];
+    double fx = lab_f(x / 0.95047), fy = lab_f(y), fz = lab_f(z / 1.08883);
+    lab[0] = 116 * fy - 16;
+    lab[1] = 500 * (fx - fy);
+    lab[2] = 200 * (fy - fz);
+}
+
+/* Dichromat simulation in linear RGB: Vienot, Brettel & Mollon (1999),
+ * "Digital video colourmaps for checking the legibility of displays by
+ * dichromats" (matrices from memory). */
+static const double normal[3][3] = {{1, 0, 0}, {0, 1, 0}, {0, 0, 1}};
+static const double protan[3][3] = {
+    {0.11238, 0.88762, 0}, {0.11238, 0.88762, 0}, {0.00401, -0.00401, 1}};
+static const double deutan[3][3] = {
+    {0.29275, 0.70725, 0}, {0.29275, 0.70725, 0}, {-0.02234, 0.02234, 1}};
+
+static void seen(const char *hex, const double m[3][3], double lab[3])
+{
+    unsigned r, g, b;
+    assert_int_equal(sscanf(hex, "#%2x%2x%2x", &r, &g, &b), 3);
+    double lin[3] = {linear((int)r), linear((int)g), linear((int)b)}, out[3];
+    for (int i = 0; i < 3; i++)
+        out[i] = fmin(1, fmax(0, m[i][0] * lin[0] + m[i][1] * lin[1] + m[i][2] * lin[2]));
+    to_lab(out, lab);
+}
+
+/* Every pair of set colours differs by at least 20 CIE76 units for normal
+ * vision and under simulated protanopia and deuteranopia (common practice:
+ * about 10 is a clear difference for small marks). */
+static void test_palette_legible_to_dichromats(void **state)
+{
+    (void)state;
+    const double (*views[3])[3] = {normal, protan, deutan};
+    for (int v = 0; v < 3; v++)
+        for (int i = 0; i < CORAX_PALETTE_SIZE; i++)
+            for (int j = i + 1; j < CORAX_PALETTE_SIZE; j++) {
+                double a[3], b[3];
+                seen(corax_palette[i], views[v], a);
+                seen(corax_palette[j], views[v], b);
+                double de = sqrt((a[0] - b[0]) * (a[0] - b[0]) + (a[1] - b[1]) * (a[1] - b[1]) +
+                                 (a[2] - b[2]) * (a[2] - b[2]));
+                if (de < 20)
+                    fail_msg("colours %s and %s differ by %.1f for view %d (Vienot et al. 1999)",
+                             corax_palette[i], corax_palette[j], de, v);
+            }
+    /* density bands get darker step by step (lightness alone carries them) */
+    for (int k = 1; k < CORAX_BANDS; k++) {
+        double a[3], b[3];
+        seen(corax_band_fill[k - 1], normal, a);
+        seen(corax_band_fill[k], normal, b);
+        assert_true(b[0] < a[0] - 4);
+    }
+    /* colour and shape together tell the first 64 sets apart */
+    for (size_t i = 0; i < 64; i++)
+        for (size_t j = i + 1; j < 64; j++)
+            assert_false(corax_palette_colour_of(i) == corax_palette_colour_of(j) &&
+                         corax_palette_shape_of(i) == corax_palette_shape_of(j));
+}
+
+static size_t count(const char *doc, const char *what)
+{
+    size_t n = 0;
+    for (const char *p = doc; (p = strstr(p, what)); p++)
+        n++;
+    return n;
+}
+
+static corax_vec3 pole_of(double dip_deg, double dd_deg)
+{
+    return corax_plane_normal((corax_plane){corax_rad(dip_deg), corax_rad(dd_deg)});
+}
+
+/* A net of one set: primitive, 36 ticks (every 10 degrees), north mark,
+ * density bands clipped to the primitive, the count, mean, cone and axes. */
+static void test_page_of_one_set(void **state)
+{
+    (void)state;
+    enum { N = 60 };
+    corax_vec3 poles[N];
+    uint64_t seed = 4;
+    for (int i = 0; i < N; i++)
+        poles[i] = corax_fisher_draw(pole_of(40, 120), 30, test_uniform(&seed), test_uniform(&seed));
+    corax_axial_summary s;
+    assert_int_equal(corax_axial_summary_compute(poles, NULL, N, &s), CORAX_OK);
+    corax_net_set set = {"bedding & <co>", poles, NULL, N, NULL, 0, &s, NULL, 2};
+    corax_net_style style = corax_net_style_default();
+    style.title = "Test net";
+    corax_svg *svg;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    size_t len;
+    const char *doc = corax_svg_finish(svg, &len);
+    assert_non_null(doc);
+    assert_int_equal(count(doc, "class=\"tick\""), 36 + 2); /* and the centre cross */
+    assert_int_equal(count(doc, "class=\"primitive\""), 1);
+    assert_int_equal(count(doc, "class=\"north\""), 1);
+    assert_non_null(strstr(doc, ">N</text>"));
+    assert_non_null(strstr(doc, "bedding &amp; &lt;co&gt;")); /* escaped */
+    assert_non_null(strstr(doc, ">60 poles, 0 lines</text>"));
+    assert_non_null(strstr(doc, "2 rows skipped"));
+    assert_non_null(strstr(doc, "clip-path=\"url(#corax-net-0)\""));
+    assert_true(count(doc, "class=\"band b") >= 2 + 2); /* at least two levels, and legend */
+    assert_int_equal(count(doc, "class=\"meanplane k0\""), 1);
+    assert_int_equal(count(doc, "class=\"cone k0\""), 1);
+    assert_int_equal(count(doc, "class=\"axisbox\""), 3);
+    assert_int_equal(count(doc, "class=\"pt f0\""), N + 2); /* poles, legend, mean dot */
+    corax_svg_free(svg);
+}
+
+/* Sets on one net each get their own colour class; one net per set gives as
+ * many nets, each with its own clip path; an empty set says so. */
+static void test_groups_and_empty_sets(void **state)
+{
+    (void)state;
+    corax_vec3 a[3] = {pole_of(10, 0), pole_of(12, 5), pole_of(11, 355)};
+    corax_vec3 l[1] = {corax_direction(corax_rad(200), corax_rad(30))};
+    corax_axial_summary sa, sl, none;
+    corax_axial_summary_compute(a, NULL, 3, &sa);
+    corax_axial_summary_compute(l, NULL, 1, &sl);
+    corax_axial_summary_compute(NULL, NULL, 0, &none);
+    corax_net_set sets[3] = {{"first", a, NULL, 3, NULL, 0, &sa, NULL, 0},
+                             {"second", NULL, NULL, 0, l, 1, &none, &sl, 0},
+                             {"third", NULL, NULL, 0, NULL, 0, &none, &none, 4}};
+    corax_net_style style = corax_net_style_default();
+    corax_svg *svg;
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 0, &svg), CORAX_OK);
+    const char *doc = corax_svg_finish(svg, NULL);
+    assert_non_null(strstr(doc, "class=\"hollow k1\"")); /* the line of set 2 */
+    assert_int_equal(count(doc, "class=\"primitive\""), 1);
+    assert_int_equal(count(doc, "class=\"axisbox\""), 0); /* axes only on a net of one set */
+    corax_svg_free(svg);
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_int_equal(count(doc, "class=\"primitive\""), 3);
+    assert_int_equal(count(doc, "<clipPath"), 1); /* only the set of three is contoured */
+    assert_int_equal(count(doc, ">no readings</text>"), 1);
+    assert_non_null(strstr(doc, "too few for kappa and cone"));
+    corax_svg_free(svg);
+    corax_net_set empty = {"nothing", NULL, NULL, 0, NULL, 0, NULL, NULL, 0};
+    assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_OK);
+    assert_non_null(strstr(corax_svg_finish(svg, NULL), ">no readings</text>"));
+    corax_svg_free(svg);
+    assert_int_equal(corax_stereonet_page(&empty, 0, &style, 0, &svg), CORAX_EARG);
+    style.contour_step = 0;
+    assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_EARG);
+}
+
+/* Great circles stay inside the primitive: a horizontal plane's circle is
+ * the primitive itself, a vertical plane's a diameter. */
+static void test_great_circles_inside_primitive(void **state)
+{
+    (void)state;
+    corax_vec3 p[2] = {pole_of(0, 0), pole_of(90, 90)};
+    corax_net_set set = {"two", p, NULL, 2, NULL, 0, NULL, NULL, 0};
+    corax_net_style style = corax_net_style_default();
+    style.planes = CORAX_NET_GREAT_CIRCLES;
+    style.contours = 0;
+    corax_svg *svg;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    const char *doc = corax_svg_finish(svg, NULL);
+    double cx, cy, r;
+    const char *prim = strstr(doc, "<circle cx=\"");
+    prim = strstr(prim + 1, "<circle cx=\""); /* the first is the paper disc */
+    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", &cx, &cy, &r), 3);
+    size_t circles = 0;
+    for (const char *g = doc; (g = strstr(g, "class=\"gc k0\" d=\"")); g++, circles++) {
+        const char *d = strchr(g, 'd') + 3;
+        double x, y, lo = 1e9, hi = 0;
+        int n;
+        while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
+            double rr = hypot(x - cx, y - cy);
+            lo = fmin(lo, rr);
+            hi = fmax(hi, rr);
+            d += n;
+            while (*d == ' ')
+                d++;
+        }
+        assert_true(hi <= r + 0.01);
+        if (circles == 0)
+            assert_close(lo, r, 0, 0.01, "a horizontal plane's great circle is the primitive");
+        else
+            assert_close(lo, 0, 0, 0.01, "a vertical plane's great circle passes the centre");
+    }
+    assert_int_equal(circles, 2);
+    corax_svg_free(svg);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_palette_legible_to_dichromats),
+        cmocka_unit_test(test_page_of_one_set),
+        cmocka_unit_test(test_groups_and_empty_sets),
+        cmocka_unit_test(test_great_circles_inside_primitive),
+    };
+    return cmocka_run_group_tests_name("draw_stereonet", tests, NULL, NULL);
+}
