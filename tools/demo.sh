@@ -13,7 +13,10 @@ PROJECT=examples/quillon_creek.ini
 
 "$CORAX" trace -p "$PROJECT" -o "$OUT/stations.csv"
 "$CORAX" trace -p "$PROJECT" --step 5 -o "$OUT/traces.csv"
-summary=$("$CORAX" convert -p "$PROJECT" --section-azimuth 135 -o "$OUT/structures.csv" 2>&1)
+# Every reading drawn 500 times through its errors (the defaults, and the
+# log's confidence column for the orientation line): the uncertainty columns.
+summary=$("$CORAX" convert -p "$PROJECT" --section-azimuth 135 --draws 500 --seed 2026 \
+    -o "$OUT/structures.csv" 2>&1)
 
 # Stereonets of the converted structures: all structures, by feature kind on
 # one net, one net per hole, with the statistics of each grouping.
@@ -33,6 +36,7 @@ echo "  desurveyed stations:     $OUT/stations.csv"
 echo "  traces every 5 m:        $OUT/traces.csv"
 echo "  converted structures:    $OUT/structures.csv"
 echo "      ${summary#corax: }"
+echo "      with dip_sd, dip_direction_sd, cone95, kappa and position_sd from 500 draws each"
 echo "  stereonets:              $OUT/net_all.svg, net_by_kind.svg, net_by_hole.svg"
 echo "  orientation statistics:  $OUT/net_*_stats.csv"
 echo "  what each run assumed:   $OUT/*.about"

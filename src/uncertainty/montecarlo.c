@@ -7,6 +7,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "corax/stats.h"
 #include "corax/uncertainty.h"
 #include "geometry/vec.h"
 #include "survey/hole_int.h"
@@ -33,7 +34,6 @@ corax_error_model corax_error_model_default(void)
 typedef struct accum {
     double dip, dip2;    /* planes: dip less the nominal dip, and its square */
     double ddx, ddy;     /* planes: unit dip-direction vectors */
-    corax_vec3 pole;     /* poles (or lines) turned to the nominal's side */
     corax_vec3 shift;    /* position minus the nominal position */
     double shift2;       /* its squared length */
     size_t n;
@@ -160,7 +160,6 @@ static void add_draw(accum *ac, const corax_mc_reading *m, corax_vec3 pos, corax
     if (vec_dot(dir, ref) < 0.0) /* poles and lines have no sense: the nominal's side */
         dir = vec_neg(dir);
     *store = dir;
-    ac->pole = vec_add(ac->pole, dir);
     corax_vec3 s = vec_sub(pos, m->nominal.point.position);
     ac->shift = vec_add(ac->shift, s);
     ac->shift2 += vec_dot(s, s);
@@ -179,7 +178,7 @@ static void add_draw(accum *ac, const corax_mc_reading *m, corax_vec3 pos, corax
 }
 
 static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
-                   const corax_vec3 *drawn, size_t draws, corax_spread *out)
+                   corax_vec3 *drawn, size_t draws, corax_spread *out)
 {
     memset(out, 0, sizeof *out);
     out->has_orientation = 1;
@@ -199,14 +198,18 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
     } else {
         out->dip_sd = out->dip_direction_sd = NAN;
     }
-    /* Fisher (1953): R the resultant length, k = (n - 1) / (n - R) */
-    double r = vec_norm(ac->pole);
-    out->kappa = n - r > 0.0 ? (n - 1.0) / (n - r) : (double)INFINITY;
-    corax_vec3 mean = vec_scale(ac->pole, 1.0 / r);
-    size_t k = 0;
+    size_t k = 0; /* the draws that gave an answer, to the front */
     for (size_t d = 0; d < draws; d++)
         if (drawn[d].x != 0.0 || drawn[d].y != 0.0 || drawn[d].z != 0.0)
-            mc->dots[k++] = vec_dot(drawn[d], mean);
+            drawn[k++] = drawn[d];
+    corax_fisher f; /* Fisher (1953): the mean, and kappa = (n - 1) / (n - R) */
+    if (corax_fisher_mean(drawn, NULL, k, &f) != CORAX_OK) {
+        out->cone95 = out->kappa = NAN;
+        return;
+    }
+    out->kappa = f.kappa;
+    for (size_t d = 0; d < k; d++)
+        mc->dots[d] = vec_dot(drawn[d], f.mean);
     /* the cone holding 95% of the draws: the ceil(0.95 n)-th closest */
     size_t q = (size_t)ceil(0.95 * (double)k);
     double c = gsl_stats_select(mc->dots, 1, k, k - (q ? q : 1)); /* the q-th largest */
