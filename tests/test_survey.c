@@ -305,7 +305,7 @@ static void test_bad_surveys_are_refused(void **state)
     corax_hole *h = NULL;
     corax_error err;
     corax_station dup[3] = {{0, 0, 1, 10, 0, 0, 0}, {30, 0, 1, 11, 0, 0, 0}, {30, 0.1, 1, 14, 0, 0, 0}};
-    assert_int_equal(corax_hole_new("D", &c, dup, 3, 0, &h, &err), CORAX_ESURVEY);
+    assert_int_equal(corax_hole_new("D", &c, dup, 3, 0, &h, &err), CORAX_EREPEAT);
     assert_null(h);
     assert_non_null(strstr(err.message, "lines 11 and 14"));
     corax_station flip[2] = {{0, 0, corax_rad(60), 20, 0, 0, 0}, {30, corax_rad(180), corax_rad(-60), 21, 0, 0, 0}};

@@ -28,6 +28,7 @@ typedef struct corax_finding {
     long line;         /* 1-based, 0 when not tied to a line */
     char hole[64];     /* empty when not tied to a hole */
     double depth;      /* metres, NaN when not tied to a depth */
+    double depth_to;   /* the end of an interval from `depth`, else NaN */
     char message[320];
 } corax_finding;
 
@@ -46,6 +47,20 @@ corax_status corax_findings_add(corax_findings *list, corax_severity severity,
     __attribute__((format(printf, 8, 9)))
 #endif
     ;
+
+/* The same for an interval of a hole, from `depth` to `depth_to`. */
+corax_status corax_findings_add_range(corax_findings *list, corax_severity severity,
+                                      const char *check, const char *file, long line,
+                                      const char *hole, double depth, double depth_to,
+                                      const char *fmt, ...)
+#if defined(__GNUC__)
+    __attribute__((format(printf, 9, 10)))
+#endif
+    ;
+
+/* Sort by hole (findings without a hole first), then depth (program-wide
+ * findings of a hole first), keeping the order of equals. */
+corax_status corax_findings_sort(corax_findings *list);
 
 /* Number of findings of at least the given severity. */
 size_t corax_findings_count(const corax_findings *list, corax_severity at_least);

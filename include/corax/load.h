@@ -17,6 +17,8 @@ typedef struct corax_load_options {
     corax_dip_convention dip_convention;
     double declination; /* degrees, magnetic to true: added to survey azimuths */
     double convergence; /* degrees, true to grid: subtracted from survey azimuths */
+    int repair;         /* leave out a repeated or reversing station and keep the
+                           hole (each still a finding), instead of the hole */
 } corax_load_options;
 
 /* Defaults: comma-separated, dip negative down, no azimuth correction. */
@@ -30,8 +32,10 @@ corax_load_options corax_load_options_default(void);
  * Row-level faults do not stop it: each becomes a finding in *problems
  * (severity error for a row or hole that could not be used, warning for
  * surveys of a hole with no collar), and the rest of the program is loaded.
- * A hole with a fault in its survey is left out of the program; its collar
- * alone does not stand in for it. The caller owns *out. */
+ * A hole with a fault in its survey (a repeated depth, a 180-degree turn) is
+ * left out of the program, its collar alone not standing in for it; with
+ * options->repair the offending later station is left out instead, and the
+ * hole kept. The caller owns *out. */
 corax_status corax_program_load(const char *collars_path, const char *surveys_path,
                                 const corax_load_options *options, corax_program **out,
                                 corax_findings *problems, corax_error *err);

@@ -16,7 +16,8 @@ typedef enum corax_status {
     CORAX_EVALUE,    /* a value is not a number, not finite, or out of its range */
     CORAX_ESURVEY,   /* a survey cannot be desurveyed: repeated depth, 180-degree dogleg */
     CORAX_EARG,      /* a caller passed an invalid argument */
-    CORAX_ENOTFOUND  /* a named item (hole, column, key) does not exist */
+    CORAX_ENOTFOUND, /* a named item (hole, column, key) does not exist */
+    CORAX_EREPEAT    /* something that must be unique appears twice (a survey depth) */
 } corax_status;
 
 /* A short lower-case description of a status, never NULL. */

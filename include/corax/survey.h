@@ -79,8 +79,8 @@ typedef struct corax_hole corax_hole;
  * Above the first station the hole runs straight from the collar along the
  * collar's direction when it has one, else along the first station's.
  *
- * Errors: CORAX_ESURVEY for a repeated depth or a 180-degree dogleg (err->line
- * is the later station's line, the message names both), CORAX_EVALUE for a
+ * Errors: CORAX_EREPEAT for a repeated depth, CORAX_ESURVEY for a 180-degree
+ * dogleg (err->line is the later station's line, the message names both), CORAX_EVALUE for a
  * negative or non-finite depth or angle, CORAX_ENOMEM. err may be NULL.
  * A hole with neither a station nor a collar direction is allowed: it has a
  * collar but no path, and corax_hole_at() answers CORAX_ENOTFOUND for it.

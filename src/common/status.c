@@ -1,4 +1,5 @@
 /* common: result codes, error records and findings shared by every module. */
+#include <ctype.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -20,6 +21,7 @@ const char *corax_strerror(corax_status status)
     case CORAX_ESURVEY: return "survey cannot be desurveyed";
     case CORAX_EARG: return "invalid argument";
     case CORAX_ENOTFOUND: return "not found";
+    case CORAX_EREPEAT: return "repeated";
     }
     return "unknown status";
 }
@@ -57,9 +59,10 @@ const char *corax_severity_name(corax_severity severity)
     return "unknown";
 }
 
-corax_status corax_findings_add(corax_findings *list, corax_severity severity,
-                                const char *check, const char *file, long line,
-                                const char *hole, double depth, const char *fmt, ...)
+static corax_status findings_vadd(corax_findings *list, corax_severity severity,
+                                   const char *check, const char *file, long line,
+                                   const char *hole, double depth, double depth_to,
+                                   const char *fmt, va_list ap)
 {
     if (list->count == list->capacity) {
         size_t cap = list->capacity ? 2 * list->capacity : 16;
@@ -76,10 +79,106 @@ corax_status corax_findings_add(corax_findings *list, corax_severity severity,
     f->line = line;
     snprintf(f->hole, sizeof f->hole, "%s", hole ? hole : "");
     f->depth = depth;
+    f->depth_to = depth_to;
+    vsnprintf(f->message, sizeof f->message, fmt, ap);
+    return CORAX_OK;
+}
+
+corax_status corax_findings_add(corax_findings *list, corax_severity severity,
+                                const char *check, const char *file, long line,
+                                const char *hole, double depth, const char *fmt, ...)
+{
     va_list ap;
     va_start(ap, fmt);
-    vsnprintf(f->message, sizeof f->message, fmt, ap);
+    corax_status st = findings_vadd(list, severity, check, file, line, hole, depth, NAN, fmt, ap);
     va_end(ap);
+    return st;
+}
+
+corax_status corax_findings_add_range(corax_findings *list, corax_severity severity,
+                                      const char *check, const char *file, long line,
+                                      const char *hole, double depth, double depth_to,
+                                      const char *fmt, ...)
+{
+    va_list ap;
+    va_start(ap, fmt);
+    corax_status st =
+        findings_vadd(list, severity, check, file, line, hole, depth, depth_to, fmt, ap);
+    va_end(ap);
+    return st;
+}
+
+/* Hole names compare as text, but with their digits as numbers, so that DH2
+ * comes before DH10. */
+static int hole_cmp(const char *a, const char *b)
+{
+    while (*a && *b) {
+        if (isdigit((unsigned char)*a) && isdigit((unsigned char)*b)) {
+            while (*a == '0')
+                a++;
+            while (*b == '0')
+                b++;
+            size_t la = 0, lb = 0;
+            while (isdigit((unsigned char)a[la]))
+                la++;
+            while (isdigit((unsigned char)b[lb]))
+                lb++;
+            if (la != lb)
+                return la < lb ? -1 : 1;
+            int c = strncmp(a, b, la);
+            if (c)
+                return c;
+            a += la;
+            b += lb;
+        } else {
+            if (*a != *b)
+                return (unsigned char)*a < (unsigned char)*b ? -1 : 1;
+            a++;
+            b++;
+        }
+    }
+    return (unsigned char)*a - (unsigned char)*b;
+}
+
+typedef struct keyed {
+    const corax_finding *f;
+    size_t order;
+} keyed;
+
+static int finding_cmp(const void *pa, const void *pb)
+{
+    const keyed *ka = pa, *kb = pb;
+    const corax_finding *a = ka->f, *b = kb->f;
+    int c = hole_cmp(a->hole, b->hole);
+    if (c)
+        return c;
+    int na = isnan(a->depth), nb = isnan(b->depth);
+    if (na != nb)
+        return na ? -1 : 1;
+    if (!na && a->depth != b->depth)
+        return a->depth < b->depth ? -1 : 1;
+    return (ka->order > kb->order) - (ka->order < kb->order);
+}
+
+corax_status corax_findings_sort(corax_findings *list)
+{
+    if (list->count < 2)
+        return CORAX_OK;
+    keyed *k = malloc(list->count * sizeof *k);
+    corax_finding *sorted = malloc(list->count * sizeof *sorted);
+    if (!k || !sorted) {
+        free(k);
+        free(sorted);
+        return CORAX_ENOMEM;
+    }
+    for (size_t i = 0; i < list->count; i++)
+        k[i] = (keyed){&list->item[i], i};
+    qsort(k, list->count, sizeof *k, finding_cmp);
+    for (size_t i = 0; i < list->count; i++)
+        sorted[i] = *k[i].f;
+    memcpy(list->item, sorted, list->count * sizeof *sorted);
+    free(sorted);
+    free(k);
     return CORAX_OK;
 }
 

@@ -273,6 +273,39 @@ static size_t first_survey(const records *rec, const char *hole)
     return lo;
 }
 
+/* Desurvey one hole and add it; a fault becomes a finding. With repair, the
+ * offending later station goes and the hole is desurveyed again. */
+static corax_status build_hole(const collar_rec *c, corax_station *st, size_t n, double correction,
+                               int repair, const char *spath, corax_program *prog,
+                               corax_findings *problems)
+{
+    for (;;) {
+        corax_hole *h;
+        corax_error e;
+        corax_error_clear(&e);
+        corax_status s = corax_hole_new(c->hole, &c->collar, st, n, correction, &h, &e);
+        if (s == CORAX_OK)
+            return corax_program_add(prog, h);
+        if (s == CORAX_ENOMEM)
+            return s;
+        const char *check = s == CORAX_EREPEAT ? "survey-repeated-depth"
+                            : s == CORAX_ESURVEY ? "survey-reversal"
+                                                 : "survey-row";
+        size_t bad = 0; /* the station the message points at */
+        while (bad < n && st[bad].line != e.line)
+            bad++;
+        double depth = bad < n ? st[bad].depth : (double)NAN;
+        int keep = repair && bad < n && (s == CORAX_EREPEAT || s == CORAX_ESURVEY);
+        s = corax_findings_add(problems, CORAX_ERROR, check, spath, e.line, c->hole, depth,
+                               "%s%s", e.message,
+                               keep ? "; that station is left out" : "");
+        if (s != CORAX_OK || !keep)
+            return s;
+        memmove(st + bad, st + bad + 1, (n - bad - 1) * sizeof *st);
+        n--;
+    }
+}
+
 /* Desurvey each collar's hole from its stations and add it to the program. */
 static corax_status build_program(const char *cpath, const char *spath,
                                   const corax_load_options *o, records *rec,
@@ -304,15 +337,7 @@ static corax_status build_program(const char *cpath, const char *spath,
         }
         for (size_t j = 0; j < n; j++)
             buf[j] = rec->survey[k + j].station;
-        corax_hole *h;
-        corax_error e;
-        corax_error_clear(&e);
-        st = corax_hole_new(c->hole, &c->collar, buf, n, correction, &h, &e);
-        if (st == CORAX_OK)
-            st = corax_program_add(prog, h);
-        else if (st != CORAX_ENOMEM)
-            st = corax_findings_add(problems, CORAX_ERROR, "survey-path", spath, e.line,
-                                    c->hole, NAN, "%s", e.message);
+        st = build_hole(c, buf, n, correction, o->repair, spath, prog, problems);
     }
     free(buf);
     return st;

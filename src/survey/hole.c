@@ -69,7 +69,7 @@ static corax_status build_nodes(corax_hole *h, corax_error *err)
         if (st != CORAX_OK)
             return st;
         if (i > 0 && h->given[i].depth == h->given[i - 1].depth)
-            return corax_error_set(err, CORAX_ESURVEY, NULL, h->given[i].line,
+            return corax_error_set(err, CORAX_EREPEAT, NULL, h->given[i].line,
                                    "hole %s: survey depth %g appears twice (lines %ld and %ld)",
                                    h->name, h->given[i].depth, h->given[i - 1].line,
                                    h->given[i].line);
