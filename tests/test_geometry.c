@@ -2,6 +2,7 @@
 #include <math.h>
 
 #include "corax/geometry.h"
+#include "corax/section.h"
 #include "support/check.h"
 
 static void test_wrapping(void **state)
@@ -88,6 +89,14 @@ static void test_apparent_dip_jukes_1859(void **state)
     assert_int_equal(toward, 1);
     corax_apparent_dip(p, corax_rad(225), &toward);
     assert_int_equal(toward, -1);
+    /* the same section through the section module: the tick drawn for the
+     * beds has Jukes' slope and falls toward the north-east end */
+    corax_section s = corax_section_make(0, 0, corax_rad(45), 10);
+    corax_section_dip d = corax_section_plane(&s, p);
+    assert_close(corax_deg(d.apparent), a, 0, 1e-9, "section apparent dip, formula (Jukes 1859)");
+    assert_close(corax_deg(atan2(-d.up, d.along)), 26.0 + 15.0 / 60.0, 0, 0.1,
+                 "section trace slope, Jukes (1859) table");
+    assert_close(corax_deg(d.toward_azimuth), 45, 0, 1e-9, "dips toward the NE end");
 }
 
 /* derived grid (check-values.md): true dip, angle between section and dip
@@ -101,6 +110,10 @@ static void test_apparent_dip_derived_grid(void **state)
         corax_plane p = {corax_rad(grid[i][0]), corax_rad(100)};
         double a = corax_deg(corax_apparent_dip(p, corax_rad(100 + grid[i][1]), NULL));
         assert_close(a, grid[i][2], 0, 0.005, "derived apparent dip grid");
+        corax_section s = corax_section_make(0, 0, corax_rad(100 + grid[i][1]), 10);
+        corax_section_dip d = corax_section_plane(&s, p);
+        assert_close(corax_deg(atan2(-d.up, fabs(d.along))), grid[i][2], 0, 0.005,
+                     "derived apparent dip grid, section trace slope");
     }
     corax_plane p = {corax_rad(50), corax_rad(100)};
     int toward;
@@ -114,6 +127,33 @@ static void test_apparent_dip_derived_grid(void **state)
                  "a vertical plane shows vertical unless cut along strike");
 }
 
+/* Property: the trace a section shows for a plane is the line where the
+ * plane meets the section plane, i.e. along n x m (n the plane's normal, m
+ * the section plane's horizontal normal): an independent derivation of the
+ * apparent dip formula and of the end it dips toward. */
+static void test_section_trace_is_the_intersection_line(void **state)
+{
+    (void)state;
+    uint64_t seed = 21;
+    for (int i = 0; i < 20000; i++) {
+        corax_plane p = {corax_rad(89.9 * test_uniform(&seed)), 2 * CORAX_PI * test_uniform(&seed)};
+        double az = 2 * CORAX_PI * test_uniform(&seed);
+        corax_section s = corax_section_make(0, 0, az, 10);
+        corax_section_dip d = corax_section_plane(&s, p);
+        corax_vec3 n = corax_plane_normal(p), m = {cos(az), -sin(az), 0};
+        corax_vec3 l = {n.y * m.z - n.z * m.y, n.z * m.x - n.x * m.z, n.x * m.y - n.y * m.x};
+        double along = l.x * sin(az) + l.y * cos(az), up = l.z;
+        double len = hypot(along, up);
+        if (len < 1e-6)
+            continue; /* the plane is the section plane itself */
+        /* parallel (either sense): the 2-D cross product vanishes */
+        assert_close((d.along * up - d.up * along) / len, 0, 0, 1e-9,
+                     "section trace along the intersection line");
+        assert_close(hypot(d.along, d.up), 1, 0, 1e-12, "unit trace direction");
+        assert_true(d.up <= 0);
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -123,6 +163,7 @@ int main(void)
         cmocka_unit_test(test_plane_from_normal),
         cmocka_unit_test(test_apparent_dip_jukes_1859),
         cmocka_unit_test(test_apparent_dip_derived_grid),
+        cmocka_unit_test(test_section_trace_is_the_intersection_line),
     };
     return cmocka_run_group_tests_name("geometry", tests, NULL, NULL);
 }

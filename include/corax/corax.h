@@ -7,6 +7,7 @@
 #include "corax/finding.h"
 #include "corax/geometry.h"
 #include "corax/load.h"
+#include "corax/section.h"
 #include "corax/output.h"
 #include "corax/status.h"
 #include "corax/survey.h"
