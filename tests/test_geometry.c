@@ -74,6 +74,33 @@ static void test_plane_from_normal(void **state)
     assert_close(flat.dip_direction, 0, 0, 0, "horizontal plane has dip direction 0");
 }
 
+/* Common practice: strike is 90 degrees anticlockwise of the dip direction
+ * (right-hand rule) and horizontal; the dip line plunges at the dip toward
+ * the dip direction; both lie in the plane. */
+static void test_plane_axes(void **state)
+{
+    (void)state;
+    uint64_t seed = 17;
+    for (int i = 0; i < 10000; i++) {
+        corax_plane p = {corax_rad(90 * test_uniform(&seed)), 2 * CORAX_PI * test_uniform(&seed)};
+        corax_vec3 s, d, n = corax_plane_normal(p);
+        corax_plane_axes(p, &s, &d);
+        double az, pl;
+        corax_direction_angles(s, &az, &pl);
+        assert_close(azimuth_gap(corax_deg(az), corax_deg(p.dip_direction) - 90), 0, 0, 1e-9,
+                     "strike is dip direction - 90 (right-hand rule, common practice)");
+        assert_close(pl, 0, 0, 1e-12, "strike is horizontal");
+        corax_direction_angles(d, &az, &pl);
+        assert_close(pl, p.dip, 0, 1e-12, "dip line plunges at the dip");
+        if (p.dip > 1e-6)
+            assert_close(azimuth_gap(corax_deg(az), corax_deg(p.dip_direction)), 0, 0, 1e-9,
+                         "dip line trends down the dip direction");
+        assert_close(s.x * n.x + s.y * n.y + s.z * n.z, 0, 0, 1e-12, "strike in the plane");
+        assert_close(d.x * n.x + d.y * n.y + d.z * n.z, 0, 0, 1e-12, "dip line in the plane");
+        assert_close(s.x * d.x + s.y * d.y + s.z * d.z, 0, 0, 1e-12, "strike across the dip");
+    }
+}
+
 /* J. B. Jukes (1859), The South Staffordshire Coalfield, appendix: beds
  * dipping north at 35 degrees, section NE-SW (45 degrees from the dip
  * direction): his table reads 26 deg 15 min; the formula gives 26.34. */
@@ -161,6 +188,7 @@ int main(void)
         cmocka_unit_test(test_direction_round_trip),
         cmocka_unit_test(test_lines_are_reported_downward),
         cmocka_unit_test(test_plane_from_normal),
+        cmocka_unit_test(test_plane_axes),
         cmocka_unit_test(test_apparent_dip_jukes_1859),
         cmocka_unit_test(test_apparent_dip_derived_grid),
         cmocka_unit_test(test_section_trace_is_the_intersection_line),

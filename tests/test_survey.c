@@ -407,7 +407,9 @@ static void test_program_lookup(void **state)
         assert_non_null(h);
         assert_int_equal(strncmp(corax_hole_name(h), name, 5), 0);
         assert_ptr_equal(corax_program_hole(prog, (size_t)i), h);
+        assert_int_equal(corax_program_index(prog, name, 5), i);
     }
+    assert_int_equal(corax_program_index(prog, "H05", 3), -1);
     assert_null(corax_program_find(prog, "H05", 3));
     assert_null(corax_program_find(prog, "H0500", 5));
     corax_program_free(prog);

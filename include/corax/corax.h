@@ -4,14 +4,17 @@
 
 #define CORAX_VERSION "0.1.0"
 
+#include "corax/export.h"
 #include "corax/finding.h"
 #include "corax/geometry.h"
 #include "corax/load.h"
-#include "corax/section.h"
 #include "corax/output.h"
+#include "corax/section.h"
 #include "corax/status.h"
+#include "corax/structure.h"
 #include "corax/survey.h"
 #include "corax/svg.h"
 #include "corax/table.h"
+#include "corax/vtk.h"
 
 #endif

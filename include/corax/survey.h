@@ -156,6 +156,10 @@ corax_status corax_program_add(corax_program *program, corax_hole *hole);
 const corax_hole *corax_program_find(const corax_program *program, const char *name,
                                      size_t len);
 
+/* The position of the hole of that name in the program (as for
+ * corax_program_hole()), or -1. */
+long corax_program_index(const corax_program *program, const char *name, size_t len);
+
 size_t corax_program_size(const corax_program *program);
 
 /* Holes in the order they were added. */

@@ -35,6 +35,7 @@ static const char *const known[][6] = {
     {"trend", NULL},
     {"plunge", NULL},
     {"status", NULL},
+    {"polarity", "younging", NULL},
 };
 
 enum { NKNOWN = sizeof known / sizeof known[0] };
