@@ -61,8 +61,8 @@ static void test_vtk_discs_and_traces(void **state)
     (void)state;
     corax_program *prog = one_hole();
     corax_export_structure s[2] = {
-        {{1010, 2001, 280}, {corax_rad(60), corax_rad(225)}, 23.5, 4, 0},
-        {{1030, 1999, 250}, {corax_rad(10), corax_rad(10)}, NAN, 100, -1}};
+        {{1010, 2001, 280}, {corax_rad(60), corax_rad(225)}, 23.5, 4, -1, 0},
+        {{1030, 1999, 250}, {corax_rad(10), corax_rad(10)}, NAN, 100, 0, -1}};
     corax_export_options o = corax_export_options_default();
     o.step = 10;
     o.disc_radius = 2.5;
@@ -107,6 +107,10 @@ static void test_vtk_discs_and_traces(void **state)
     assert_close(dip[1], 60, 0, 1e-6, "dip in degrees");
     double *dd = numbers_after(text, "dip_direction 1 3 double", 3);
     assert_close(dd[1], 225, 0, 1e-6, "dip direction in degrees");
+    double *polarity = numbers_after(text, "polarity 1 3 int", 3);
+    assert_close(polarity[0], 0, 0, 0, "a trace has no polarity");
+    assert_close(polarity[1], -1, 0, 0, "overturned");
+    free(polarity);
     double *hole = numbers_after(text, "hole 1 3 int", 3);
     assert_close(hole[0], 1, 0, 0, "trace of the first hole");
     assert_close(hole[1], 1, 0, 0, "structure in the first hole");
@@ -130,7 +134,7 @@ static void test_vtk_points_with_normals(void **state)
 {
     (void)state;
     corax_program *prog = one_hole();
-    corax_export_structure s = {{1010, 2001, 280}, {corax_rad(30), corax_rad(90)}, 5, 1, 0};
+    corax_export_structure s = {{1010, 2001, 280}, {corax_rad(30), corax_rad(90)}, 5, 1, 1, 0};
     corax_export_options o = corax_export_options_default();
     o.shape = CORAX_EXPORT_POINTS;
     o.step = 50;

@@ -10,6 +10,7 @@
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/section.h"
+#include "corax/section_drawing.h"
 #include "corax/status.h"
 #include "corax/structure.h"
 #include "corax/survey.h"

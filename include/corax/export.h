@@ -15,8 +15,9 @@
  *   CELL_DATA  kind (SCALARS int: the feature kind code of structure.h, -1
  *              for a hole trace), and a FIELD "attributes" of dip and
  *              dip_direction (degrees; -1 for a hole trace, which is not a
- *              plane) and hole (the hole's number, 1 for the first hole of
- *              the collar table; 0 when not known).
+ *              plane), polarity (int: 1 upright, -1 overturned, 0 not known
+ *              or a trace) and hole (the hole's number, 1 for the first
+ *              hole of the collar table; 0 when not known).
  * -1 marks "not a value" because legacy VTK cannot write NaN in ASCII. */
 #ifndef CORAX_EXPORT_H
 #define CORAX_EXPORT_H
@@ -52,6 +53,7 @@ typedef struct corax_export_structure {
     corax_plane plane;   /* radians */
     double depth;        /* metres down the hole; NaN when not known */
     int kind;            /* feature kind code (structure.h) */
+    int polarity;        /* 1 upright, -1 overturned, 0 not known */
     long hole;           /* index of its hole in the program, -1 when not known */
 } corax_export_structure;
 

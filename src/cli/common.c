@@ -70,6 +70,18 @@ void cli_finding(const corax_finding *f)
               f->message);
 }
 
+void cli_note(const cli_common *c, const char *fmt, ...)
+{
+    va_list ap;
+    if (c->quiet)
+        return;
+    fputs("corax: note: ", stderr);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
+
 int cli_usage(const char *command, const char *fmt, ...)
 {
     va_list ap;

@@ -14,6 +14,8 @@ typedef struct command {
 
 static const command commands[] = {
     {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
+    {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
+    {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},
 };
 
 enum { NCOMMANDS = sizeof commands / sizeof commands[0] };

@@ -185,31 +185,23 @@ static double value_dip_direction(const corax_export_structure *s)
     return s ? corax_wrap_degrees(corax_deg(s->plane.dip_direction), 6) : -1.0;
 }
 
-/* Cell data in cell order: vertices, lines, polygons. */
+static double value_polarity(const corax_export_structure *s) { return s ? s->polarity : 0.0; }
+static double value_hole(const corax_export_structure *s) { return (double)s->hole + 1.0; }
+
+/* Cell data in cell order: vertices, lines, polygons. A trace cell's value
+ * is fn(NULL), except for the hole array, where it is the trace's hole. */
 static void cell_values(corax_vtk *v, const traces *t, const corax_export_structure *s,
                         size_t n, const corax_export_options *o, cell_value_fn fn)
 {
     int points = o->shape == CORAX_EXPORT_POINTS;
-    for (size_t i = 0; points && i < n; i++)
-        corax_vtk_double(v, fn(&s[i]));
-    for (size_t i = 0; i < t->holes; i++)
-        corax_vtk_double(v, fn(NULL));
-    for (size_t i = 0; !points && i < n; i++)
-        corax_vtk_double(v, fn(&s[i]));
-}
-
-static void cell_holes(corax_vtk *v, const traces *t, const corax_export_structure *s, size_t n,
-                       const corax_export_options *o)
-{
-    int points = o->shape == CORAX_EXPORT_POINTS;
     size_t nh = t->program ? corax_program_size(t->program) : 0;
     for (size_t i = 0; points && i < n; i++)
-        corax_vtk_int(v, s[i].hole + 1);
+        corax_vtk_double(v, fn(&s[i]));
     for (size_t i = 0; i < nh; i++)
         if (t->count[i])
-            corax_vtk_int(v, (long)i + 1);
+            corax_vtk_double(v, fn == value_hole ? (double)i + 1.0 : fn(NULL));
     for (size_t i = 0; !points && i < n; i++)
-        corax_vtk_int(v, s[i].hole + 1);
+        corax_vtk_double(v, fn(&s[i]));
 }
 
 static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_structure *s,
@@ -246,13 +238,15 @@ static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_
     corax_vtk_cell_data(v, t->holes + n);
     corax_vtk_scalars(v, "kind", CORAX_VTK_INT);
     cell_values(v, t, s, n, o, value_kind);
-    corax_vtk_field(v, "attributes", 3);
+    corax_vtk_field(v, "attributes", 4);
     corax_vtk_array(v, "dip", 1, CORAX_VTK_DOUBLE);
     cell_values(v, t, s, n, o, value_dip);
     corax_vtk_array(v, "dip_direction", 1, CORAX_VTK_DOUBLE);
     cell_values(v, t, s, n, o, value_dip_direction);
+    corax_vtk_array(v, "polarity", 1, CORAX_VTK_INT);
+    cell_values(v, t, s, n, o, value_polarity);
     corax_vtk_array(v, "hole", 1, CORAX_VTK_INT);
-    cell_holes(v, t, s, n, o);
+    cell_values(v, t, s, n, o, value_hole);
     return CORAX_OK;
 }
 
