@@ -406,15 +406,48 @@ static void depth_ticks(corax_svg *svg, const layout *l, const hole *h, double e
     }
 }
 
-static void hole_name(corax_svg *svg, const layout *l, const hole *h)
+/* Where hole names went, so that holes from one collar or close together
+ * get their names stacked rather than printed over each other. */
+typedef struct placed {
+    double *xy;
+    size_t n;
+} placed;
+
+static double free_spot(placed *p, double x, double y)
+{
+    for (int moved = 1; moved;) {
+        moved = 0;
+        for (size_t i = 0; i < p->n; i++)
+            if (fabs(p->xy[2 * i] - x) < 40.0 && fabs(p->xy[2 * i + 1] - y) < 13.0) {
+                y = p->xy[2 * i + 1] - 13.0;
+                moved = 1;
+            }
+    }
+    p->xy[2 * p->n] = x;
+    p->xy[2 * p->n + 1] = y;
+    p->n++;
+    return y;
+}
+
+static void hole_name(corax_svg *svg, const layout *l, const hole *h, placed *p)
 {
     for (size_t k = 0; k < h->n; k++) {
         double x = px(l, h->s[k].at.along), y = py(l, h->s[k].at.elevation);
         if (inside_plot(l, x, y)) {
-            corax_svg_text(svg, x, y - 7, "hole-name", "middle", h->name);
+            corax_svg_text(svg, x, free_spot(p, x, y - 7), "hole-name", "middle", h->name);
             return;
         }
     }
+}
+
+static void hole_names(corax_svg *svg, const corax_section_drawing *d, const layout *l)
+{
+    placed p = {malloc(2 * (d->nhole ? d->nhole : 1) * sizeof(double)), 0};
+    if (!p.xy)
+        return; /* names are a help, not the content */
+    for (size_t i = 0; i < d->nhole; i++)
+        hole_name(svg, l, &d->hole[i], &p);
+    free(p.xy);
 }
 
 static void holes(corax_svg *svg, const corax_section_drawing *d, const layout *l)
@@ -540,8 +573,7 @@ corax_svg *corax_section_drawing_render(const corax_section_drawing *d, const ch
     holes(svg, d, &l);
     marks(svg, d, &l);
     corax_svg_end_group(svg);
-    for (size_t i = 0; i < d->nhole; i++)
-        hole_name(svg, &l, &d->hole[i]);
+    hole_names(svg, d, &l);
     if (d->nmark == 0)
         corax_svg_text(svg, l.left + l.w / 2, l.top + l.h / 2, "note", "middle",
                        "No structures lie in this slab");

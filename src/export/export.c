@@ -128,16 +128,21 @@ static void structure_points(corax_vtk *v, const corax_export_structure *s, size
                              const corax_export_options *o)
 {
     size_t k = corners(o);
+    double circle[2 * 360]; /* the corners on a circle of the disc's radius */
+    for (size_t j = 0; k > 1 && j < k; j++) {
+        double t = 2.0 * CORAX_PI * (double)j / (double)k;
+        circle[2 * j] = o->disc_radius * cos(t);
+        circle[2 * j + 1] = o->disc_radius * sin(t);
+    }
     for (size_t i = 0; i < n; i++) {
         if (k == 1) {
             corax_vtk_point(v, s[i].position);
             continue;
         }
-        corax_vec3 a, b;
+        corax_vec3 a, b; /* along strike and down dip: the disc's own axes */
         corax_plane_axes(s[i].plane, &a, &b);
         for (size_t j = 0; j < k; j++) {
-            double t = 2.0 * CORAX_PI * (double)j / (double)k;
-            double ca = o->disc_radius * cos(t), sb = o->disc_radius * sin(t);
+            double ca = circle[2 * j], sb = circle[2 * j + 1];
             corax_vec3 p = {s[i].position.x + ca * a.x + sb * b.x,
                             s[i].position.y + ca * a.y + sb * b.y,
                             s[i].position.z + ca * a.z + sb * b.z};
