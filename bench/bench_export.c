@@ -12,24 +12,10 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "bench.h"
 #include "corax/corax.h"
 
 enum { HOLES = 2000, STATIONS = 20, SPACING = 30, STRUCTURES = 1000000 };
-
-static double now(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
-
-static double uniform(uint64_t *s)
-{
-    uint64_t z = (*s += 0x9E3779B97F4A7C15u);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9u;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBu;
-    return (double)((z ^ (z >> 31)) >> 11) * 0x1.0p-53;
-}
 
 static corax_program *program(uint64_t *seed)
 {

@@ -9,24 +9,10 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "bench.h"
 #include "corax/corax.h"
 
 enum { HOLES = 10000, STATIONS = 30, SPACING = 30, QUERIES = 20000000 };
-
-static double now(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
-
-static double uniform(uint64_t *s)
-{
-    uint64_t z = (*s += 0x9E3779B97F4A7C15u);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9u;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBu;
-    return (double)((z ^ (z >> 31)) >> 11) * 0x1.0p-53;
-}
 
 static void write_tables(const char *cpath, const char *spath)
 {

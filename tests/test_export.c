@@ -9,21 +9,6 @@
 #include "corax/export.h"
 #include "support/check.h"
 
-static char *slurp(const char *path)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *buf = malloc((size_t)n + 1);
-    assert_non_null(buf);
-    assert_int_equal(fread(buf, 1, (size_t)n, f), (size_t)n);
-    buf[n] = '\0';
-    fclose(f);
-    return buf;
-}
-
 /* The numbers after a keyword line such as "POINTS 3 double". */
 static double *numbers_after(const char *text, const char *keyword, size_t count)
 {
@@ -75,7 +60,7 @@ static void test_vtk_discs_and_traces(void **state)
     assert_int_equal(n.trace_points, 11);
     assert_int_equal(n.points, 11 + 24);
     assert_int_equal(n.cells, 3);
-    char *text = slurp(path);
+    char *text = test_read_file(path, NULL);
     assert_non_null(strstr(text, "LINES 1 12\n11 0 1 2 3 4 5 6 7 8 9 10\n"));
     assert_non_null(strstr(text, "POLYGONS 2 26\n12 11 12 13"));
     double *p = numbers_after(text, "POINTS 35 double", 3 * 35);
@@ -140,7 +125,7 @@ static void test_vtk_points_with_normals(void **state)
     o.step = 50;
     const char *path = test_tmp_path("points.vtk");
     assert_int_equal(corax_export_vtk(path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
-    char *text = slurp(path);
+    char *text = test_read_file(path, NULL);
     assert_non_null(strstr(text, "VERTICES 1 2\n1 3\nLINES 1 4\n3 0 1 2\n"));
     double *nrm = numbers_after(text, "NORMALS normal double", 12);
     assert_close(nrm[0], 0, 0, 0, "traces have no normal");
@@ -159,7 +144,7 @@ static void test_vtk_points_with_normals(void **state)
     /* structures only, no program */
     o.traces = 0;
     assert_int_equal(corax_export_vtk(path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
-    text = slurp(path);
+    text = test_read_file(path, NULL);
     assert_non_null(strstr(text, "POINTS 1 double\n"));
     assert_null(strstr(text, "LINES"));
     free(text);
@@ -188,7 +173,7 @@ static void test_csv_fields(void **state)
     corax_export_csv_fields(w, &s);
     corax_writer_end_row(w);
     assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
-    char *text = slurp(path);
+    char *text = test_read_file(path, NULL);
     /* a vertical plane dipping (almost) north: normal horizontal, north */
     assert_string_equal(text, "10.123,20.000,-5.000,90.00,0.00,-0.000017,1.000000,0.000000,-1\n"
                               "10.123,20.000,-5.000,0.00,0.00,0.000000,0.000000,1.000000,\n");

@@ -124,17 +124,6 @@ static void test_kind_codes(void **state)
     corax_kinds_free(NULL);
 }
 
-static char *read_all(const char *path)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    static char buf[4096];
-    size_t n = fread(buf, 1, sizeof buf - 1, f);
-    buf[n] = '\0';
-    fclose(f);
-    return buf;
-}
-
 /* Two tables into one output: the union of their columns by name, in order
  * of first appearance, less the replaced and consumed ones; a table without
  * a column leaves it empty; unnamed columns are each kept. */
@@ -165,10 +154,12 @@ static void test_carry_union(void **state)
     corax_carry_row(c, 1, make_row(&r, 1, shortrow, 3), w);
     corax_writer_end_row(w);
     assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
-    assert_string_equal(read_all(path), "hole,sample,,geologist,\n"
-                                        "Q1,S1,u1,,\n"
-                                        "Q2,S2,,ann,u2\n"
-                                        ",S3,,,\n");
+    char *text = test_read_file(path, NULL);
+    assert_string_equal(text, "hole,sample,,geologist,\n"
+                              "Q1,S1,u1,,\n"
+                              "Q2,S2,,ann,u2\n"
+                              ",S3,,,\n");
+    free(text);
     remove(path);
     corax_carry_free(c);
 }

@@ -12,16 +12,6 @@
 #include "corax/vtk.h"
 #include "support/check.h"
 
-static size_t slurp(const char *path, char *buf, size_t cap)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    size_t n = fread(buf, 1, cap - 1, f);
-    buf[n] = '\0';
-    fclose(f);
-    return n;
-}
-
 /* A triangle and a line: two cells, three points, data on both. */
 static void write_small(corax_vtk *v)
 {
@@ -62,8 +52,7 @@ static void test_ascii_layout(void **state)
     corax_vtk_decimals(v, 3);
     write_small(v);
     assert_int_equal(corax_vtk_commit(v, NULL), CORAX_OK);
-    char buf[2048];
-    slurp(path, buf, sizeof buf);
+    char *buf = test_read_file(path, NULL);
     assert_string_equal(buf, "# vtk DataFile Version 3.0\n"
                              "two cells\n"
                              "ASCII\n"
@@ -87,6 +76,7 @@ static void test_ascii_layout(void **state)
                              "FIELD attributes 1\n"
                              "dip 1 2 double\n"
                              "-1.000 60.000\n");
+    free(buf);
     remove(path);
 }
 
@@ -126,8 +116,8 @@ static void test_binary_layout(void **state)
     assert_int_equal(corax_vtk_open(path, CORAX_VTK_BINARY, "bin", &v, NULL), CORAX_OK);
     write_small(v);
     assert_int_equal(corax_vtk_commit(v, NULL), CORAX_OK);
-    static char buf[4096];
-    size_t n = slurp(path, buf, sizeof buf);
+    size_t n;
+    char *buf = test_read_file(path, &n);
     const char *head = "# vtk DataFile Version 3.0\nbin\nBINARY\nDATASET POLYDATA\nPOINTS 3 double\n";
     assert_memory_equal(buf, head, strlen(head));
     const unsigned char *p = (const unsigned char *)buf + strlen(head);
@@ -148,6 +138,7 @@ static void test_binary_layout(void **state)
     assert_int_equal((int32_t)(uint32_t)be(kind, 4), -1);
     assert_int_equal(be(kind + 4, 4), 4);
     assert_int_equal(buf[n - 1], '\n');
+    free(buf);
     remove(path);
 }
 

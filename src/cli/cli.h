@@ -75,6 +75,12 @@ int cli_common_finish(cli_common *c, int need_program);
  * cannot be used. */
 corax_program *cli_load_program(cli_common *c);
 
+/* What a command does after cli_parse(): given what parsing returned, 1 to go
+ * on, with the drill program loaded into *prog when want_program (else NULL);
+ * 0 to stop, with *status the exit status (0 after --help, the usage error,
+ * or a data error when the program cannot be loaded) and c freed. */
+int cli_begin(cli_common *c, int parsed, int want_program, corax_program **prog, int *status);
+
 /* Messages on stderr: `corax: FILE:LINE: message` or `corax: message`. */
 void cli_error(const char *file, long line, const char *fmt, ...)
     __attribute__((format(printf, 3, 4)));

@@ -5,6 +5,7 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "common/grow.h"
 #include "io/carry.h"
 
 static const char export_help[] =
@@ -181,14 +182,10 @@ typedef struct located {
 
 static int push(located *v, const corax_export_structure *s)
 {
-    if (v->n == v->cap) {
-        size_t cap = v->cap ? 2 * v->cap : 1024;
-        corax_export_structure *p = realloc(v->item, cap * sizeof *p);
-        if (!p)
-            return 0;
-        v->item = p;
-        v->cap = cap;
-    }
+    corax_export_structure *p = corax_grow(v->item, v->n, &v->cap, sizeof *p, 1024);
+    if (!p)
+        return 0;
+    v->item = p;
     v->item[v->n++] = *s;
     return 1;
 }
@@ -351,15 +348,12 @@ int cmd_export(int argc, char **argv)
     o.vtk = corax_export_options_default();
     cli_common_init(&o.c, "export");
     int rc = parse(argc, argv, &o);
-    if (rc != 0) {
-        cli_common_free(&o.c);
-        return rc < 0 ? EXIT_OK : rc;
-    }
-    corax_program *prog = NULL;
-    if (o.format == FORMAT_VTK && o.c.collars && o.c.surveys && !(prog = cli_load_program(&o.c))) {
-        cli_common_free(&o.c);
-        return EXIT_DATA;
-    }
+    corax_program *prog;
+    /* csv takes positions from the tables; vtk wants the program for traces
+     * and hole numbers when it is given */
+    int want = o.format == FORMAT_VTK && o.c.collars && o.c.surveys;
+    if (!cli_begin(&o.c, rc, want, &prog, &rc))
+        return rc;
     rc = run(&o, prog);
     corax_program_free(prog);
     cli_common_free(&o.c);

@@ -395,16 +395,10 @@ int cmd_section(int argc, char **argv)
     memset(&o, 0, sizeof o);
     o.step = 5.0;
     cli_common_init(&o.c, "section");
-    int rc = parse(argc, argv, &o);
-    if (rc != 0) {
-        cli_common_free(&o.c);
-        return rc < 0 ? EXIT_OK : rc;
-    }
-    corax_program *prog = cli_load_program(&o.c);
-    if (!prog) {
-        cli_common_free(&o.c);
-        return EXIT_DATA;
-    }
+    int rc;
+    corax_program *prog;
+    if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))
+        return rc;
     rc = run(&o, prog);
     corax_program_free(prog);
     cli_common_free(&o.c);

@@ -217,16 +217,10 @@ int cmd_trace(int argc, char **argv)
     trace_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "trace");
-    int rc = parse(argc, argv, &o);
-    if (rc != 0) {
-        cli_common_free(&o.c);
-        return rc < 0 ? EXIT_OK : rc;
-    }
-    corax_program *prog = cli_load_program(&o.c);
-    if (!prog) {
-        cli_common_free(&o.c);
-        return EXIT_DATA;
-    }
+    int rc;
+    corax_program *prog;
+    if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))
+        return rc;
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);

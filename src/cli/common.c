@@ -235,6 +235,18 @@ corax_program *cli_load_program(cli_common *c)
     return prog;
 }
 
+int cli_begin(cli_common *c, int parsed, int want_program, corax_program **prog, int *status)
+{
+    *prog = NULL;
+    *status = parsed < 0 ? EXIT_OK : parsed;
+    if (parsed == 0 && (!want_program || (*prog = cli_load_program(c)) != NULL))
+        return 1;
+    if (parsed == 0)
+        *status = EXIT_DATA;
+    cli_common_free(c);
+    return 0;
+}
+
 /* ---- the side file ---- */
 
 struct cli_about {

@@ -7,6 +7,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "common/grow.h"
 #include "corax/geometry.h"
 #include "corax/section_drawing.h"
 
@@ -130,14 +131,10 @@ corax_status corax_section_drawing_structure(corax_section_drawing *d, corax_sec
                                              const corax_section_dip *dip, int code,
                                              const char *kind_name, const char *label)
 {
-    if (d->nmark == d->mark_cap) {
-        size_t cap = d->mark_cap ? 2 * d->mark_cap : 64;
-        mark *m = realloc(d->mark, cap * sizeof *m);
-        if (!m)
-            return CORAX_ENOMEM;
-        d->mark = m;
-        d->mark_cap = cap;
-    }
+    mark *grown = corax_grow(d->mark, d->nmark, &d->mark_cap, sizeof *grown, 64);
+    if (!grown)
+        return CORAX_ENOMEM;
+    d->mark = grown;
     kind *k = find_kind(d, code, kind_name);
     if (!k)
         return CORAX_ENOMEM;

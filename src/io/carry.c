@@ -4,6 +4,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "common/grow.h"
 #include "io/carry.h"
 
 typedef struct carry_table {
@@ -67,14 +68,10 @@ static long name_index(const corax_carry *c, const char *name)
 
 static int add_name(corax_carry *c, const char *name)
 {
-    if (c->nname == c->name_cap) {
-        size_t cap = c->name_cap ? 2 * c->name_cap : 16;
-        char **p = realloc(c->name, cap * sizeof *p);
-        if (!p)
-            return 0;
-        c->name = p;
-        c->name_cap = cap;
-    }
+    char **p = corax_grow(c->name, c->nname, &c->name_cap, sizeof *p, 16);
+    if (!p)
+        return 0;
+    c->name = p;
     if (!(c->name[c->nname] = strdup(name)))
         return 0;
     c->nname++;

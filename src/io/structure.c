@@ -7,6 +7,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "common/grow.h"
 #include "corax/structure.h"
 #include "io/fields.h"
 
@@ -61,14 +62,10 @@ int corax_kinds_code(corax_kinds *k, const char *text, size_t len)
     for (size_t i = 0; i < k->nother; i++)
         if (same_word(text, k->other[i], len))
             return CORAX_KIND_OTHER + (int)i;
-    if (k->nother == k->cap) {
-        size_t cap = k->cap ? 2 * k->cap : 8;
-        char **p = realloc(k->other, cap * sizeof *p);
-        if (!p)
-            return -1;
-        k->other = p;
-        k->cap = cap;
-    }
+    char **grown = corax_grow(k->other, k->nother, &k->cap, sizeof *grown, 8);
+    if (!grown)
+        return -1;
+    k->other = grown;
     char *name = malloc(len + 1);
     if (!name)
         return -1;

@@ -3,6 +3,7 @@
 #include <math.h>
 #include <stdlib.h>
 
+#include "common/grow.h"
 #include "corax/section.h"
 
 typedef struct tracer {
@@ -53,14 +54,10 @@ typedef struct samples {
 
 static int push(samples *v, corax_section_sample q)
 {
-    if (v->n == v->cap) {
-        size_t cap = v->cap ? 2 * v->cap : 64;
-        corax_section_sample *p = realloc(v->item, cap * sizeof *p);
-        if (!p)
-            return 0;
-        v->item = p;
-        v->cap = cap;
-    }
+    corax_section_sample *p = corax_grow(v->item, v->n, &v->cap, sizeof *p, 64);
+    if (!p)
+        return 0;
+    v->item = p;
     v->item[v->n++] = q;
     return 1;
 }
