@@ -281,12 +281,15 @@ static corax_svg *draw(const slab_run *r, size_t holes)
     const section_opts *o = r->o;
     char title[512], footer[512];
     int n = snprintf(title, sizeof title,
-                     "Cross-section toward %03.0f\xc2\xb0 through %g, %g\n"
+                     "Cross-section toward %03.0f\xc2\xb0 through %.10g, %.10g\n"
                      "Slab %g m wide (%g m each side of the line)",
                      corax_wrap_degrees(o->azimuth, 0), o->x, o->y, o->width, o->width / 2);
+    if (n > 0 && (size_t)n < sizeof title && o->has_from)
+        n += snprintf(title + n, sizeof title - (size_t)n, ", from %g m", o->from);
+    if (n > 0 && (size_t)n < sizeof title && o->has_to)
+        n += snprintf(title + n, sizeof title - (size_t)n, ", to %g m", o->to);
     if (n > 0 && (size_t)n < sizeof title && (o->has_from || o->has_to))
-        n += snprintf(title + n, sizeof title - (size_t)n, ", from %g to %g m along",
-                      o->has_from ? o->from : -HUGE_VAL, o->has_to ? o->to : HUGE_VAL);
+        n += snprintf(title + n, sizeof title - (size_t)n, " along");
     if (n > 0 && (size_t)n < sizeof title)
         snprintf(title + n, sizeof title - (size_t)n, "; %zu structure%s, %zu hole%s", r->kept,
                  r->kept == 1 ? "" : "s", holes, holes == 1 ? "" : "s");
@@ -301,9 +304,9 @@ static corax_svg *draw(const slab_run *r, size_t holes)
 static int write_about(const section_opts *o, const slab_run *r, size_t holes)
 {
     cli_about *a = cli_about_new("section", &o->c);
-    cli_about_set(a, "converted", "%s", o->input);
     cli_about_section(a, "section");
-    cli_about_set(a, "origin", "%g,%g", o->x, o->y);
+    cli_about_set(a, "converted", "%s", o->input);
+    cli_about_set(a, "origin", "%.10g,%.10g", o->x, o->y);
     cli_about_set(a, "azimuth", "%g (distance along grows this way)", o->azimuth);
     cli_about_set(a, "width", "%g (the slab reaches %g either side of the line)", o->width,
                   o->width / 2);

@@ -273,7 +273,7 @@ static size_t kind_index(const corax_section_drawing *d, int code)
 
 static void format_metres(char *buf, size_t cap, double v)
 {
-    snprintf(buf, cap, "%g", fabs(v) < 1e-9 ? 0.0 : v);
+    snprintf(buf, cap, "%.10g", fabs(v) < 1e-9 ? 0.0 : v); /* whole numbers, never 1e+06 */
 }
 
 static void axes(corax_svg *svg, const layout *l)
