@@ -35,8 +35,8 @@ static void columns(corax_structure_columns *c)
 {
     test_row t;
     const corax_row *h = make_row(&t, 10, header, 1);
-    long col[9];
-    for (int i = 0; i < 9; i++)
+    long col[CORAX_STRUCTURE_COLUMNS];
+    for (int i = 0; i < CORAX_STRUCTURE_COLUMNS; i++)
         col[i] = corax_column_find(h, corax_structure_column_names[i], NULL);
     corax_structure_columns_set(c, col);
     assert_int_equal(c->x, 3);
@@ -98,6 +98,54 @@ static void test_rows_read(void **state)
     }
 }
 
+/* The plane comes from the unit normal when the row gives it: dip and dip
+ * direction rounded to hundredths lose up to 0.005 degrees. derived: the
+ * normal of 49.35/289.39 written to 5 decimals, as the conversion does. */
+static void test_plane_from_the_normal(void **state)
+{
+    (void)state;
+    static const char *const h[] = {"x", "y", "z", "dip", "dip_direction", "nx", "ny", "nz"};
+    test_row t;
+    const corax_row *hr = make_row(&t, 8, h, 1);
+    long col[CORAX_STRUCTURE_COLUMNS];
+    for (int i = 0; i < CORAX_STRUCTURE_COLUMNS; i++)
+        col[i] = corax_column_find(hr, corax_structure_column_names[i], NULL);
+    corax_structure_columns c;
+    corax_structure_columns_set(&c, col);
+    corax_plane exact = {corax_rad(49.3512), corax_rad(289.3871)};
+    corax_vec3 n = corax_plane_normal(exact);
+    char nx[32], ny[32], nz[32], why[200];
+    snprintf(nx, sizeof nx, "%.5f", n.x);
+    snprintf(ny, sizeof ny, "%.5f", n.y);
+    snprintf(nz, sizeof nz, "%.5f", n.z);
+    const char *row[] = {"1", "2", "3", "49.35", "289.39", nx, ny, nz};
+    corax_structure s;
+    assert_int_equal(corax_structure_read(make_row(&t, 8, row, 2), &c, '.', &s, why, sizeof why),
+                     CORAX_OK);
+    assert_close(corax_deg(s.plane.dip), 49.3512, 0, 5e-4, "dip from the 5-decimal normal");
+    assert_close(corax_deg(s.plane.dip_direction), 289.3871, 0, 5e-4,
+                 "dip direction from the 5-decimal normal");
+    static const struct {
+        const char *f[3];
+        const char *phrase;
+    } bad[] = {
+        {{"0.1", "0.1", "0.1"}, "nx, ny, nz is not a unit vector"},
+        {{"", "0.1", "0.1"}, "nx, ny, nz: some given and some empty"},
+        {{"0", "0", "1"}, "nx, ny, nz lie 49.35 degrees from"},
+    };
+    for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++) {
+        const char *r2[] = {"1", "2", "3", "49.35", "289.39", bad[i].f[0], bad[i].f[1], bad[i].f[2]};
+        assert_int_equal(corax_structure_read(make_row(&t, 8, r2, 3), &c, '.', &s, why, sizeof why),
+                         CORAX_EVALUE);
+        if (strncmp(why, bad[i].phrase, strlen(bad[i].phrase)) != 0)
+            fail_msg("why: '%s', expected '%s'", why, bad[i].phrase);
+    }
+    const char *none[] = {"1", "2", "3", "49.35", "289.39", "", "", ""};
+    assert_int_equal(corax_structure_read(make_row(&t, 8, none, 4), &c, '.', &s, why, sizeof why),
+                     CORAX_OK);
+    assert_close(corax_deg(s.plane.dip), 49.35, 0, 1e-12, "no normal: dip as given");
+}
+
 static void test_kind_codes(void **state)
 {
     (void)state;
@@ -120,6 +168,10 @@ static void test_kind_codes(void **state)
     }
     const char *name;
     assert_int_equal(corax_kinds_at(k, 6, &name), -1);
+    assert_string_equal(corax_kinds_name(k, 101), "stylolite");
+    assert_string_equal(corax_kinds_name(k, 7), "joint");
+    assert_null(corax_kinds_name(k, 102));
+    assert_null(corax_kinds_name(k, 50));
     corax_kinds_free(k);
     corax_kinds_free(NULL);
 }
@@ -168,6 +220,7 @@ int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_rows_read),
+        cmocka_unit_test(test_plane_from_the_normal),
         cmocka_unit_test(test_kind_codes),
         cmocka_unit_test(test_carry_union),
     };

@@ -15,11 +15,13 @@ P="--collars surveys/collars.csv --surveys surveys/surveys.csv --declination 6.2
 # Hole traces for 3-D modelling packages (VTK polydata, ASCII and binary).
 "$CORAX" export --format vtk $P -o "$OUT/traces.vtk"
 "$CORAX" export --format vtk --binary $P -o "$OUT/traces-binary.vtk"
-# A cross-section along the 135-degree fence through the south-west holes, and
-# the structures for modelling, once the converted structures are there.
+# A cross-section along the 135-degree fence through the south-west holes (bedding
+# and faults, at 1:2500), and the structures for modelling, once the converted
+# structures are there.
 STRUCTURES="$OUT/structures.csv"
 if [ -f "$STRUCTURES" ]; then
-    "$CORAX" section $P --origin 10300,50200 --azimuth 135 --width 200 "$STRUCTURES" \
+    "$CORAX" section $P --origin 10300,50200 --azimuth 135 --width 200 \
+        --kinds bedding,fault --scale 2500 "$STRUCTURES" \
         -o "$OUT/section.csv" --svg "$OUT/section.svg"
     "$CORAX" export --format csv "$STRUCTURES" -o "$OUT/structures-model.csv"
     "$CORAX" export --format vtk $P "$STRUCTURES" -o "$OUT/structures.vtk"

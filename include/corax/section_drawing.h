@@ -36,6 +36,12 @@ corax_status corax_section_drawing_structure(corax_section_drawing *d, corax_sec
                                              const corax_section_dip *dip, int kind,
                                              const char *kind_name, const char *label);
 
+/* Draw at a scale of 1:ratio, taking the SVG pixel as 1/96 inch (its size in
+ * CSS and in print), rather than fitting the section to about 1000 by 620
+ * pixels. ratio 0 goes back to fitting. A picture at 1:1000 shows 100 m of
+ * section in about 378 pixels. */
+void corax_section_drawing_scale(corax_section_drawing *d, double ratio);
+
 /* Number of structures added. */
 size_t corax_section_drawing_count(const corax_section_drawing *d);
 

@@ -48,19 +48,23 @@ size_t corax_kinds_count(const corax_kinds *kinds);
  * for code 0). -1 when i is out of range. */
 int corax_kinds_at(const corax_kinds *kinds, size_t i, const char **name);
 
+/* The name of a registered kind code (as corax_kinds_at() gives it), or
+ * NULL for a code not given out. */
+const char *corax_kinds_name(const corax_kinds *kinds, int code);
+
 /* ---- rows of a converted table ---- */
 
 /* Where a converted table keeps what corax reads (-1 when absent). */
 typedef struct corax_structure_columns {
-    long x, y, z, dip, dip_direction; /* required */
-    long hole, depth, kind, polarity; /* optional */
+    long x, y, z, dip, dip_direction;         /* required */
+    long hole, depth, kind, polarity, nx, ny, nz; /* optional */
 } corax_structure_columns;
 
 /* The logical names of those columns, in the order of the struct's fields
- * (x, y, z, dip, dip_direction, hole, depth, kind, polarity), and how many
- * of them a converted table must have. */
-extern const char *const corax_structure_column_names[9];
-enum { CORAX_STRUCTURE_REQUIRED = 5 };
+ * (x, y, z, dip, dip_direction, hole, depth, kind, polarity, nx, ny, nz),
+ * how many there are, and how many of them a converted table must have. */
+enum { CORAX_STRUCTURE_COLUMNS = 12, CORAX_STRUCTURE_REQUIRED = 5 };
+extern const char *const corax_structure_column_names[CORAX_STRUCTURE_COLUMNS];
 
 /* Fill the struct from the column indices found for
  * corax_structure_column_names, in that order. */
@@ -83,10 +87,14 @@ typedef struct corax_structure {
 
 /* Read one row. An empty cell means "not known": a row the conversion could
  * not orient (empty dip and dip direction) reads as not oriented, one it
- * could not place as not located. CORAX_EVALUE, with a phrase in why, for a
- * value given but unusable: not a number, a dip outside [0, 90], a dip
- * direction outside [0, 360], half a position or orientation, a polarity
- * other than 1, +1, upright, -1, overturned, 0 or unknown (any case). */
+ * could not place as not located. When the row also gives the unit normal
+ * (nx, ny, nz), the plane is taken from it, as it keeps more digits than
+ * dip and dip direction rounded to hundredths; the two must agree within
+ * 0.05 degrees. CORAX_EVALUE, with a phrase in why, for a value given but
+ * unusable: not a number, a dip outside [0, 90], a dip direction outside
+ * [0, 360], half a position, orientation or normal, a normal that is not a
+ * unit vector or disagrees with the dip, a polarity other than 1, +1,
+ * upright, -1, overturned, 0 or unknown (any case). */
 corax_status corax_structure_read(const corax_row *row, const corax_structure_columns *c,
                                   char decimal, corax_structure *s, char *why, size_t whylen);
 

@@ -34,19 +34,34 @@ static const char section_help[] =
     "  --svg FILE            the section drawn to scale: holes (solid in the slab,\n"
     "                        dashed outside) with depth ticks, structures as ticks at\n"
     "                        their apparent dips coloured by kind\n"
+    "  --scale N             draw at 1:N (pixels of 1/96 inch, as SVG prints), rather\n"
+    "                        than fitting the section to the page\n"
+    "  --kinds LIST          only these feature kinds, e.g. bedding,fault (names match\n"
+    "                        without case; the table and the drawing both)\n"
     "  --step METRES         sample hole paths every METRES, plus stations (default 5)\n"
     "Holes that never reach the slab are left out and listed on standard error.\n"
     "\n";
 
 typedef struct section_opts {
     cli_common c;
-    double x, y, azimuth, width, from, to, step;
+    double x, y, azimuth, width, from, to, step, scale;
     int has_origin, has_azimuth, has_width, has_from, has_to;
     const char *svg;
+    const char *kinds; /* --kinds, as given */
     const char *input;
 } section_opts;
 
-enum { OPT_ORIGIN = OPT_COMMAND_BASE, OPT_AZIMUTH, OPT_WIDTH, OPT_FROM, OPT_TO, OPT_SVG, OPT_STEP };
+enum {
+    OPT_ORIGIN = OPT_COMMAND_BASE,
+    OPT_AZIMUTH,
+    OPT_WIDTH,
+    OPT_FROM,
+    OPT_TO,
+    OPT_SVG,
+    OPT_STEP,
+    OPT_KINDS,
+    OPT_SCALE
+};
 
 /* Our own columns, in order. */
 static const char *const added[] = {"distance_along", "offset", "elevation", "apparent_dip",
@@ -86,6 +101,13 @@ static int section_option(void *ctx, int opt, const char *arg)
         o->has_to = 1;
         return cli_number("section", "--to", arg, -1e9, 1e9, &o->to) ? EXIT_USAGE : 0;
     case OPT_SVG: o->svg = arg; return 0;
+    case OPT_SCALE:
+        return cli_number("section", "--scale", arg, 1, 1e7, &o->scale) ? EXIT_USAGE : 0;
+    case OPT_KINDS:
+        o->kinds = arg;
+        return strspn(arg, ", \t") == strlen(arg)
+                   ? cli_usage("section", "--kinds: no kind named in '%s'", arg)
+                   : 0;
     case OPT_STEP:
         return cli_number("section", "--step", arg, 1e-3, 1e5, &o->step) ? EXIT_USAGE : 0;
     }
@@ -103,6 +125,8 @@ static int parse(int argc, char **argv, section_opts *o)
         {"to", required_argument, NULL, OPT_TO},
         {"svg", required_argument, NULL, OPT_SVG},
         {"step", required_argument, NULL, OPT_STEP},
+        {"kinds", required_argument, NULL, OPT_KINDS},
+        {"scale", required_argument, NULL, OPT_SCALE},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, section_help, 1, section_option, o);
@@ -131,8 +155,37 @@ typedef struct slab_run {
     corax_carry *carry;
     corax_section_drawing *drawing;
     corax_kinds *kinds;
-    size_t kept, unlocated, outside;
+    int *only; /* with --kinds: the codes kept */
+    size_t nonly;
+    size_t kept, unlocated, outside, other_kinds;
 } slab_run;
+
+/* Register the kinds of --kinds and keep their codes: 0, or -1 when out of
+ * memory. */
+static int only_kinds(slab_run *r, const char *list)
+{
+    r->only = malloc((strlen(list) / 2 + 1) * sizeof *r->only); /* a kind and a comma each */
+    if (!r->only)
+        return -1;
+    for (const char *p = list; *p;) {
+        size_t n = strcspn(p, ",");
+        int code = corax_kinds_code(r->kinds, p, n);
+        if (code < 0)
+            return -1;
+        if (strspn(p, " \t") < n) /* blank entries name nothing */
+            r->only[r->nonly++] = code;
+        p += n + (p[n] == ',');
+    }
+    return 0;
+}
+
+static int wanted(const slab_run *r, int code)
+{
+    for (size_t i = 0; i < r->nonly; i++)
+        if (r->only[i] == code)
+            return 1;
+    return r->only == NULL;
+}
 
 static void tooltip(char *buf, size_t cap, const corax_structure *s, const corax_section_dip *d)
 {
@@ -162,6 +215,15 @@ static int keep(slab_run *r, const corax_row *row, const corax_structure *s)
         r->outside++;
         return 0;
     }
+    int code = corax_kinds_code(r->kinds, s->kind, s->kind_len);
+    if (code < 0) {
+        cli_error(NULL, 0, "out of memory");
+        return -1;
+    }
+    if (!wanted(r, code)) {
+        r->other_kinds++;
+        return 0;
+    }
     corax_section_dip d = {0};
     if (s->oriented)
         d = corax_section_plane(&r->section, s->plane);
@@ -175,15 +237,10 @@ static int keep(slab_run *r, const corax_row *row, const corax_structure *s)
     r->kept++;
     if (!r->drawing)
         return 0;
-    int code = corax_kinds_code(r->kinds, s->kind, s->kind_len);
-    const char *name = "";
-    for (size_t i = 0; code >= 0 && i < corax_kinds_count(r->kinds); i++)
-        if (corax_kinds_at(r->kinds, i, &name) == code)
-            break;
     char label[200];
     tooltip(label, sizeof label, s, s->oriented ? &d : NULL);
-    if (code < 0 || corax_section_drawing_structure(r->drawing, p, s->oriented ? &d : NULL, code,
-                                                    name, label) != CORAX_OK) {
+    if (corax_section_drawing_structure(r->drawing, p, s->oriented ? &d : NULL, code,
+                                        corax_kinds_name(r->kinds, code), label) != CORAX_OK) {
         cli_error(NULL, 0, "out of memory");
         return -1;
     }
@@ -319,9 +376,15 @@ static int write_about(const section_opts *o, const slab_run *r, size_t holes)
     cli_about_set(a, "trace_step", "%g", o->step);
     if (o->svg)
         cli_about_set(a, "drawing", "%s", o->svg);
+    if (o->kinds)
+        cli_about_set(a, "kinds", "%s (only these)", o->kinds);
+    if (o->scale > 0.0)
+        cli_about_set(a, "scale", "1:%g at 96 pixels to the inch", o->scale);
     cli_about_section(a, "results");
     cli_about_set(a, "structures_in_slab", "%zu", r->kept);
     cli_about_set(a, "structures_outside", "%zu", r->outside);
+    if (o->kinds)
+        cli_about_set(a, "structures_of_other_kinds", "%zu", r->other_kinds);
     cli_about_set(a, "structures_without_position", "%zu", r->unlocated);
     cli_about_set(a, "holes_drawn", "%zu", holes);
     return cli_about_commit(a, &o->c) ? EXIT_DATA : EXIT_OK;
@@ -346,7 +409,7 @@ static int finish(slab_run *r, corax_svg *svg)
 static int run(const section_opts *o, const corax_program *prog)
 {
     slab_run r = {o, corax_section_make(o->x, o->y, corax_rad(o->azimuth), o->width),
-                  NULL, NULL, NULL, NULL, 0, 0, 0};
+                  NULL, NULL, NULL, NULL, NULL, 0, 0, 0, 0, 0};
     if (o->has_from)
         r.section.from = o->from;
     if (o->has_to)
@@ -364,7 +427,10 @@ static int run(const section_opts *o, const corax_program *prog)
     r.carry = corax_carry_new(added, NADDED);
     r.kinds = corax_kinds_new();
     r.drawing = o->svg ? corax_section_drawing_new(&r.section, o->step) : NULL;
-    if (!r.carry || !r.kinds || (o->svg && !r.drawing)) {
+    if (r.drawing)
+        corax_section_drawing_scale(r.drawing, o->scale);
+    if (!r.carry || !r.kinds || (o->svg && !r.drawing) ||
+        (o->kinds && only_kinds(&r, o->kinds) != 0)) {
         cli_error(NULL, 0, "out of memory");
         goto done;
     }
@@ -389,6 +455,7 @@ done:
     corax_section_drawing_free(r.drawing);
     corax_kinds_free(r.kinds);
     corax_carry_free(r.carry);
+    free(r.only);
     return rc;
 }
 

@@ -9,14 +9,14 @@ enum { MAX_SHOWN = 50 }; /* problems printed before the rest are only counted */
 
 int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
 {
-    long col[9];
+    long col[CORAX_STRUCTURE_COLUMNS];
     corax_error err;
     memset(t, 0, sizeof *t);
     t->path = path;
     corax_error_clear(&err);
     corax_status st = corax_reader_open(path, c->load.format, &t->reader, &err);
     if (st == CORAX_OK)
-        st = corax_table_header(t->reader, corax_structure_column_names, 9,
+        st = corax_table_header(t->reader, corax_structure_column_names, CORAX_STRUCTURE_COLUMNS,
                                 CORAX_STRUCTURE_REQUIRED, c->columns, col, &t->width, &t->header,
                                 &err);
     if (st != CORAX_OK) {

@@ -48,6 +48,7 @@ typedef struct kind {
 struct corax_section_drawing {
     corax_section section;
     double step;
+    double ratio; /* 1:ratio at 96 pixels to the inch; 0: fit the page */
     hole *hole;
     size_t nhole;
     mark *mark;
@@ -150,11 +151,17 @@ corax_status corax_section_drawing_structure(corax_section_drawing *d, corax_sec
 
 size_t corax_section_drawing_count(const corax_section_drawing *d) { return d->nmark; }
 
+void corax_section_drawing_scale(corax_section_drawing *d, double ratio)
+{
+    d->ratio = ratio > 0.0 ? ratio : 0.0;
+}
+
 /* ---- layout ---- */
 
 enum { MARGIN_LEFT = 86, MARGIN_TOP = 78, MARGIN_RIGHT = 230, MARGIN_BOTTOM = 128 };
 static const double max_plot_w = 1000.0, max_plot_h = 620.0;
 static const double tick_half = 11.0; /* half the length of a structure's tick, px */
+static const double inch = 0.0254;    /* metres; an SVG pixel is 1/96 inch */
 
 typedef struct layout {
     double a0, a1, e0, e1; /* shown distances along and elevations, metres */
@@ -212,7 +219,8 @@ static layout lay_out(const corax_section_drawing *d)
     l.a1 = isfinite(s->to) ? s->to : a1 + pad;
     l.e0 = e0 - pad;
     l.e1 = e1 + pad;
-    l.mpp = fmax((l.a1 - l.a0) / max_plot_w, (l.e1 - l.e0) / max_plot_h);
+    l.mpp = d->ratio > 0.0 ? d->ratio * inch / 96.0
+                           : fmax((l.a1 - l.a0) / max_plot_w, (l.e1 - l.e0) / max_plot_h);
     l.left = MARGIN_LEFT;
     l.top = MARGIN_TOP;
     l.w = (l.a1 - l.a0) / l.mpp;
@@ -319,7 +327,7 @@ static void ends(corax_svg *svg, const layout *l, const corax_section *s)
 }
 
 /* A scale bar of about a fifth of the plot, in four blocks. */
-static void scale_bar(corax_svg *svg, const layout *l)
+static void scale_bar(corax_svg *svg, const layout *l, double ratio)
 {
     double len = nice_at_least(fmin(l->w, 400.0) / 5.0 * l->mpp);
     double w = len / l->mpp, x = l->left, y = l->top + l->h + 56;
@@ -332,8 +340,12 @@ static void scale_bar(corax_svg *svg, const layout *l)
     corax_svg_text(svg, x + w / 2, y + 19, "label", "middle", t);
     snprintf(t, sizeof t, "%g m", len);
     corax_svg_text(svg, x + w, y + 19, "label", "middle", t);
-    corax_svg_text(svg, x + w + 22, y + 7, "label", "start",
-                   "same scale across and down: no vertical exaggeration");
+    if (ratio > 0.0)
+        snprintf(t, sizeof t, "scale 1:%.0f at 96 pixels to the inch; no vertical exaggeration",
+                 ratio);
+    else
+        snprintf(t, sizeof t, "same scale across and down: no vertical exaggeration");
+    corax_svg_text(svg, x + w + 22, y + 7, "label", "start", t);
     corax_svg_end_group(svg);
 }
 
@@ -549,12 +561,43 @@ static void title_lines(corax_svg *svg, const layout *l, const char *title)
     corax_svg_text(svg, l->left, 43, "subtitle", "start", nl + 1);
 }
 
+/* The footer and the caution, broken into lines that fit the page (at about
+ * 5.8 pixels a character): at most 6 lines of up to 255 bytes. */
+enum { FOOTER_LINES = 6 };
+typedef char footer_lines[FOOTER_LINES][256];
+
+static int wrap(footer_lines out, int n, const char *text, double width)
+{
+    size_t fit = (size_t)fmax(width / 5.8, 40.0);
+    if (fit > 250)
+        fit = 250;
+    while (*text && n < FOOTER_LINES) {
+        size_t len = strlen(text), cut = len;
+        if (len > fit) { /* break at the last blank that fits */
+            cut = fit;
+            while (cut > fit / 2 && text[cut] != ' ')
+                cut--;
+        }
+        snprintf(out[n++], sizeof out[0], "%.*s", (int)cut, text);
+        text += cut;
+        while (*text == ' ')
+            text++;
+    }
+    return n;
+}
+
+static const char caution[] =
+    "Results must be reviewed by a competent person; local codes and licensed practice prevail.";
+
 corax_svg *corax_section_drawing_render(const corax_section_drawing *d, const char *title,
                                         const char *footer)
 {
     layout l = lay_out(d);
     double width = fmax(l.left + l.w + MARGIN_RIGHT, 820.0);
-    double height = l.top + l.h + MARGIN_BOTTOM;
+    footer_lines lines;
+    int nlines = wrap(lines, footer ? wrap(lines, 0, footer, width - l.left - 20) : 0, caution,
+                      width - l.left - 20);
+    double height = l.top + l.h + MARGIN_BOTTOM + 15.0 * (nlines - 2);
     corax_svg *svg = corax_svg_new(width, height);
     if (!svg)
         return NULL;
@@ -575,12 +618,8 @@ corax_svg *corax_section_drawing_render(const corax_section_drawing *d, const ch
         corax_svg_text(svg, l.left + l.w / 2, l.top + l.h / 2, "note", "middle",
                        "No structures lie in this slab");
     legend(svg, d, &l, depth_interval(d, &l));
-    scale_bar(svg, &l);
-    double y = height - 30;
-    if (footer)
-        corax_svg_text(svg, l.left, y, "footer", "start", footer);
-    corax_svg_text(svg, l.left, y + 15, "footer", "start",
-                   "Results must be reviewed by a competent person; local codes and licensed "
-                   "practice prevail.");
+    scale_bar(svg, &l, d->ratio);
+    for (int i = 0; i < nlines; i++)
+        corax_svg_text(svg, l.left, height - 15.0 * (nlines - i), "footer", "start", lines[i]);
     return svg;
 }

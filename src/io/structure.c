@@ -96,10 +96,20 @@ int corax_kinds_at(const corax_kinds *k, size_t i, const char **name)
     return CORAX_KIND_OTHER + (int)i;
 }
 
+const char *corax_kinds_name(const corax_kinds *k, int code)
+{
+    if (code >= 0 && code < NCOMMON)
+        return code == CORAX_KIND_NONE ? "none" : common_kind[code];
+    if (code >= CORAX_KIND_OTHER && (size_t)(code - CORAX_KIND_OTHER) < k->nother)
+        return k->other[code - CORAX_KIND_OTHER];
+    return NULL;
+}
+
 /* ---- rows of a converted table ---- */
 
-const char *const corax_structure_column_names[9] = {
-    "x", "y", "z", "dip", "dip_direction", "hole", "depth", "kind", "polarity"};
+const char *const corax_structure_column_names[CORAX_STRUCTURE_COLUMNS] = {
+    "x",    "y",     "z",    "dip",      "dip_direction", "hole",
+    "depth", "kind", "polarity", "nx", "ny",            "nz"};
 
 void corax_structure_columns_set(corax_structure_columns *c, const long *col)
 {
@@ -112,6 +122,9 @@ void corax_structure_columns_set(corax_structure_columns *c, const long *col)
     c->depth = col[6];
     c->kind = col[7];
     c->polarity = col[8];
+    c->nx = col[9];
+    c->ny = col[10];
+    c->nz = col[11];
 }
 
 /* Read n numbers, all given or all empty: 1 given, 0 empty, -1 unusable
@@ -131,10 +144,46 @@ static int read_group(const corax_row *row, const long *col, const char *const *
             return -1;
     }
     if (given && empty) {
-        snprintf(why, whylen, "%s: some given and some empty", n == 3 ? "x, y, z" : "dip and dip_direction");
+        if (n == 3)
+            snprintf(why, whylen, "%s, %s, %s: some given and some empty", name[0], name[1],
+                     name[2]);
+        else
+            snprintf(why, whylen, "%s and %s: some given and some empty", name[0], name[1]);
         return -1;
     }
     return given > 0;
+}
+
+/* Refine a plane read from dip and dip direction with the row's unit normal,
+ * when it has one: 1 ok (plane refined or left), 0 unusable (why says). */
+static int plane_from_normal(const corax_row *row, const corax_structure_columns *c,
+                             char decimal, corax_plane *plane, char *why, size_t whylen)
+{
+    static const char *const name[] = {"nx", "ny", "nz"};
+    long col[3] = {c->nx, c->ny, c->nz};
+    double n[3];
+    int given = read_group(row, col, name, 3, decimal, n, why, whylen);
+    if (given <= 0)
+        return given == 0;
+    corax_vec3 v = {n[0], n[1], n[2]}, from_dip = corax_plane_normal(*plane);
+    double len = sqrt(v.x * v.x + v.y * v.y + v.z * v.z);
+    if (fabs(len - 1.0) > 1e-3) {
+        snprintf(why, whylen, "nx, ny, nz is not a unit vector (length %.6g)", len);
+        return 0;
+    }
+    corax_plane refined = corax_plane_from_normal(v, &v);
+    /* the angle between the two normals, stable at small angles */
+    double cx = v.y * from_dip.z - v.z * from_dip.y, cy = v.z * from_dip.x - v.x * from_dip.z,
+           cz = v.x * from_dip.y - v.y * from_dip.x;
+    double gap = corax_deg(atan2(sqrt(cx * cx + cy * cy + cz * cz),
+                                 v.x * from_dip.x + v.y * from_dip.y + v.z * from_dip.z));
+    if (gap > 0.05) {
+        snprintf(why, whylen, "nx, ny, nz lie %.2f degrees from the normal of dip and "
+                 "dip_direction", gap);
+        return 0;
+    }
+    *plane = refined;
+    return 1;
 }
 
 static int read_polarity(const char *t, size_t n, int *polarity)
@@ -195,8 +244,11 @@ corax_status corax_structure_read(const corax_row *row, const corax_structure_co
     s->located = located;
     s->position = (corax_vec3){p[0], p[1], p[2]};
     s->oriented = oriented;
-    if (oriented)
+    if (oriented) {
         s->plane = (corax_plane){corax_rad(d[0]), corax_wrap_azimuth(corax_rad(d[1]))};
+        if (!plane_from_normal(row, c, decimal, &s->plane, why, whylen))
+            return CORAX_EVALUE;
+    }
     size_t n;
     const char *t = corax_field_text(row, c->polarity, &n);
     if (!read_polarity(t, n, &s->polarity)) {

@@ -92,8 +92,15 @@ def check_cells(pd, name, trace_first):
     for c in tr:
         check(kind[c] == -1 and dip[c] == -1 and dd[c] == -1, f"{name}: trace cell {c} marked as no plane")
     for c, r in zip(st, structures):
-        check(abs(dip[c] - float(r["dip"])) < 1e-6, f"{name}: dip of cell {c}")
-        check(abs(dd[c] - float(r["dip_direction"])) < 1e-6, f"{name}: dip direction of cell {c}")
+        # the plane comes from the table's unit normal (more digits than dip and
+        # dip direction rounded to hundredths), so it agrees with both
+        nx, ny, nz = (float(r[k]) for k in ("nx", "ny", "nz"))
+        want_dip = math.degrees(math.atan2(math.hypot(nx, ny), nz))
+        want_dd = math.degrees(math.atan2(nx, ny)) % 360
+        check(abs(dip[c] - want_dip) < 1e-6, f"{name}: dip of cell {c} from the normal")
+        check(abs((dd[c] - want_dd + 180) % 360 - 180) < 1e-6, f"{name}: dip direction of cell {c} from the normal")
+        check(abs(dip[c] - float(r["dip"])) < 0.006, f"{name}: dip of cell {c}")
+        check(abs((dd[c] - float(r["dip_direction"]) + 180) % 360 - 180) < 0.006, f"{name}: dip direction of cell {c}")
         check(kind[c] == kinds.get(r["kind"].lower(), 100), f"{name}: kind of cell {c}")
         want_hole = holes.index(r["hole"]) + 1 if r["hole"] in holes else 0
         check(hole[c] == want_hole, f"{name}: hole of cell {c}: {hole[c]} want {want_hole}")
