@@ -52,6 +52,22 @@ print(f"drawn plunge {angle:.3f}")
 sys.exit(0 if abs(angle - 60) < 0.05 else 1)
 EOF
 
+# --scale 1000: one metre of ground is 96 / (1000 x 0.0254) pixels, an SVG
+# pixel being 1/96 inch (CSS absolute lengths, W3C CSS 2.1: common practice);
+# the scale bar's length in pixels says so
+"$CORAX" section $D $S --scale 1000 data/converted.csv -o "$T/k.csv" --svg "$T/k.svg" 2>/dev/null
+/usr/bin/python3 - "$T/k.svg" <<'EOF' || fail "the scale bar does not measure 1:1000"
+import re, sys
+doc = open(sys.argv[1]).read()
+bar = doc[doc.index('<g class="scale-bar">'):]
+bar = bar[:bar.index("</g>")]
+widths = [float(w) for w in re.findall(r'<rect [^>]*width="([\d.]+)"', bar)]
+metres = float(re.findall(r">([\d.]+) m</text>", bar)[0])
+want = metres * 96 / (1000 * 0.0254)
+print(f"bar {sum(widths):.2f} px for {metres} m, want {want:.2f}")
+sys.exit(0 if len(widths) == 4 and abs(sum(widths) - want) < 0.05 and "1:1000" in bar else 1)
+EOF
+
 # a failed run leaves earlier files alone and no temporary files
 cp "$T/s.csv" "$T/keep.csv"
 cp "$T/s.svg" "$T/keep.svg"
