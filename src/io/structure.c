@@ -108,8 +108,7 @@ const char *corax_kinds_name(const corax_kinds *k, int code)
 /* ---- rows of a converted table ---- */
 
 const char *const corax_structure_column_names[CORAX_STRUCTURE_COLUMNS] = {
-    "x",    "y",     "z",    "dip",      "dip_direction", "hole",
-    "depth", "kind", "polarity", "nx", "ny",            "nz"};
+    "x", "y", "z", "dip", "dip_direction", "hole", "depth", "kind", "polarity", "nx", "ny", "nz"};
 
 void corax_structure_columns_set(corax_structure_columns *c, const long *col)
 {
