@@ -1,6 +1,10 @@
 /* Tests of the draw module's SVG writer: valid markup, escaping, numbers. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
+#include "corax/section_drawing.h"
 #include "corax/svg.h"
 #include "support/check.h"
 
@@ -40,10 +44,78 @@ static void test_svg_document(void **state)
     corax_svg_free(s);
 }
 
+/* The line drawn for the first structure: its end points in pixels. */
+static void first_tick(const char *doc, double *x1, double *y1, double *x2, double *y2)
+{
+    const char *g = strstr(doc, "<g class=\"structures\">");
+    assert_non_null(g);
+    const char *line = strstr(g, "<line ");
+    assert_non_null(line);
+    assert_int_equal(sscanf(line, "<line x1=\"%lf\" y1=\"%lf\" x2=\"%lf\" y2=\"%lf\"", x1, y1,
+                            x2, y2), 4);
+}
+
+/* J. B. Jukes (1859), The South Staffordshire Coalfield, appendix: beds
+ * dipping north at 35 degrees seen in a NE-SW section show 26 deg 15 min
+ * (the formula: 26.34). The tick drawn for them has that slope on the page,
+ * because the drawing keeps one scale across and down, and falls toward the
+ * NE (right-hand) end. */
+static void test_section_tick_at_the_apparent_dip(void **state)
+{
+    (void)state;
+    corax_section s = corax_section_make(0, 0, corax_rad(45), 20);
+    corax_section_drawing *d = corax_section_drawing_new(&s, 5);
+    assert_non_null(d);
+    corax_section_sample t[3] = {{0, {-100, 0, 500}, 1}, {100, {0, 0, 400}, 1},
+                                 {200, {100, 0, 300}, 1}};
+    assert_int_equal(corax_section_drawing_hole(d, "H<1>", t, 3), CORAX_OK);
+    corax_section_dip dip = corax_section_plane(&s, (corax_plane){corax_rad(35), 0});
+    corax_section_point at = {10, 2, 420};
+    assert_int_equal(corax_section_drawing_structure(d, at, &dip, 1, "bedding", "H1 12 m"),
+                     CORAX_OK);
+    assert_int_equal(corax_section_drawing_structure(d, at, NULL, 4, "vein", NULL), CORAX_OK);
+    assert_int_equal(corax_section_drawing_count(d), 2);
+    corax_svg *svg = corax_section_drawing_render(d, "Title\nsubtitle", "footer & more");
+    assert_non_null(svg);
+    const char *doc = corax_svg_finish(svg, NULL);
+    double x1, y1, x2, y2;
+    first_tick(doc, &x1, &y1, &x2, &y2);
+    double slope = corax_deg(atan2(fabs(y2 - y1), fabs(x2 - x1)));
+    assert_close(slope, 26.0 + 15.0 / 60.0, 0, 0.1, "tick slope on the page, Jukes (1859)");
+    assert_true((x2 - x1) * (y2 - y1) > 0); /* down to the right: toward the NE end */
+    assert_non_null(strstr(doc, ">225\xc2\xb0</text>"));
+    assert_non_null(strstr(doc, ">045\xc2\xb0</text>"));
+    assert_non_null(strstr(doc, ">H&lt;1&gt;</text>"));
+    assert_non_null(strstr(doc, ">bedding (1)</text>"));
+    assert_non_null(strstr(doc, ">vein (1)</text>"));
+    assert_non_null(strstr(doc, ">no orientation</text>"));
+    assert_non_null(strstr(doc, ">footer &amp; more</text>"));
+    assert_null(strstr(doc, "No structures"));
+    corax_svg_free(svg);
+    corax_section_drawing_free(d);
+}
+
+/* An empty slab is drawn with a note; nothing at all still makes a frame. */
+static void test_section_without_structures(void **state)
+{
+    (void)state;
+    corax_section s = corax_section_make(0, 0, 0, 20);
+    corax_section_drawing *d = corax_section_drawing_new(&s, 5);
+    corax_svg *svg = corax_section_drawing_render(d, "Empty", NULL);
+    const char *doc = corax_svg_finish(svg, NULL);
+    assert_non_null(strstr(doc, "No structures lie in this slab"));
+    assert_non_null(strstr(doc, "competent person"));
+    corax_svg_free(svg);
+    corax_section_drawing_free(d);
+    corax_section_drawing_free(NULL);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_svg_document),
+        cmocka_unit_test(test_section_tick_at_the_apparent_dip),
+        cmocka_unit_test(test_section_without_structures),
     };
     return cmocka_run_group_tests_name("draw", tests, NULL, NULL);
 }

@@ -3,6 +3,7 @@
 
 #include "corax/geometry.h"
 #include "geometry/vec.h"
+#include "corax/section.h"
 #include "support/check.h"
 
 static void test_wrapping(void **state)
@@ -74,6 +75,33 @@ static void test_plane_from_normal(void **state)
     assert_close(flat.dip_direction, 0, 0, 0, "horizontal plane has dip direction 0");
 }
 
+/* Common practice: strike is 90 degrees anticlockwise of the dip direction
+ * (right-hand rule) and horizontal; the dip line plunges at the dip toward
+ * the dip direction; both lie in the plane. */
+static void test_plane_axes(void **state)
+{
+    (void)state;
+    uint64_t seed = 17;
+    for (int i = 0; i < 10000; i++) {
+        corax_plane p = {corax_rad(90 * test_uniform(&seed)), 2 * CORAX_PI * test_uniform(&seed)};
+        corax_vec3 s, d, n = corax_plane_normal(p);
+        corax_plane_axes(p, &s, &d);
+        double az, pl;
+        corax_direction_angles(s, &az, &pl);
+        assert_close(azimuth_gap(corax_deg(az), corax_deg(p.dip_direction) - 90), 0, 0, 1e-9,
+                     "strike is dip direction - 90 (right-hand rule, common practice)");
+        assert_close(pl, 0, 0, 1e-12, "strike is horizontal");
+        corax_direction_angles(d, &az, &pl);
+        assert_close(pl, p.dip, 0, 1e-12, "dip line plunges at the dip");
+        if (p.dip > 1e-6)
+            assert_close(azimuth_gap(corax_deg(az), corax_deg(p.dip_direction)), 0, 0, 1e-9,
+                         "dip line trends down the dip direction");
+        assert_close(s.x * n.x + s.y * n.y + s.z * n.z, 0, 0, 1e-12, "strike in the plane");
+        assert_close(d.x * n.x + d.y * n.y + d.z * n.z, 0, 0, 1e-12, "dip line in the plane");
+        assert_close(s.x * d.x + s.y * d.y + s.z * d.z, 0, 0, 1e-12, "strike across the dip");
+    }
+}
+
 /* J. B. Jukes (1859), The South Staffordshire Coalfield, appendix: beds
  * dipping north at 35 degrees, section NE-SW (45 degrees from the dip
  * direction): his table reads 26 deg 15 min; the formula gives 26.34. */
@@ -89,6 +117,14 @@ static void test_apparent_dip_jukes_1859(void **state)
     assert_int_equal(toward, 1);
     corax_apparent_dip(p, corax_rad(225), &toward);
     assert_int_equal(toward, -1);
+    /* the same section through the section module: the tick drawn for the
+     * beds has Jukes' slope and falls toward the north-east end */
+    corax_section s = corax_section_make(0, 0, corax_rad(45), 10);
+    corax_section_dip d = corax_section_plane(&s, p);
+    assert_close(corax_deg(d.apparent), a, 0, 1e-9, "section apparent dip, formula (Jukes 1859)");
+    assert_close(corax_deg(atan2(-d.up, d.along)), 26.0 + 15.0 / 60.0, 0, 0.1,
+                 "section trace slope, Jukes (1859) table");
+    assert_close(corax_deg(d.toward_azimuth), 45, 0, 1e-9, "dips toward the NE end");
 }
 
 /* derived grid (check-values.md): true dip, angle between section and dip
@@ -102,6 +138,10 @@ static void test_apparent_dip_derived_grid(void **state)
         corax_plane p = {corax_rad(grid[i][0]), corax_rad(100)};
         double a = corax_deg(corax_apparent_dip(p, corax_rad(100 + grid[i][1]), NULL));
         assert_close(a, grid[i][2], 0, 0.005, "derived apparent dip grid");
+        corax_section s = corax_section_make(0, 0, corax_rad(100 + grid[i][1]), 10);
+        corax_section_dip d = corax_section_plane(&s, p);
+        assert_close(corax_deg(atan2(-d.up, fabs(d.along))), grid[i][2], 0, 0.005,
+                     "derived apparent dip grid, section trace slope");
     }
     corax_plane p = {corax_rad(50), corax_rad(100)};
     int toward;
@@ -132,6 +172,33 @@ static void test_fast_atan2_matches_atan2(void **state)
                      "fast_atan2 on the axes");
 }
 
+/* Property: the trace a section shows for a plane is the line where the
+ * plane meets the section plane, i.e. along n x m (n the plane's normal, m
+ * the section plane's horizontal normal): an independent derivation of the
+ * apparent dip formula and of the end it dips toward. */
+static void test_section_trace_is_the_intersection_line(void **state)
+{
+    (void)state;
+    uint64_t seed = 21;
+    for (int i = 0; i < 20000; i++) {
+        corax_plane p = {corax_rad(89.9 * test_uniform(&seed)), 2 * CORAX_PI * test_uniform(&seed)};
+        double az = 2 * CORAX_PI * test_uniform(&seed);
+        corax_section s = corax_section_make(0, 0, az, 10);
+        corax_section_dip d = corax_section_plane(&s, p);
+        corax_vec3 n = corax_plane_normal(p), m = {cos(az), -sin(az), 0};
+        corax_vec3 l = {n.y * m.z - n.z * m.y, n.z * m.x - n.x * m.z, n.x * m.y - n.y * m.x};
+        double along = l.x * sin(az) + l.y * cos(az), up = l.z;
+        double len = hypot(along, up);
+        if (len < 1e-6)
+            continue; /* the plane is the section plane itself */
+        /* parallel (either sense): the 2-D cross product vanishes */
+        assert_close((d.along * up - d.up * along) / len, 0, 0, 1e-9,
+                     "section trace along the intersection line");
+        assert_close(hypot(d.along, d.up), 1, 0, 1e-12, "unit trace direction");
+        assert_true(d.up <= 0);
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -139,9 +206,11 @@ int main(void)
         cmocka_unit_test(test_direction_round_trip),
         cmocka_unit_test(test_lines_are_reported_downward),
         cmocka_unit_test(test_plane_from_normal),
+        cmocka_unit_test(test_plane_axes),
         cmocka_unit_test(test_apparent_dip_jukes_1859),
         cmocka_unit_test(test_apparent_dip_derived_grid),
         cmocka_unit_test(test_fast_atan2_matches_atan2),
+        cmocka_unit_test(test_section_trace_is_the_intersection_line),
     };
     return cmocka_run_group_tests_name("geometry", tests, NULL, NULL);
 }

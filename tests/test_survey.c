@@ -407,11 +407,45 @@ static void test_program_lookup(void **state)
         assert_non_null(h);
         assert_int_equal(strncmp(corax_hole_name(h), name, 5), 0);
         assert_ptr_equal(corax_program_hole(prog, (size_t)i), h);
+        assert_int_equal(corax_program_index(prog, name, 5), i);
     }
+    assert_int_equal(corax_program_index(prog, "H05", 3), -1);
     assert_null(corax_program_find(prog, "H05", 3));
     assert_null(corax_program_find(prog, "H0500", 5));
     corax_program_free(prog);
     corax_program_free(NULL);
+}
+
+/* The sampling depths of a hole: collar, steps, stations, end, each once, in
+ * order, the station kept where a step or the end falls on it (the rule the
+ * trace command documents). */
+static void test_hole_depths(void **state)
+{
+    (void)state;
+    corax_collar collar = {{0, 0, 0}, 0, corax_rad(60), 1, 100.0};
+    corax_station s[2] = {inc_station(20, 30, 0), inc_station(47.5, 32, 2)};
+    corax_hole *h = make_hole(s, 2, &collar);
+    corax_hole_depth *d;
+    size_t n;
+    assert_int_equal(corax_hole_depths(h, 10, &d, &n), CORAX_OK);
+    static const double want[] = {0, 10, 20, 30, 40, 47.5, 50, 60, 70, 80, 90, 100};
+    static const corax_depth_kind kind[] = {
+        CORAX_DEPTH_COLLAR, CORAX_DEPTH_STEP, CORAX_DEPTH_STATION, CORAX_DEPTH_STEP,
+        CORAX_DEPTH_STEP,   CORAX_DEPTH_STATION, CORAX_DEPTH_STEP, CORAX_DEPTH_STEP,
+        CORAX_DEPTH_STEP,   CORAX_DEPTH_STEP, CORAX_DEPTH_STEP, CORAX_DEPTH_END};
+    assert_int_equal(n, sizeof want / sizeof want[0]);
+    for (size_t i = 0; i < n; i++) {
+        assert_close(d[i].depth, want[i], 0, 1e-12, "sampling depth");
+        assert_int_equal(d[i].kind, kind[i]);
+    }
+    assert_int_equal(d[5].station, 1);
+    free(d);
+    assert_int_equal(corax_hole_depths(h, 0, &d, &n), CORAX_OK);
+    assert_int_equal(n, 4); /* collar, two stations, end */
+    free(d);
+    assert_int_equal(corax_hole_depths(h, -1, &d, &n), CORAX_EARG);
+    assert_int_equal(corax_hole_depths(h, NAN, &d, &n), CORAX_EARG);
+    corax_hole_free(h);
 }
 
 int main(void)
@@ -433,6 +467,7 @@ int main(void)
         cmocka_unit_test(test_dip_conventions),
         cmocka_unit_test(test_ratio_factor_series_meets_closed_form),
         cmocka_unit_test(test_program_lookup),
+        cmocka_unit_test(test_hole_depths),
     };
     return cmocka_run_group_tests_name("survey", tests, NULL, NULL);
 }

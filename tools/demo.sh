@@ -28,6 +28,15 @@ S="$OUT/structures.csv"
 "$CORAX" stereonet "$S" --group-by hole --net-per-group --terzaghi \
     --title "Quillon Creek: by hole, Terzaghi weighted" \
     -o "$OUT/net_by_hole.svg" --stats "$OUT/net_by_hole_stats.csv"
+# Hole traces for 3-D modelling packages (VTK polydata, ASCII and binary).
+"$CORAX" export --format vtk -p "$PROJECT" -o "$OUT/traces.vtk"
+"$CORAX" export --format vtk --binary -p "$PROJECT" -o "$OUT/traces-binary.vtk"
+# A cross-section along the 135-degree fence through the south-west holes
+# (bedding and faults, at 1:2500), and the structures for modelling.
+"$CORAX" section -p "$PROJECT" --origin 10300,50200 --azimuth 135 --width 200 \
+    --kinds bedding,fault --scale 2500 "$S" -o "$OUT/section.csv" --svg "$OUT/section.svg"
+"$CORAX" export --format csv "$S" -o "$OUT/structures-model.csv"
+"$CORAX" export --format vtk -p "$PROJECT" "$S" -o "$OUT/structures.vtk"
 
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
 rows=$(tail -n +2 examples/core_log.csv | wc -l)
@@ -39,4 +48,7 @@ echo "      ${summary#corax: }"
 echo "      with dip_sd, dip_direction_sd, cone95, kappa and position_sd from 500 draws each"
 echo "  stereonets:              $OUT/net_all.svg, net_by_kind.svg, net_by_hole.svg"
 echo "  orientation statistics:  $OUT/net_*_stats.csv"
+echo "  traces for 3-D (VTK):    $OUT/traces.vtk, $OUT/traces-binary.vtk"
+echo "  cross-section:           $OUT/section.svg, $OUT/section.csv"
+echo "  structures for 3-D:      $OUT/structures.vtk, $OUT/structures-model.csv"
 echo "  what each run assumed:   $OUT/*.about"

@@ -56,6 +56,12 @@ corax_plane corax_plane_from_normal(corax_vec3 n, corax_vec3 *up);
 /* The upward unit normal of a plane. */
 corax_vec3 corax_plane_normal(corax_plane plane);
 
+/* Two unit vectors spanning a plane: along its strike (azimuth dip direction
+ * - 90, the right-hand rule: the plane dips to the right of it; horizontal)
+ * and straight down its dip (azimuth dip direction, plunge dip). Either
+ * pointer may be NULL. */
+void corax_plane_axes(corax_plane plane, corax_vec3 *strike, corax_vec3 *down_dip);
+
 /* Apparent dip of a plane in a vertical section of azimuth s (radians), in
  * [0, pi/2], with tan(apparent) = tan(dip) |cos(s - dip direction)|. *toward
  * (may be NULL) gets +1 when the plane dips toward the section's azimuth end,

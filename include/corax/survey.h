@@ -50,6 +50,9 @@ typedef struct corax_station {
     double azimuth_error, dip_error; /* radians, when has_errors */
 } corax_station;
 
+/* A station without errors of its own (has_errors 0). */
+corax_station corax_station_make(double depth, double azimuth, double plunge, long line);
+
 /* Where a queried depth falls, in increasing order of doubt. */
 typedef enum corax_where {
     CORAX_WHERE_SURVEYED = 0,  /* between the collar and the last station */
@@ -117,6 +120,33 @@ size_t corax_hole_station_count(const corax_hole *hole);
 corax_status corax_hole_station(const corax_hole *hole, size_t i, corax_station *station,
                                 corax_vec3 *position, double *dogleg_severity);
 
+/* Why a depth down a hole is worth a point of its own. */
+typedef enum corax_depth_kind {
+    CORAX_DEPTH_STEP = 0, /* a whole multiple of the sampling step */
+    CORAX_DEPTH_COLLAR,   /* depth 0 */
+    CORAX_DEPTH_END,      /* the hole's length */
+    CORAX_DEPTH_STATION   /* a survey station */
+} corax_depth_kind;
+
+typedef struct corax_hole_depth {
+    double depth;          /* metres */
+    corax_depth_kind kind;
+    size_t station;        /* the station's index when kind is CORAX_DEPTH_STATION */
+} corax_hole_depth;
+
+/* The depths at which to sample a hole for plotting, modelling or export: the
+ * collar, every whole multiple of `step` metres short of the end (none when
+ * step is 0), every station and the end of the hole (corax_hole_length(), when
+ * above 0), in increasing order. A depth is listed once; when two coincide
+ * (within 1e-9 m) the higher kind is kept: station, then end, collar, step.
+ * Sampling every few metres plus the stations lets a caller draw the path
+ * through corax_hole_at() on the arc, never on chords between stations.
+ *
+ * *out is allocated (release it with free()) and *n gets its length.
+ * CORAX_EARG for a negative or non-finite step, CORAX_ENOMEM. */
+corax_status corax_hole_depths(const corax_hole *hole, double step, corax_hole_depth **out,
+                               size_t *n);
+
 /* A drill program: holes looked up by name. */
 typedef struct corax_program corax_program;
 
@@ -130,6 +160,10 @@ corax_status corax_program_add(corax_program *program, corax_hole *hole);
 /* The hole of that name (len bytes, need not be NUL-terminated), or NULL. */
 const corax_hole *corax_program_find(const corax_program *program, const char *name,
                                      size_t len);
+
+/* The position of the hole of that name in the program (as for
+ * corax_program_hole()), or -1. */
+long corax_program_index(const corax_program *program, const char *name, size_t len);
 
 size_t corax_program_size(const corax_program *program);
 

@@ -90,11 +90,20 @@ int cli_value_choice(const char *arg, const char *const *names, int count, int *
  * cannot be used. */
 corax_program *cli_load_program(cli_common *c);
 
+/* What a command does after cli_parse(): given what parsing returned, 1 to go
+ * on, with the drill program loaded into *prog when want_program (else NULL);
+ * 0 to stop, with *status the exit status (0 after --help, the usage error,
+ * or a data error when the program cannot be loaded) and c freed. */
+int cli_begin(cli_common *c, int parsed, int want_program, corax_program **prog, int *status);
+
 /* Messages on stderr: `corax: FILE:LINE: message` or `corax: message`. */
 void cli_error(const char *file, long line, const char *fmt, ...)
     __attribute__((format(printf, 3, 4)));
 void cli_error_record(const corax_error *err, corax_status st);
 void cli_finding(const corax_finding *f);
+
+/* A note on stderr, `corax: note: message`, unless --quiet. */
+void cli_note(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
 /* A usage error: prints the message and a pointer to --help; returns EXIT_USAGE. */
 int cli_usage(const char *command, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
@@ -111,7 +120,32 @@ void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
 /* Write it (when there is somewhere to write) and free it; 0 ok. */
 int cli_about_commit(cli_about *a, const cli_common *c);
 
+/* A converted table (one structure a row) being read. */
+typedef struct cli_converted {
+    const char *path;
+    corax_reader *reader;
+    corax_structure_columns columns;
+    size_t width;      /* fields in its header */
+    corax_row header;  /* valid until the first row is read */
+    size_t problems;   /* faulty rows met so far */
+} cli_converted;
+
+/* Open a converted table and find its columns; 0, or EXIT_DATA with the
+ * message printed. */
+int cli_converted_open(const cli_common *c, const char *path, cli_converted *t);
+
+/* The next structure: 1 with *row and *s filled, 0 at the end. Faulty rows
+ * (ragged, unusable values) are printed as `corax: FILE:LINE: why`, counted
+ * and skipped, so that a run reports all of them. */
+int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
+                       corax_structure *s);
+
+/* Close; EXIT_DATA (with a summary printed) when there were problems. */
+int cli_converted_close(cli_converted *t);
+
 /* Commands. */
+int cmd_export(int argc, char **argv);
+int cmd_section(int argc, char **argv);
 int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);

@@ -127,52 +127,21 @@ static int trace_at(const trace_opts *o, const corax_program *prog, corax_writer
     return EXIT_OK;
 }
 
-/* A point down a hole; on equal depths the higher kind wins. */
-enum { POINT_STEP, POINT_COLLAR, POINT_END, POINT_STATION };
+/* The words for corax_depth_kind, in its order. */
 static const char *const point_name[] = {"step", "collar", "end", "station"};
-
-typedef struct point {
-    double depth;
-    int kind;
-    size_t station;
-} point;
-
-static int point_cmp(const void *a, const void *b)
-{
-    const point *x = a, *y = b;
-    if (x->depth != y->depth)
-        return x->depth < y->depth ? -1 : 1;
-    return y->kind - x->kind;
-}
 
 /* Points down one hole: collar, steps, stations and end, in depth order. */
 static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
 {
-    size_t ns = corax_hole_station_count(h);
-    double length = corax_hole_length(h);
-    size_t nsteps = o->step > 0.0 ? (size_t)floor(length / o->step) + 1 : 0;
-    size_t n = 0;
-    point *p = malloc((nsteps + ns + 2) * sizeof *p);
-    if (!p)
+    corax_hole_depth *p;
+    size_t n;
+    if (corax_hole_depths(h, o->step, &p, &n) != CORAX_OK)
         return -1;
-    p[n++] = (point){0.0, POINT_COLLAR, 0};
-    for (size_t k = 1; k < nsteps; k++)
-        p[n++] = (point){(double)k * o->step, POINT_STEP, 0};
-    for (size_t i = 0; i < ns; i++) {
-        corax_station s;
-        corax_hole_station(h, i, &s, NULL, NULL);
-        p[n++] = (point){s.depth, POINT_STATION, i};
-    }
-    if (length > 0.0)
-        p[n++] = (point){length, POINT_END, 0};
-    qsort(p, n, sizeof *p, point_cmp);
     const char *name = corax_hole_name(h);
     size_t hint = 0;
     for (size_t k = 0; k < n; k++) {
-        if (k > 0 && p[k].depth - p[k - 1].depth < 1e-9)
-            continue; /* the same place, already written under a higher kind */
         double dls = NAN;
-        if (p[k].kind == POINT_STATION)
+        if (p[k].kind == CORAX_DEPTH_STATION)
             corax_hole_station(h, p[k].station, NULL, NULL, &dls);
         corax_hole_point pt;
         corax_writer_field(w, name, strlen(name));
@@ -249,16 +218,10 @@ int cmd_trace(int argc, char **argv)
     trace_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "trace");
-    int rc = parse(argc, argv, &o);
-    if (rc != 0) {
-        cli_common_free(&o.c);
-        return rc < 0 ? EXIT_OK : rc;
-    }
-    corax_program *prog = cli_load_program(&o.c);
-    if (!prog) {
-        cli_common_free(&o.c);
-        return EXIT_DATA;
-    }
+    int rc;
+    corax_program *prog;
+    if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))
+        return rc;
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);

@@ -59,6 +59,18 @@ void cli_finding(const corax_finding *f)
               f->message);
 }
 
+void cli_note(const cli_common *c, const char *fmt, ...)
+{
+    va_list ap;
+    if (c->quiet)
+        return;
+    fputs("corax: note: ", stderr);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
+
 int cli_usage(const char *command, const char *fmt, ...)
 {
     va_list ap;
@@ -104,6 +116,18 @@ corax_program *cli_load_program(cli_common *c)
         return NULL;
     }
     return prog;
+}
+
+int cli_begin(cli_common *c, int parsed, int want_program, corax_program **prog, int *status)
+{
+    *prog = NULL;
+    *status = parsed < 0 ? EXIT_OK : parsed;
+    if (parsed == 0 && (!want_program || (*prog = cli_load_program(c)) != NULL))
+        return 1;
+    if (parsed == 0)
+        *status = EXIT_DATA;
+    cli_common_free(c);
+    return 0;
 }
 
 /* ---- the side file ---- */

@@ -71,7 +71,7 @@ int cli_value_choice(const char *arg, const char *const *names, int count, int *
             *value = i;
             return 0;
         }
-    size_t used = (size_t)snprintf(why, whylen, "'%s' is not one of ", arg);
+    size_t used = (size_t)snprintf(why, whylen, "'%s' is not %s", arg, count > 2 ? "one of " : "");
     for (int i = 0; i < count && used < whylen; i++)
         used += (size_t)snprintf(why + used, whylen - used, "%s%s",
                                  i == 0 ? "" : i + 1 < count ? ", " : " or ", names[i]);

@@ -78,6 +78,14 @@ corax_vec3 corax_plane_normal(corax_plane plane)
     return vec3(s * sin(plane.dip_direction), s * cos(plane.dip_direction), cos(plane.dip));
 }
 
+void corax_plane_axes(corax_plane plane, corax_vec3 *strike, corax_vec3 *down_dip)
+{
+    if (strike)
+        *strike = vec3(-cos(plane.dip_direction), sin(plane.dip_direction), 0.0);
+    if (down_dip)
+        *down_dip = corax_direction(plane.dip_direction, plane.dip);
+}
+
 double corax_apparent_dip(corax_plane plane, double section_azimuth, int *toward)
 {
     double c = cos(section_azimuth - plane.dip_direction);

@@ -37,6 +37,7 @@ static const char *const known[][6] = {
     {"trend", NULL},
     {"plunge", NULL},
     {"status", NULL},
+    {"polarity", "younging", NULL},
 };
 
 enum { NKNOWN = sizeof known / sizeof known[0] };

@@ -384,7 +384,8 @@ corax_status corax_program_load(const char *collars_path, const char *surveys_pa
     if (st == CORAX_OK)
         st = read_surveys(surveys_path, o, &rec, problems, err);
     if (st == CORAX_OK) {
-        qsort(rec.survey, rec.nsurvey, sizeof *rec.survey, survey_cmp);
+        if (rec.nsurvey) /* an empty table has no array at all: qsort wants one */
+            qsort(rec.survey, rec.nsurvey, sizeof *rec.survey, survey_cmp);
         st = build_program(collars_path, surveys_path, o, &rec, prog, problems);
     }
     if (st == CORAX_OK)

@@ -1,4 +1,4 @@
-/* survey: dip conventions of hole tables, and names of places down a hole. */
+/* survey: dip conventions of hole tables, stations, and names of places down a hole. */
 #include <math.h>
 
 #include "corax/survey.h"
@@ -47,4 +47,10 @@ const char *corax_where_name(corax_where where)
     case CORAX_WHERE_BEYOND_END: return "beyond-end";
     }
     return "unknown";
+}
+
+corax_station corax_station_make(double depth, double azimuth, double plunge, long line)
+{
+    corax_station s = {depth, azimuth, plunge, line, 0, 0.0, 0.0};
+    return s;
 }

@@ -88,12 +88,17 @@ corax_status corax_program_add(corax_program *p, corax_hole *hole)
     return CORAX_OK;
 }
 
-const corax_hole *corax_program_find(const corax_program *p, const char *name, size_t len)
+long corax_program_index(const corax_program *p, const char *name, size_t len)
 {
     if (!p->nslots)
-        return NULL;
-    size_t s = *find_slot(p, name, len);
-    return s ? p->hole[s - 1] : NULL;
+        return -1;
+    return (long)*find_slot(p, name, len) - 1;
+}
+
+const corax_hole *corax_program_find(const corax_program *p, const char *name, size_t len)
+{
+    long i = corax_program_index(p, name, len);
+    return i >= 0 ? p->hole[i] : NULL;
 }
 
 size_t corax_program_size(const corax_program *p) { return p->count; }

@@ -46,6 +46,24 @@ const char *test_tmp_path(const char *name)
     return buf[k];
 }
 
+char *test_read_file(const char *path, size_t *length)
+{
+    FILE *f = fopen(path, "rb");
+    assert_non_null(f);
+    assert_int_equal(fseek(f, 0, SEEK_END), 0);
+    long n = ftell(f);
+    assert_true(n >= 0);
+    rewind(f);
+    char *buf = malloc((size_t)n + 1);
+    assert_non_null(buf);
+    assert_int_equal(fread(buf, 1, (size_t)n, f), (size_t)n);
+    buf[n] = '\0';
+    fclose(f);
+    if (length)
+        *length = (size_t)n;
+    return buf;
+}
+
 void test_write_file(const char *path, const char *text)
 {
     FILE *f = fopen(path, "wb");

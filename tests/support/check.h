@@ -29,4 +29,8 @@ const char *test_tmp_path(const char *name);
 /* Write text to a file (for table tests); fails the test on error. */
 void test_write_file(const char *path, const char *text);
 
+/* A whole file in memory, NUL-terminated (it may hold other NULs: *length,
+ * which may be NULL, gets its size); fails the test on error. free() it. */
+char *test_read_file(const char *path, size_t *length);
+
 #endif
