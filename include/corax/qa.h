@@ -1,0 +1,89 @@
+/* corax: QA of a drill program. Finds the survey and orientation errors that
+ * plague drill programs and places each at its hole and depth as a finding:
+ * surveys (repeated or unordered depths, gaps, doglegs, magnetic disturbance,
+ * a first station far down, a collar that disagrees with its first station,
+ * stations past the hole's end, holes too steep for a gravity-marked line),
+ * orientation readings (values out of range, unoriented readings in oriented
+ * runs, low alpha, runs that disagree with their neighbours and whether a
+ * line marked on the wrong side or a beta read the wrong way round would
+ * explain it, low-confidence runs), and the program (a hole whose fabric
+ * scatters more than the program's, a hole whose readings sit turned about
+ * its axis or about the vertical). */
+#ifndef CORAX_QA_H
+#define CORAX_QA_H
+
+#include <stddef.h>
+
+#include "corax/convert.h"
+#include "corax/finding.h"
+#include "corax/survey.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* Thresholds; angles in radians, lengths in metres. */
+typedef struct corax_qa_options {
+    double gap;              /* stations further apart than this (default 60 m) */
+    double dogleg;           /* dogleg severity above this, per 30 m (default 3 deg) */
+    double magnetic_azimuth; /* an azimuth change of at least this between stations... */
+    double magnetic_dip;     /* ...with a dip change of at most this: magnetic? (5, 1 deg) */
+    double first_station;    /* a first station deeper than this (default 15 m) */
+    double collar_mismatch;  /* collar and first station apart by more (default 5 deg) */
+    double steep;            /* plunge beyond which a gravity mark is unreliable (70 deg) */
+    double low_alpha;        /* alpha below this (default 10 deg) */
+    double run_length;       /* inferred orientation runs (default 3 m, a barrel) */
+    size_t min_run;          /* readings of one kind a run needs to be judged (default 3) */
+    double run_window;       /* neighbours within this of a run make its reference (30 m) */
+    double run_misfit;       /* a run this far from its neighbours disagrees (25 deg) */
+    size_t min_fabric;       /* readings of a kind in a hole to judge it (default 10) */
+    double fabric_strength;  /* a kind whose first normalised eigenvalue reaches this is
+                                a consistent fabric (default 0.8) */
+    double spread_ratio;     /* a hole whose fabric scatters this many times more
+                                than the program's (default 2) */
+    double hole_turn;        /* a hole fitting the program best turned by more than
+                                this (default 15 deg)... */
+    double turn_gain;        /* ...when the turn cuts its misfit by this fraction (0.4) */
+    const char *const *low_confidence; /* confidence words taken as low (NULL-ended;
+                                          default "poor", "low") */
+} corax_qa_options;
+
+corax_qa_options corax_qa_options_default(void);
+
+/* One row of a core log, as the QA sees it. Strings are borrowed. */
+typedef struct corax_qa_reading {
+    const char *hole;        /* the hole's name as written */
+    const corax_hole *path;  /* NULL when the hole is unknown or has no path */
+    corax_reading reading;   /* radians, NaN when absent */
+    const char *kind;        /* feature kind, "" when none */
+    const char *confidence;  /* "" when none */
+    const char *file;
+    long line;
+    const char *problem;     /* why the row's values could not be read, else NULL */
+} corax_qa_reading;
+
+/* An orientation run: the core between two marks of the orientation line. */
+typedef struct corax_qa_run {
+    const char *hole;
+    double from, to;         /* metres */
+    const char *confidence;  /* "" when not given */
+    const char *file;
+    long line;               /* 0 for an inferred run */
+} corax_qa_run;
+
+/* The survey checks of every hole of a program. Findings are appended. */
+corax_status corax_qa_surveys(const corax_program *program, const corax_qa_options *options,
+                              corax_findings *out);
+
+/* The orientation and program checks. runs may be NULL (nruns 0): runs are
+ * then inferred from the readings' depths, run_length apart. convert gives
+ * the conventions the readings were taken under. Findings are appended. */
+corax_status corax_qa_readings(const corax_program *program, const corax_qa_reading *readings,
+                               size_t n, const corax_qa_run *runs, size_t nruns,
+                               const corax_convert_options *convert,
+                               const corax_qa_options *options, corax_findings *out);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

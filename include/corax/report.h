@@ -1,0 +1,43 @@
+/* corax: the QA report, one self-contained HTML page (inline SVG and CSS, no
+ * scripts, nothing fetched): a summary of the findings by severity and hole,
+ * a plan and a section of the hole traces with the findings marked, and for
+ * each hole a strip of its log with its findings and a stereonet with the
+ * readings of flagged runs picked out. */
+#ifndef CORAX_REPORT_H
+#define CORAX_REPORT_H
+
+#include <stddef.h>
+
+#include "corax/convert.h"
+#include "corax/finding.h"
+#include "corax/qa.h"
+#include "corax/status.h"
+#include "corax/survey.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* What the report shows. Everything is borrowed. */
+typedef struct corax_report_input {
+    const char *title;                    /* e.g. the project's name */
+    const char *const *inputs;            /* the files read, for the header */
+    size_t ninputs;
+    const char *version;                  /* corax's version */
+    const char *when;                     /* the run's time, as text */
+    const corax_program *program;         /* the desurveyed holes */
+    const corax_findings *findings;       /* sorted by hole and depth */
+    const corax_qa_reading *readings;     /* the core log (may be NULL, n 0) */
+    size_t nreadings;
+    const corax_convert_options *convert; /* how readings convert (for the nets) */
+} corax_report_input;
+
+/* Write the report to path ("-" for standard output), whole or not at all.
+ * CORAX_EIO (err names the file), CORAX_ENOMEM. */
+corax_status corax_report_write(const corax_report_input *input, const char *path,
+                                corax_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif
