@@ -71,9 +71,10 @@ typedef struct corax_qa_run {
     long line;               /* 0 for an inferred run */
 } corax_qa_run;
 
-/* The survey checks of every hole of a program. Findings are appended. */
-corax_status corax_qa_surveys(const corax_program *program, const corax_qa_options *options,
-                              corax_findings *out);
+/* The survey checks of every hole of a program. Findings are appended, with
+ * surveys_file (may be NULL) as the file their lines are in. */
+corax_status corax_qa_surveys(const corax_program *program, const char *surveys_file,
+                              const corax_qa_options *options, corax_findings *out);
 
 /* The orientation and program checks. runs may be NULL (nruns 0): runs are
  * then inferred from the readings' depths, run_length apart. convert gives

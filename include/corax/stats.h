@@ -67,6 +67,11 @@ typedef struct corax_tensor {
 corax_status corax_tensor_compute(const corax_vec3 *v, const double *w, size_t n,
                                   corax_tensor *out);
 
+/* The same from the tensor's sums t = sum w v v^T (row-major, any overall
+ * scale: the eigenvalues come out normalised to sum to 1), for callers that
+ * add and take away readings. CORAX_ENOMEM. */
+corax_status corax_tensor_from_sums(const double sums[9], corax_tensor *out);
+
 /* Woodcock's (1977) shape K and strength C of eigenvalues S1 >= S2 >= S3;
  * NaN where a logarithm is not finite. */
 double corax_woodcock_shape(const double eigenvalue[3]);

@@ -116,6 +116,11 @@ const char *corax_table_header_name(const corax_table *table, size_t column);
 /* The index of a column by header name, without regard to case, or -1. */
 long corax_table_find(const corax_table *table, const char *name);
 
+/* The column holding a logical column, as corax_column_find() finds it in the
+ * header (mapped name, logical name or an alias), or -1. */
+long corax_table_column(const corax_table *table, const char *logical,
+                        const corax_column_map *map);
+
 /* Number of fields in a row (may differ from the header's count). */
 size_t corax_table_width(const corax_table *table, size_t row);
 

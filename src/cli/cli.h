@@ -10,6 +10,8 @@
 /* Exit statuses. */
 enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
 
+typedef struct cli_about cli_about;
+
 /* Options shared by the commands that read a drill program. */
 typedef struct cli_common {
     const char *command; /* for messages */
@@ -37,8 +39,38 @@ enum {
     OPT_DECIMAL_MARK,
     OPT_ABOUT,
     OPT_PROJECT,
+    /* the core conventions, for the commands that read core logs */
+    OPT_REFERENCE = 1050,
+    OPT_BETA_END,
+    OPT_BETA_SENSE,
+    OPT_GAMMA_ZERO,
+    OPT_GAMMA_SENSE,
+    OPT_NEAR_PARALLEL,
+    OPT_NEAR_PERPENDICULAR,
+    OPT_VERTICAL_LIMIT,
     OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
 };
+
+/* Long options for the core conventions. */
+#define CLI_CONVENTION_OPTIONS                                                   \
+    {"reference-line", required_argument, NULL, OPT_REFERENCE},                  \
+        {"beta-end", required_argument, NULL, OPT_BETA_END},                     \
+        {"beta-sense", required_argument, NULL, OPT_BETA_SENSE},                 \
+        {"gamma-zero", required_argument, NULL, OPT_GAMMA_ZERO},                 \
+        {"gamma-sense", required_argument, NULL, OPT_GAMMA_SENSE},               \
+        {"near-parallel", required_argument, NULL, OPT_NEAR_PARALLEL},           \
+        {"near-perpendicular", required_argument, NULL, OPT_NEAR_PERPENDICULAR}, \
+        {"vertical-limit", required_argument, NULL, OPT_VERTICAL_LIMIT}
+
+/* Help text for them. */
+extern const char cli_convention_help[];
+
+/* Apply a convention option: 1 applied, 0 not one, -1 with why filled. */
+int cli_convention_option(corax_convert_options *cv, int opt, const char *arg, char *why,
+                          size_t whylen);
+
+/* Record the conventions and thresholds in a .about file. */
+void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
 
 /* Long options for the shared set; commands put them first in their table. */
 #define CLI_COMMON_OPTIONS                                                   \
@@ -112,7 +144,6 @@ int cli_usage(const char *command, const char *fmt, ...) __attribute__((format(p
 const char *cli_dip_convention_name(corax_dip_convention c);
 
 /* The record of what a run assumed, written next to its output. */
-typedef struct cli_about cli_about;
 cli_about *cli_about_new(const char *command, const cli_common *c);
 void cli_about_section(cli_about *a, const char *section);
 void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)

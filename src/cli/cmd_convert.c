@@ -23,19 +23,7 @@ static const char convert_help[] =
     "nx, ny, nz (the upward unit normal), trend, plunge (when the log has lines),\n"
     "apparent_dip, apparent_dip_toward (with --section-azimuth), status, note.\n"
     "\n"
-    "Conventions (defaults first):\n"
-    "  --reference-line bottom|top       the orientation line marks the bottom or top\n"
-    "                                    of the hole\n"
-    "  --beta-end down-hole|up-hole      beta runs to this end of the ellipse's long axis\n"
-    "  --beta-sense clockwise|anticlockwise   looking down the hole\n"
-    "  --gamma-zero down-hole|up-hole    gamma runs from this end of the long axis\n"
-    "  --gamma-sense clockwise|anticlockwise  seen from the up-hole side of the plane\n"
-    "  (hole dips: --dip-convention, below)\n"
-    "Flags and extras:\n"
-    "  --near-parallel DEG       flag alpha below this (default 10)\n"
-    "  --near-perpendicular DEG  flag alpha above this (default 80)\n"
-    "  --vertical-limit DEG      a hole within this of vertical has no usable\n"
-    "                            bottom-of-hole line (default 5)\n"
+    "Extras:\n"
     "  --section-azimuth DEG     add each plane's apparent dip in a vertical section\n"
     "                            of this azimuth, and the azimuth it dips toward\n"
     "  --structures FILE         a core log (as a positional argument; may repeat)\n"
@@ -68,15 +56,7 @@ static const char convert_help[] =
     "\n";
 
 enum {
-    OPT_REFERENCE = OPT_COMMAND_BASE,
-    OPT_BETA_END,
-    OPT_BETA_SENSE,
-    OPT_GAMMA_ZERO,
-    OPT_GAMMA_SENSE,
-    OPT_NEAR_PARALLEL,
-    OPT_NEAR_PERPENDICULAR,
-    OPT_VERTICAL_LIMIT,
-    OPT_SECTION,
+    OPT_SECTION = OPT_COMMAND_BASE,
     OPT_STRUCTURES,
     OPT_HOLE_AZIMUTH,
     OPT_HOLE_DIP,
@@ -202,27 +182,12 @@ static int uncertainty_option(convert_opts *o, int opt, const char *arg, char *w
 
 static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
 {
-    static const char *const ref[] = {"bottom", "top"};
-    static const char *const ends[] = {"down-hole", "up-hole"};
-    static const char *const senses[] = {"clockwise", "anticlockwise"};
     convert_opts *o = ctx;
-    corax_core_conventions *cv = &o->setup.convert.conventions;
     double v;
+    int k = cli_convention_option(&o->setup.convert, opt, arg, why, wl);
+    if (k)
+        return k < 0 ? -1 : 0;
     switch (opt) {
-    case OPT_REFERENCE: return cli_value_choice(arg, ref, 2, &cv->top_reference, why, wl);
-    case OPT_BETA_END: return cli_value_choice(arg, ends, 2, &cv->beta_to_uphole_end, why, wl);
-    case OPT_BETA_SENSE: return cli_value_choice(arg, senses, 2, &cv->beta_anticlockwise, why, wl);
-    case OPT_GAMMA_ZERO: return cli_value_choice(arg, ends, 2, &cv->gamma_from_uphole, why, wl);
-    case OPT_GAMMA_SENSE: return cli_value_choice(arg, senses, 2, &cv->gamma_anticlockwise, why, wl);
-    case OPT_NEAR_PARALLEL:
-    case OPT_NEAR_PERPENDICULAR:
-    case OPT_VERTICAL_LIMIT:
-        if (cli_value_number(arg, 0, 90, &v, why, wl))
-            return -1;
-        *(opt == OPT_NEAR_PARALLEL        ? &o->setup.convert.near_parallel
-          : opt == OPT_NEAR_PERPENDICULAR ? &o->setup.convert.near_perpendicular
-                                          : &o->setup.convert.vertical_limit) = corax_rad(v);
-        return 0;
     case OPT_SECTION:
         if (cli_value_number(arg, -360, 360, &v, why, wl))
             return -1;
@@ -265,14 +230,7 @@ static int parse(int argc, char **argv, convert_opts *o)
 {
     static const struct option longopts[] = {
         CLI_COMMON_OPTIONS,
-        {"reference-line", required_argument, NULL, OPT_REFERENCE},
-        {"beta-end", required_argument, NULL, OPT_BETA_END},
-        {"beta-sense", required_argument, NULL, OPT_BETA_SENSE},
-        {"gamma-zero", required_argument, NULL, OPT_GAMMA_ZERO},
-        {"gamma-sense", required_argument, NULL, OPT_GAMMA_SENSE},
-        {"near-parallel", required_argument, NULL, OPT_NEAR_PARALLEL},
-        {"near-perpendicular", required_argument, NULL, OPT_NEAR_PERPENDICULAR},
-        {"vertical-limit", required_argument, NULL, OPT_VERTICAL_LIMIT},
+        CLI_CONVENTION_OPTIONS,
         {"section-azimuth", required_argument, NULL, OPT_SECTION},
         {"structures", required_argument, NULL, OPT_STRUCTURES},
         {"hole-azimuth", required_argument, NULL, OPT_HOLE_AZIMUTH},
@@ -297,6 +255,8 @@ static int parse(int argc, char **argv, convert_opts *o)
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
+    if (rc == -1) /* after the help: the conventions' */
+        fputs(cli_convention_help, stdout);
     if (rc != 0)
         return rc;
     if (optind < argc) { /* files named on the command line replace the project's */
@@ -335,7 +295,7 @@ static int write_about(const convert_opts *o)
     cli_about_section(a, "convert");
     for (size_t i = 0; i < o->nfiles; i++)
         cli_about_set(a, "structures", "%s", o->files[i]);
-    convert_about_conventions(a, cv);
+    cli_about_conventions(a, cv);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
     if (o->setup.draws) {

@@ -487,7 +487,7 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     return rc;
 }
 
-void convert_about_conventions(cli_about *a, const corax_convert_options *cv)
+void cli_about_conventions(cli_about *a, const corax_convert_options *cv)
 {
     const corax_core_conventions *c = &cv->conventions;
     cli_about_set(a, "reference_line", "%s", c->top_reference ? "top" : "bottom");

@@ -103,7 +103,5 @@ int convert_one_reading(const cli_common *c, const convert_setup *s, double hole
                         double hole_dip, double alpha, double beta, double gamma,
                         const double plane[2], const double line[2]);
 
-/* The conventions and thresholds, for a .about file. */
-void convert_about_conventions(cli_about *a, const corax_convert_options *cv);
 
 #endif

@@ -341,3 +341,50 @@ int cli_common_finish(cli_common *c, int need_program)
         return cli_usage(c->command, "--collars and --surveys are both needed");
     return 0;
 }
+
+/* ---- core conventions ---- */
+
+const char cli_convention_help[] =
+    "Conventions (defaults first):\n"
+    "  --reference-line bottom|top       the orientation line marks the bottom or top\n"
+    "                                    of the hole\n"
+    "  --beta-end down-hole|up-hole      beta runs to this end of the ellipse's long axis\n"
+    "  --beta-sense clockwise|anticlockwise   looking down the hole\n"
+    "  --gamma-zero down-hole|up-hole    gamma runs from this end of the long axis\n"
+    "  --gamma-sense clockwise|anticlockwise  seen from the up-hole side of the plane\n"
+    "  --near-parallel DEG       flag alpha below this (default 10)\n"
+    "  --near-perpendicular DEG  flag alpha above this (default 80)\n"
+    "  --vertical-limit DEG      a hole within this of vertical has no usable\n"
+    "                            bottom-of-hole line (default 5)\n";
+
+int cli_convention_option(corax_convert_options *o, int opt, const char *arg, char *why,
+                          size_t wl)
+{
+    static const char *const ref[] = {"bottom", "top"};
+    static const char *const ends[] = {"down-hole", "up-hole"};
+    static const char *const senses[] = {"clockwise", "anticlockwise"};
+    corax_core_conventions *cv = &o->conventions;
+    int *choice = opt == OPT_REFERENCE    ? &cv->top_reference
+                  : opt == OPT_BETA_END   ? &cv->beta_to_uphole_end
+                  : opt == OPT_BETA_SENSE ? &cv->beta_anticlockwise
+                  : opt == OPT_GAMMA_ZERO ? &cv->gamma_from_uphole
+                  : opt == OPT_GAMMA_SENSE ? &cv->gamma_anticlockwise
+                                           : NULL;
+    if (choice) {
+        const char *const *names = opt == OPT_REFERENCE ? ref
+                                   : (opt == OPT_BETA_END || opt == OPT_GAMMA_ZERO) ? ends
+                                                                                    : senses;
+        return cli_value_choice(arg, names, 2, choice, why, wl) ? -1 : 1;
+    }
+    double *angle = opt == OPT_NEAR_PARALLEL        ? &o->near_parallel
+                    : opt == OPT_NEAR_PERPENDICULAR ? &o->near_perpendicular
+                    : opt == OPT_VERTICAL_LIMIT     ? &o->vertical_limit
+                                                    : NULL;
+    if (!angle)
+        return 0;
+    double v;
+    if (cli_value_number(arg, 0, 90, &v, why, wl))
+        return -1;
+    *angle = corax_rad(v);
+    return 1;
+}

@@ -218,3 +218,17 @@ corax_number_status corax_table_number(const corax_table *t, size_t row, long co
     *value = NAN;
     return corax_parse_number(c, n, t->decimal, value);
 }
+
+long corax_table_column(const corax_table *t, const char *logical, const corax_column_map *map)
+{
+    size_t n = corax_table_columns(t);
+    const char **field = malloc((n ? n : 1) * sizeof *field);
+    if (!field)
+        return -1;
+    for (size_t i = 0; i < n; i++)
+        field[i] = t->text + t->cell[i];
+    corax_row header = {n, field, t->cell_len, t->row_line[0]};
+    long c = corax_column_find(&header, logical, map);
+    free(field);
+    return c;
+}

@@ -40,18 +40,27 @@ corax_status corax_tensor_compute(const corax_vec3 *v, const double *w, size_t n
             for (int k = 0; k < 3; k++)
                 t[3 * r + k] += wi * c[r] * c[k];
     }
+    return corax_tensor_from_sums(t, out);
+}
+
+corax_status corax_tensor_from_sums(const double sums[9], corax_tensor *out)
+{
+    double t[9];
+    for (int k = 0; k < 9; k++)
+        t[k] = sums[k]; /* GSL's solver works in place */
     gsl_matrix_view m = gsl_matrix_view_array(t, 3, 3);
     gsl_vector *eval = gsl_vector_alloc(3);
     gsl_matrix *evec = gsl_matrix_alloc(3, 3);
     gsl_eigen_symmv_workspace *ws = gsl_eigen_symmv_alloc(3);
-    st = CORAX_ENOMEM;
+    corax_status st = CORAX_ENOMEM;
     if (eval && evec && ws && gsl_eigen_symmv(&m.matrix, eval, evec, ws) == 0 &&
         gsl_eigen_symmv_sort(eval, evec, GSL_EIGEN_SORT_VAL_DESC) == 0) {
         double total = 0.0;
         for (int k = 0; k < 3; k++)
             total += fmax(0.0, gsl_vector_get(eval, (size_t)k));
         for (int k = 0; k < 3; k++) {
-            out->eigenvalue[k] = fmax(0.0, gsl_vector_get(eval, (size_t)k)) / total;
+            out->eigenvalue[k] = total > 0.0 ? fmax(0.0, gsl_vector_get(eval, (size_t)k)) / total
+                                             : (double)NAN;
             corax_vec3 a = vec3(gsl_matrix_get(evec, 0, (size_t)k),
                                 gsl_matrix_get(evec, 1, (size_t)k),
                                 gsl_matrix_get(evec, 2, (size_t)k));

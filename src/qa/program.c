@@ -1,0 +1,254 @@
+/* qa: the program as a whole. A hole whose fabric scatters far more than a
+ * typical hole's, and a hole whose readings fit the rest of the program best
+ * turned about the hole (a convention or reference line of its own), mirrored
+ * (beta read the other way round) or turned about the vertical (a missed
+ * declination or grid correction). */
+#include <gsl/gsl_statistics_double.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <strings.h>
+
+#include "geometry/vec.h"
+#include "qa/qa_int.h"
+
+enum { MAX_KINDS = 32 };
+
+/* The program's consistent fabrics: kinds whose poles, over all holes, share
+ * an axis strongly enough. Per kind, the tensor sums of each hole. */
+typedef struct fabric {
+    const char *kind;
+    double all[9];
+    double *hole; /* 9 sums per hole */
+    size_t n;
+} fabric;
+
+typedef struct program {
+    fabric f[MAX_KINDS];
+    size_t nf;
+    double *work; /* scratch for medians */
+} program;
+
+static int kind_index(const program *p, const char *kind)
+{
+    for (size_t k = 0; k < p->nf; k++)
+        if (strcasecmp(p->f[k].kind, kind) == 0)
+            return (int)k;
+    return -1;
+}
+
+static corax_status gather(const qa_data *d, program *p)
+{
+    for (size_t h = 0; h < d->nholes; h++)
+        for (size_t i = d->holes[h].first; i < d->holes[h].first + d->holes[h].n; i++) {
+            const qa_item *it = &d->items[i];
+            if (!it->res.has_plane || !it->r->kind[0])
+                continue;
+            int k = kind_index(p, it->r->kind);
+            if (k < 0) {
+                if (p->nf == MAX_KINDS)
+                    continue;
+                k = (int)p->nf++;
+                p->f[k].kind = it->r->kind;
+                if (!(p->f[k].hole = calloc(9 * (d->nholes ? d->nholes : 1), sizeof(double))))
+                    return CORAX_ENOMEM;
+            }
+            qa_tensor_add(p->f[k].all, it->res.normal, 1.0);
+            qa_tensor_add(p->f[k].hole + 9 * h, it->res.normal, 1.0);
+            p->f[k].n++;
+        }
+    return CORAX_OK;
+}
+
+static int program_fabric(const qa_data *d, const fabric *f)
+{
+    corax_vec3 axis;
+    double strength;
+    return f->n >= d->o->min_fabric && qa_principal(f->all, &axis, &strength) &&
+           strength >= d->o->fabric_strength;
+}
+
+static size_t readings_of(const fabric *f, size_t h)
+{
+    const double *t = f->hole + 9 * h;
+    return (size_t)llround(t[0] + t[4] + t[8]); /* each unit vector adds 1 to the trace */
+}
+
+/* ---- spread ---- */
+
+/* The median angle of a hole's readings of a kind from their own axis. */
+static double hole_spread(const qa_data *d, program *p, size_t h, const fabric *f)
+{
+    corax_vec3 axis;
+    if (!qa_principal(f->hole + 9 * h, &axis, NULL))
+        return NAN;
+    size_t n = 0;
+    const qa_hole *hole = &d->holes[h];
+    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
+        const qa_item *it = &d->items[i];
+        if (it->res.has_plane && strcasecmp(it->r->kind, f->kind) == 0)
+            p->work[n++] = qa_axial_angle(it->res.normal, axis);
+    }
+    return n ? gsl_stats_select(p->work, 1, n, n / 2) : (double)NAN;
+}
+
+static corax_status check_spread(qa_data *d, program *p)
+{
+    double *spread = malloc((d->nholes ? d->nholes : 1) * sizeof *spread);
+    double *typical = malloc((d->nholes ? d->nholes : 1) * sizeof *typical);
+    corax_status st = spread && typical ? CORAX_OK : CORAX_ENOMEM;
+    for (size_t k = 0; k < p->nf && st == CORAX_OK; k++) {
+        const fabric *f = &p->f[k];
+        if (!program_fabric(d, f))
+            continue;
+        size_t m = 0;
+        for (size_t h = 0; h < d->nholes; h++) {
+            spread[h] = readings_of(f, h) >= d->o->min_fabric ? hole_spread(d, p, h, f) : (double)NAN;
+            if (!isnan(spread[h]))
+                typical[m++] = spread[h];
+        }
+        if (m < 3) /* too few holes to say what is typical */
+            continue;
+        double mid = gsl_stats_select(typical, 1, m, m / 2);
+        for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++)
+            if (spread[h] > d->o->spread_ratio * mid)
+                st = corax_findings_add(
+                    d->out, CORAX_WARNING, "hole-spread", d->items[d->holes[h].first].r->file, 0,
+                    d->holes[h].name, NAN,
+                    "the %s of this hole scatters %.0f degrees about its mean (median), against "
+                    "%.0f in a typical hole of the program: spun core, a misfitted orientation "
+                    "line, or careless reading?",
+                    f->kind, corax_deg(spread[h]), corax_deg(mid));
+    }
+    free(spread);
+    free(typical);
+    return st;
+}
+
+/* ---- turned holes ---- */
+
+enum { TURN_BETA, TURN_MIRROR, TURN_VERTICAL, NTURNS };
+
+/* A reading of hole h under a trial turn; 0 when it gives no plane. */
+static int turned(const qa_data *d, const qa_item *it, int mode, double angle, corax_vec3 *n)
+{
+    double beta = it->r->reading.beta;
+    switch (mode) {
+    case TURN_BETA: return angle == 0.0 ? (*n = it->res.normal, 1) : qa_reconvert(d, it, beta + angle, n);
+    case TURN_MIRROR: return qa_reconvert(d, it, 2.0 * CORAX_PI - beta + angle, n);
+    default: {
+        double c = cos(angle), s = sin(angle), x = it->res.normal.x, y = it->res.normal.y;
+        /* azimuths grow clockwise: turning by +angle about the vertical */
+        *n = vec3(x * c + y * s, -x * s + y * c, it->res.normal.z);
+        return 1;
+    }
+    }
+}
+
+/* The median misfit of hole h's fabric readings to the rest of the program
+ * under a trial turn. */
+static double misfit(const qa_data *d, program *p, size_t h, const corax_vec3 *reference,
+                     int mode, double angle)
+{
+    const qa_hole *hole = &d->holes[h];
+    size_t n = 0;
+    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
+        const qa_item *it = &d->items[i];
+        int k = it->res.has_plane ? kind_index(p, it->r->kind) : -1;
+        corax_vec3 v;
+        if (k < 0 || isnan(reference[k].x) || !turned(d, it, mode, angle, &v))
+            continue;
+        p->work[n++] = qa_axial_angle(v, reference[k]);
+    }
+    return n ? gsl_stats_select(p->work, 1, n, n / 2) : (double)NAN;
+}
+
+/* The best turn of one kind: a coarse sweep, then finer steps about the best. */
+static double best_turn(const qa_data *d, program *p, size_t h, const corax_vec3 *reference,
+                        int mode, double *angle)
+{
+    double span = mode == TURN_VERTICAL ? 0.5 * CORAX_PI : CORAX_PI;
+    double best = INFINITY, at = 0.0, step = corax_rad(5.0);
+    for (double a = -span; a < span + 1e-9; a += step) {
+        double m = misfit(d, p, h, reference, mode, a);
+        if (m < best) {
+            best = m;
+            at = a;
+        }
+    }
+    for (double fine = step / 2; fine > corax_rad(0.2); fine /= 2)
+        for (int s = -1; s <= 1; s += 2) {
+            double m = misfit(d, p, h, reference, mode, at + s * fine);
+            if (m < best) {
+                best = m;
+                at += s * fine;
+            }
+        }
+    *angle = at;
+    return best;
+}
+
+static corax_status check_turns(qa_data *d, program *p)
+{
+    static const char *const what[NTURNS] = {
+        "with every beta turned by %.0f degrees: a reference line or convention of its own?",
+        "with beta mirrored (360 - beta) and turned by %.0f degrees: beta read the other way "
+        "round in this hole?",
+        "turned %.0f degrees about the vertical: a declination or grid correction missed or "
+        "doubled for this hole?"};
+    corax_status st = CORAX_OK;
+    for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++) {
+        corax_vec3 reference[MAX_KINDS];
+        size_t usable = 0;
+        for (size_t k = 0; k < p->nf; k++) {
+            const fabric *f = &p->f[k];
+            double rest[9];
+            for (int i = 0; i < 9; i++)
+                rest[i] = f->all[i] - f->hole[9 * h + i];
+            reference[k] = vec3(NAN, NAN, NAN);
+            size_t mine = readings_of(f, h);
+            if (program_fabric(d, f) && f->n - mine >= d->o->min_fabric &&
+                qa_principal(rest, &reference[k], NULL))
+                usable += mine;
+        }
+        if (usable < d->o->min_fabric)
+            continue;
+        double base = misfit(d, p, h, reference, TURN_BETA, 0.0), angle[NTURNS], got[NTURNS];
+        int best = -1;
+        for (int mode = 0; mode < NTURNS; mode++) {
+            got[mode] = best_turn(d, p, h, reference, mode, &angle[mode]);
+            int far = mode == TURN_MIRROR || fabs(angle[mode]) > d->o->hole_turn;
+            if (far && got[mode] < (1.0 - d->o->turn_gain) * base &&
+                (best < 0 || got[mode] < got[best]))
+                best = mode;
+        }
+        if (best < 0)
+            continue;
+        char how[200];
+        double deg = corax_deg(angle[best]);
+        snprintf(how, sizeof how, what[best], best == TURN_VERTICAL ? deg : fmod(deg + 360.0, 360.0));
+        st = corax_findings_add(d->out, CORAX_WARNING, "hole-turned",
+                                d->items[d->holes[h].first].r->file, 0, d->holes[h].name, NAN,
+                                "the readings of this hole fit the rest of the program best %s "
+                                "(typical misfit %.0f degrees, %.0f as read)",
+                                how, corax_deg(got[best]), corax_deg(base));
+    }
+    return st;
+}
+
+corax_status qa_check_program(qa_data *d)
+{
+    program p;
+    memset(&p, 0, sizeof p);
+    p.work = malloc((d->nitems ? d->nitems : 1) * sizeof *p.work);
+    corax_status st = p.work ? gather(d, &p) : CORAX_ENOMEM;
+    if (st == CORAX_OK)
+        st = check_spread(d, &p);
+    if (st == CORAX_OK)
+        st = check_turns(d, &p);
+    for (size_t k = 0; k < p.nf; k++)
+        free(p.f[k].hole);
+    free(p.work);
+    return st;
+}

@@ -1,0 +1,332 @@
+/* Tests of the qa module on an invented drill program with planted faults:
+ * every planted fault must be found at its hole and depth, and the clean
+ * holes must raise no warnings or errors. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "corax/core.h"
+#include "corax/load.h"
+#include "corax/qa.h"
+#include "support/check.h"
+
+/* The invented geology: bedding 50/260, foliation 75/330 (dip/dip direction). */
+static const double BEDDING[2] = {50, 260}, FOLIATION[2] = {75, 330};
+
+typedef struct hole_plan {
+    const char *name;
+    double azimuth, dip, length;
+} hole_plan;
+
+static const hole_plan plan[] = {
+    {"H01", 120, -60, 300}, {"H02", 120, -60, 300}, {"H03", 125, -58, 300},
+    {"H04", 115, -62, 300}, /* the clean holes */
+    {"H05", 120, -60, 300}, /* magnetic spike at 150 m, gap 180-270 m, collar set up 20 degrees off in azimuth */
+    {"H06", 120, -60, 250}, /* first station at 40 m, a station past the end (270 m) */
+    {"H07", 120, -80, 300}, /* too steep for a gravity mark */
+    {"H08", 120, -60, 300}, /* orientation slips (see the readings) */
+    {"H09", 120, -60, 300}, /* every beta turned by 35 degrees */
+    {"H10", 120, -60, 300}, /* scattered: spun core */
+    {"H11", 120, -60, 300}, /* survey depth 120 typed twice */
+    {"H12", 120, -60, 300}, /* dogleg of 6 degrees over 120-150 m */
+};
+enum { NHOLES = sizeof plan / sizeof plan[0], CLEAN = 4 };
+
+static void write_tables(const char *cpath, const char *spath)
+{
+    FILE *c = fopen(cpath, "w"), *s = fopen(spath, "w");
+    assert_non_null(c);
+    assert_non_null(s);
+    fprintf(c, "hole,x,y,z,azimuth,dip,length\n");
+    fprintf(s, "hole,depth,azimuth,dip\n");
+    for (int h = 0; h < NHOLES; h++) {
+        const hole_plan *p = &plan[h];
+        double collar_az = p->azimuth + (strcmp(p->name, "H05") == 0 ? 20 : 0);
+        fprintf(c, "%s,%d,%d,500,%.1f,%.1f,%.0f\n", p->name, 1000 + 60 * h, 2000 + 15 * h,
+                collar_az, p->dip, p->length);
+        for (double d = 0; d <= p->length; d += 30) {
+            double depth = d, az = p->azimuth + 0.01 * d, dip = p->dip + 0.005 * d;
+            if (strcmp(p->name, "H06") == 0 && d == 0)
+                depth = 40;
+            if (strcmp(p->name, "H06") == 0 && d == 30)
+                continue; /* the first station is the one at 40 m */
+            if (strcmp(p->name, "H05") == 0 && (d == 210 || d == 240))
+                continue; /* the gap */
+            if (strcmp(p->name, "H05") == 0 && d == 150)
+                az += 12; /* magnetic spike */
+            if (strcmp(p->name, "H12") == 0 && d >= 150)
+                dip += 6; /* a sharp bend */
+            fprintf(s, "%s,%.1f,%.2f,%.2f\n", p->name, depth, az, dip);
+            if (strcmp(p->name, "H11") == 0 && d == 120)
+                fprintf(s, "%s,%.1f,%.2f,%.2f\n", p->name, depth, az + 0.5, dip);
+        }
+        if (strcmp(p->name, "H06") == 0)
+            fprintf(s, "%s,270,%.2f,%.2f\n", p->name, p->azimuth + 2.7, p->dip + 1.35);
+    }
+    fclose(c);
+    fclose(s);
+}
+
+typedef struct world {
+    corax_program *prog;
+    corax_findings found;
+    corax_qa_reading *r;
+    size_t n;
+} world;
+
+static double noise(uint64_t *seed, double size) { return size * (2 * test_uniform(seed) - 1); }
+
+/* The alpha and beta (degrees, default conventions) a plane shows at a depth. */
+static int read_plane(const corax_hole *h, double depth, const double plane[2], double *alpha,
+                      double *beta)
+{
+    corax_hole_point pt;
+    corax_core_frame f;
+    corax_core_conventions c = {0, 0, 0, 0, 0};
+    if (corax_hole_at(h, depth, NULL, &pt) != CORAX_OK || corax_core_frame_of(pt.tangent, &f) != CORAX_OK)
+        return 0;
+    corax_plane p = {corax_rad(plane[0]), corax_rad(plane[1])};
+    corax_core_plane_angles(&f, corax_plane_normal(p), &c, alpha, beta);
+    *alpha = corax_deg(*alpha);
+    *beta = corax_deg(*beta);
+    return 1;
+}
+
+static void add(world *w, const char *hole, const corax_hole *path, double depth, double alpha,
+                double beta, const char *kind, const char *confidence, const char *problem)
+{
+    corax_qa_reading *r = &w->r[w->n];
+    r->hole = hole;
+    r->path = path;
+    r->reading = corax_reading_empty();
+    r->reading.depth = depth;
+    r->reading.alpha = isnan(alpha) ? alpha : corax_rad(alpha);
+    r->reading.beta = isnan(beta) ? beta : corax_rad(fmod(beta + 720.0, 360.0));
+    r->kind = kind;
+    r->confidence = confidence;
+    r->file = "log.csv";
+    r->line = (long)w->n + 2;
+    r->problem = problem;
+    w->n++;
+}
+
+static void make_readings(world *w)
+{
+    w->r = calloc(20000, sizeof *w->r);
+    assert_non_null(w->r);
+    uint64_t seed = 99;
+    for (int h = 0; h < NHOLES; h++) {
+        const char *name = plan[h].name;
+        const corax_hole *path = corax_program_find(w->prog, name, strlen(name));
+        assert_non_null(path);
+        for (double d = 10; d < plan[h].length - 5; d += 0.5) {
+            int bedding = ((int)(d * 2)) % 3 != 0;
+            double a, b;
+            if (!read_plane(path, d, bedding ? BEDDING : FOLIATION, &a, &b))
+                continue;
+            a += noise(&seed, 1.5);
+            b += noise(&seed, 3.0);
+            const char *conf = "good", *problem = NULL;
+            if (strcmp(name, "H08") == 0) {
+                if (d >= 151 && d < 154)
+                    b += 180; /* the line marked on the wrong side */
+                if (d >= 91 && d < 94)
+                    b = 360 - b; /* beta read the wrong way round */
+                if (d >= 121 && d < 124)
+                    conf = "poor";
+                if (d == 60 || d == 61)
+                    b = NAN; /* unoriented readings inside an oriented run */
+                if (d == 30)
+                    a = 97; /* out of range */
+                if (d == 33) {
+                    a = NAN;
+                    problem = "alpha 'x7' is not a number";
+                }
+            }
+            if (strcmp(name, "H09") == 0)
+                b += 35; /* a convention of its own */
+            if (strcmp(name, "H10") == 0)
+                b += noise(&seed, 70); /* spun core */
+            add(w, name, path, d, a, b, bedding ? "bedding" : "foliation", conf, problem);
+            if (strcmp(name, "H08") == 0 && d == 45) /* typed twice */
+                w->r[w->n] = w->r[w->n - 1], w->r[w->n].line++, w->n++;
+        }
+    }
+    add(w, "H99", NULL, 20, 40, 100, "bedding", "good", NULL); /* not in the collars */
+}
+
+static int setup(void **state)
+{
+    world *w = calloc(1, sizeof *w);
+    const char *cpath = test_tmp_path("qa_collars.csv"), *spath = test_tmp_path("qa_surveys.csv");
+    write_tables(cpath, spath);
+    corax_load_options lo = corax_load_options_default();
+    lo.repair = 1;
+    corax_error err;
+    if (corax_program_load(cpath, spath, &lo, &w->prog, &w->found, &err) != CORAX_OK) {
+        fprintf(stderr, "load: %s\n", err.message);
+        return -1;
+    }
+    unlink(cpath);
+    unlink(spath);
+    make_readings(w);
+    corax_qa_options o = corax_qa_options_default();
+    corax_convert_options co = corax_convert_options_default();
+    if (corax_qa_surveys(w->prog, "surveys.csv", &o, &w->found) != CORAX_OK ||
+        corax_qa_readings(w->prog, w->r, w->n, NULL, 0, &co, &o, &w->found) != CORAX_OK ||
+        corax_findings_sort(&w->found) != CORAX_OK)
+        return -1;
+    *state = w;
+    return 0;
+}
+
+static int teardown(void **state)
+{
+    world *w = *state;
+    corax_findings_clear(&w->found);
+    corax_program_free(w->prog);
+    free(w->r);
+    free(w);
+    return 0;
+}
+
+/* The finding of a check at a hole whose depth (or stretch) takes in `depth`
+ * (NaN: a finding with no depth), with `words` in its message. */
+static const corax_finding *find(const world *w, const char *hole, const char *check,
+                                 double depth, const char *words)
+{
+    for (size_t i = 0; i < w->found.count; i++) {
+        const corax_finding *f = &w->found.item[i];
+        if (strcmp(f->hole, hole) || strcmp(f->check, check))
+            continue;
+        if (words && !strstr(f->message, words))
+            continue;
+        if (isnan(depth) ? !isnan(f->depth)
+                         : !(fabs(f->depth - depth) < 0.01 ||
+                             (!isnan(f->depth_to) && f->depth - 0.01 <= depth && depth <= f->depth_to + 0.01)))
+            continue;
+        return f;
+    }
+    return NULL;
+}
+
+static void expect(const world *w, const char *hole, const char *check, double depth,
+                   const char *words, corax_severity severity)
+{
+    const corax_finding *f = find(w, hole, check, depth, words);
+    if (!f) {
+        for (size_t i = 0; i < w->found.count; i++)
+            if (strcmp(w->found.item[i].hole, hole) == 0)
+                print_message("  %s %s %g-%g %s\n", w->found.item[i].hole, w->found.item[i].check,
+                              w->found.item[i].depth, w->found.item[i].depth_to,
+                              w->found.item[i].message);
+        fail_msg("planted fault not found: %s %s at %g m (%s)", hole, check, depth,
+                 words ? words : "");
+    }
+    assert_int_equal(f->severity, severity);
+}
+
+static void test_planted_survey_faults_are_found(void **state)
+{
+    world *w = *state;
+    expect(w, "H05", "survey-magnetic", 150, "turns", CORAX_WARNING);
+    expect(w, "H05", "survey-gap", 220, "90 m apart", CORAX_WARNING);
+    expect(w, "H05", "collar-vs-survey", 0, "degrees apart", CORAX_WARNING);
+    expect(w, "H06", "survey-first-deep", 20, "40.0 m below the collar", CORAX_NOTE);
+    expect(w, "H06", "survey-past-end", 270, "past the hole's length of 250.0", CORAX_WARNING);
+    expect(w, "H07", "steep-hole", 100, "steeper than 70", CORAX_WARNING);
+    expect(w, "H11", "survey-repeated-depth", 120, "appears twice", CORAX_ERROR);
+    expect(w, "H12", "dogleg", 140, "dogleg severity", CORAX_WARNING);
+}
+
+static void test_planted_orientation_faults_are_found(void **state)
+{
+    world *w = *state;
+    expect(w, "H08", "run-disagrees", 152, "adding 180 to beta", CORAX_WARNING);
+    expect(w, "H08", "run-disagrees", 92, "mirroring beta", CORAX_WARNING);
+    expect(w, "H08", "unoriented-in-run", 60, "no beta", CORAX_WARNING);
+    expect(w, "H08", "reading-value", 30, "alpha 97 is outside [0, 90]", CORAX_ERROR);
+    expect(w, "H08", "reading-value", 33, "'x7' is not a number", CORAX_ERROR);
+    expect(w, "H08", "reading-repeated", 45, "typed twice", CORAX_WARNING);
+    expect(w, "H08", "low-confidence", 122, "'poor'", CORAX_NOTE);
+    expect(w, "H99", "reading-hole", NAN, "not in the collar table", CORAX_ERROR);
+}
+
+static void test_planted_program_faults_are_found(void **state)
+{
+    world *w = *state;
+    expect(w, "H09", "hole-turned", NAN, "turned by", CORAX_WARNING);
+    expect(w, "H10", "hole-spread", NAN, "scatters", CORAX_WARNING);
+}
+
+/* The turn of H09 is read close to the planted one: beta + 35 undone by 325. */
+static void test_turn_is_measured(void **state)
+{
+    world *w = *state;
+    const corax_finding *f = find(w, "H09", "hole-turned", NAN, NULL);
+    assert_non_null(f);
+    double angle;
+    assert_int_equal(sscanf(strstr(f->message, "turned by ") + 10, "%lf", &angle), 1);
+    assert_close(angle, 325, 0, 3, "the turn undoing beta + 35");
+}
+
+static void test_clean_holes_raise_no_warnings(void **state)
+{
+    world *w = *state;
+    for (int h = 0; h < CLEAN; h++)
+        for (size_t i = 0; i < w->found.count; i++) {
+            const corax_finding *f = &w->found.item[i];
+            if (strcmp(f->hole, plan[h].name) == 0 && f->severity >= CORAX_WARNING)
+                fail_msg("clean hole %s: %s %s at %g: %s", f->hole,
+                         corax_severity_name(f->severity), f->check, f->depth, f->message);
+        }
+}
+
+/* Sorted by hole, then depth, the hole-wide findings of a hole first. */
+static void test_findings_are_sorted(void **state)
+{
+    world *w = *state;
+    for (size_t i = 1; i < w->found.count; i++) {
+        const corax_finding *a = &w->found.item[i - 1], *b = &w->found.item[i];
+        if (strcmp(a->hole, b->hole) == 0 && !isnan(a->depth) && !isnan(b->depth))
+            assert_true(a->depth <= b->depth);
+        if (strcmp(a->hole, b->hole) == 0)
+            assert_false(!isnan(a->depth) && isnan(b->depth));
+    }
+}
+
+/* The same checks against a table of runs: a run marked poor gives a note,
+ * and the wrong-side run is still found. */
+static void test_given_runs(void **state)
+{
+    world *w = *state;
+    corax_qa_run runs[120];
+    size_t n = 0;
+    for (double d = 10; d < 290 && n < 120; d += 3, n++)
+        runs[n] = (corax_qa_run){"H08", d, d + 3, d == 100 ? "poor" : "good", "runs.csv", (long)n + 2};
+    corax_findings found = {0};
+    corax_qa_options o = corax_qa_options_default();
+    corax_convert_options co = corax_convert_options_default();
+    assert_int_equal(corax_qa_readings(w->prog, w->r, w->n, runs, n, &co, &o, &found), CORAX_OK);
+    world v = *w;
+    v.found = found;
+    expect(&v, "H08", "low-confidence", 101, "marked 'poor'", CORAX_NOTE);
+    expect(&v, "H08", "run-disagrees", 152, "adding 180 to beta", CORAX_WARNING);
+    corax_findings_clear(&found);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_planted_survey_faults_are_found),
+        cmocka_unit_test(test_planted_orientation_faults_are_found),
+        cmocka_unit_test(test_planted_program_faults_are_found),
+        cmocka_unit_test(test_turn_is_measured),
+        cmocka_unit_test(test_clean_holes_raise_no_warnings),
+        cmocka_unit_test(test_findings_are_sorted),
+        cmocka_unit_test(test_given_runs),
+    };
+    return cmocka_run_group_tests_name("qa", tests, setup, teardown);
+}
