@@ -30,7 +30,7 @@ static const hole_plan plan[] = {
     {"H09", 120, -60, 300}, /* every beta turned by 35 degrees */
     {"H10", 120, -60, 300}, /* scattered: spun core */
     {"H11", 120, -60, 300}, /* survey depth 120 typed twice */
-    {"H12", 120, -60, 300}, /* dogleg of 6 degrees over 120-150 m */
+    {"H12", 120, -60, 300}, /* dogleg of 6 degrees over 120-150 m; two rows swapped */
 };
 enum { NHOLES = sizeof plan / sizeof plan[0], CLEAN = 4 };
 
@@ -46,7 +46,9 @@ static void write_tables(const char *cpath, const char *spath)
         double collar_az = p->azimuth + (strcmp(p->name, "H05") == 0 ? 20 : 0);
         fprintf(c, "%s,%d,%d,500,%.1f,%.1f,%.0f\n", p->name, 1000 + 60 * h, 2000 + 15 * h,
                 collar_az, p->dip, p->length);
-        for (double d = 0; d <= p->length; d += 30) {
+        for (double step = 0; step <= p->length; step += 30) {
+            /* H12's rows at 210 and 240 m come in the wrong order */
+            double d = strcmp(p->name, "H12") ? step : step == 210 ? 240 : step == 240 ? 210 : step;
             double depth = d, az = p->azimuth + 0.01 * d, dip = p->dip + 0.005 * d;
             if (strcmp(p->name, "H06") == 0 && d == 0)
                 depth = 40;
@@ -239,6 +241,7 @@ static void test_planted_survey_faults_are_found(void **state)
     expect(w, "H07", "steep-hole", 100, "steeper than 70", CORAX_WARNING);
     expect(w, "H11", "survey-repeated-depth", 120, "appears twice", CORAX_ERROR);
     expect(w, "H12", "dogleg", 140, "dogleg severity", CORAX_WARNING);
+    expect(w, "H12", "survey-order", 210, "follows depth 240", CORAX_NOTE);
 }
 
 static void test_planted_orientation_faults_are_found(void **state)

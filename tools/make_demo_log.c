@@ -8,7 +8,7 @@
  *       examples/core_log.csv examples/runs.csv
  *
  * The slips (what a careful QA pass should report):
- *   QC007 195-204 m  orientation line marked on the wrong side (beta + 180)
+ *   QC007 96-105 m   orientation line marked on the wrong side (beta + 180)
  *   QC011 120-129 m  beta read the wrong way round (360 - beta)
  *   QC012 all        every beta turned 40 degrees (a wrong convention for the hole)
  *   QC004 below 88.4 m   the first reading typed twice
@@ -137,7 +137,7 @@ int main(int argc, char **argv)
             if (alpha > 90)
                 alpha = 180 - alpha;
             /* the slips */
-            if (strcmp(name, "QC007") == 0 && d >= 195 && d < 204)
+            if (strcmp(name, "QC007") == 0 && d >= 96 && d < 105)
                 beta += 180;
             if (strcmp(name, "QC011") == 0 && d >= 120 && d < 129)
                 beta = 360 - beta;

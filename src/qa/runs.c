@@ -45,7 +45,9 @@ static corax_status run_notes(qa_data *d, size_t k, const run_tally *t, const ch
                                       "%zu of the %zu readings between %.1f and %.1f m have no "
                                       "beta, inside an oriented run",
                                       t->without_beta, t->readings, run->from, run->to);
-    if (st == CORAX_OK && t->low_alpha)
+    /* one low alpha is the reading's own status in convert; a run full of them
+     * is a stretch whose orientations rest on little */
+    if (st == CORAX_OK && t->low_alpha >= 2 && 2 * t->low_alpha >= t->readings)
         st = corax_findings_add_range(
             d->out, CORAX_NOTE, "low-alpha", run->file, run->line, hole, run->from, run->to,
             "%zu of the %zu readings between %.1f and %.1f m have alpha below %.0f: their planes "

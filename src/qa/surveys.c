@@ -1,5 +1,6 @@
 /* qa: the survey checks of a drill program, hole by hole. */
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "corax/qa.h"
@@ -58,20 +59,40 @@ static corax_station station(const corax_hole *h, size_t i)
     return s;
 }
 
-/* Rows out of depth order in the file: worth a note, once. */
-static corax_status check_order(const hole_ctx *c)
+/* Survey rows out of depth order in the file. A row or two that goes back
+ * looks like a mistyped depth, worth a note each; a table in no particular
+ * order is fine (the stations are sorted) and is only counted, in *shuffled. */
+static corax_status check_order(const hole_ctx *c, size_t *shuffled)
 {
-    for (size_t i = 1; i < c->n; i++) {
-        corax_station a = station(c->h, i - 1), b = station(c->h, i);
-        if (a.line > 0 && b.line > 0 && b.line < a.line)
-            return corax_findings_add(c->out, CORAX_NOTE, "survey-order", c->file, b.line, c->name,
-                                      b.depth,
-                                      "the survey rows are not in depth order: depth %g (line %ld) "
-                                      "comes before depth %g (line %ld) in the file; check for a "
-                                      "mistyped depth",
-                                      b.depth, b.line, a.depth, a.line);
-    }
-    return CORAX_OK;
+    size_t *order = malloc((c->n ? c->n : 1) * sizeof *order); /* stations in file order */
+    if (!order)
+        return CORAX_ENOMEM;
+    for (size_t i = 0; i < c->n; i++)
+        order[i] = i;
+    for (size_t i = 1; i < c->n; i++) /* insertion sort by line: a hole has few stations */
+        for (size_t j = i; j > 0 && station(c->h, order[j]).line < station(c->h, order[j - 1]).line; j--) {
+            size_t t = order[j];
+            order[j] = order[j - 1];
+            order[j - 1] = t;
+        }
+    size_t back = 0;
+    for (size_t i = 1; i < c->n; i++)
+        back += station(c->h, order[i]).depth < station(c->h, order[i - 1]).depth;
+    corax_status st = CORAX_OK;
+    if (back > 2 || (back && c->n < 4))
+        ++*shuffled;
+    else
+        for (size_t i = 1; i < c->n && st == CORAX_OK; i++) {
+            corax_station a = station(c->h, order[i - 1]), b = station(c->h, order[i]);
+            if (b.depth < a.depth && a.line > 0 && b.line > 0)
+                st = corax_findings_add(c->out, CORAX_NOTE, "survey-order", c->file, b.line,
+                                        c->name, b.depth,
+                                        "depth %g (line %ld) follows depth %g (line %ld) in the "
+                                        "survey table: a mistyped depth?",
+                                        b.depth, b.line, a.depth, a.line);
+        }
+    free(order);
+    return st;
 }
 
 static corax_status check_courses(const hole_ctx *c)
@@ -206,6 +227,7 @@ static corax_status check_steep(const hole_ctx *c)
 corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_file,
                               const corax_qa_options *o, corax_findings *out)
 {
+    size_t shuffled = 0;
     for (size_t k = 0; k < corax_program_size(prog); k++) {
         hole_ctx c;
         c.h = corax_program_hole(prog, k);
@@ -236,10 +258,16 @@ corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_fil
                 return st;
             continue;
         }
-        if ((st = check_order(&c)) != CORAX_OK || (st = check_courses(&c)) != CORAX_OK ||
+        if ((st = check_order(&c, &shuffled)) != CORAX_OK || (st = check_courses(&c)) != CORAX_OK ||
             (st = check_magnetic(&c)) != CORAX_OK || (st = check_ends(&c)) != CORAX_OK ||
             (st = check_steep(&c)) != CORAX_OK)
             return st;
     }
+    if (shuffled)
+        return corax_findings_add(out, CORAX_NOTE, "survey-order", surveys_file, 0, NULL, NAN,
+                                  "the survey rows of %zu hole%s are in no particular depth "
+                                  "order; that is fine (corax sorts them), but a mistyped depth "
+                                  "would not stand out",
+                                  shuffled, shuffled == 1 ? "" : "s");
     return CORAX_OK;
 }
