@@ -302,13 +302,25 @@ static corax_status fill_batch(corax_reader *rd, corax_table *batch, corax_error
     return st;
 }
 
-/* Convert batch `cur` on every thread, in chunks taken in turn, while one
- * thread first reads the following batch into `next` (when rd is not NULL).
- * The chunks are then written out in row order, so the output does not depend
- * on the number of threads. */
-static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes, int nlanes,
-                                  corax_writer **chunk, corax_reader *rd, corax_table *next,
-                                  corax_status *read_status, corax_error *read_err)
+/* Write a batch's chunks to the output, in row order, and empty them. */
+static void write_chunks(const convert_run *r, corax_writer **chunk)
+{
+    for (size_t c = 0; c < BATCH_CHUNKS; c++) {
+        size_t len;
+        const char *text = corax_writer_contents(chunk[c], &len);
+        corax_writer_text(r->w, text, len);
+        corax_writer_reset(chunk[c]);
+    }
+}
+
+/* Convert batch `cur` on every thread into `chunk`, in chunks taken in turn,
+ * while one thread first writes the previous batch's chunks (`done`) and reads
+ * the following batch into `next` (when rd is not NULL). Chunks are written in
+ * row order, so the output does not depend on the number of threads. */
+static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes,
+                                  int nlanes, corax_writer **chunk, corax_writer **done,
+                                  corax_reader *rd, corax_table *next, corax_status *read_status,
+                                  corax_error *read_err)
 {
     size_t n = corax_table_rows(cur), widest = corax_table_widest(cur);
     for (int k = 0; k < nlanes; k++) {
@@ -321,8 +333,11 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
 #pragma omp parallel num_threads(nlanes)
     {
 #pragma omp single nowait
-        if (rd)
-            *read_status = fill_batch(rd, next, read_err);
+        {
+            write_chunks(r, done);
+            if (rd)
+                *read_status = fill_batch(rd, next, read_err);
+        }
         convert_lane *ln = &lanes[omp_get_thread_num()];
         for (;;) {
             size_t c;
@@ -330,7 +345,6 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
             c = taken++;
             if (c >= BATCH_CHUNKS)
                 break;
-            corax_writer_reset(chunk[c]);
             ln->w = chunk[c];
             for (size_t i = n * c / BATCH_CHUNKS; i < n * (c + 1) / BATCH_CHUNKS; i++) {
                 corax_row row;
@@ -338,11 +352,6 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
                 convert_row(r, ln, &row);
             }
         }
-    }
-    for (size_t c = 0; c < BATCH_CHUNKS; c++) {
-        size_t len;
-        const char *text = corax_writer_contents(chunk[c], &len);
-        corax_writer_text(r->w, text, len);
     }
     return CORAX_OK;
 }
@@ -378,7 +387,7 @@ corax_status convert_open_log(convert_run *r, const char *path, corax_reader **r
 }
 
 static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
-                            corax_writer **chunk, const char *path)
+                            corax_writer **chunk, corax_writer **done, const char *path)
 {
     corax_reader *rd;
     corax_error err;
@@ -395,8 +404,11 @@ static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
         corax_status read_st = CORAX_END;
         corax_error read_err;
         corax_error_clear(&read_err);
-        corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, st == CORAX_OK ? rd : NULL,
-                                        next, &read_st, &read_err);
+        corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, done,
+                                        st == CORAX_OK ? rd : NULL, next, &read_st, &read_err);
+        corax_writer **written = chunk; /* this batch's chunks go out with the next one */
+        chunk = done;
+        done = written;
         if (bs != CORAX_OK) {
             st = bs;
             break;
@@ -409,6 +421,7 @@ static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
         cur = next;
         next = t;
     }
+    write_chunks(r, done); /* the last batch */
     corax_table_free(cur);
     corax_table_free(next);
     corax_reader_close(rd);
@@ -452,12 +465,12 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     r.s = s;
     int nlanes = omp_get_max_threads();
     convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
-    corax_writer *chunk[BATCH_CHUNKS] = {NULL};
+    corax_writer *chunk[2][BATCH_CHUNKS] = {{NULL}};
     int rc = lanes ? EXIT_OK : EXIT_DATA;
     for (int k = 0; k < nlanes && rc == EXIT_OK; k++)
         lanes[k].last_len = (size_t)-1;
-    for (int c = 0; c < BATCH_CHUNKS && rc == EXIT_OK; c++)
-        if (corax_writer_memory(&chunk[c]) != CORAX_OK)
+    for (int c = 0; c < 2 * BATCH_CHUNKS && rc == EXIT_OK; c++)
+        if (corax_writer_memory(&chunk[c / BATCH_CHUNKS][c % BATCH_CHUNKS]) != CORAX_OK)
             rc = EXIT_DATA;
     corax_error err;
     corax_error_clear(&err);
@@ -469,7 +482,7 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     if (rc == EXIT_OK && s->draws)
         rc = convert_with_draws(&r, lanes, nlanes, files, nfiles);
     for (size_t i = 0; i < nfiles && rc == EXIT_OK && !s->draws; i++)
-        rc = convert_one_file(&r, lanes, nlanes, chunk, files[i]);
+        rc = convert_one_file(&r, lanes, nlanes, chunk[0], chunk[1], files[i]);
     free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != EXIT_OK) {
         corax_writer_discard(r.w);
@@ -481,8 +494,8 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     }
     for (int k = 0; lanes && k < nlanes; k++)
         free(lanes[k].field);
-    for (int c = 0; c < BATCH_CHUNKS; c++)
-        corax_writer_discard(chunk[c]);
+    for (int c = 0; c < 2 * BATCH_CHUNKS; c++)
+        corax_writer_discard(chunk[c / BATCH_CHUNKS][c % BATCH_CHUNKS]);
     free(lanes);
     return rc;
 }
