@@ -160,9 +160,24 @@ static void test_groups_and_empty_sets(void **state)
     doc = corax_svg_finish(svg, NULL);
     assert_int_equal(count(doc, "class=\"primitive\""), 3);
     assert_int_equal(count(doc, "<clipPath"), 1); /* only the set of three is contoured */
+    assert_non_null(strstr(doc, "<clipPath id=\"corax-net-0\">"));
     assert_int_equal(count(doc, ">no readings</text>"), 1);
     assert_non_null(strstr(doc, "too few for kappa and cone"));
     corax_svg_free(svg);
+    /* several pages in one document keep their ids apart */
+    style.id_prefix = "hole-7_net";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_non_null(strstr(doc, "<clipPath id=\"hole-7_net-0\">"));
+    assert_non_null(strstr(doc, "clip-path=\"url(#hole-7_net-0)\""));
+    assert_null(strstr(doc, "corax-net"));
+    corax_svg_free(svg);
+    style.id_prefix = "a\"><script>";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_EARG);
+    assert_null(svg);
+    style.id_prefix = "7net";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_EARG);
+    style.id_prefix = NULL;
     corax_net_set empty = {"nothing", NULL, NULL, 0, NULL, 0, NULL, NULL, 0};
     assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_OK);
     assert_non_null(strstr(corax_svg_finish(svg, NULL), ">no readings</text>"));
