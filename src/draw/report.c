@@ -69,6 +69,7 @@ static const char css_page[] =
     ".g{-webkit-text-stroke:.6px #1a1a1a;paint-order:stroke fill}\n"
     ".g.sev-e{color:#a3271e}.g.sev-w{color:#e07b00}.g.sev-n{color:#6fc0ea}\n"
     "table{border-collapse:collapse;font-size:14px;margin:6px 0 14px}\n"
+    ".side-by-side{display:flex;flex-wrap:wrap;gap:8px 56px;align-items:flex-start}\n"
     "th,td{padding:4px 10px;border-bottom:1px solid #d5d9de;text-align:left;"
     "vertical-align:top}\n"
     "th{background:#f3f5f7;font-weight:600}\n"
@@ -308,7 +309,7 @@ static void by_hole(page *p)
     size_t wide[REPORT_SEVERITIES] = {0, 0, 0};
     for (size_t i = 0; i < m->nwide; i++)
         wide[m->finding[m->wide[i]].severity]++;
-    out(p, "<h3>By hole</h3>\n<table class=\"by-hole\">\n<thead><tr><th>Hole</th>");
+    out(p, "<div>\n<h3>By hole</h3>\n<table class=\"by-hole\">\n<thead><tr><th>Hole</th>");
     severity_heads(p);
     out(p, "<th class=\"num\">Length (m)</th><th class=\"num\">Stations</th>"
            "<th class=\"num\">Readings</th></tr></thead>\n<tbody>\n"
@@ -317,7 +318,7 @@ static void by_hole(page *p)
     out(p, "<td></td><td></td><td></td></tr>\n");
     for (size_t i = 0; i < m->nhole; i++)
         hole_row(p, &m->hole[i], i);
-    out(p, "</tbody>\n</table>\n");
+    out(p, "</tbody>\n</table>\n</div>\n");
 }
 
 typedef struct check_count {
@@ -352,7 +353,7 @@ static corax_status by_check(page *p)
         c[k].count[f->severity]++;
     }
     qsort(c, n, sizeof *c, check_order);
-    out(p, "<h3>By check</h3>\n");
+    out(p, "<div>\n<h3>By check</h3>\n");
     if (n == 0)
         out(p, "<p>No check found anything.</p>\n");
     else {
@@ -368,8 +369,7 @@ static corax_status by_check(page *p)
         corax_writer_printf(p->w, "<td class=\"num\">%zu</td></tr>\n",
                             c[k].count[0] + c[k].count[1] + c[k].count[2]);
     }
-    if (n)
-        out(p, "</tbody>\n</table>\n");
+    out(p, n ? "</tbody>\n</table>\n</div>\n" : "</div>\n");
     free(c);
     return CORAX_OK;
 }
@@ -386,9 +386,10 @@ static corax_status summary(page *p)
                               "rest in %zu of its %zu hole%s.</p>\n",
                         m->nfinding, m->nfinding == 1 ? "" : "s", m->nwide, with, m->nhole,
                         m->nhole == 1 ? "" : "s");
+    out(p, "<div class=\"side-by-side\">\n");
     by_hole(p);
     corax_status st = by_check(p);
-    out(p, "</section>\n");
+    out(p, "</div>\n</section>\n");
     return st;
 }
 

@@ -29,11 +29,13 @@ static double y_of(const strip *s, double depth) { return PLOT_TOP + depth * s->
 
 /* ---- symbols many at a time: one path per kind and lane ---- */
 
+/* A path of many copies of one symbol, opened with the first. */
 typedef struct glyphs {
+    corax_svg *svg;
     char shape[256]; /* one symbol's outline, relative to its centre */
-    char *text;
-    size_t len, cap;
-    int failed;
+    const char *cls; /* its classes, with the colour's */
+    size_t colour;
+    int open;
 } glyphs;
 
 /* Append a path step: a letter, then numbers (0 to 2 of them), each short. */
@@ -51,11 +53,12 @@ static size_t step(char *buf, size_t used, size_t cap, const char *letter, int c
 
 /* The outline of a shape as relative path steps from its centre: a circle
  * as two arcs, a polygon corner to corner. */
-static void glyphs_start(glyphs *g, corax_shape shape)
+static void glyphs_start(glyphs *g, corax_svg *svg, corax_shape shape, const char *cls,
+                         size_t colour)
 {
     double xy[2 * CORAX_SHAPE_CORNERS];
     size_t n = corax_palette_corners(shape, glyph, xy), cap = sizeof g->shape, used;
-    *g = (glyphs){0};
+    *g = (glyphs){.svg = svg, .cls = cls, .colour = colour};
     if (shape == CORAX_SHAPE_CIRCLE) {
         double r = hypot(xy[0], xy[1]);
         used = step(g->shape, 0, cap, "m", 2, -r, 0.0);
@@ -74,33 +77,16 @@ static void glyphs_start(glyphs *g, corax_shape shape)
 
 static void glyph_add(glyphs *g, double x, double y)
 {
-    char piece[sizeof g->shape + 48];
-    int used = snprintf(piece, sizeof piece, "M%.1f,%.1f%s", x, y, g->shape);
-    if (used <= 0 || (size_t)used >= sizeof piece)
-        return;
-    if (g->len + (size_t)used + 1 > g->cap) {
-        size_t cap = g->cap ? 2 * g->cap : 4096;
-        while (cap < g->len + (size_t)used + 1)
-            cap *= 2;
-        char *t = realloc(g->text, cap);
-        if (!t) {
-            g->failed = 1;
-            return;
-        }
-        g->text = t;
-        g->cap = cap;
-    }
-    memcpy(g->text + g->len, piece, (size_t)used + 1);
-    g->len += (size_t)used;
+    if (!g->open)
+        corax_svg_raw(g->svg, "<path class=\"%s c%zu\" d=\"", g->cls, g->colour);
+    g->open = 1;
+    corax_svg_raw(g->svg, "M%.1f,%.1f%s", x, y, g->shape);
 }
 
-static void glyphs_put(corax_svg *svg, glyphs *g, const char *cls, size_t colour)
+static void glyphs_end(glyphs *g)
 {
-    if (g->len)
-        corax_svg_raw(svg, "<path class=\"%s c%zu\" d=\"%s\"/>\n", cls, colour, g->text);
-    free(g->text);
-    g->text = NULL;
-    g->len = g->cap = 0;
+    if (g->open)
+        corax_svg_raw(g->svg, "\"/>\n");
 }
 
 /* ---- the frame ---- */
@@ -200,43 +186,49 @@ static void survey(const strip *s)
 
 static size_t every_kth(size_t n, size_t cap) { return n > cap ? (n + cap - 1) / cap : 1; }
 
-/* The readings, kind by kind; CORAX_ENOMEM. */
-static corax_status readings(const strip *s, report_strip_counts *c)
+/* Where a reading goes: in the alpha lane (filled when it has a beta, else
+ * open), or in the beta lane. */
+enum lane { ALPHA_FILLED, ALPHA_OPEN, BETA };
+
+/* The readings of one kind in one lane, as one path. */
+static void lane_of_kind(const strip *s, size_t k, enum lane lane, size_t step_by,
+                         size_t *drawn)
 {
     const report_model *m = s->m;
     const report_hole *h = s->h;
-    int failed = 0;
+    glyphs g;
+    glyphs_start(&g, s->svg, corax_palette_shape_of(k), lane == ALPHA_OPEN ? "reading open"
+                                                                          : "reading",
+                 corax_palette_colour_of(k));
+    for (size_t j = 0; j < h->nreading; j += step_by) {
+        size_t i = h->reading[j];
+        const corax_reading *r = &m->in->readings[i].reading;
+        if (m->kind_of[i] != k || !isfinite(r->depth) || !isfinite(r->alpha) ||
+            (lane == ALPHA_OPEN) == isfinite(r->beta))
+            continue;
+        double y = y_of(s, r->depth);
+        if (lane == BETA) {
+            glyph_add(&g, BETA_X + BETA_W * corax_wrap_degrees(corax_deg(r->beta), 3) / 360.0, y);
+            continue;
+        }
+        glyph_add(&g, ALPHA_X + ALPHA_W * fmin(fmax(corax_deg(r->alpha), 0.0), 90.0) / 90.0, y);
+        ++*drawn;
+    }
+    glyphs_end(&g);
+}
+
+/* The readings, kind by kind. */
+static void readings(const strip *s, report_strip_counts *c)
+{
+    const report_hole *h = s->h;
     c->step = every_kth(h->nreading, REPORT_STRIP_CAP);
     for (size_t j = 0; j < h->nreading; j++) {
-        const corax_reading *r = &m->in->readings[h->reading[j]].reading;
+        const corax_reading *r = &s->m->in->readings[h->reading[j]].reading;
         c->blank += !isfinite(r->depth) || !isfinite(r->alpha);
     }
-    for (size_t k = 0; k < m->nkind; k++) {
-        glyphs alpha, hollow, beta;
-        size_t colour = corax_palette_colour_of(k);
-        glyphs_start(&alpha, corax_palette_shape_of(k));
-        glyphs_start(&hollow, corax_palette_shape_of(k));
-        glyphs_start(&beta, corax_palette_shape_of(k));
-        for (size_t j = 0; j < h->nreading; j += c->step) {
-            size_t i = h->reading[j];
-            const corax_reading *r = &m->in->readings[i].reading;
-            if (m->kind_of[i] != k || !isfinite(r->depth) || !isfinite(r->alpha))
-                continue;
-            double y = y_of(s, r->depth), a = fmin(fmax(corax_deg(r->alpha), 0.0), 90.0);
-            int oriented = isfinite(r->beta);
-            glyph_add(oriented ? &alpha : &hollow, ALPHA_X + ALPHA_W * a / 90.0, y);
-            if (oriented) {
-                double b = corax_wrap_degrees(corax_deg(r->beta), 3);
-                glyph_add(&beta, BETA_X + BETA_W * b / 360.0, y);
-            }
-            c->drawn++;
-        }
-        failed |= alpha.failed || hollow.failed || beta.failed;
-        glyphs_put(s->svg, &alpha, "reading", colour);
-        glyphs_put(s->svg, &hollow, "reading open", colour);
-        glyphs_put(s->svg, &beta, "reading", colour);
-    }
-    return failed ? CORAX_ENOMEM : CORAX_OK;
+    for (size_t k = 0; k < s->m->nkind; k++)
+        for (int lane = ALPHA_FILLED; lane <= BETA; lane++)
+            lane_of_kind(s, k, (enum lane)lane, c->step, &c->drawn);
 }
 
 /* ---- findings ---- */
@@ -351,11 +343,11 @@ corax_status corax_report_strip(const report_model *m, const report_hole *h,
     depth_axis(&s);
     lane_titles(&s);
     survey(&s);
-    corax_status st = readings(&s, counts);
+    readings(&s, counts);
     finding_marks(&s);
     key = (report_key){s.svg, 20, STRIP_W - 10, 20, s.bottom + 38};
     strip_key(&s, &key);
-    if (st != CORAX_OK || !corax_svg_finish(s.svg, NULL)) {
+    if (!corax_svg_finish(s.svg, NULL)) {
         corax_svg_free(s.svg);
         return CORAX_ENOMEM;
     }

@@ -188,23 +188,24 @@ static void section_ends(corax_svg *svg, const view *v)
 
 /* ---- holes ---- */
 
+/* A hole's path in runs, solid where surveyed and dashed where projected;
+ * a long run in pieces of up to 256 points that meet end to end. */
 static void hole_path(corax_svg *svg, const view *v, const report_hole *h)
 {
+    enum { PIECE = 256 };
+    double xy[2 * PIECE];
     for (size_t i = 0; i + 1 < h->ntrace;) {
         int surveyed = h->trace[i + 1].surveyed;
         size_t j = i + 1; /* the run of segments that are surveyed, or not */
         while (j + 1 < h->ntrace && h->trace[j + 1].surveyed == surveyed)
             j++;
-        corax_svg_path_begin(svg, surveyed ? "path" : "path projected");
-        for (size_t k = i; k <= j; k++) {
-            double x, y;
-            on_page(v, h->trace[k].at, &x, &y);
-            if (k == i)
-                corax_svg_path_move(svg, x, y);
-            else
-                corax_svg_path_line(svg, x, y);
+        for (size_t k = i; k < j;) {
+            size_t n = 0;
+            for (size_t q = k; q <= j && n < PIECE; q++, n++)
+                on_page(v, h->trace[q].at, &xy[2 * n], &xy[2 * n + 1]);
+            corax_svg_poly(svg, xy, n, 0, surveyed ? "path" : "path projected");
+            k += n - 1;
         }
-        corax_svg_path_end(svg, 0);
         i = j;
     }
 }
@@ -295,26 +296,22 @@ void corax_report_finding_title(corax_svg *svg, const corax_finding *f, int with
     corax_svg_raw(svg, "</title>\n");
 }
 
-/* The stretch from depth a to b down the hole, as a band along its path. */
+/* The stretch from depth a to b down the hole, as a band along its path:
+ * a point every 2 m or so, at most 201. */
 static void stretch(corax_svg *svg, const view *v, const report_hole *h, double a, double b,
                     corax_severity s)
 {
     static const char *const cls[REPORT_SEVERITIES] = {"stretch sev-n", "stretch sev-w",
                                                        "stretch sev-e"};
-    double lo = fmin(a, b), hi = fmax(a, b);
-    int steps = (int)fmin(200.0, ceil((hi - lo) / 2.0)) + 1;
-    corax_svg_path_begin(svg, cls[s]);
+    enum { MOST = 200 };
+    double lo = fmin(a, b), hi = fmax(a, b), xy[2 * (MOST + 1)];
+    int steps = (int)fmin(MOST, ceil((hi - lo) / 2.0) + 1);
     for (int k = 0; k <= steps; k++) {
         corax_vec3 at;
-        double x, y;
         corax_report_hole_at(h, lo + (hi - lo) * k / steps, &at);
-        on_page(v, at, &x, &y);
-        if (k == 0)
-            corax_svg_path_move(svg, x, y);
-        else
-            corax_svg_path_line(svg, x, y);
+        on_page(v, at, &xy[2 * k], &xy[2 * k + 1]);
     }
-    corax_svg_path_end(svg, 0);
+    corax_svg_poly(svg, xy, (size_t)steps + 1, 0, cls[s]);
 }
 
 /* Notes first, errors last, so that the worst stays on top. */
