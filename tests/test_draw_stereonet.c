@@ -131,6 +131,18 @@ static void test_page_of_one_set(void **state)
     assert_int_equal(count(doc, "class=\"cone k0\""), 1);
     assert_int_equal(count(doc, "class=\"axisbox\""), 3);
     assert_int_equal(count(doc, "class=\"pt f0\""), N + 2); /* poles, legend, mean dot */
+    assert_non_null(strstr(doc, ">ring: mean; closed curve: 95% cone</text>"));
+    assert_non_null(strstr(doc, ">boxed 1, 2, 3: principal axes</text>"));
+    corax_svg_free(svg);
+    /* without a summary, no mean, cone or axes is drawn, and the key says none */
+    set.pole_summary = NULL;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_int_equal(count(doc, "class=\"meanring"), 0);
+    assert_null(strstr(doc, "ring: mean"));
+    assert_null(strstr(doc, "the mean plane"));
+    assert_null(strstr(doc, "principal axes"));
+    assert_non_null(strstr(doc, ">filled: poles of planes</text>"));
     corax_svg_free(svg);
 }
 

@@ -357,13 +357,23 @@ static void density_legend(net *n, double step, size_t levels, size_t count, int
     n->py += 6;
 }
 
-static void symbol_key(net *n, int one_set, int has_lines)
+/* The key names only the marks that are drawn: means, cones and axes come
+ * with the sets' summaries. */
+static void symbol_key(net *n, const plan *p, int has_lines)
 {
+    int means = 0, plane_means = 0;
+    for (size_t i = 0; i < p->nsets; i++) {
+        const corax_net_set *set = &p->sets[i];
+        plane_means |= set->pole_summary && set->npoles;
+        means |= (set->pole_summary && set->npoles) || (set->line_summary && set->nlines);
+    }
     panel_text(n, "label", 0, "Key");
     panel_text(n, "small", 0, "filled: poles of planes%s", has_lines ? "; hollow: lines" : "");
-    panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
-    panel_text(n, "small", 0, "dashed: the mean plane");
-    if (one_set)
+    if (means)
+        panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
+    if (plane_means)
+        panel_text(n, "small", 0, "dashed: the mean plane");
+    if (p->nsets == 1 && p->sets[0].pole_summary && p->sets[0].npoles >= 2)
         panel_text(n, "small", 0, "boxed 1, 2, 3: principal axes");
 }
 
@@ -481,7 +491,7 @@ static void draw_panel(net *n, const plan *p)
     else if (n->style->contours && total)
         panel_text(n, "note", 0, "no contours: fewer than %d readings", CORAX_FISHER_MIN_READINGS);
     if (total)
-        symbol_key(n, one_set, has_lines);
+        symbol_key(n, p, has_lines);
 }
 
 static corax_status draw_net(net *n, const plan *p)
