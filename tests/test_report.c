@@ -102,6 +102,7 @@ static fixture *make_fixture(void)
     add_reading(f, "A<1&B", 40, 30, 100, "joint <j>");
     add_reading(f, "GHOST", 12, 30, 100, "bedding");
     add_reading(f, "DH10", 50, 60, 300, "");
+    add_reading(f, "DH2", 30, 45, 90, "bedding");
     corax_findings *F = &f->findings;
     assert_int_equal(corax_findings_add(F, CORAX_NOTE, "fabric", NULL, 0, NULL, NAN,
                                         "the program's fabric <spreads> & scatters"), CORAX_OK);
@@ -234,6 +235,10 @@ static void test_page_holds_everything_escaped(void **state)
     assert_true(at(doc + dh10, "No findings.") < at(doc + dh10, "</article>"));
     size_t dh2 = at(doc, "<h3>DH2</h3>");
     assert_true(at(doc + dh2, "the hole has no path") < at(doc + dh2, "</article>"));
+    assert_true(at(doc + dh2, "No stereonet: the hole has no path") < at(doc + dh2, "</article>"));
+    size_t ghost = at(doc, "<h3>GHOST</h3>");
+    assert_true(at(doc + ghost, "No stereonet: the hole is not in the collars") <
+                at(doc + ghost, "</article>"));
     /* the caution, at the head and at the foot */
     assert_int_equal(count(doc, "must be reviewed by a competent person"), 2);
     assert_int_equal(count(doc, "Local codes and licensed practice prevail"), 2);

@@ -621,9 +621,13 @@ static corax_status hole_figures(page *p, const report_hole *h, size_t index)
         st = picture(p, svg);
         net_caption(p, h, &counts);
     } else if (st == CORAX_OK)
-        out(p, h->nreading ? "<p>No reading of this hole could be placed on a stereonet: the "
-                             "hole has no path, or no reading makes a plane or a line.</p>\n"
-                           : "<p>No readings, so no stereonet.</p>\n");
+        out(p, !h->nreading  ? "<p>No readings, so no stereonet.</p>\n"
+               : !h->path    ? "<p>No stereonet: the hole is not in the collars, so its "
+                               "readings cannot be oriented.</p>\n"
+               : !h->traced  ? "<p>No stereonet: the hole has no path (no stations and no "
+                               "collar direction), so its readings cannot be oriented.</p>\n"
+                             : "<p>No stereonet: no reading of this hole makes a plane or a "
+                               "line.</p>\n");
     corax_svg_free(svg);
     out(p, "</figure>\n</div>\n");
     return st;
