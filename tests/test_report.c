@@ -493,6 +493,9 @@ static void test_failed_write_leaves_nothing(void **state)
     assert_int_equal(corax_report_write(&f->in, page, &err), CORAX_EARG);
     assert_int_equal(entries(dir), 1);
     assert_int_equal(corax_report_write(NULL, page, &err), CORAX_EARG);
+    f->findings.item[0].severity = CORAX_NOTE;
+    f->in.readings = NULL; /* counted but not given */
+    assert_int_equal(corax_report_write(&f->in, page, &err), CORAX_EARG);
     unlink(inside);
     rmdir(taken);
     rmdir(dir);

@@ -25,7 +25,12 @@ typedef struct strip {
     double bottom; /* the plot's foot, pixels */
 } strip;
 
-static double y_of(const strip *s, double depth) { return PLOT_TOP + depth * s->ppm; }
+/* Depth on the page; a depth outside the plot (a negative one, say) sits at
+ * its nearer edge. */
+static double y_of(const strip *s, double depth)
+{
+    return PLOT_TOP + fmin(fmax(depth, 0.0), s->depth) * s->ppm;
+}
 
 /* ---- symbols many at a time: one path per kind and lane ---- */
 
