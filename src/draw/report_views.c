@@ -12,7 +12,7 @@
 
 /* Page geometry, pixels. */
 enum { LEFT = 84, TOP = 34, RIGHT = 26, BOTTOM = 80 };
-static const double max_w = 1180.0, max_h = 700.0;
+static const double max_w = 1180.0, max_h = 800.0;
 
 /* How world points fall on the page: a plan (x east, y north) or a vertical
  * section along an azimuth through an origin (distance along, elevation). */
@@ -224,25 +224,26 @@ static int clear_of(const box *b, const box *placed, size_t n)
     return 1;
 }
 
+/* Right, left, above or below the collar, else stacked higher above it:
+ * the first place clear of every name placed so far. */
 static void hole_name(corax_svg *svg, double x, double y, const char *name, box *placed,
                       size_t *nplaced)
 {
-    /* right, left, above, below, then further out on the right and left */
     static const double spot[][2] = {{8, 4}, {-8, 4}, {0, -9}, {0, 17},
                                      {8, -9}, {8, 17}, {-8, -9}, {-8, 17}};
-    double w = corax_report_text_width(name, 11.5), hgt = 12;
+    enum { SPOTS = sizeof spot / sizeof spot[0], STACKED = 8 };
+    double w = corax_report_text_width(name, 11.5), hgt = 12, base = y;
     box b = {0, 0, 0, 0};
-    size_t pick = 0;
-    for (size_t k = 0; k < sizeof spot / sizeof spot[0]; k++) {
-        double dx = spot[k][0], base = y + spot[k][1];
+    for (int k = 0; k < SPOTS + STACKED; k++) {
+        double dx = k < SPOTS ? spot[k][0] : 0.0;
+        base = y + (k < SPOTS ? spot[k][1] : -9.0 - 13.0 * (k - SPOTS + 1));
         double x0 = dx > 0 ? x + dx : dx < 0 ? x + dx - w : x - w / 2;
         b = (box){x0, base - hgt + 2, x0 + w, base + 2};
-        pick = k;
         if (clear_of(&b, placed, *nplaced))
             break;
     }
     placed[(*nplaced)++] = b;
-    corax_svg_text(svg, b.x0, y + spot[pick][1], "hole-name", "start", name);
+    corax_svg_text(svg, b.x0, base, "hole-name", "start", name);
 }
 
 static void collars(corax_svg *svg, const report_model *m, const view *v)
