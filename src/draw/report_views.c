@@ -176,10 +176,15 @@ static void north_arrow(corax_svg *svg, const view *v)
     corax_svg_text(svg, x, y + 46, "arrow-n", "middle", "N");
 }
 
-/* The section's azimuth over each end. */
+/* The section's azimuth over each end, and which section it is between. */
 static void section_ends(corax_svg *svg, const view *v)
 {
-    char t[32];
+    char t[160];
+    double a = corax_wrap_degrees(corax_deg(v->azimuth), 0);
+    snprintf(t, sizeof t, "vertical section %03.0f\xc2\xb0\xe2\x80\x93%03.0f\xc2\xb0 through "
+             "the program's centre, looking toward %03.0f\xc2\xb0",
+             corax_wrap_degrees(a + 180.0, 0), a, corax_wrap_degrees(a - 90.0, 0));
+    corax_svg_text(svg, v->left + v->w / 2, v->top - 10, "axis-name", "middle", t);
     snprintf(t, sizeof t, "%03.0f\xc2\xb0", corax_wrap_degrees(corax_deg(v->azimuth) + 180.0, 0));
     corax_svg_text(svg, v->left, v->top - 10, "end-azimuth", "start", t);
     snprintf(t, sizeof t, "%03.0f\xc2\xb0", corax_wrap_degrees(corax_deg(v->azimuth), 0));
