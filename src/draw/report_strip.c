@@ -307,18 +307,17 @@ static void strip_key(const strip *s, report_key *k)
 {
     const report_model *m = s->m;
     char t[128], cls[32];
-    size_t *count = calloc(m->nkind + 1, sizeof *count);
-    for (size_t j = 0; count && j < s->h->nreading; j++)
-        count[m->kind_of[s->h->reading[j]]]++;
-    for (size_t i = 0; count && i < m->nkind; i++) {
-        if (!count[i])
+    for (size_t i = 0; i < m->nkind; i++) { /* the kinds of this hole, with their counts */
+        size_t count = 0;
+        for (size_t j = 0; j < s->h->nreading; j++)
+            count += m->kind_of[s->h->reading[j]] == i;
+        if (!count)
             continue;
-        snprintf(t, sizeof t, "%s (%zu)", *m->kind[i] ? m->kind[i] : "no kind given", count[i]);
+        snprintf(t, sizeof t, "%s (%zu)", *m->kind[i] ? m->kind[i] : "no kind given", count);
         snprintf(cls, sizeof cls, "reading c%zu", corax_palette_colour_of(i));
         double x = corax_report_key_item(k, 14, t);
         corax_palette_symbol(k->svg, corax_palette_shape_of(i), x + 5, k->y, 9, cls);
     }
-    free(count);
     double x = corax_report_key_item(k, 14, "hollow: alpha without beta");
     corax_palette_symbol(k->svg, CORAX_SHAPE_CIRCLE, x + 5, k->y, 9, "reading open c5");
     corax_report_key_severities(k);

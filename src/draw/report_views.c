@@ -251,10 +251,13 @@ static void hole_name(corax_svg *svg, double x, double y, const char *name, box 
     corax_svg_text(svg, b.x0, base, "hole-name", "start", name);
 }
 
-static void collars(corax_svg *svg, const report_model *m, const view *v)
+/* The collars and their names; CORAX_ENOMEM. */
+static corax_status collars(corax_svg *svg, const report_model *m, const view *v)
 {
     box *placed = malloc((m->nhole + 1) * sizeof *placed);
     size_t nplaced = 0;
+    if (!placed)
+        return CORAX_ENOMEM;
     corax_svg_group(svg, "collars", NULL);
     for (size_t i = 0; i < m->nhole; i++) {
         const report_hole *h = &m->hole[i];
@@ -263,11 +266,11 @@ static void collars(corax_svg *svg, const report_model *m, const view *v)
         double x, y;
         on_page(v, h->trace[0].at, &x, &y);
         corax_svg_circle(svg, x, y, 3.6, h->traced ? "collar" : "collar untraced");
-        if (placed)
-            hole_name(svg, x, y, h->name, placed, &nplaced);
+        hole_name(svg, x, y, h->name, placed, &nplaced);
     }
     corax_svg_end_group(svg);
     free(placed);
+    return CORAX_OK;
 }
 
 /* ---- findings ---- */
@@ -422,14 +425,14 @@ static corax_status draw(const report_model *m, view *v, corax_svg **out)
     for (size_t i = 0; i < m->nhole; i++)
         hole_path(svg, v, &m->hole[i]);
     corax_svg_end_group(svg);
-    collars(svg, m, v);
+    corax_status st = collars(svg, m, v);
     findings(svg, m, v);
     scale_bar(svg, v);
     if (v->plan)
         north_arrow(svg, v);
     key = (report_key){svg, v->left, width - RIGHT, v->left, v->top + v->h + 64};
     view_key(&key);
-    if (!corax_svg_finish(svg, NULL)) {
+    if (st != CORAX_OK || !corax_svg_finish(svg, NULL)) {
         corax_svg_free(svg);
         return CORAX_ENOMEM;
     }
