@@ -24,6 +24,7 @@ static void test_svg_document(void **state)
     corax_svg_path_line(s, -1.25, 2);
     corax_svg_path_end(s, 1);
     corax_svg_text(s, 5, 6, "t", "middle", "Hole <A&B> \"x\"");
+    corax_svg_text(s, 5, 20, NULL, NULL, "a\x01" "b \xd1" "C \xc3\xa9 \xe2\x80\x94 \xed\xa0");
     corax_svg_end_group(s);
     size_t n;
     const char *doc = corax_svg_finish(s, &n);
@@ -35,6 +36,8 @@ static void test_svg_document(void **state)
     assert_non_null(strstr(doc, "<polygon points=\"0,0 1,1 2,0\" class=\"p\"/>"));
     assert_non_null(strstr(doc, "d=\"M0,0 L-1.25,2 Z\""));
     assert_non_null(strstr(doc, ">Hole &lt;A&amp;B&gt; &quot;x&quot;</text>"));
+    /* a control character and a Latin-1 byte cannot stand in XML; UTF-8 stays */
+    assert_non_null(strstr(doc, ">a&#xFFFD;b &#xFFFD;C \xc3\xa9 \xe2\x80\x94 &#xFFFD;&#xFFFD;</text>"));
     assert_non_null(strstr(doc, "text-anchor=\"middle\""));
     assert_string_equal(doc + n - 7, "</svg>\n");
     /* finishing twice closes once */

@@ -131,6 +131,18 @@ static void test_page_of_one_set(void **state)
     assert_int_equal(count(doc, "class=\"cone k0\""), 1);
     assert_int_equal(count(doc, "class=\"axisbox\""), 3);
     assert_int_equal(count(doc, "class=\"pt f0\""), N + 2); /* poles, legend, mean dot */
+    assert_non_null(strstr(doc, ">ring: mean; closed curve: 95% cone</text>"));
+    assert_non_null(strstr(doc, ">boxed 1, 2, 3: principal axes</text>"));
+    corax_svg_free(svg);
+    /* without a summary, no mean, cone or axes is drawn, and the key says none */
+    set.pole_summary = NULL;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_int_equal(count(doc, "class=\"meanring"), 0);
+    assert_null(strstr(doc, "ring: mean"));
+    assert_null(strstr(doc, "the mean plane"));
+    assert_null(strstr(doc, "principal axes"));
+    assert_non_null(strstr(doc, ">filled: poles of planes</text>"));
     corax_svg_free(svg);
 }
 
@@ -160,9 +172,24 @@ static void test_groups_and_empty_sets(void **state)
     doc = corax_svg_finish(svg, NULL);
     assert_int_equal(count(doc, "class=\"primitive\""), 3);
     assert_int_equal(count(doc, "<clipPath"), 1); /* only the set of three is contoured */
+    assert_non_null(strstr(doc, "<clipPath id=\"corax-net-0\">"));
     assert_int_equal(count(doc, ">no readings</text>"), 1);
     assert_non_null(strstr(doc, "too few for kappa and cone"));
     corax_svg_free(svg);
+    /* several pages in one document keep their ids apart */
+    style.id_prefix = "hole-7_net";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_non_null(strstr(doc, "<clipPath id=\"hole-7_net-0\">"));
+    assert_non_null(strstr(doc, "clip-path=\"url(#hole-7_net-0)\""));
+    assert_null(strstr(doc, "corax-net"));
+    corax_svg_free(svg);
+    style.id_prefix = "a\"><script>";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_EARG);
+    assert_null(svg);
+    style.id_prefix = "7net";
+    assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_EARG);
+    style.id_prefix = NULL;
     corax_net_set empty = {"nothing", NULL, NULL, 0, NULL, 0, NULL, NULL, 0};
     assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_OK);
     assert_non_null(strstr(corax_svg_finish(svg, NULL), ">no readings</text>"));

@@ -18,22 +18,30 @@
 extern "C" {
 #endif
 
-/* What the report shows. Everything is borrowed. */
+/* What the report shows. Everything is borrowed; any pointer may be NULL
+ * (with its count 0). */
 typedef struct corax_report_input {
     const char *title;                    /* e.g. the project's name */
     const char *const *inputs;            /* the files read, for the header */
     size_t ninputs;
     const char *version;                  /* corax's version */
     const char *when;                     /* the run's time, as text */
-    const corax_program *program;         /* the desurveyed holes */
-    const corax_findings *findings;       /* sorted by hole and depth */
-    const corax_qa_reading *readings;     /* the core log (may be NULL, n 0) */
+    const corax_program *program;         /* the desurveyed holes (NULL: none) */
+    const corax_findings *findings;       /* sorted by hole and depth (corax_findings_sort);
+                                             each hole's are shown in the order given */
+    const corax_qa_reading *readings;     /* the core log (may be NULL, n 0); each reading
+                                             goes to the hole its name names */
     size_t nreadings;
-    const corax_convert_options *convert; /* how readings convert (for the nets) */
+    const corax_convert_options *convert; /* how readings convert (for the nets; NULL:
+                                             the defaults) */
 } corax_report_input;
 
 /* Write the report to path ("-" for standard output), whole or not at all.
- * CORAX_EIO (err names the file), CORAX_ENOMEM. */
+ * Every hole named by the program, the findings or the readings gets its
+ * part, in the order corax_findings_sort() puts holes in. Text from the data
+ * is escaped; nothing on the page is fetched or run.
+ * CORAX_EARG for a NULL input or path, a finding of no known severity, or a
+ * count without its array; CORAX_EIO (err names the file), CORAX_ENOMEM. */
 corax_status corax_report_write(const corax_report_input *input, const char *path,
                                 corax_error *err);
 

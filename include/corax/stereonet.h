@@ -43,9 +43,14 @@ typedef struct corax_net_style {
     int weighted;                    /* the weights are Terzaghi's: say so */
     double min_angle;                /* their cap angle (radians), for the caption */
     const char *title;               /* page title; may be NULL */
+    const char *id_prefix;           /* starts the page's element ids (letters,
+                                        digits, - and _, a letter first), so that
+                                        several pages can share one HTML document;
+                                        NULL: "corax-net" */
 } corax_net_style;
 
-/* The defaults: equal-area, poles, Kamb contours every 2 sigma, grid 121. */
+/* The defaults: equal-area, poles, Kamb contours every 2 sigma, grid 121,
+ * ids starting "corax-net". */
 corax_net_style corax_net_style_default(void);
 
 /* A page with every set on one net (colours, shapes and a legend), or, with
@@ -53,7 +58,8 @@ corax_net_style corax_net_style_default(void);
  * of the sets on a net (over the lines when it has no poles), when there are
  * at least CORAX_FISHER_MIN_READINGS of them. An empty net shows the
  * primitive and a note. The caller owns *out (corax_svg_free).
- * CORAX_EARG for a bad style or nsets == 0; CORAX_ENOMEM. */
+ * CORAX_EARG for a bad style (an id prefix included) or nsets == 0;
+ * CORAX_ENOMEM. */
 corax_status corax_stereonet_page(const corax_net_set *sets, size_t nsets,
                                   const corax_net_style *style, int net_per_set,
                                   corax_svg **out);

@@ -56,7 +56,8 @@ void corax_svg_text(corax_svg *svg, double x, double y, const char *cls, const c
 /* A <title> child for the element just opened by corax_svg_group (tooltips). */
 void corax_svg_title(corax_svg *svg, const char *text);
 
-/* Append text escaped for XML (&, <, >, ", ') to the document. */
+/* Append text escaped for XML (&, <, >, ", ') to the document; control
+ * characters and bytes that are not UTF-8 become U+FFFD. */
 void corax_svg_escaped(corax_svg *svg, const char *text);
 
 /* The finished document (closing tag added once); NULL after a failed

@@ -6,6 +6,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "common/order.h"
 #include "corax/finding.h"
 #include "corax/status.h"
 
@@ -108,9 +109,7 @@ corax_status corax_findings_add_range(corax_findings *list, corax_severity sever
     return st;
 }
 
-/* Hole names compare as text, but with their digits as numbers, so that DH2
- * comes before DH10. */
-static int hole_cmp(const char *a, const char *b)
+int corax_hole_name_cmp(const char *a, const char *b)
 {
     while (*a && *b) {
         if (isdigit((unsigned char)*a) && isdigit((unsigned char)*b)) {
@@ -149,7 +148,7 @@ static int finding_cmp(const void *pa, const void *pb)
 {
     const keyed *ka = pa, *kb = pb;
     const corax_finding *a = ka->f, *b = kb->f;
-    int c = hole_cmp(a->hole, b->hole);
+    int c = corax_hole_name_cmp(a->hole, b->hole);
     if (c)
         return c;
     int na = isnan(a->depth), nb = isnan(b->depth);

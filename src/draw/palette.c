@@ -19,33 +19,52 @@ corax_shape corax_palette_shape_of(size_t set)
     return (corax_shape)((set + set / CORAX_PALETTE_SIZE) % CORAX_SHAPES);
 }
 
-/* A regular polygon of k corners (a star when `star`), the first at angle a0
- * (radians clockwise from up), inscribed in radius r. */
-static void polygon(corax_svg *svg, double x, double y, double r, int k, double a0, int star,
-                    const char *cls)
+/* The corners of a regular polygon of k corners (a star of k points when
+ * `star`), the first at angle a0 (radians clockwise from up), inscribed in
+ * radius r about (0, dy); returns how many. */
+static size_t regular(double *xy, double dy, double r, int k, double a0, int star)
 {
-    double xy[20];
     int n = star ? 2 * k : k;
     for (int i = 0; i < n; i++) {
         double a = a0 + 2.0 * CORAX_PI * i / n, rr = star && i % 2 ? 0.45 * r : r;
-        xy[2 * i] = x + rr * sin(a);
-        xy[2 * i + 1] = y - rr * cos(a);
+        xy[2 * i] = rr * sin(a);
+        xy[2 * i + 1] = dy - rr * cos(a);
     }
-    corax_svg_poly(svg, xy, (size_t)n, 1, cls);
+    return (size_t)n;
+}
+
+size_t corax_palette_corners(corax_shape shape, double size, double *xy)
+{
+    double r = 0.5 * size;
+    switch (shape) {
+    case CORAX_SHAPE_CIRCLE: return regular(xy, 0.0, 0.85 * r, CORAX_SHAPE_CORNERS, 0.0, 0);
+    case CORAX_SHAPE_SQUARE: return regular(xy, 0.0, 0.75 * sqrt(2.0) * r, 4, 0.25 * CORAX_PI, 0);
+    case CORAX_SHAPE_TRIANGLE: return regular(xy, 0.15 * r, 1.1 * r, 3, 0.0, 0);
+    case CORAX_SHAPE_DIAMOND: return regular(xy, 0.0, r, 4, 0.0, 0);
+    case CORAX_SHAPE_DOWN_TRIANGLE: return regular(xy, -0.15 * r, 1.1 * r, 3, CORAX_PI, 0);
+    case CORAX_SHAPE_HEXAGON: return regular(xy, 0.0, 0.95 * r, 6, 0.0, 0);
+    case CORAX_SHAPE_STAR: return regular(xy, 0.0, 1.15 * r, 5, 0.0, 1);
+    case CORAX_SHAPE_PENTAGON: return regular(xy, 0.0, 0.95 * r, 5, 0.0, 0);
+    }
+    return 0;
 }
 
 void corax_palette_symbol(corax_svg *svg, corax_shape shape, double x, double y, double size,
                           const char *cls)
 {
-    double r = 0.5 * size;
-    switch (shape) {
-    case CORAX_SHAPE_CIRCLE: corax_svg_circle(svg, x, y, 0.85 * r, cls); break;
-    case CORAX_SHAPE_SQUARE: corax_svg_rect(svg, x - 0.75 * r, y - 0.75 * r, 1.5 * r, 1.5 * r, cls); break;
-    case CORAX_SHAPE_TRIANGLE: polygon(svg, x, y + 0.15 * r, 1.1 * r, 3, 0.0, 0, cls); break;
-    case CORAX_SHAPE_DIAMOND: polygon(svg, x, y, r, 4, 0.0, 0, cls); break;
-    case CORAX_SHAPE_DOWN_TRIANGLE: polygon(svg, x, y - 0.15 * r, 1.1 * r, 3, CORAX_PI, 0, cls); break;
-    case CORAX_SHAPE_HEXAGON: polygon(svg, x, y, 0.95 * r, 6, 0.0, 0, cls); break;
-    case CORAX_SHAPE_STAR: polygon(svg, x, y, 1.15 * r, 5, 0.0, 1, cls); break;
-    case CORAX_SHAPE_PENTAGON: polygon(svg, x, y, 0.95 * r, 5, 0.0, 0, cls); break;
+    double r = 0.5 * size, xy[2 * CORAX_SHAPE_CORNERS];
+    if (shape == CORAX_SHAPE_CIRCLE) {
+        corax_svg_circle(svg, x, y, 0.85 * r, cls);
+        return;
     }
+    if (shape == CORAX_SHAPE_SQUARE) {
+        corax_svg_rect(svg, x - 0.75 * r, y - 0.75 * r, 1.5 * r, 1.5 * r, cls);
+        return;
+    }
+    size_t n = corax_palette_corners(shape, size, xy);
+    for (size_t i = 0; i < n; i++) {
+        xy[2 * i] += x;
+        xy[2 * i + 1] += y;
+    }
+    corax_svg_poly(svg, xy, n, 1, cls);
 }

@@ -32,6 +32,14 @@ typedef enum corax_shape {
 size_t corax_palette_colour_of(size_t set);
 corax_shape corax_palette_shape_of(size_t set);
 
+/* The outline of a shape centred on the origin, about `size` pixels across,
+ * as corners xy[2i], xy[2i + 1] (y down the page; room for
+ * 2 CORAX_SHAPE_CORNERS numbers), a circle as a polygon of
+ * CORAX_SHAPE_CORNERS corners; returns how many. For drawing many symbols
+ * as one compact path. */
+enum { CORAX_SHAPE_CORNERS = 12 };
+size_t corax_palette_corners(corax_shape shape, double size, double *xy);
+
 /* Draw a shape centred at (x, y), about `size` pixels across. */
 void corax_palette_symbol(corax_svg *svg, corax_shape shape, double x, double y, double size,
                           const char *cls);

@@ -2,6 +2,7 @@
  * contours first, then great circles, points, means and cones, then the
  * primitive, ticks and north mark on top; a side panel holds the legend,
  * counts, statistics and notes. */
+#include <ctype.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdio.h>
@@ -26,7 +27,7 @@ typedef struct net {
 corax_net_style corax_net_style_default(void)
 {
     corax_net_style s = {CORAX_EQUAL_AREA, CORAX_NET_POLES, 1, CORAX_DENSITY_KAMB, 2.0, 121, 0,
-                         corax_rad(15.0), NULL};
+                         corax_rad(15.0), NULL, NULL};
     return s;
 }
 
@@ -207,9 +208,10 @@ static corax_status draw_density(const net *n, const plan *p)
     corax_grid g = {s->grid, s->grid, -edge, -edge, h, h, p->grid};
     corax_isolines lines = {0};
     corax_status st = CORAX_OK;
-    corax_svg_raw(n->svg, "<clipPath id=\"corax-net-%d\"><circle cx=\"%.2f\" cy=\"%.2f\" "
-                  "r=\"%.2f\"/></clipPath>\n<g clip-path=\"url(#corax-net-%d)\">\n", n->id, n->cx,
-                  n->cy, n->r, n->id);
+    const char *prefix = s->id_prefix ? s->id_prefix : "corax-net";
+    corax_svg_raw(n->svg, "<clipPath id=\"%s-%d\"><circle cx=\"%.2f\" cy=\"%.2f\" "
+                  "r=\"%.2f\"/></clipPath>\n<g clip-path=\"url(#%s-%d)\">\n", prefix, n->id,
+                  n->cx, n->cy, n->r, prefix, n->id);
     for (size_t k = 1; k <= p->levels && st == CORAX_OK; k++) {
         st = corax_isolines_trace(&g, (double)k * p->step, &lines);
         if (st == CORAX_OK && lines.count)
@@ -355,13 +357,23 @@ static void density_legend(net *n, double step, size_t levels, size_t count, int
     n->py += 6;
 }
 
-static void symbol_key(net *n, int one_set, int has_lines)
+/* The key names only the marks that are drawn: means, cones and axes come
+ * with the sets' summaries. */
+static void symbol_key(net *n, const plan *p, int has_lines)
 {
+    int means = 0, plane_means = 0;
+    for (size_t i = 0; i < p->nsets; i++) {
+        const corax_net_set *set = &p->sets[i];
+        plane_means |= set->pole_summary && set->npoles;
+        means |= (set->pole_summary && set->npoles) || (set->line_summary && set->nlines);
+    }
     panel_text(n, "label", 0, "Key");
     panel_text(n, "small", 0, "filled: poles of planes%s", has_lines ? "; hollow: lines" : "");
-    panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
-    panel_text(n, "small", 0, "dashed: the mean plane");
-    if (one_set)
+    if (means)
+        panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
+    if (plane_means)
+        panel_text(n, "small", 0, "dashed: the mean plane");
+    if (p->nsets == 1 && p->sets[0].pole_summary && p->sets[0].npoles >= 2)
         panel_text(n, "small", 0, "boxed 1, 2, 3: principal axes");
 }
 
@@ -479,7 +491,7 @@ static void draw_panel(net *n, const plan *p)
     else if (n->style->contours && total)
         panel_text(n, "note", 0, "no contours: fewer than %d readings", CORAX_FISHER_MIN_READINGS);
     if (total)
-        symbol_key(n, one_set, has_lines);
+        symbol_key(n, p, has_lines);
 }
 
 static corax_status draw_net(net *n, const plan *p)
@@ -580,13 +592,27 @@ static corax_status plan_page(const corax_net_set *sets, size_t nsets,
     return st;
 }
 
+/* An id prefix goes into markup unescaped: letters, digits, - and _ only. */
+static int id_prefix_ok(const char *p)
+{
+    if (!p)
+        return 1;
+    if (!isalpha((unsigned char)*p))
+        return 0;
+    for (; *p; p++)
+        if (!isalnum((unsigned char)*p) && *p != '-' && *p != '_')
+            return 0;
+    return 1;
+}
+
 corax_status corax_stereonet_page(const corax_net_set *sets, size_t nsets,
                                   const corax_net_style *style, int net_per_set,
                                   corax_svg **out)
 {
     *out = NULL;
     if (nsets == 0 || !(style->contour_step > 0.0) || style->grid < 3 ||
-        !(style->planes & (CORAX_NET_POLES | CORAX_NET_GREAT_CIRCLES)))
+        !(style->planes & (CORAX_NET_POLES | CORAX_NET_GREAT_CIRCLES)) ||
+        !id_prefix_ok(style->id_prefix))
         return CORAX_EARG;
     size_t nets = net_per_set ? nsets : 1;
     size_t cols = nets < 3 ? nets : 3, rows = (nets + cols - 1) / cols;

@@ -7,6 +7,7 @@
 
 #include "corax/output.h"
 #include "corax/svg.h"
+#include "draw/markup.h"
 
 struct corax_svg {
     char *text;
@@ -41,17 +42,11 @@ static void puts_(corax_svg *s, const char *t) { put(s, t, strlen(t)); }
 static void num(corax_svg *s, double v)
 {
     char buf[48];
-    size_t n = corax_format_fixed(buf, v, 2);
-    if (n == 0) { /* NaN: keep the document valid */
-        buf[0] = '0';
-        n = 1;
-    } else if (memchr(buf, '.', n)) { /* 12.50 -> 12.5, 3.00 -> 3 */
-        while (buf[n - 1] == '0')
-            n--;
-        if (buf[n - 1] == '.')
-            n--;
-    }
-    put(s, buf, n);
+    size_t n = corax_format_short(buf, v, 2);
+    if (n == 0) /* NaN: keep the document valid */
+        put(s, "0", 1);
+    else
+        put(s, buf, n);
 }
 
 void corax_svg_raw(corax_svg *s, const char *fmt, ...)
@@ -79,19 +74,9 @@ void corax_svg_raw(corax_svg *s, const char *fmt, ...)
     free(big);
 }
 
-void corax_svg_escaped(corax_svg *s, const char *t)
-{
-    for (const char *p = t; *p; p++) {
-        switch (*p) {
-        case '&': puts_(s, "&amp;"); break;
-        case '<': puts_(s, "&lt;"); break;
-        case '>': puts_(s, "&gt;"); break;
-        case '"': puts_(s, "&quot;"); break;
-        case '\'': puts_(s, "&#39;"); break;
-        default: put(s, p, 1);
-        }
-    }
-}
+static void sink(void *ctx, const char *t, size_t n) { put(ctx, t, n); }
+
+void corax_svg_escaped(corax_svg *s, const char *t) { corax_markup_escape(t, sink, s); }
 
 corax_svg *corax_svg_new(double width, double height)
 {

@@ -1,6 +1,8 @@
-/* Test helper for test_stereonet_render.sh: how many distinct colours a PNG
- * holds, and what share of its pixels differ from the most common one.
- * usage: png_colours FILE.png  ->  "WIDTH HEIGHT COLOURS INKED_PERCENT" */
+/* Test helper for the render tests: how many distinct colours a PNG holds,
+ * what share of its pixels differ from the most common one, and how many
+ * pixels are exactly each colour asked about.
+ * usage: png_colours FILE.png [#rrggbb...]
+ *        ->  "WIDTH HEIGHT COLOURS INKED_PERCENT [PIXELS...]" */
 #include <png.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -17,7 +19,7 @@ int main(int argc, char **argv)
     png_image img;
     memset(&img, 0, sizeof img);
     img.version = PNG_IMAGE_VERSION;
-    if (argc != 2 || !png_image_begin_read_from_file(&img, argv[1])) {
+    if (argc < 2 || !png_image_begin_read_from_file(&img, argv[1])) {
         fprintf(stderr, "png_colours: cannot read %s\n", argc > 1 ? argv[1] : "(none)");
         return 1;
     }
@@ -39,7 +41,21 @@ int main(int argc, char **argv)
         colours += run == 1;
         best = run > best ? run : best;
     }
-    printf("%u %u %zu %.1f\n", img.width, img.height, colours, 100.0 * (double)(n - best) / (double)n);
+    printf("%u %u %zu %.1f", img.width, img.height, colours, 100.0 * (double)(n - best) / (double)n);
+    for (int a = 2; a < argc; a++) {
+        unsigned r, g, b;
+        size_t hits = 0;
+        if (sscanf(argv[a], "#%2x%2x%2x", &r, &g, &b) != 3) {
+            fprintf(stderr, "png_colours: not a colour: %s\n", argv[a]);
+            return 1;
+        }
+        for (size_t i = 0; i < n; i++) { /* RGBA bytes in memory order */
+            const unsigned char *p = (const unsigned char *)&px[i];
+            hits += p[0] == r && p[1] == g && p[2] == b;
+        }
+        printf(" %zu", hits);
+    }
+    printf("\n");
     free(px);
     free(sorted);
     return 0;

@@ -11,30 +11,21 @@ if ! command -v chromium >/dev/null 2>&1; then
     echo "SKIP: chromium is not installed"
     exit 0
 fi
-${CC:-cc} -O2 -o "$T/png_colours" png_colours.c -lpng || fail "cannot build png_colours (libpng-dev)"
+. ./render.sh
 
 "${BUILD:?}/tools/invent_structures" 800 5 > "$T/structures.csv"
 "$CORAX" stereonet "$T/structures.csv" --group-by kind -o "$T/net.svg" -q
 : > "$T/empty.csv"
 "$CORAX" stereonet "$T/empty.csv" -o "$T/empty.svg" -q
 
-shot() { # shot SVG PNG: a 900 x 800 screenshot
-    profile=$(mktemp -d "$T/profile.XXXXXX")
-    timeout 120 chromium --headless --no-sandbox --disable-gpu --disable-quic --no-first-run \
-        --disable-background-networking --disable-component-update --disable-sync \
-        --user-data-dir="$profile" --screenshot="$2" --window-size=900,800 "file://$1" \
-        > "$T/chromium.log" 2>&1 || true
-    rm -rf "$profile"
-    [ -s "$2" ] || { cat "$T/chromium.log"; fail "no screenshot of $1"; }
-}
-shot "$T/net.svg" "$T/net.png"
+shot "$T/net.svg" "$T/net.png" 900 800
 set -- $("$T/png_colours" "$T/net.png")
 echo "net: ${1}x$2, $3 colours, $4% inked"
 [ "$1" = 900 ] && [ "$2" = 800 ] || fail "screenshot is ${1}x$2"
 [ "$3" -gt 50 ] || fail "the net rendered with only $3 colours"
 awk -v p="$4" 'BEGIN { exit !(p > 10 && p < 90) }' || fail "the net covers $4% of the picture"
 
-shot "$T/empty.svg" "$T/empty.png"
+shot "$T/empty.svg" "$T/empty.png" 900 800
 set -- $("$T/png_colours" "$T/empty.png")
 echo "empty net: $3 colours, $4% inked"
 [ "$3" -gt 2 ] || fail "the empty net rendered blank"
