@@ -315,7 +315,7 @@ static void test_given_runs(void **state)
     assert_int_equal(corax_qa_readings(w->prog, w->r, w->n, runs, n, &co, &o, &found), CORAX_OK);
     world v = *w;
     v.found = found;
-    expect(&v, "H08", "low-confidence", 101, "marked 'poor'", CORAX_NOTE);
+    expect(&v, "H08", "low-confidence", 101, "in runs marked 'poor'", CORAX_NOTE);
     expect(&v, "H08", "run-disagrees", 152, "adding 180 to beta", CORAX_WARNING);
     corax_findings_clear(&found);
 }

@@ -38,6 +38,9 @@ S="$OUT/structures.csv"
 "$CORAX" export --format csv "$S" -o "$OUT/structures-model.csv"
 "$CORAX" export --format vtk -p "$PROJECT" "$S" -o "$OUT/structures.vtk"
 
+# The QA of the program: every survey and orientation finding, and the report.
+checked=$("$CORAX" check -p "$PROJECT" -o "$OUT/findings.csv" --report "$OUT/report.html" 2>&1)
+
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
 rows=$(tail -n +2 examples/core_log.csv | wc -l)
 echo "corax demo: Quillon Creek, $holes holes, $rows core readings"
@@ -51,4 +54,7 @@ echo "  orientation statistics:  $OUT/net_*_stats.csv"
 echo "  traces for 3-D (VTK):    $OUT/traces.vtk, $OUT/traces-binary.vtk"
 echo "  cross-section:           $OUT/section.svg, $OUT/section.csv"
 echo "  structures for 3-D:      $OUT/structures.vtk, $OUT/structures-model.csv"
+echo "  QA findings:             $OUT/findings.csv"
+echo "      ${checked#corax: }"
+echo "  QA report (open it):     $OUT/report.html"
 echo "  what each run assumed:   $OUT/*.about"

@@ -179,6 +179,7 @@ int cmd_export(int argc, char **argv);
 int cmd_section(int argc, char **argv);
 int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
+int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
 
 #endif

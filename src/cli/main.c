@@ -15,6 +15,7 @@ typedef struct command {
 static const command commands[] = {
     {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
     {"convert", cmd_convert, "core readings to true orientations at real coordinates"},
+    {"check", cmd_check, "QA of a drill program: survey and orientation findings, with a report"},
     {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
     {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
     {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},

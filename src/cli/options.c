@@ -164,8 +164,45 @@ static const struct {
     {"uncertainty", "dip_error_per_hole", "dip-error-per-hole", 0},
     {"uncertainty", "confidence_errors", "confidence-errors", 0},
     {"uncertainty", "cloud", "cloud", 1},
+    {"check", "runs", "runs", 1},
+    {"check", "report", "report", 1},
+    {"check", "title", "title", 0},
+    {"check", "gap", "gap", 0},
+    {"check", "dogleg", "dogleg", 0},
+    {"check", "magnetic_azimuth", "magnetic-azimuth", 0},
+    {"check", "magnetic_dip", "magnetic-dip", 0},
+    {"check", "first_station", "first-station", 0},
+    {"check", "collar_mismatch", "collar-mismatch", 0},
+    {"check", "steep", "steep", 0},
+    {"check", "low_alpha", "low-alpha", 0},
+    {"check", "run_length", "run-length", 0},
+    {"check", "run_misfit", "run-misfit", 0},
+    {"check", "hole_turn", "hole-turn", 0},
+    {"check", "low_confidence", "low-confidence", 0},
 };
 enum { NKEYS = sizeof project_keys / sizeof project_keys[0] };
+
+/* dir (ending in '/', or "") joined to a relative path, with each "../"
+ * taking back a folder of dir where it can: "examples/" + "../surveys/x.csv"
+ * is "surveys/x.csv". */
+static char *join_path(const char *dir, const char *path)
+{
+    size_t keep = strlen(dir);
+    while (strncmp(path, "../", 3) == 0 && keep > 0) {
+        size_t k = keep - 1; /* dir[k] is '/': find the folder before it */
+        while (k > 0 && dir[k - 1] != '/')
+            k--;
+        if (strncmp(dir + k, "../", 3) == 0 || strncmp(dir + k, "./", 2) == 0)
+            break; /* cannot take back ".." or "." */
+        keep = k;
+        path += 3;
+    }
+    size_t n = keep + strlen(path) + 1;
+    char *out = malloc(n);
+    if (out)
+        snprintf(out, n, "%.*s%s", (int)keep, dir, path);
+    return out;
+}
 
 typedef struct project_ctx {
     cli_common *c;
@@ -231,17 +268,12 @@ static int on_project_key(void *user, const char *section, const char *key, cons
     for (int i = 0; i < NKEYS; i++) {
         if (strcmp(project_keys[i].section, section) || strcmp(project_keys[i].key, key))
             continue;
-        const char *arg = value;
-        if (project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0) {
-            size_t n = strlen(p->dir) + strlen(value) + 1;
-            char *full = malloc(n);
-            if (full)
-                snprintf(full, n, "%s%s", p->dir, value);
-            arg = own_string(p->c, full);
-            if (!arg) {
-                corax_error_set(err, CORAX_ENOMEM, NULL, line, "out of memory");
-                return 1;
-            }
+        /* options may keep the text they are given: every value outlives the read */
+        int relative = project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0;
+        const char *arg = own_string(p->c, join_path(relative ? p->dir : "", value));
+        if (!arg) {
+            corax_error_set(err, CORAX_ENOMEM, NULL, line, "out of memory");
+            return 1;
         }
         if (apply(p, project_keys[i].option, arg, why, sizeof why) == 0)
             return 0;

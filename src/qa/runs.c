@@ -32,7 +32,67 @@ typedef struct run_tally {
     const char *confidence_word;
 } run_tally;
 
-static corax_status run_notes(qa_data *d, size_t k, const run_tally *t, const char *hole)
+/* Notes about neighbouring runs join into one stretch. */
+typedef struct stretch {
+    int open;
+    double from, to;
+    size_t count, total; /* readings it is about, readings in it */
+    const char *file, *word;
+    long line;
+} stretch;
+
+enum { STRETCH_LOW_ALPHA, STRETCH_MARKED, STRETCH_LOGGED, NSTRETCHES };
+
+static corax_status flush(qa_data *d, stretch *s, int which, const char *hole)
+{
+    if (!s->open)
+        return CORAX_OK;
+    s->open = 0;
+    const corax_qa_options *o = d->o;
+    switch (which) {
+    case STRETCH_LOW_ALPHA:
+        return corax_findings_add_range(
+            d->out, CORAX_NOTE, "low-alpha", s->file, s->line, hole, s->from, s->to,
+            "%zu of the %zu readings between %.1f and %.1f m have alpha below %.0f: their planes "
+            "swing with any error in beta, and the hole under-samples them",
+            s->count, s->total, s->from, s->to, corax_deg(o->low_alpha));
+    case STRETCH_MARKED:
+        return corax_findings_add_range(d->out, CORAX_NOTE, "low-confidence", s->file, s->line,
+                                        hole, s->from, s->to,
+                                        "the core from %.1f to %.1f m is in runs marked '%s': "
+                                        "its %zu readings rest on an orientation line of low "
+                                        "confidence",
+                                        s->from, s->to, s->word, s->total);
+    default:
+        return corax_findings_add_range(
+            d->out, CORAX_NOTE, "low-confidence", s->file, s->line, hole, s->from, s->to,
+            "%zu of the %zu readings between %.1f and %.1f m are logged with confidence '%s'",
+            s->count, s->total, s->from, s->to, s->word);
+    }
+}
+
+/* Add a run to a stretch (when `yes`), or close the stretch. */
+static corax_status extend(qa_data *d, stretch *s, int which, const char *hole, int yes,
+                           const corax_qa_run *run, size_t count, size_t total, const char *word)
+{
+    const double touching = 1.0; /* metres between runs that still join */
+    if (s->open && (!yes || run->from > s->to + touching)) {
+        corax_status st = flush(d, s, which, hole);
+        if (st != CORAX_OK)
+            return st;
+    }
+    if (!yes)
+        return CORAX_OK;
+    if (!s->open)
+        *s = (stretch){1, run->from, run->to, 0, 0, run->file, word, run->line};
+    s->to = run->to;
+    s->count += count;
+    s->total += total;
+    return CORAX_OK;
+}
+
+static corax_status run_notes(qa_data *d, size_t k, const run_tally *t, const char *hole,
+                              stretch *s)
 {
     const corax_qa_run *run = &d->runs[k];
     const corax_qa_options *o = d->o;
@@ -45,33 +105,30 @@ static corax_status run_notes(qa_data *d, size_t k, const run_tally *t, const ch
                                       "%zu of the %zu readings between %.1f and %.1f m have no "
                                       "beta, inside an oriented run",
                                       t->without_beta, t->readings, run->from, run->to);
-    /* one low alpha is the reading's own status in convert; a run full of them
-     * is a stretch whose orientations rest on little */
-    if (st == CORAX_OK && t->low_alpha >= 2 && 2 * t->low_alpha >= t->readings)
-        st = corax_findings_add_range(
-            d->out, CORAX_NOTE, "low-alpha", run->file, run->line, hole, run->from, run->to,
-            "%zu of the %zu readings between %.1f and %.1f m have alpha below %.0f: their planes "
-            "swing with any error in beta, and the hole under-samples them",
-            t->low_alpha, t->readings, run->from, run->to, corax_deg(o->low_alpha));
-    if (st == CORAX_OK && given && word_in(run->confidence, o->low_confidence))
-        st = corax_findings_add_range(d->out, CORAX_NOTE, "low-confidence", run->file, run->line,
-                                      hole, run->from, run->to,
-                                      "the run from %.1f to %.1f m is marked '%s': its %zu "
-                                      "readings rest on an orientation line of low confidence",
-                                      run->from, run->to, run->confidence, t->readings);
-    else if (st == CORAX_OK && !given && t->low_confidence)
-        st = corax_findings_add_range(
-            d->out, CORAX_NOTE, "low-confidence", run->file, run->line, hole, run->from, run->to,
-            "%zu of the %zu readings between %.1f and %.1f m are logged with confidence '%s'",
-            t->low_confidence, t->readings, run->from, run->to, t->confidence_word);
+    /* one low alpha is the reading's own status in convert; runs full of them
+     * are a stretch whose orientations rest on little */
+    if (st == CORAX_OK)
+        st = extend(d, &s[STRETCH_LOW_ALPHA], STRETCH_LOW_ALPHA, hole,
+                    t->low_alpha >= 2 && 2 * t->low_alpha >= t->readings, run, t->low_alpha,
+                    t->readings, NULL);
+    if (st == CORAX_OK)
+        st = extend(d, &s[STRETCH_MARKED], STRETCH_MARKED, hole,
+                    given && word_in(run->confidence, o->low_confidence), run, t->readings,
+                    t->readings, run->confidence);
+    if (st == CORAX_OK)
+        st = extend(d, &s[STRETCH_LOGGED], STRETCH_LOGGED, hole, !given && t->low_confidence,
+                    run, t->low_confidence, t->readings, t->confidence_word);
     return st;
 }
 
 static corax_status tally_runs(qa_data *d, const qa_hole *hole)
 {
     const corax_qa_options *o = d->o;
+    stretch s[NSTRETCHES];
+    memset(s, 0, sizeof s);
     size_t i = hole->first, end = hole->first + hole->n;
-    while (i < end) {
+    corax_status st = CORAX_OK;
+    while (i < end && st == CORAX_OK) {
         size_t k = d->items[i].run;
         run_tally t = {0, 0, 0, 0, 0, NULL};
         size_t j = i;
@@ -94,14 +151,13 @@ static corax_status tally_runs(qa_data *d, const qa_hole *hole)
                 t.confidence_word = it->r->confidence;
             }
         }
-        if (k != QA_NONE && t.readings) {
-            corax_status st = run_notes(d, k, &t, hole->name);
-            if (st != CORAX_OK)
-                return st;
-        }
+        if (k != QA_NONE && t.readings)
+            st = run_notes(d, k, &t, hole->name, s);
         i = j;
     }
-    return CORAX_OK;
+    for (int w = 0; w < NSTRETCHES && st == CORAX_OK; w++)
+        st = flush(d, &s[w], w, hole->name);
+    return st;
 }
 
 /* ---- runs against their neighbours ---- */
