@@ -2,7 +2,6 @@
  * floor of a draw (its Gaussian draws and trigonometry alone), measured in the
  * same run; then `corax convert --draws 1000` end to end on a program of
  * 100,000 structures (needs CORAX, the command, in the environment). */
-#include <gsl/gsl_randist.h>
 #include <gsl/gsl_rng.h>
 #include <math.h>
 #include <omp.h>
@@ -16,6 +15,8 @@
 
 #include "corax/corax.h"
 #include "corax/uncertainty.h"
+#include "geometry/vec.h"
+#include "uncertainty/gauss.h"
 
 enum { HOLES = 500, PER_HOLE = 200, STATIONS = 20, DRAWS = 1000 };
 
@@ -63,9 +64,10 @@ static corax_hole *make_hole(int h, uint64_t *seed, corax_mc_reading *m,
     return hole;
 }
 
-/* The floor: per draw, the Gaussian draws (depth, alpha, beta) from the same
- * generator, and the trigonometry a draw does (sine and cosine of alpha, of
- * beta and of the arc to its depth, and an arctangent for the dip). */
+/* The floor: per draw, its Gaussian numbers (depth, alpha, beta), made the
+ * same way, and its trigonometry, the same functions on angles of the same
+ * size: the sine and cosine of the alpha and beta errors and of the arc to
+ * its depth (small angles), and an arctangent for the dip. */
 static double floor_rate(long draws)
 {
     double sink = 0, t0 = now();
@@ -73,13 +75,17 @@ static double floor_rate(long draws)
     {
         gsl_rng *rng = gsl_rng_alloc(gsl_rng_taus2);
         gsl_rng_set(rng, (unsigned long)omp_get_thread_num() + 1);
+        corax_ziggurat z;
+        corax_ziggurat_init(&z);
 #pragma omp for
         for (long i = 0; i < draws; i++) {
-            double d = gsl_ran_gaussian_ziggurat(rng, 0.05);
-            double a = 0.7 + gsl_ran_gaussian_ziggurat(rng, 0.03);
-            double b = 1.1 + gsl_ran_gaussian_ziggurat(rng, 0.1);
-            double f = 0.3 + d;
-            sink += atan(sin(a) * cos(b) * sin(f) / (cos(a) * sin(b) + cos(f) + 3.0));
+            double d = corax_gauss(&z, rng, 0.05);
+            double a = corax_gauss(&z, rng, 0.035), b = corax_gauss(&z, rng, 0.12);
+            double sa, ca, sb, cb, sf, cf;
+            small_sincos(a, &sa, &ca);
+            small_sincos(b, &sb, &cb);
+            small_sincos(0.01 + d, &sf, &cf);
+            sink += atan(sa * cb * sf / (ca * sb + cf + 3.0));
         }
         gsl_rng_free(rng);
     }
@@ -139,6 +145,26 @@ static int end_to_end(const char *corax)
     return system(cmd) == 0 ? 0 : 1;
 }
 
+/* The draws per second of the Monte Carlo over holes [0, nholes). */
+static double mc_rate(corax_hole **holes, int nholes, const corax_mc_reading *m, corax_spread *sp,
+                      const corax_convert_options *o, const corax_error_model *survey)
+{
+    double t0 = now();
+    int failed = 0;
+#pragma omp parallel
+    {
+        corax_mc *mc = corax_mc_new();
+#pragma omp for schedule(dynamic, 1)
+        for (int h = 0; h < nholes; h++)
+            if (corax_mc_hole(mc, holes[h], m + (size_t)h * PER_HOLE, PER_HOLE, o, survey, DRAWS,
+                              1, sp + (size_t)h * PER_HOLE, NULL, NULL) != CORAX_OK)
+                failed = 1;
+        corax_mc_free(mc);
+    }
+    double t = now() - t0;
+    return failed ? 0.0 : (double)nholes * PER_HOLE * DRAWS / t;
+}
+
 int main(void)
 {
     corax_convert_options o = corax_convert_options_default();
@@ -151,28 +177,23 @@ int main(void)
     uint64_t seed = 3;
     for (int h = 0; h < HOLES; h++)
         holes[h] = make_hole(h, &seed, m + (size_t)h * PER_HOLE, &o);
-    int threads = omp_get_max_threads();
-    double t0 = now();
-    int failed = 0;
-#pragma omp parallel
-    {
-        corax_mc *mc = corax_mc_new();
-#pragma omp for schedule(dynamic, 1)
-        for (int h = 0; h < HOLES; h++)
-            if (corax_mc_hole(mc, holes[h], m + (size_t)h * PER_HOLE, PER_HOLE, &o, &survey, DRAWS,
-                              1, sp + (size_t)h * PER_HOLE, NULL, NULL) != CORAX_OK)
-                failed = 1;
-        corax_mc_free(mc);
+    /* the draws and the floor measured in turn, five times each, best kept:
+     * on a shared machine the best is the one least disturbed */
+    enum { ROUNDS = 5, SHARE = HOLES / 5 };
+    double best = 0.0, floor = 0.0;
+    for (int round = 0; round < ROUNDS; round++) {
+        double r = mc_rate(holes, SHARE, m, sp, &o, &survey);
+        if (r == 0.0)
+            return 1;
+        best = r > best ? r : best;
+        double f = floor_rate((long)SHARE * PER_HOLE * DRAWS / 2);
+        floor = f > floor ? f : floor;
     }
-    double t = now() - t0;
-    if (failed)
-        return 1;
-    double draws = (double)HOLES * PER_HOLE * DRAWS;
-    double floor = floor_rate((long)draws / 4);
-    printf("Monte Carlo on %d threads: %d readings x %d draws\n", threads, HOLES * PER_HOLE, DRAWS);
-    printf("  %.1f million measurement draws per second (%.2f s)\n", draws / t / 1e6, t);
-    printf("  floor (Gaussian draws and trigonometry only): %.1f million per second; "
-           "%.2fx of the floor\n", floor / 1e6, floor / (draws / t));
+    printf("Monte Carlo on %d threads: %d readings x %d draws, best of %d rounds\n",
+           omp_get_max_threads(), SHARE * PER_HOLE, DRAWS, ROUNDS);
+    printf("  %.1f million measurement draws per second\n", best / 1e6);
+    printf("  floor (its Gaussian draws and trigonometry only): %.1f million per second; "
+           "%.2fx of the floor\n", floor / 1e6, floor / best);
     for (int h = 0; h < HOLES; h++)
         corax_hole_free(holes[h]);
     free(holes);

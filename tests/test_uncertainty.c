@@ -1,11 +1,15 @@
 /* Tests of the uncertainty module: Monte Carlo spreads against first-order
  * propagation, and the properties the spread must have. */
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "corax/core.h"
 #include "corax/uncertainty.h"
 #include "support/check.h"
+#include "uncertainty/gauss.h"
+
+#include <gsl/gsl_cdf.h>
 
 static corax_error_model no_errors(void)
 {
@@ -235,9 +239,53 @@ static void test_reproducible_streams(void **state)
     corax_hole_free(h);
 }
 
+/* The ziggurat (Marsaglia and Tsang 2000) gives standard normal numbers:
+ * checked against the normal distribution function of GSL (a general-purpose
+ * reference library) by the Kolmogorov-Smirnov statistic, with the moments
+ * and the share beyond 3 sigma (0.0027, a textbook value). */
+static int by_value(const void *a, const void *b)
+{
+    double x = *(const double *)a, y = *(const double *)b;
+    return (x > y) - (x < y);
+}
+
+static void test_ziggurat_is_normal(void **state)
+{
+    (void)state;
+    enum { N = 400000 };
+    corax_ziggurat z;
+    corax_ziggurat_init(&z);
+    gsl_rng *rng = gsl_rng_alloc(gsl_rng_taus2);
+    gsl_rng_set(rng, 12345);
+    double *x = malloc(N * sizeof *x), sum = 0, sum2 = 0, sum4 = 0;
+    size_t beyond = 0;
+    for (int i = 0; i < N; i++) {
+        x[i] = corax_gauss(&z, rng, 1.0);
+        sum += x[i];
+        sum2 += x[i] * x[i];
+        sum4 += x[i] * x[i] * x[i] * x[i];
+        beyond += fabs(x[i]) > 3.0;
+    }
+    assert_close(sum / N, 0, 0, 4.0 / sqrt(N), "mean 0");
+    assert_close(sum2 / N, 1, 0, 0.01, "variance 1");
+    assert_close(sum4 / N, 3, 0, 0.05, "fourth moment 3");
+    assert_close((double)beyond / N, 0.0027, 0, 0.0004, "share beyond 3 sigma");
+    qsort(x, N, sizeof *x, by_value);
+    double ks = 0;
+    for (int i = 0; i < N; i++) {
+        double F = gsl_cdf_ugaussian_P(x[i]);
+        ks = fmax(ks, fmax(fabs(F - (double)i / N), fabs(F - (double)(i + 1) / N)));
+    }
+    assert_true(ks < 1.36 / sqrt(N)); /* the 5% critical value of the statistic */
+    assert_close(corax_gauss(&z, rng, 0.0), 0, 0, 0, "sigma 0 gives 0");
+    free(x);
+    gsl_rng_free(rng);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_ziggurat_is_normal),
         cmocka_unit_test(test_zero_sigmas_give_zero_spread),
         cmocka_unit_test(test_delta_method_agrees_for_small_sigmas),
         cmocka_unit_test(test_beta_error_scales_with_cos_alpha),

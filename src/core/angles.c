@@ -3,6 +3,7 @@
 #include <math.h>
 
 #include "corax/core.h"
+#include "core/frame.h"
 #include "geometry/vec.h"
 
 static const double PI = CORAX_PI;
@@ -48,14 +49,7 @@ static double line_beta_measured(double beta, const corax_core_conventions *c)
 
 corax_status corax_core_frame_of(corax_vec3 t, corax_core_frame *f)
 {
-    double h = sqrt(t.x * t.x + t.y * t.y); /* |u - (u.t) t| for a unit t */
-    f->t = t;
-    if (h < 1e-9)
-        return CORAX_EVALUE;
-    /* r = -(u - (u.t) t) / h, written out */
-    f->r = vec3(t.z * t.x / h, t.z * t.y / h, -(1.0 - t.z * t.z) / h);
-    f->s = vec_cross(t, f->r);
-    return CORAX_OK;
+    return core_frame_of(t, f);
 }
 
 double corax_core_off_vertical(corax_vec3 t)

@@ -52,6 +52,25 @@ static inline double fast_atan2(double y, double x)
     return y < 0.0 ? -a : a;
 }
 
+/* Sine and cosine of x. Small angles (|x| < 0.25, the usual size of a
+ * perturbation or of the turn along one survey course) go by their Taylor
+ * series to the x^10 term, good to 1e-13 and several times quicker than the C
+ * library; larger ones go to it. */
+static inline void small_sincos(double x, double *s, double *c)
+{
+    if (fabs(x) < 0.25) { /* Horner's rule on 1/n! (multiplications, not divisions) */
+        const double s3 = -1.0 / 6, s5 = 1.0 / 120, s7 = -1.0 / 5040, s9 = 1.0 / 362880;
+        const double c2 = -0.5, c4 = 1.0 / 24, c6 = -1.0 / 720, c8 = 1.0 / 40320,
+                     c10 = -1.0 / 3628800;
+        double x2 = x * x;
+        *s = x + x * x2 * (s3 + x2 * (s5 + x2 * (s7 + x2 * s9)));
+        *c = 1.0 + x2 * (c2 + x2 * (c4 + x2 * (c6 + x2 * (c8 + x2 * c10))));
+    } else {
+        *s = sin(x);
+        *c = cos(x);
+    }
+}
+
 /* The angle between two vectors in [0, pi], stable for tiny and near-pi angles. */
 static inline double vec_angle(corax_vec3 a, corax_vec3 b)
 {

@@ -1,6 +1,5 @@
 /* uncertainty: Monte Carlo over the survey and core-reading errors of one
  * hole at a time (one generator per thread, seeded per hole). */
-#include <gsl/gsl_randist.h>
 #include <gsl/gsl_rng.h>
 #include <gsl/gsl_statistics_double.h>
 #include <math.h>
@@ -10,11 +9,14 @@
 #include "corax/stats.h"
 #include "corax/uncertainty.h"
 #include "geometry/vec.h"
+#include "core/frame.h"
 #include "survey/hole_int.h"
+#include "uncertainty/gauss.h"
 
-/* Readings simulated together (at most BLOCK, and so many that the stored
- * draws stay under DRAWN_MAX vectors): they share each draw's resurvey. */
-enum { BLOCK = 128, DRAWN_MAX = 1 << 22 };
+/* Readings simulated together (so many that the stored draws stay under
+ * DRAWN_MAX vectors; a hole's readings are one block when they fit): they
+ * share each draw's resurvey. */
+enum { DRAWN_MAX = 1 << 22 };
 
 corax_error_model corax_error_model_default(void)
 {
@@ -39,15 +41,34 @@ typedef struct accum {
     size_t n;
 } accum;
 
+/* What a reading's draws need, worked out once: its values with the
+ * conventions applied, its sigmas, and the side its poles are turned to. */
+typedef struct prepared {
+    double depth, depth_sigma;
+    double alpha, alpha_sigma;
+    double beta, beta_sigma;  /* canonical beta; NaN: none (draw it anywhere) */
+    double sin_alpha, cos_alpha, sin_beta, cos_beta; /* of the values as read */
+    int plane;
+    corax_vec3 reference;     /* the nominal normal or line */
+    double dip;               /* the nominal dip */
+    corax_vec3 position;      /* the nominal position */
+} prepared;
+
 struct corax_mc {
     gsl_rng *rng;
+    corax_ziggurat zig;
     double *d_azimuth, *d_plunge; /* per draw, per node */
     size_t azimuth_cap, plunge_cap;
-    corax_vec3 *drawn;            /* per block reading, per draw: its pole or line */
+    corax_vec3 *drawn;            /* per draw, per block reading: its pole or line (a
+                                     draw's readings side by side, as they are made) */
     size_t drawn_cap;
+    corax_vec3 *one;              /* one reading's draws, gathered */
+    size_t one_cap;
     double *dots;                 /* one reading's draws against their mean */
     size_t dots_cap;
-    accum acc[BLOCK];
+    accum *acc;                   /* per block reading */
+    prepared *prep;
+    size_t block_cap;
 };
 
 corax_mc *corax_mc_new(void)
@@ -57,6 +78,8 @@ corax_mc *corax_mc_new(void)
         free(mc);
         return NULL;
     }
+    if (mc)
+        corax_ziggurat_init(&mc->zig);
     return mc;
 }
 
@@ -68,6 +91,9 @@ void corax_mc_free(corax_mc *mc)
     free(mc->d_azimuth);
     free(mc->d_plunge);
     free(mc->drawn);
+    free(mc->one);
+    free(mc->acc);
+    free(mc->prep);
     free(mc->dots);
     free(mc);
 }
@@ -110,75 +136,109 @@ static void draw_survey(corax_mc *mc, const corax_hole *hole, size_t draws,
 {
     size_t nodes = corax_hole_node_count(hole);
     for (size_t d = 0; d < draws; d++) {
-        double sys_az = gsl_ran_gaussian_ziggurat(mc->rng, e->azimuth_hole);
-        double sys_dip = gsl_ran_gaussian_ziggurat(mc->rng, e->dip_hole);
+        double sys_az = corax_gauss(&mc->zig, mc->rng, e->azimuth_hole);
+        double sys_dip = corax_gauss(&mc->zig, mc->rng, e->dip_hole);
         for (size_t i = 0; i < nodes; i++) {
             double sa, sd; /* a station's own errors, from its survey row */
             corax_hole_node_errors(hole, i, &sa, &sd);
             sa = isnan(sa) ? e->azimuth : sa;
             sd = isnan(sd) ? e->dip : sd;
-            mc->d_azimuth[d * nodes + i] = sys_az + gsl_ran_gaussian_ziggurat(mc->rng, sa);
-            mc->d_plunge[d * nodes + i] = sys_dip + gsl_ran_gaussian_ziggurat(mc->rng, sd);
+            mc->d_azimuth[d * nodes + i] = sys_az + corax_gauss(&mc->zig, mc->rng, sa);
+            mc->d_plunge[d * nodes + i] = sys_dip + corax_gauss(&mc->zig, mc->rng, sd);
         }
     }
 }
 
-/* One draw of one reading in the resurveyed hole; 0 when it has no answer. */
-static int draw_one(corax_mc *mc, const corax_hole *work, const corax_mc_reading *m,
-                    const corax_convert_options *o, size_t *hint, corax_vec3 *pos,
-                    corax_vec3 *dir)
+static void prepare(const corax_mc_reading *m, const corax_convert_options *o, prepared *p)
 {
     const corax_error_model *e = &m->errors;
     const corax_reading *r = &m->reading;
-    double depth = r->depth + gsl_ran_gaussian_ziggurat(mc->rng, e->depth);
-    double beta_sigma = sqrt(e->beta * e->beta + e->line * e->line);
-    int plane = m->nominal.has_plane;
-    double a = (plane ? r->alpha : r->line_alpha) + gsl_ran_gaussian_ziggurat(mc->rng, e->alpha);
-    double b0 = plane ? r->beta : r->line_beta;
-    double b = gsl_ran_gaussian_ziggurat(mc->rng, beta_sigma);
+    const corax_core_conventions *c = &o->conventions;
+    p->plane = m->nominal.has_plane;
+    p->depth = r->depth;
+    p->depth_sigma = e->depth;
+    p->alpha = p->plane ? r->alpha : r->line_alpha;
+    p->alpha_sigma = e->alpha;
+    double b = p->plane ? r->beta : r->line_beta;
+    /* a line's own beta runs to its down-hole end: only the reference line and
+     * the sense apply; a plane's also to the end of the ellipse */
+    if (isnan(b))
+        p->beta = NAN;
+    else if (p->plane)
+        p->beta = corax_core_beta_canonical(b, c);
+    else
+        p->beta = corax_wrap_azimuth((c->beta_anticlockwise ? -b : b) +
+                                     (c->top_reference ? CORAX_PI : 0.0));
+    p->beta_sigma = sqrt(e->beta * e->beta + e->line * e->line);
+    p->sin_alpha = sin(p->alpha);
+    p->cos_alpha = cos(p->alpha);
+    p->sin_beta = isnan(p->beta) ? 0.0 : sin(p->beta);
+    p->cos_beta = isnan(p->beta) ? 1.0 : cos(p->beta);
+    p->reference = p->plane ? m->nominal.normal : m->nominal.line;
+    p->dip = m->nominal.plane.dip;
+    p->position = m->nominal.point.position;
+}
+
+/* One draw of one reading in the resurveyed hole; 0 when it has no answer.
+ * The errors are symmetric, so they are added to the canonical beta. */
+static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, size_t *hint,
+                    corax_vec3 *pos, corax_vec3 *dir)
+{
+    double depth = p->depth + corax_gauss(&mc->zig, mc->rng, p->depth_sigma);
+    double da = corax_gauss(&mc->zig, mc->rng, p->alpha_sigma);
+    double db = corax_gauss(&mc->zig, mc->rng, p->beta_sigma);
     /* without a beta (alpha 90, or a line along the core) an error in alpha
      * tilts the plane or line toward no side in particular */
-    b += isnan(b0) ? 2.0 * CORAX_PI * gsl_rng_uniform(mc->rng) : b0;
+    if (isnan(p->beta))
+        db += 2.0 * CORAX_PI * gsl_rng_uniform(mc->rng);
+    /* the angles as read turned by their errors: sin(a + d) from sin a, cos a
+     * and the small sine and cosine of d */
+    double sd, cd, sb, cb;
+    small_sincos(da, &sd, &cd);
+    double sa = p->sin_alpha * cd + p->cos_alpha * sd, ca = p->cos_alpha * cd - p->sin_alpha * sd;
+    small_sincos(db, &sd, &cd);
+    sb = p->sin_beta * cd + p->cos_beta * sd;
+    cb = p->cos_beta * cd - p->sin_beta * sd;
     corax_hole_point pt;
-    if (corax_hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK)
+    corax_core_frame f;
+    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK ||
+        core_frame_of(pt.tangent, &f) != CORAX_OK)
         return 0;
     *pos = pt.position;
-    corax_core_frame f;
-    if (corax_core_frame_of(pt.tangent, &f) != CORAX_OK)
-        return 0;
-    /* the raw formula is good for alpha past 0 or 90: it is the same plane as
-     * the folded alpha with beta turned half way round */
-    *dir = plane ? corax_core_plane_normal(&f, a, b, &o->conventions)
-                 : corax_core_line(&f, a, b, &o->conventions);
+    /* e = cos(b) r + sin(b) s; a plane's normal sin(a) t - cos(a) e, a line
+     * cos(a) t + sin(a) e. The raw formula is good for alpha past 0 or 90:
+     * the same plane as the folded alpha with beta turned half way round. */
+    corax_vec3 e = vec_comb(f.r, cb, f.s, sb);
+    *dir = p->plane ? vec_comb(f.t, sa, e, -ca) : vec_comb(f.t, ca, e, sa);
     return 1;
 }
 
-static void add_draw(accum *ac, const corax_mc_reading *m, corax_vec3 pos, corax_vec3 dir,
+static void add_draw(accum *ac, const prepared *p, corax_vec3 pos, corax_vec3 dir,
                      corax_vec3 *store)
 {
-    corax_vec3 ref = m->nominal.has_plane ? m->nominal.normal : m->nominal.line;
-    if (vec_dot(dir, ref) < 0.0) /* poles and lines have no sense: the nominal's side */
+    if (vec_dot(dir, p->reference) < 0.0) /* poles and lines have no sense: the nominal's side */
         dir = vec_neg(dir);
     *store = dir;
-    corax_vec3 s = vec_sub(pos, m->nominal.point.position);
+    corax_vec3 s = vec_sub(pos, p->position);
     ac->shift = vec_add(ac->shift, s);
     ac->shift2 += vec_dot(s, s);
-    if (m->nominal.has_plane) {
+    if (p->plane) {
         corax_vec3 up = dir.z < 0.0 ? vec_neg(dir) : dir;
         double h = sqrt(up.x * up.x + up.y * up.y);
-        double dip = fast_atan2(h, up.z) - m->nominal.plane.dip; /* small numbers: no cancellation */
+        double dip = fast_atan2(h, up.z) - p->dip; /* small numbers: no cancellation */
         ac->dip += dip;
         ac->dip2 += dip * dip;
         if (h > 0.0) {
-            ac->ddx += up.x / h;
-            ac->ddy += up.y / h;
+            double inv = 1.0 / h;
+            ac->ddx += up.x * inv;
+            ac->ddy += up.y * inv;
         }
     }
     ac->n++;
 }
 
 static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
-                   corax_vec3 *drawn, size_t draws, corax_spread *out)
+                   const corax_vec3 *drawn, size_t stride, size_t draws, corax_spread *out)
 {
     memset(out, 0, sizeof *out);
     out->has_orientation = 1;
@@ -198,18 +258,20 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
     } else {
         out->dip_sd = out->dip_direction_sd = NAN;
     }
-    size_t k = 0; /* the draws that gave an answer, to the front */
-    for (size_t d = 0; d < draws; d++)
-        if (drawn[d].x != 0.0 || drawn[d].y != 0.0 || drawn[d].z != 0.0)
-            drawn[k++] = drawn[d];
+    size_t k = 0; /* the draws that gave an answer, gathered */
+    for (size_t d = 0; d < draws; d++) {
+        corax_vec3 v = drawn[d * stride];
+        if (v.x != 0.0 || v.y != 0.0 || v.z != 0.0)
+            mc->one[k++] = v;
+    }
     corax_fisher f; /* Fisher (1953): the mean, and kappa = (n - 1) / (n - R) */
-    if (corax_fisher_mean(drawn, NULL, k, &f) != CORAX_OK) {
+    if (corax_fisher_mean(mc->one, NULL, k, &f) != CORAX_OK) {
         out->cone95 = out->kappa = NAN;
         return;
     }
     out->kappa = f.kappa;
     for (size_t d = 0; d < k; d++)
-        mc->dots[d] = vec_dot(drawn[d], f.mean);
+        mc->dots[d] = vec_dot(mc->one[d], f.mean);
     /* the cone holding 95% of the draws: the ceil(0.95 n)-th closest */
     size_t q = (size_t)ceil(0.95 * (double)k);
     double c = gsl_stats_select(mc->dots, 1, k, k - (q ? q : 1)); /* the q-th largest */
@@ -225,11 +287,17 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
         return CORAX_EARG;
     size_t nodes = corax_hole_node_count(hole);
     size_t block = DRAWN_MAX / draws;
-    block = block < 1 ? 1 : block > BLOCK ? BLOCK : block;
+    block = block < 1 ? 1 : block > n ? n : block;
+    size_t acc_cap = mc->block_cap, prep_cap = mc->block_cap;
+    if (!reserve(&mc->acc, &acc_cap, block, sizeof *mc->acc) ||
+        !reserve(&mc->prep, &prep_cap, block, sizeof *mc->prep))
+        return CORAX_ENOMEM;
+    mc->block_cap = acc_cap < prep_cap ? acc_cap : prep_cap;
     if (!reserve(&mc->d_azimuth, &mc->azimuth_cap, nodes * draws, sizeof(double)) ||
         !reserve(&mc->d_plunge, &mc->plunge_cap, nodes * draws, sizeof(double)) ||
         !reserve(&mc->drawn, &mc->drawn_cap, block * draws, sizeof *mc->drawn) ||
-        !reserve(&mc->dots, &mc->dots_cap, draws, sizeof *mc->dots))
+        !reserve(&mc->dots, &mc->dots_cap, draws, sizeof *mc->dots) ||
+        !reserve(&mc->one, &mc->one_cap, draws, sizeof *mc->one))
         return CORAX_ENOMEM;
     corax_hole *work = corax_hole_copy(hole);
     if (!work)
@@ -240,29 +308,35 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
     gsl_rng_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 1));
     for (size_t first = 0; first < n; first += block) {
         size_t count = n - first < block ? n - first : block;
-        memset(mc->acc, 0, sizeof mc->acc);
-        memset(mc->drawn, 0, count * draws * sizeof *mc->drawn);
+        for (size_t j = 0; j < count; j++)
+            prepare(&readings[first + j], o, &mc->prep[j]);
+        memset(mc->acc, 0, count * sizeof *mc->acc);
         for (size_t d = 0; d < draws; d++) {
+            corax_vec3 *row = mc->drawn + d * count; /* this draw's answers; zero: none */
             if (corax_hole_resurvey(work, hole, mc->d_azimuth + d * nodes,
-                                    mc->d_plunge + d * nodes) != CORAX_OK)
-                continue; /* two stations turned opposite: no hole this draw */
+                                    mc->d_plunge + d * nodes) != CORAX_OK) {
+                memset(row, 0, count * sizeof *row); /* two stations turned opposite */
+                continue;
+            }
             size_t hint = 0;
             for (size_t j = 0; j < count; j++) {
-                const corax_mc_reading *m = &readings[first + j];
+                const prepared *p = &mc->prep[j];
                 corax_vec3 pos, dir;
-                if (!draw_one(mc, work, m, o, &hint, &pos, &dir))
+                if (!draw_one(mc, work, p, &hint, &pos, &dir)) {
+                    row[j] = vec3(0.0, 0.0, 0.0);
                     continue;
-                add_draw(&mc->acc[j], m, pos, dir, &mc->drawn[j * draws + d]);
+                }
+                add_draw(&mc->acc[j], p, pos, dir, &row[j]);
                 if (on_draw) {
-                    corax_plane p;
-                    if (m->nominal.has_plane)
-                        p = corax_plane_from_normal(dir, NULL);
-                    on_draw(user, first + j, d, &pos, m->nominal.has_plane ? &p : NULL);
+                    corax_plane plane;
+                    if (p->plane)
+                        plane = corax_plane_from_normal(dir, NULL);
+                    on_draw(user, first + j, d, &pos, p->plane ? &plane : NULL);
                 }
             }
         }
         for (size_t j = 0; j < count; j++)
-            finish(mc, &mc->acc[j], &readings[first + j], mc->drawn + j * draws, draws,
+            finish(mc, &mc->acc[j], &readings[first + j], mc->drawn + j, count, draws,
                    &out[first + j]);
     }
     corax_hole_free(work);
