@@ -303,7 +303,8 @@ static int write_about(const convert_opts *o)
         cli_about_section(a, "uncertainty");
         cli_about_set(a, "draws", "%zu", o->setup.draws);
         cli_about_set(a, "seed", "%llu", (unsigned long long)o->setup.seed);
-        cli_about_set(a, "generator", "GSL taus2, Gaussians by the ziggurat method; one "
+        cli_about_set(a, "generator", "GSL taus2, Gaussians by the ziggurat method (Marsaglia and "
+                      "Tsang 2000) on its 32-bit output; one "
                       "stream per hole, seeded from the seed and the hole's name");
         cli_about_set(a, "alpha_error", "%g", corax_deg(e->alpha));
         cli_about_set(a, "beta_error", "%g", corax_deg(e->beta));
