@@ -5,6 +5,7 @@
 #include <string.h>
 
 #include "corax/core.h"
+#include "corax/stats.h"
 #include "corax/uncertainty.h"
 #include "support/check.h"
 #include "uncertainty/gauss.h"
@@ -221,6 +222,55 @@ static void test_station_errors_replace_the_runs(void **state)
     corax_hole_free(h);
 }
 
+/* kappa is the Fisher (1953) precision of the drawn poles, as corax_fisher_mean
+ * computes it (that function is checked against the ten-direction data set of
+ * the check values, after Tauxe, Essentials of Paleomagnetism, ch. 11, in
+ * test_stats): the same number from the cloud of draws. */
+typedef struct cloud {
+    corax_vec3 v[3000];
+    size_t n;
+    corax_vec3 nominal;
+} cloud;
+
+static void collect(void *user, size_t reading, size_t draw, const corax_vec3 *p,
+                    const corax_plane *plane)
+{
+    (void)reading;
+    (void)draw;
+    (void)p;
+    cloud *c = user;
+    corax_vec3 n = corax_plane_normal(*plane);
+    if (n.x * c->nominal.x + n.y * c->nominal.y + n.z * c->nominal.z < 0)
+        n = (corax_vec3){-n.x, -n.y, -n.z};
+    c->v[c->n++] = n;
+}
+
+static void test_kappa_is_fisher_of_the_draws(void **state)
+{
+    (void)state;
+    corax_hole *h = straight_hole(60, -55);
+    corax_convert_options o = corax_convert_options_default();
+    corax_mc_reading m;
+    m.reading = corax_reading_empty();
+    m.reading.depth = 40;
+    m.reading.alpha = corax_rad(35);
+    m.reading.beta = corax_rad(200);
+    m.errors = corax_error_model_default();
+    corax_convert_reading(h, &m.reading, &o, NULL, &m.nominal);
+    corax_error_model survey = corax_error_model_default();
+    static cloud c;
+    c.n = 0;
+    c.nominal = m.nominal.normal;
+    corax_mc *mc = corax_mc_new();
+    corax_spread sp;
+    assert_int_equal(corax_mc_hole(mc, h, &m, 1, &o, &survey, 3000, 8, &sp, collect, &c), CORAX_OK);
+    corax_fisher f;
+    assert_int_equal(corax_fisher_mean(c.v, NULL, c.n, &f), CORAX_OK);
+    assert_close(sp.kappa, f.kappa, 1e-6, 0, "kappa of the draws, Fisher (1953)");
+    corax_mc_free(mc);
+    corax_hole_free(h);
+}
+
 /* The same seed gives the same answer; another seed, another sample. The seed
  * of a hole depends on the run's seed and its name only. */
 static void test_reproducible_streams(void **state)
@@ -293,6 +343,7 @@ int main(void)
         cmocka_unit_test(test_dip_direction_spread_of_flat_planes),
         cmocka_unit_test(test_positions_take_the_survey_errors),
         cmocka_unit_test(test_station_errors_replace_the_runs),
+        cmocka_unit_test(test_kappa_is_fisher_of_the_draws),
         cmocka_unit_test(test_reproducible_streams),
     };
     return cmocka_run_group_tests_name("uncertainty", tests, NULL, NULL);
