@@ -137,6 +137,11 @@ static int grow_room(corax_writer *w, size_t n)
 
 void corax_writer_text(corax_writer *w, const char *text, size_t n)
 {
+    if (!w->memory && n >= (1 << 14)) { /* a big piece goes straight out, uncopied */
+        flush(w);
+        write_all(w, text, n);
+        return;
+    }
     if (!make_room(w, n)) {
         if (!w->memory) /* too big to buffer: straight through */
             write_all(w, text, n);
@@ -206,7 +211,7 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
     free(big);
 }
 
-static void separator(corax_writer *w)
+static inline void separator(corax_writer *w)
 {
     if (!w->row_start && make_room(w, 1))
         w->buf[w->used++] = ',';
@@ -296,7 +301,8 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
     size_t n = (size_t)(tmp + sizeof tmp - p);
     if (negative)
         *buf++ = '-';
-    memcpy(buf, p, n);
+    for (size_t i = 0; i < n; i++) /* short: a loop beats a call to memcpy */
+        buf[i] = p[i];
     return n + (size_t)negative;
 }
 
