@@ -109,6 +109,21 @@ typedef int (*cli_option_fn)(void *ctx, int opt, const char *arg, char *why, siz
 int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopts,
               const char *help, int shared_help, cli_option_fn own, void *ctx);
 
+/* A list of input files (core logs). */
+typedef struct cli_files {
+    const char **path; /* borrowed strings */
+    size_t n;
+} cli_files;
+
+/* Add a file: 0, or -1 with why filled. */
+int cli_files_add(cli_files *f, const char *path, char *why, size_t whylen);
+
+/* Positional arguments argv[optind..], when there are any, replace the list
+ * (a project file's files give way to the command line's). 0 or -1. */
+int cli_files_from_args(cli_files *f, int argc, char **argv);
+
+void cli_files_free(cli_files *f);
+
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);
 

@@ -64,22 +64,11 @@ typedef struct check_opts {
     cli_common c;
     corax_convert_options convert;
     corax_qa_options qa;
-    const char **files;
-    size_t nfiles;
+    cli_files logs;
     const char *runs, *report, *title;
     char *low_words;           /* the --low-confidence list, split in place */
     const char *low_list[17];
 } check_opts;
-
-static int add_file(check_opts *o, const char *path)
-{
-    const char **f = realloc(o->files, (o->nfiles + 1) * sizeof *f);
-    if (!f)
-        return -1;
-    o->files = f;
-    o->files[o->nfiles++] = path;
-    return 0;
-}
 
 static int low_confidence(check_opts *o, const char *arg, char *why, size_t wl)
 {
@@ -126,10 +115,7 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
         }
     switch (opt) {
     case OPT_STRUCTURES:
-        if (add_file(o, arg) == 0)
-            return 0;
-        snprintf(why, wl, "out of memory");
-        return -1;
+        return cli_files_add(&o->logs, arg, why, wl);
     case OPT_RUNS: o->runs = arg; return 0;
     case OPT_REPORT: o->report = arg; return 0;
     case OPT_TITLE: o->title = arg; return 0;
@@ -167,12 +153,8 @@ static int parse(int argc, char **argv, check_opts *o)
         fputs(cli_convention_help, stdout);
     if (rc != 0)
         return rc;
-    if (optind < argc) { /* core logs named on the command line replace the project's */
-        o->nfiles = 0;
-        for (int i = optind; i < argc; i++)
-            if (add_file(o, argv[i]))
-                return EXIT_DATA;
-    }
+    if (cli_files_from_args(&o->logs, argc, argv)) /* they replace the project's */
+        return EXIT_DATA;
     return cli_common_finish(&o->c, 1);
 }
 
@@ -257,11 +239,11 @@ static void read_row(const corax_table *t, size_t row, const long *col, const co
 
 static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
 {
-    for (size_t f = 0; f < o->nfiles; f++) {
+    for (size_t f = 0; f < o->logs.n; f++) {
         corax_table *t;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_table_load(o->files[f], o->c.load.format, &t, &err);
+        corax_status st = corax_table_load(o->logs.path[f], o->c.load.format, &t, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             return EXIT_DATA;
@@ -280,7 +262,7 @@ static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
         if (!missing && col[L_ALPHA] < 0 && col[L_LALPHA] < 0)
             missing = "alpha";
         if (missing) {
-            cli_error(o->files[f], 1, "no '%s' column in the header", missing);
+            cli_error(o->logs.path[f], 1, "no '%s' column in the header", missing);
             return EXIT_DATA;
         }
         size_t rows = corax_table_rows(t);
@@ -390,8 +372,8 @@ static int write_report(const check_opts *o, const corax_program *prog,
     size_t ninputs = 0;
     inputs[ninputs++] = o->c.collars;
     inputs[ninputs++] = o->c.surveys;
-    for (size_t i = 0; i < o->nfiles && ninputs < 63; i++)
-        inputs[ninputs++] = o->files[i];
+    for (size_t i = 0; i < o->logs.n && ninputs < 63; i++)
+        inputs[ninputs++] = o->logs.path[i];
     if (o->runs)
         inputs[ninputs++] = o->runs;
     char when[64];
@@ -425,8 +407,8 @@ static int write_about(const check_opts *o)
     const corax_qa_options *q = &o->qa;
     cli_about *a = cli_about_new("check", &o->c);
     cli_about_section(a, "check");
-    for (size_t i = 0; i < o->nfiles; i++)
-        cli_about_set(a, "structures", "%s", o->files[i]);
+    for (size_t i = 0; i < o->logs.n; i++)
+        cli_about_set(a, "structures", "%s", o->logs.path[i]);
     cli_about_set(a, "runs", "%s", o->runs ? o->runs : "inferred from the readings' depths");
     if (o->report)
         cli_about_set(a, "report", "%s", o->report);
@@ -505,7 +487,7 @@ done:
     corax_table_free(run_table);
     free(runs);
     logs_free(&l);
-    free(o.files);
+    cli_files_free(&o.logs);
     free(o.low_words);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;

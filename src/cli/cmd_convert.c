@@ -82,23 +82,12 @@ enum {
 typedef struct convert_opts {
     cli_common c;
     convert_setup setup;
-    const char **files;
-    size_t nfiles;
+    cli_files logs;
     /* one reading */
     double hole_azimuth, hole_dip, alpha, beta, gamma;
     double plane[2], line[2];
     int single;
 } convert_opts;
-
-static int add_file(convert_opts *o, const char *path)
-{
-    const char **f = realloc(o->files, (o->nfiles + 1) * sizeof *f);
-    if (!f)
-        return -1;
-    o->files = f;
-    o->files[o->nfiles++] = path;
-    return 0;
-}
 
 /* "A/B" as two numbers. */
 static int pair(const char *arg, double *a, double *b, char *why, size_t wl)
@@ -195,10 +184,7 @@ static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t
         o->setup.section_azimuth = corax_rad(v);
         return 0;
     case OPT_STRUCTURES:
-        if (add_file(o, arg) == 0)
-            return 0;
-        snprintf(why, wl, "out of memory");
-        return -1;
+        return cli_files_add(&o->logs, arg, why, wl);
     case OPT_HOLE_AZIMUTH: o->single = 1; return cli_value_number(arg, 0, 360, &o->hole_azimuth, why, wl);
     case OPT_HOLE_DIP: o->single = 1; return cli_value_number(arg, -90, 180, &o->hole_dip, why, wl);
     case OPT_ALPHA: o->single = 1; return cli_value_number(arg, 0, 90, &o->alpha, why, wl);
@@ -259,15 +245,11 @@ static int parse(int argc, char **argv, convert_opts *o)
         fputs(cli_convention_help, stdout);
     if (rc != 0)
         return rc;
-    if (optind < argc) { /* files named on the command line replace the project's */
-        o->nfiles = 0;
-        for (int i = optind; i < argc; i++)
-            if (add_file(o, argv[i]))
-                return EXIT_DATA;
-    }
+    if (cli_files_from_args(&o->logs, argc, argv)) /* they replace the project's */
+        return EXIT_DATA;
     size_t stdin_count = 0;
-    for (size_t i = 0; i < o->nfiles; i++)
-        stdin_count += strcmp(o->files[i], "-") == 0;
+    for (size_t i = 0; i < o->logs.n; i++)
+        stdin_count += strcmp(o->logs.path[i], "-") == 0;
     if (stdin_count > 1)
         return cli_usage("convert", "standard input (-) can be read only once");
     if (o->single) {
@@ -278,11 +260,11 @@ static int parse(int argc, char **argv, convert_opts *o)
             return cli_usage("convert", "give one of --alpha (with --beta), --plane or --line");
         if (!forward && (!isnan(o->beta) || !isnan(o->gamma)))
             return cli_usage("convert", "--beta and --gamma go with --alpha");
-        if (o->nfiles)
+        if (o->logs.n)
             return cli_usage("convert", "one reading takes no STRUCTURES files");
         return cli_common_finish(&o->c, 0);
     }
-    if (o->nfiles == 0)
+    if (o->logs.n == 0)
         return cli_usage("convert", "no STRUCTURES file (a core log, or - for standard input)");
     return cli_common_finish(&o->c, 1);
 }
@@ -293,8 +275,8 @@ static int write_about(const convert_opts *o)
     const corax_convert_options *cv = &o->setup.convert;
     cli_about *a = cli_about_new("convert", &o->c);
     cli_about_section(a, "convert");
-    for (size_t i = 0; i < o->nfiles; i++)
-        cli_about_set(a, "structures", "%s", o->files[i]);
+    for (size_t i = 0; i < o->logs.n; i++)
+        cli_about_set(a, "structures", "%s", o->logs.path[i]);
     cli_about_conventions(a, cv);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
@@ -356,12 +338,12 @@ int cmd_convert(int argc, char **argv)
     o.setup.format = o.c.load.format;
     o.setup.columns = o.c.columns;
     o.setup.quiet = o.c.quiet;
-    rc = convert_files(prog, &o.setup, o.files, o.nfiles, o.c.output);
+    rc = convert_files(prog, &o.setup, o.logs.path, o.logs.n, o.c.output);
     if (rc == EXIT_OK && write_about(&o) != 0)
         rc = EXIT_DATA;
     corax_program_free(prog);
 done:
-    free(o.files);
+    cli_files_free(&o.logs);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;
 }

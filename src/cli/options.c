@@ -364,6 +364,37 @@ int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopt
     return 0;
 }
 
+int cli_files_add(cli_files *f, const char *path, char *why, size_t wl)
+{
+    const char **p = realloc(f->path, (f->n + 1) * sizeof *p);
+    if (!p) {
+        snprintf(why, wl, "out of memory");
+        return -1;
+    }
+    f->path = p;
+    f->path[f->n++] = path;
+    return 0;
+}
+
+int cli_files_from_args(cli_files *f, int argc, char **argv)
+{
+    char why[64];
+    if (optind >= argc)
+        return 0;
+    f->n = 0;
+    for (int i = optind; i < argc; i++)
+        if (cli_files_add(f, argv[i], why, sizeof why))
+            return -1;
+    return 0;
+}
+
+void cli_files_free(cli_files *f)
+{
+    free(f->path);
+    f->path = NULL;
+    f->n = 0;
+}
+
 int cli_common_finish(cli_common *c, int need_program)
 {
     if (c->load.format.decimal == ',' && c->load.format.delimiter != ';')
