@@ -7,6 +7,7 @@
 #include <strings.h>
 
 #include "cli/cli.h"
+#include "common/grow.h"
 #include "corax/stereonet.h"
 
 static const char stereonet_help[] =
@@ -205,14 +206,10 @@ static group *find_group(groups *gs, const char *name, size_t len)
         gs->full = 1;
         return NULL;
     }
-    if (gs->count == gs->cap) {
-        size_t cap = gs->cap ? 2 * gs->cap : 16;
-        group *p = realloc(gs->item, cap * sizeof *p);
-        if (!p)
-            return NULL;
-        gs->item = p;
-        gs->cap = cap;
-    }
+    group *grown = corax_grow(gs->item, gs->count, &gs->cap, sizeof *grown, 16);
+    if (!grown)
+        return NULL;
+    gs->item = grown;
     group *g = &gs->item[gs->count];
     memset(g, 0, sizeof *g);
     if (!(g->name = strndup(name, len)))

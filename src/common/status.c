@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "common/order.h"
+#include "common/grow.h"
 #include "corax/finding.h"
 #include "corax/status.h"
 
@@ -65,14 +66,10 @@ static corax_status findings_vadd(corax_findings *list, corax_severity severity,
                                    const char *hole, double depth, double depth_to,
                                    const char *fmt, va_list ap)
 {
-    if (list->count == list->capacity) {
-        size_t cap = list->capacity ? 2 * list->capacity : 16;
-        corax_finding *p = realloc(list->item, cap * sizeof *p);
-        if (!p)
-            return CORAX_ENOMEM;
-        list->item = p;
-        list->capacity = cap;
-    }
+    corax_finding *grown = corax_grow(list->item, list->count, &list->capacity, sizeof *grown, 16);
+    if (!grown)
+        return CORAX_ENOMEM;
+    list->item = grown;
     corax_finding *f = &list->item[list->count++];
     f->severity = severity;
     snprintf(f->check, sizeof f->check, "%s", check ? check : "");

@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "corax/output.h"
+#include "common/format.h"
 #include "corax/svg.h"
 #include "draw/markup.h"
 
@@ -51,26 +52,16 @@ static void num(corax_svg *s, double v)
 
 void corax_svg_raw(corax_svg *s, const char *fmt, ...)
 {
-    char small[1024];
+    char small[1024], *big;
+    size_t n;
     va_list ap;
     va_start(ap, fmt);
-    int n = vsnprintf(small, sizeof small, fmt, ap);
+    const char *text = corax_vformat(small, sizeof small, &big, &n, fmt, ap);
     va_end(ap);
-    if (n < 0)
-        return;
-    if ((size_t)n < sizeof small) {
-        put(s, small, (size_t)n);
-        return;
-    }
-    char *big = malloc((size_t)n + 1);
-    if (!big) {
+    if (text)
+        put(s, text, n);
+    else
         s->failed = 1;
-        return;
-    }
-    va_start(ap, fmt);
-    vsnprintf(big, (size_t)n + 1, fmt, ap);
-    va_end(ap);
-    put(s, big, (size_t)n);
     free(big);
 }
 

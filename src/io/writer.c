@@ -10,6 +10,7 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "common/format.h"
 #include "corax/geometry.h"
 #include "corax/output.h"
 
@@ -188,26 +189,16 @@ void corax_writer_reset(corax_writer *w)
 
 void corax_writer_printf(corax_writer *w, const char *fmt, ...)
 {
-    char small[512];
+    char small[512], *big;
+    size_t n;
     va_list ap;
     va_start(ap, fmt);
-    int n = vsnprintf(small, sizeof small, fmt, ap);
+    const char *text = corax_vformat(small, sizeof small, &big, &n, fmt, ap);
     va_end(ap);
-    if (n < 0)
-        return;
-    if ((size_t)n < sizeof small) {
-        corax_writer_text(w, small, (size_t)n);
-        return;
-    }
-    char *big = malloc((size_t)n + 1);
-    if (!big) {
+    if (text)
+        corax_writer_text(w, text, n);
+    else
         w->failed = ENOMEM;
-        return;
-    }
-    va_start(ap, fmt);
-    vsnprintf(big, (size_t)n + 1, fmt, ap);
-    va_end(ap);
-    corax_writer_text(w, big, (size_t)n);
     free(big);
 }
 
