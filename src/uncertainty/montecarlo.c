@@ -59,8 +59,10 @@ struct corax_mc {
     corax_ziggurat zig;
     double *d_azimuth, *d_plunge; /* per draw, per node */
     size_t azimuth_cap, plunge_cap;
-    corax_vec3 *drawn;            /* per draw, per block reading: its pole or line (a
-                                     draw's readings side by side, as they are made) */
+    corax_vec3 *drawn;            /* per block reading, per draw: its pole or line (a
+                                     reading's draws side by side; the block's
+                                     readings are few enough that the lines a draw
+                                     writes to stay in cache) */
     size_t drawn_cap;
     corax_vec3 *one;              /* one reading's draws, gathered */
     size_t one_cap;
@@ -238,7 +240,7 @@ static void add_draw(accum *ac, const prepared *p, corax_vec3 pos, corax_vec3 di
 }
 
 static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
-                   const corax_vec3 *drawn, size_t stride, size_t draws, corax_spread *out)
+                   const corax_vec3 *drawn, size_t draws, corax_spread *out)
 {
     memset(out, 0, sizeof *out);
     out->has_orientation = 1;
@@ -260,7 +262,7 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
     }
     size_t k = 0; /* the draws that gave an answer, gathered */
     for (size_t d = 0; d < draws; d++) {
-        corax_vec3 v = drawn[d * stride];
+        corax_vec3 v = drawn[d];
         if (v.x != 0.0 || v.y != 0.0 || v.z != 0.0)
             mc->one[k++] = v;
     }
@@ -312,10 +314,11 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
             prepare(&readings[first + j], o, &mc->prep[j]);
         memset(mc->acc, 0, count * sizeof *mc->acc);
         for (size_t d = 0; d < draws; d++) {
-            corax_vec3 *row = mc->drawn + d * count; /* this draw's answers; zero: none */
+            corax_vec3 *col = mc->drawn + d; /* this draw's answers, every draws-th; zero: none */
             if (corax_hole_resurvey(work, hole, mc->d_azimuth + d * nodes,
                                     mc->d_plunge + d * nodes) != CORAX_OK) {
-                memset(row, 0, count * sizeof *row); /* two stations turned opposite */
+                for (size_t j = 0; j < count; j++) /* two stations turned opposite */
+                    col[j * draws] = vec3(0.0, 0.0, 0.0);
                 continue;
             }
             size_t hint = 0;
@@ -323,10 +326,10 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
                 const prepared *p = &mc->prep[j];
                 corax_vec3 pos, dir;
                 if (!draw_one(mc, work, p, &hint, &pos, &dir)) {
-                    row[j] = vec3(0.0, 0.0, 0.0);
+                    col[j * draws] = vec3(0.0, 0.0, 0.0);
                     continue;
                 }
-                add_draw(&mc->acc[j], p, pos, dir, &row[j]);
+                add_draw(&mc->acc[j], p, pos, dir, &col[j * draws]);
                 if (on_draw) {
                     corax_plane plane;
                     if (p->plane)
@@ -336,7 +339,7 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
             }
         }
         for (size_t j = 0; j < count; j++)
-            finish(mc, &mc->acc[j], &readings[first + j], mc->drawn + j, count, draws,
+            finish(mc, &mc->acc[j], &readings[first + j], mc->drawn + j * draws, draws,
                    &out[first + j]);
     }
     corax_hole_free(work);
