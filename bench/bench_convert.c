@@ -12,22 +12,9 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "bench.h"
+
 enum { HOLES = 2000, STRUCTURES = 1000000, STATIONS = 20, SPACING = 25 };
-
-static double uniform(uint64_t *s)
-{
-    uint64_t z = (*s += 0x9E3779B97F4A7C15u);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9u;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBu;
-    return (double)((z ^ (z >> 31)) >> 11) * 0x1.0p-53;
-}
-
-static double now(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
 
 static void write_program(const char *dir)
 {
@@ -118,11 +105,5 @@ int main(void)
     printf("  peak memory of the converting process: %.1f MiB\n", (double)rss / 1024.0);
     fclose(in);
     fclose(out);
-    if (getenv("CORAX_BENCH_KEEP")) {
-        printf("  files kept in %s\n", dir);
-        return 0;
-    }
-    char cmd[700];
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", dir);
-    return system(cmd) == 0 ? 0 : 1;
+    return bench_scratch_done(dir);
 }

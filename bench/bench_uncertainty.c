@@ -13,27 +13,13 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "bench.h"
 #include "corax/corax.h"
 #include "corax/uncertainty.h"
 #include "geometry/vec.h"
 #include "uncertainty/gauss.h"
 
 enum { HOLES = 500, PER_HOLE = 200, STATIONS = 20, DRAWS = 1000 };
-
-static double now(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
-
-static double uniform(uint64_t *s)
-{
-    uint64_t z = (*s += 0x9E3779B97F4A7C15u);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9u;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBu;
-    return (double)((z ^ (z >> 31)) >> 11) * 0x1.0p-53;
-}
 
 /* A synthetic hole and its readings, converted plainly. */
 static corax_hole *make_hole(int h, uint64_t *seed, corax_mc_reading *m,
@@ -136,13 +122,7 @@ static int end_to_end(const char *corax)
         return 1;
     printf("  corax convert --draws 1000 on %d structures in %d holes: %.2f s end to end\n",
            HOLES * PER_HOLE, HOLES, now() - t0);
-    if (getenv("CORAX_BENCH_KEEP")) {
-        printf("  files kept in %s\n", dir);
-        return 0;
-    }
-    char cmd[400];
-    snprintf(cmd, sizeof cmd, "rm -rf '%s'", dir);
-    return system(cmd) == 0 ? 0 : 1;
+    return bench_scratch_done(dir);
 }
 
 /* The draws per second of the Monte Carlo over holes [0, nholes). */
