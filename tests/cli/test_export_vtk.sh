@@ -15,8 +15,8 @@ mkdir -p "$T"
 D="--collars data/collars.csv --surveys data/surveys.csv"
 fail() { echo "FAIL: $*"; exit 1; }
 
-if ! /usr/bin/python3 -c 'import vtkmodules.vtkIOLegacy' 2>/dev/null; then
-    echo "SKIP: /usr/bin/python3 cannot import VTK (apt-get install python3-vtk9)"
+if ! /usr/bin/python3 -c 'import vtkmodules.vtkIOLegacy, numpy' 2>/dev/null; then
+    echo "SKIP: /usr/bin/python3 cannot import VTK with numpy (apt-get install python3-vtk9 python3-numpy)"
     exit 0
 fi
 
