@@ -127,7 +127,7 @@ static void test_apparent_dip_jukes_1859(void **state)
     assert_close(corax_deg(d.toward_azimuth), 45, 0, 1e-9, "dips toward the NE end");
 }
 
-/* derived grid (check-values.md): true dip, angle between section and dip
+/* derived grid (docs/check-values.md): true dip, angle between section and dip
  * direction -> apparent dip. */
 static void test_apparent_dip_derived_grid(void **state)
 {

@@ -11,7 +11,7 @@ static corax_vec3 line(double trend_deg, double plunge_deg)
 }
 
 /* Check values (derived from the projection formulas, reference table of
- * check-values.md): equal-area r = sqrt(2) sin(theta/2), equal-angle
+ * docs/check-values.md): equal-area r = sqrt(2) sin(theta/2), equal-angle
  * r = tan(theta/2), theta = 90 - plunge. */
 static void test_projection_table_check_values(void **state)
 {

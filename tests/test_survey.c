@@ -105,7 +105,7 @@ static void test_iscwsa_well1_published_tvd(void **state)
 static void test_iscwsa_well1_derived_positions(void **state)
 {
     (void)state;
-    /* derived (check-values.md) from the published profile, to 0.01 m */
+    /* derived (docs/check-values.md) from the published profile, to 0.01 m */
     static const struct {
         double md, n, e, tvd;
     } ref[] = {
@@ -124,7 +124,7 @@ static void test_iscwsa_well1_derived_positions(void **state)
     corax_hole_free(h);
 }
 
-/* derived (check-values.md), on the arc between MD 1200 (inc 0) and 1230
+/* derived (docs/check-values.md), on the arc between MD 1200 (inc 0) and 1230
  * (inc 2, az 075) of ISCWSA well #1: at MD 1215 N 0.033878, E 0.126436,
  * TVD 1214.999238, inclination 1.000000; to 1e-6 m. */
 static void test_iscwsa_on_arc_point(void **state)
