@@ -49,7 +49,7 @@ int main(void)
     corax_program *prog;
     corax_findings problems = {0};
     corax_error err;
-    if (corax_program_load(cpath, spath, NULL, &prog, &problems, &err) != CORAX_OK ||
+    if (corax_program_load(cpath, spath, NULL, &prog, &problems, NULL, &err) != CORAX_OK ||
         problems.count) {
         fprintf(stderr, "bench: load failed: %s\n", err.message);
         return 1;

@@ -242,15 +242,25 @@ static void test_writer_quotes_and_commits_whole(void **state)
 static void test_column_names_and_mapping(void **state)
 {
     (void)state;
-    const char *names[] = {"HOLE_NO", "Depth_M", "Easting", "Z", "depth"};
-    size_t len[5];
-    for (int i = 0; i < 5; i++)
+    const char *names[] = {"HOLE_NO", "Depth_M", "Easting", "Z", "depth", "Collar RL"};
+    size_t len[6];
+    for (int i = 0; i < 6; i++)
         len[i] = strlen(names[i]);
     corax_row header = {5, names, len, 1};
     assert_int_equal(corax_column_find(&header, "x", NULL), 2);
     assert_int_equal(corax_column_find(&header, "z", NULL), 3);
-    assert_int_equal(corax_column_find(&header, "hole", NULL), -1);
+    assert_int_equal(corax_column_find(&header, "hole", NULL), 0); /* a usual spelling */
+    assert_int_equal(corax_column_find(&header, "gamma", NULL), -1);
     assert_int_equal(corax_column_find(&header, "depth", NULL), 4);
+    /* spaces, underscores, hyphens and full stops are one mark */
+    corax_row spaced = {6, names, len, 1};
+    spaced.field = names + 5;
+    spaced.length = len + 5;
+    spaced.count = 1;
+    assert_int_equal(corax_column_find(&spaced, "z", NULL), 0);
+    assert_true(corax_column_name_match("Hole ID", 7, "hole_id", 7));
+    assert_true(corax_column_name_match("hole-id", 7, "HOLE.ID", 7));
+    assert_false(corax_column_name_match("holeid", 6, "hole_id", 7));
     corax_column_map *map = NULL;
     corax_error err;
     assert_int_equal(corax_column_map_add(&map, "hole=hole_no, depth = DEPTH_M", &err), CORAX_OK);
@@ -258,6 +268,10 @@ static void test_column_names_and_mapping(void **state)
     assert_int_equal(corax_column_find(&header, "depth", map), 1);
     assert_int_equal(corax_column_map_add(&map, "depth=Z", &err), CORAX_OK);
     assert_int_equal(corax_column_find(&header, "depth", map), 3);
+    /* a mapped header the table lacks never falls back to the usual names */
+    assert_int_equal(corax_column_map_add(&map, "depth=DEPTH_FT", &err), CORAX_OK);
+    assert_int_equal(corax_column_find(&header, "depth", map), CORAX_COLUMN_MAPPED_MISSING);
+    assert_string_equal(corax_column_mapped(map, "depth"), "DEPTH_FT");
     assert_int_equal(corax_column_map_add(&map, "colour=red", &err), CORAX_EARG);
     assert_non_null(strstr(err.message, "colour"));
     assert_int_equal(corax_column_map_add(&map, "hole", &err), CORAX_EARG);
@@ -292,14 +306,14 @@ static void test_load_program_reports_row_faults(void **state)
     corax_program *prog;
     corax_findings found = {0};
     corax_load_options o = corax_load_options_default();
-    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, NULL), CORAX_OK);
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, NULL, NULL), CORAX_OK);
     static const struct {
         long line;
         corax_severity sev;
         const char *words;
     } want[] = {
         {3, CORAX_ERROR, "x 'abc' is not a number"},
-        {5, CORAX_ERROR, "dip -95 is outside [-90, 90]"},
+        {5, CORAX_ERROR, "dip -95 does not fit the table's dip convention, negative-down"},
         {3, CORAX_ERROR, "azimuth 361 is outside [0, 360]"},
         {6, CORAX_ERROR, "azimuth 'nan' is not a finite number"},
         {6, CORAX_ERROR, "second collar"},
@@ -322,15 +336,15 @@ static void test_load_program_reports_row_faults(void **state)
     /* a missing required column stops the load, naming the file and line */
     test_write_file(spath, "hole,at,azimuth,dip\nA,0,90,-60\n");
     corax_error err;
-    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, &err), CORAX_EFORMAT);
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, NULL, &err), CORAX_EFORMAT);
     assert_string_equal(err.file, spath);
     assert_int_equal(err.line, 1);
     assert_non_null(strstr(err.message, "no 'depth' column"));
     /* ... and a mapping fixes it */
     corax_column_map *map = NULL;
     assert_int_equal(corax_column_map_add(&map, "depth=at", NULL), CORAX_OK);
-    o.columns = map;
-    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, &err), CORAX_OK);
+    o.collars.columns = o.surveys.columns = map;
+    assert_int_equal(corax_program_load(cpath, spath, &o, &prog, &found, NULL, &err), CORAX_OK);
     corax_program_free(prog);
     corax_column_map_free(map);
     corax_findings_clear(&found);

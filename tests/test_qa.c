@@ -167,7 +167,7 @@ static int setup(void **state)
     corax_load_options lo = corax_load_options_default();
     lo.repair = 1;
     corax_error err;
-    if (corax_program_load(cpath, spath, &lo, &w->prog, &w->found, &err) != CORAX_OK) {
+    if (corax_program_load(cpath, spath, &lo, &w->prog, &w->found, NULL, &err) != CORAX_OK) {
         fprintf(stderr, "load: %s\n", err.message);
         return -1;
     }

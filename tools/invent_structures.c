@@ -80,7 +80,7 @@ static void plane_row(const hole *h, double depth, const char *kind, corax_vec3 
            "%.5f,%.5f,%.5f,,,%s,\n",
            h->name, depth, corax_deg(alpha), corax_wrap_degrees(corax_deg(beta), 1), kind,
            uniform() < 0.8 ? "high" : "low", h->x + 0.4 * depth, h->y + 0.3 * depth,
-           h->z - 0.8 * depth, h->azimuth, h->dip, dip, corax_wrap_degrees(dd, 2),
+           h->z - 0.8 * depth, h->azimuth, -h->dip, dip, corax_wrap_degrees(dd, 2),
            corax_wrap_degrees(dd - 90, 2), corax_wrap_degrees(dd + 180, 2), 90 - dip, up.x,
            up.y, up.z, status);
 }
@@ -93,7 +93,7 @@ int main(int argc, char **argv)
     }
     long rows = atol(argv[1]);
     state = argc > 2 ? (uint64_t)atoll(argv[2]) : 2024;
-    printf("hole,depth,alpha,beta,gamma,kind,confidence,x,y,z,hole_azimuth,hole_dip,dip,"
+    printf("hole,depth,alpha,beta,gamma,kind,confidence,x,y,z,hole_azimuth,hole_plunge,dip,"
            "dip_direction,strike,pole_trend,pole_plunge,nx,ny,nz,trend,plunge,status,note\n");
     for (long i = 0; i < rows; i++) {
         const hole *h = &holes[i % NHOLES];
@@ -104,7 +104,7 @@ int main(int argc, char **argv)
         if (i % 23 == 7) { /* a reading the logger could not orient */
             printf("%s,%.2f,%.1f,,,joint,low,%.2f,%.2f,%.2f,%.1f,%.1f,,,,,,,,,,,unoriented,"
                    "no orientation line\n", h->name, depth, 20 + 60 * uniform(), h->x, h->y,
-                   h->z - depth, h->azimuth, h->dip);
+                   h->z - depth, h->azimuth, -h->dip);
             continue;
         }
         if (i % 9 == 4) { /* a lineation: lines cluster about 150/30 */
@@ -114,7 +114,7 @@ int main(int argc, char **argv)
             corax_line_trend_plunge(l, &trend, &pl);
             printf("%s,%.2f,,,,lineation,high,%.2f,%.2f,%.2f,%.1f,%.1f,,,,,,,,,%.2f,%.2f,ok,\n",
                    h->name, depth, h->x + 0.4 * depth, h->y + 0.3 * depth, h->z - 0.8 * depth,
-                   h->azimuth, h->dip, corax_wrap_degrees(corax_deg(trend), 2), corax_deg(pl));
+                   h->azimuth, -h->dip, corax_wrap_degrees(corax_deg(trend), 2), corax_deg(pl));
             continue;
         }
         const family *f;

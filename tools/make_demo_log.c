@@ -78,7 +78,7 @@ int main(int argc, char **argv)
     corax_program *prog;
     corax_findings problems = {0};
     corax_error err;
-    if (corax_program_load(argv[1], argv[2], &lo, &prog, &problems, &err) != CORAX_OK ||
+    if (corax_program_load(argv[1], argv[2], &lo, &prog, &problems, NULL, &err) != CORAX_OK ||
         corax_findings_count(&problems, CORAX_ERROR)) {
         fprintf(stderr, "make_demo_log: cannot load the demo program\n");
         return 1;

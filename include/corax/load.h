@@ -10,22 +10,47 @@
 extern "C" {
 #endif
 
+/* A survey station to leave out, named by hole and depth. */
+typedef struct corax_station_ref {
+    const char *hole;
+    double depth; /* in the unit of the survey table */
+} corax_station_ref;
+
 /* What the loader assumes about the tables. */
 typedef struct corax_load_options {
-    corax_table_format format;
-    const corax_column_map *columns; /* may be NULL */
-    corax_dip_convention dip_convention;
+    corax_table_settings collars, surveys;
+    corax_dip_convention collar_dip, survey_dip; /* each table's dip convention */
     double declination; /* degrees, magnetic to true: added to survey azimuths */
     double convergence; /* degrees, true to grid: subtracted from survey azimuths */
     int repair;         /* leave out a repeated or reversing station and keep the
                            hole (each still a finding), instead of the hole */
+    int collar_station; /* a collar with a direction whose first station lies
+                           deeper is a station at depth 0: the hole curves from
+                           the set-up to the first station (minimum curvature)
+                           instead of running straight */
+    const corax_station_ref *reject; /* stations left out (also a survey table's */
+    size_t nreject;                  /* `use` column saying no) */
 } corax_load_options;
 
-/* Defaults: comma-separated, dip negative down, no azimuth correction. */
+/* Defaults: formats found from the tables, metres, dip negative down, no
+ * azimuth correction, no station left out. */
 corax_load_options corax_load_options_default(void);
 
+/* What the load found: each table's format and what it skipped, and how many
+ * stations were left out on request. */
+typedef struct corax_load_info {
+    corax_table_info collars, surveys;
+    size_t rejected;
+} corax_load_info;
+
 /* Read a collar table (hole, x, y, z; optional azimuth, dip, length) and a
- * survey table (hole, depth, azimuth, dip) and desurvey every hole.
+ * survey table (hole, depth, azimuth, dip; optional azimuth_error, dip_error,
+ * use) and desurvey every hole. Lengths become metres by each table's unit.
+ *
+ * A dip that does not fit its table's convention (a from-vertical inclination
+ * of -60, a negative-down dip of 120) is a row fault naming the convention.
+ * Stations left out on request (options->reject, or `use` no) are notes in
+ * *problems; a reject naming no station is an error there.
  *
  * File-level faults (cannot open, missing required column, repeated header
  * name, broken quoting) stop the load: the status is returned, err says where.
@@ -35,10 +60,12 @@ corax_load_options corax_load_options_default(void);
  * A hole with a fault in its survey (a repeated depth, a 180-degree turn) is
  * left out of the program, its collar alone not standing in for it; with
  * options->repair the offending later station is left out instead, and the
- * hole kept. The caller owns *out. */
+ * hole kept. info (may be NULL) gets what the load found. The caller owns
+ * *out. */
 corax_status corax_program_load(const char *collars_path, const char *surveys_path,
                                 const corax_load_options *options, corax_program **out,
-                                corax_findings *problems, corax_error *err);
+                                corax_findings *problems, corax_load_info *info,
+                                corax_error *err);
 
 #ifdef __cplusplus
 }

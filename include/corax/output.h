@@ -5,6 +5,7 @@
 #include <stddef.h>
 
 #include "corax/status.h"
+#include "corax/table.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -28,6 +29,12 @@ const char *corax_writer_contents(const corax_writer *w, size_t *length);
 /* Empty a memory writer for reuse. */
 void corax_writer_reset(corax_writer *w);
 
+/* The CSV format of the fields written from now on: the delimiter (',' by
+ * default, ';' or '\t') and the decimal mark of numbers ('.' by default;
+ * ',' only with another delimiter than a comma). Fields holding the
+ * delimiter are quoted. */
+void corax_writer_format(corax_writer *w, corax_table_format format);
+
 /* Raw bytes, as they are. */
 void corax_writer_text(corax_writer *w, const char *text, size_t length);
 
@@ -39,7 +46,7 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
     ;
 
 /* A CSV field: separated from the previous one, quoted when it holds a comma,
- * quote, line end or surrounding blanks. */
+ * the delimiter, a quote, a tab, a line end or surrounding blanks. */
 void corax_writer_field(corax_writer *w, const char *text, size_t length);
 
 /* A number field with a fixed number of decimals (0..9); NaN gives an empty

@@ -12,6 +12,47 @@ enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
 
 typedef struct cli_about cli_about;
 
+/* The tables a run may read; each may have settings of its own (a project
+ * file's [collars], [surveys], [structures], [runs] and [converted]). */
+typedef enum cli_table_id {
+    CLI_COLLARS,
+    CLI_SURVEYS,
+    CLI_STRUCTURES, /* core logs */
+    CLI_RUNS,       /* orientation runs */
+    CLI_CONVERTED,  /* corax's converted tables, read back */
+    CLI_DEPTHS,     /* any other table of holes and depths (trace --at): no
+                       section of its own, the defaults only */
+    CLI_NTABLES
+} cli_table_id;
+
+/* Where a reading's depth sits in a from/to interval. */
+typedef enum cli_interval { CLI_INTERVAL_MID, CLI_INTERVAL_FROM, CLI_INTERVAL_TO } cli_interval;
+
+enum { CLI_UNSET = -1 };
+
+/* The settings of one table, or the defaults of all of them: CLI_UNSET where
+ * nothing was said. */
+typedef struct cli_table {
+    int delimiter, decimal;     /* 0 to find it from the table, or the character */
+    int units;                  /* 0 metres, 1 feet */
+    int dip;                    /* a corax_dip_convention (collars, surveys) */
+    int interval_depth;         /* a cli_interval (structures) */
+    corax_column_map *columns;  /* its own header names, or NULL */
+    corax_column_map *merged;   /* the defaults' names under its own (cli_common_finish) */
+} cli_table;
+
+/* A table as it was read: for the notes on standard error and the record. */
+typedef struct cli_table_read {
+    const char *path;
+    cli_table_id id;
+    corax_table_info info;
+} cli_table_read;
+
+typedef struct cli_reads {
+    cli_table_read *item;
+    size_t n;
+} cli_reads;
+
 /* Options shared by the commands that read a drill program. */
 typedef struct cli_common {
     const char *command; /* for messages */
@@ -19,8 +60,18 @@ typedef struct cli_common {
     const char *output;  /* "-" for standard output */
     const char *about;   /* side file; NULL: OUTPUT.about when output is a file */
     const char *project; /* the project file read, or NULL */
-    corax_column_map *columns;
-    corax_load_options load;
+    int in_project;      /* options are coming from the project file */
+    cli_table all;       /* defaults for every input table ([tables], [columns], options) */
+    int format_from_options; /* --delimiter or --decimal-mark on the command line:
+                                they also hold for converted tables */
+    cli_table table[CLI_NTABLES];
+    corax_table_format output_format; /* the tables corax writes */
+    corax_load_options load; /* made from the tables' settings by cli_common_finish */
+    corax_station_ref *reject;
+    size_t nreject;
+    struct cli_reads *reads; /* tables read so far: a record kept beside the
+                                options, so that commands holding them const
+                                still note what they read */
     int quiet;
     char **owned;        /* strings made while reading options (project paths) */
     size_t nowned;
@@ -39,6 +90,19 @@ enum {
     OPT_DECIMAL_MARK,
     OPT_ABOUT,
     OPT_PROJECT,
+    OPT_UNITS,
+    OPT_COLLARS_UNITS,
+    OPT_SURVEYS_UNITS,
+    OPT_STRUCTURES_UNITS,
+    OPT_COLLARS_DIP,
+    OPT_SURVEYS_DIP,
+    OPT_COLLARS_COLUMNS,
+    OPT_SURVEYS_COLUMNS,
+    OPT_STRUCTURES_COLUMNS,
+    OPT_COLLAR_STATION,
+    OPT_REJECT_STATION,
+    OPT_OUTPUT_DELIMITER,
+    OPT_OUTPUT_DECIMAL,
     /* the core conventions, for the commands that read core logs */
     OPT_REFERENCE = 1050,
     OPT_BETA_END,
@@ -48,6 +112,10 @@ enum {
     OPT_NEAR_PARALLEL,
     OPT_NEAR_PERPENDICULAR,
     OPT_VERTICAL_LIMIT,
+    /* reading core logs */
+    OPT_INTERVAL_DEPTH,
+    OPT_KIND_CODES,
+    OPT_CONFIDENCE_CODES,
     OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
 };
 
@@ -60,10 +128,33 @@ enum {
         {"gamma-sense", required_argument, NULL, OPT_GAMMA_SENSE},               \
         {"near-parallel", required_argument, NULL, OPT_NEAR_PARALLEL},           \
         {"near-perpendicular", required_argument, NULL, OPT_NEAR_PERPENDICULAR}, \
-        {"vertical-limit", required_argument, NULL, OPT_VERTICAL_LIMIT}
+        {"vertical-limit", required_argument, NULL, OPT_VERTICAL_LIMIT},           \
+        {"interval-depth", required_argument, NULL, OPT_INTERVAL_DEPTH},           \
+        {"kind-codes", required_argument, NULL, OPT_KIND_CODES},                   \
+        {"confidence-codes", required_argument, NULL, OPT_CONFIDENCE_CODES}
 
 /* Help text for them. */
 extern const char cli_convention_help[];
+
+/* How a command reads core logs: where an interval's reading sits, and the
+ * log's code words. */
+typedef struct cli_log_options {
+    corax_codes *kind_codes, *confidence_codes; /* NULL: values are the words */
+} cli_log_options;
+
+/* Apply a log option (--interval-depth goes to the structures table's
+ * settings): 1 applied, 0 not one, -1 with why filled. */
+int cli_log_option(cli_common *c, cli_log_options *l, int opt, const char *arg, char *why,
+                   size_t whylen);
+void cli_log_options_free(cli_log_options *l);
+
+/* Record the code words in a .about file. */
+void cli_about_codes(cli_about *a, const cli_log_options *l);
+
+/* Say once per value, on standard error (unless quiet): "corax: warning: WHAT
+ * 'VALUE' (N rows, first FILE:LINE) PROBLEM: CONSEQUENCE". */
+void cli_tally_warn(const cli_common *c, const char *what, const char *problem,
+                    const corax_tally *t, const char *consequence);
 
 /* Apply a convention option: 1 applied, 0 not one, -1 with why filled. */
 int cli_convention_option(corax_convert_options *cv, int opt, const char *arg, char *why,
@@ -85,6 +176,19 @@ void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
         {"decimal-mark", required_argument, NULL, OPT_DECIMAL_MARK},         \
         {"about", required_argument, NULL, OPT_ABOUT},                       \
         {"project", required_argument, NULL, OPT_PROJECT},                   \
+        {"units", required_argument, NULL, OPT_UNITS},                       \
+        {"collars-units", required_argument, NULL, OPT_COLLARS_UNITS},       \
+        {"surveys-units", required_argument, NULL, OPT_SURVEYS_UNITS},       \
+        {"structures-units", required_argument, NULL, OPT_STRUCTURES_UNITS}, \
+        {"collars-dip-convention", required_argument, NULL, OPT_COLLARS_DIP}, \
+        {"surveys-dip-convention", required_argument, NULL, OPT_SURVEYS_DIP}, \
+        {"collars-columns", required_argument, NULL, OPT_COLLARS_COLUMNS},   \
+        {"surveys-columns", required_argument, NULL, OPT_SURVEYS_COLUMNS},   \
+        {"structures-columns", required_argument, NULL, OPT_STRUCTURES_COLUMNS}, \
+        {"collar-station", no_argument, NULL, OPT_COLLAR_STATION},           \
+        {"reject-station", required_argument, NULL, OPT_REJECT_STATION},     \
+        {"output-delimiter", required_argument, NULL, OPT_OUTPUT_DELIMITER}, \
+        {"output-decimal-mark", required_argument, NULL, OPT_OUTPUT_DECIMAL}, \
         {"output", required_argument, NULL, 'o'},                            \
         {"quiet", no_argument, NULL, 'q'}, {"help", no_argument, NULL, 'h'}
 
@@ -113,14 +217,17 @@ int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopt
 typedef struct cli_files {
     const char **path; /* borrowed strings */
     size_t n;
+    int from_options;  /* the list came from the command line */
 } cli_files;
 
-/* Add a file: 0, or -1 with why filled. */
-int cli_files_add(cli_files *f, const char *path, char *why, size_t whylen);
+/* Add a file: 0, or -1 with why filled. The first file the command line adds
+ * replaces those of the project file. */
+int cli_files_add(cli_files *f, const cli_common *c, const char *path, char *why,
+                  size_t whylen);
 
-/* Positional arguments argv[optind..], when there are any, replace the list
- * (a project file's files give way to the command line's). 0 or -1. */
-int cli_files_from_args(cli_files *f, int argc, char **argv);
+/* Positional arguments argv[optind..], when there are any, join the command
+ * line's files and replace the project file's. 0 or -1. */
+int cli_files_from_args(cli_files *f, const cli_common *c, int argc, char **argv);
 
 void cli_files_free(cli_files *f);
 
@@ -133,9 +240,51 @@ int cli_value_number(const char *arg, double lo, double hi, double *value, char 
 int cli_value_choice(const char *arg, const char *const *names, int count, int *value,
                      char *why, size_t whylen);
 
+/* ---- the tables' settings ---- */
+
+/* The name of a table as the project file's section spells it. */
+const char *cli_table_name(cli_table_id id);
+
+/* How to read a table: its own settings over the defaults (converted tables
+ * take only their own, and the command line's format: corax writes them). */
+corax_table_settings cli_table_settings(const cli_common *c, cli_table_id id);
+
+/* A table's dip convention (collars and surveys). */
+corax_dip_convention cli_table_dip(const cli_common *c, cli_table_id id);
+
+/* Where a core log's interval puts its reading. */
+cli_interval cli_interval_depth(const cli_common *c);
+
+/* Apply a key of a table's section in the project file ([collars] units =
+ * feet, [collars] hole = Hole ID, ...): 0 applied, 1 a path (the caller
+ * applies it as an option), -1 with why filled. */
+int cli_table_key(cli_common *c, cli_table_id id, const char *key, const char *value,
+                  char *why, size_t whylen);
+
+/* The table id of a project section's name, or -1. */
+int cli_table_section(const char *section);
+
+/* Note a table as read: its comment lines and blank rows on standard error
+ * (unless quiet) and, with the format found, in the record. */
+void cli_table_done(const cli_common *c, cli_table_id id, const char *path,
+                    const corax_table_info *info);
+
+/* Table settings by name, for options and project keys alike: 0 with
+ * *value set, -1 with why filled. Delimiter: comma, semicolon, tab, auto
+ * (',' and ';' too); decimal: point, comma, auto; units: metres, feet (0, 1);
+ * dip: a convention's name. auto gives 0. */
+int cli_value_delimiter(const char *arg, int *value, char *why, size_t whylen);
+int cli_value_decimal(const char *arg, int *value, char *why, size_t whylen);
+int cli_value_units(const char *arg, int *value, char *why, size_t whylen);
+int cli_value_dip(const char *arg, int *value, char *why, size_t whylen);
+
 /* Load the drill program, printing findings; NULL (message printed) when it
  * cannot be used. */
 corax_program *cli_load_program(cli_common *c);
+
+/* The same into *prog, keeping every finding in *found (for check): an
+ * exit status, the message printed when it is not EXIT_OK. */
+int cli_load_program_findings(cli_common *c, corax_program **prog, corax_findings *found);
 
 /* What a command does after cli_parse(): given what parsing returned, 1 to go
  * on, with the drill program loaded into *prog when want_program (else NULL);
@@ -169,6 +318,9 @@ int cli_about_commit(cli_about *a, const cli_common *c);
 /* A converted table (one structure a row) being read. */
 typedef struct cli_converted {
     const char *path;
+    const cli_common *c; /* the run, for the record of what was read */
+    char decimal;      /* as read */
+    double unit;       /* metres per unit of its lengths */
     corax_reader *reader;
     corax_structure_columns columns;
     size_t width;      /* fields in its header */
@@ -183,8 +335,7 @@ int cli_converted_open(const cli_common *c, const char *path, cli_converted *t);
 /* The next structure: 1 with *row and *s filled, 0 at the end. Faulty rows
  * (ragged, unusable values) are printed as `corax: FILE:LINE: why`, counted
  * and skipped, so that a run reports all of them. */
-int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
-                       corax_structure *s);
+int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s);
 
 /* Close; EXIT_DATA (with a summary printed) when there were problems. */
 int cli_converted_close(cli_converted *t);

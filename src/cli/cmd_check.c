@@ -19,8 +19,9 @@ static const char check_help[] =
     "becomes findings and the rest is still checked: the exit status is 0 whatever\n"
     "is found, 1 only when a file cannot be read or lacks a required column.\n"
     "\n"
-    "  --structures FILE     a core log (hole, depth, alpha, beta, gamma, kind,\n"
-    "                        confidence, ...); may repeat; also as positional FILEs\n"
+    "  --structures FILE     a core log (hole, depth or from and to, alpha, beta,\n"
+    "                        gamma, kind, confidence, ...); may repeat; also as\n"
+    "                        positional FILEs, which replace the project file's\n"
     "  --runs FILE           orientation runs: hole, from, to, optional confidence;\n"
     "                        without it, runs are inferred from the readings' depths\n"
     "  --report FILE         the findings as one self-contained HTML page\n"
@@ -62,6 +63,7 @@ enum {
 
 typedef struct check_opts {
     cli_common c;
+    cli_log_options log;
     corax_convert_options convert;
     corax_qa_options qa;
     cli_files logs;
@@ -89,6 +91,8 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
 {
     check_opts *o = ctx;
     int k = cli_convention_option(&o->convert, opt, arg, why, wl);
+    if (!k)
+        k = cli_log_option(&o->c, &o->log, opt, arg, why, wl);
     if (k)
         return k < 0 ? -1 : 0;
     corax_qa_options *q = &o->qa;
@@ -115,7 +119,7 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
         }
     switch (opt) {
     case OPT_STRUCTURES:
-        return cli_files_add(&o->logs, arg, why, wl);
+        return cli_files_add(&o->logs, &o->c, arg, why, wl);
     case OPT_RUNS: o->runs = arg; return 0;
     case OPT_REPORT: o->report = arg; return 0;
     case OPT_TITLE: o->title = arg; return 0;
@@ -153,7 +157,7 @@ static int parse(int argc, char **argv, check_opts *o)
         fputs(cli_convention_help, stdout);
     if (rc != 0)
         return rc;
-    if (cli_files_from_args(&o->logs, argc, argv)) /* they replace the project's */
+    if (cli_files_from_args(&o->logs, &o->c, argc, argv)) /* they replace the project's */
         return EXIT_DATA;
     return cli_common_finish(&o->c, 1);
 }
@@ -167,6 +171,7 @@ typedef struct logs {
     size_t n, cap;
     char **phrase; /* the problems' words, owned */
     size_t nphrase;
+    corax_tally *unknown_kind, *unknown_confidence; /* codes with no word */
 } logs;
 
 static void logs_free(logs *l)
@@ -178,6 +183,8 @@ static void logs_free(logs *l)
     free(l->table);
     free(l->reading);
     free(l->phrase);
+    corax_tally_free(l->unknown_kind);
+    corax_tally_free(l->unknown_confidence);
 }
 
 static const char *keep_phrase(logs *l, const char *text)
@@ -192,115 +199,185 @@ static const char *keep_phrase(logs *l, const char *text)
     return copy;
 }
 
-enum { L_HOLE, L_DEPTH, L_ALPHA, L_BETA, L_GAMMA, L_LALPHA, L_LBETA, L_KIND, L_CONF, NL };
-static const char *const log_names[NL] = {"hole",  "depth",      "alpha",     "beta", "gamma",
-                                          "line_alpha", "line_beta", "kind", "confidence"};
+enum { L_HOLE, L_DEPTH, L_FROM, L_TO, L_ALPHA, L_BETA, L_GAMMA, L_LALPHA, L_LBETA, L_KIND, L_CONF,
+       NL };
+static const char *const log_names[NL] = {"hole",  "depth", "from", "to", "alpha", "beta",
+                                          "gamma", "line_alpha", "line_beta", "kind",
+                                          "confidence"};
+
+/* How the logs are read: their settings and code words. */
+typedef struct log_setup {
+    corax_table_settings table;
+    int where; /* a cli_interval */
+    const cli_log_options *codes;
+} log_setup;
+
+/* A kind or confidence value as its word; an unknown code is tallied and
+ * kept as written. */
+static const char *word_of(const corax_codes *codes, const char *text, size_t len,
+                           corax_tally *unknown, const char *file, size_t findex, long line)
+{
+    size_t wl;
+    if (!codes || !len)
+        return text;
+    const char *w = corax_codes_word(codes, text, len, &wl);
+    if (w)
+        return w;
+    corax_tally_add(unknown, text, len, file, findex, line);
+    return text;
+}
 
 /* One row to a reading; a phrase for the first value that cannot be read. */
-static void read_row(const corax_table *t, size_t row, const long *col, const corax_program *prog,
+static void read_row(const corax_table *t, size_t findex, size_t row, const long *col,
+                     const log_setup *ls, const corax_program *prog, const char **field,
                      logs *l, corax_qa_reading *r)
 {
+    corax_row cells;
+    corax_table_row(t, row, field, &cells);
     r->hole = corax_table_cell(t, row, col[L_HOLE], NULL);
     r->path = corax_program_find(prog, r->hole, strlen(r->hole));
-    r->kind = corax_table_cell(t, row, col[L_KIND], NULL);
-    r->confidence = corax_table_cell(t, row, col[L_CONF], NULL);
     r->file = corax_table_path(t);
     r->line = corax_table_line(t, row);
+    size_t kl, cl;
+    const char *kind = corax_table_cell(t, row, col[L_KIND], &kl);
+    const char *conf = corax_table_cell(t, row, col[L_CONF], &cl);
+    r->kind = word_of(ls->codes->kind_codes, kind, kl, l->unknown_kind, r->file, findex, r->line);
+    r->confidence = word_of(ls->codes->confidence_codes, conf, cl, l->unknown_confidence,
+                            r->file, findex, r->line);
     r->problem = NULL;
     r->reading = corax_reading_empty();
-    r->reading.depth = NAN;
-    double *slot[] = {&r->reading.depth, &r->reading.alpha, &r->reading.beta, &r->reading.gamma,
-                      &r->reading.line_alpha, &r->reading.line_beta};
     char why[200];
-    if (corax_table_width(t, row) != corax_table_columns(t)) {
-        snprintf(why, sizeof why, "the row has %zu fields but the header has %zu",
-                 corax_table_width(t, row), corax_table_columns(t));
+    corax_table_info info;
+    corax_table_read_info(t, &info);
+    const char *ragged = corax_field_ragged(&cells, corax_table_columns(t), why, sizeof why);
+    if (ragged)
         r->problem = keep_phrase(l, why);
-    }
-    for (int k = L_DEPTH; k <= L_LBETA; k++) {
-        if (col[k] < 0)
-            continue;
+    if (corax_field_depth(&cells, col + L_DEPTH, info.format.decimal, ls->table.unit, ls->where,
+                          &r->reading.depth, why, sizeof why) != CORAX_NUMBER_OK &&
+        !r->problem)
+        r->problem = keep_phrase(l, why);
+    double *slot[] = {&r->reading.alpha, &r->reading.beta, &r->reading.gamma,
+                      &r->reading.line_alpha, &r->reading.line_beta};
+    for (int k = L_ALPHA; k <= L_LBETA; k++) {
         double v;
-        corax_number_status st = corax_table_number(t, row, col[k], &v);
+        corax_number_status st = corax_field_number(&cells, col[k], info.format.decimal,
+                                                    log_names[k], &v, why, sizeof why);
         if (st == CORAX_NUMBER_OK)
-            *slot[k - L_DEPTH] = k == L_DEPTH ? v : corax_rad(v);
-        else if ((st != CORAX_NUMBER_EMPTY || k == L_DEPTH) && !r->problem) {
-            snprintf(why, sizeof why, "%s '%.40s' %s", log_names[k],
-                     corax_table_cell(t, row, col[k], NULL),
-                     st == CORAX_NUMBER_EMPTY ? "is empty" : st == CORAX_NUMBER_NOT_FINITE
-                                                               ? "is not a finite number"
-                                                               : "is not a number");
-            if (st == CORAX_NUMBER_EMPTY)
-                snprintf(why, sizeof why, "the depth is empty");
+            *slot[k - L_ALPHA] = corax_rad(v);
+        else if (st != CORAX_NUMBER_EMPTY && col[k] >= 0 && !r->problem)
             r->problem = keep_phrase(l, why);
-        }
     }
 }
 
-static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
+/* The column of a logical name in a whole table, or an error printed. */
+static int table_columns(const corax_table *t, const corax_table_settings *ts,
+                         const char *const *names, size_t n, long *col)
 {
-    for (size_t f = 0; f < o->logs.n; f++) {
+    for (size_t k = 0; k < n; k++) {
+        col[k] = corax_table_column(t, names[k], ts->columns);
+        if (col[k] == CORAX_COLUMN_MAPPED_MISSING) {
+            cli_error(corax_table_path(t), 1, "no '%s' column in the header, which the column "
+                      "names give for %s", corax_column_mapped(ts->columns, names[k]),
+                      names[k]);
+            return -1;
+        }
+    }
+    return 0;
+}
+
+static int load_logs(check_opts *o, const corax_program *prog, logs *l)
+{
+    log_setup ls = {cli_table_settings(&o->c, CLI_STRUCTURES), (int)cli_interval_depth(&o->c),
+                    &o->log};
+    const char **field = NULL;
+    l->unknown_kind = corax_tally_new();
+    l->unknown_confidence = corax_tally_new();
+    int rc = l->unknown_kind && l->unknown_confidence ? EXIT_OK : EXIT_DATA;
+    for (size_t f = 0; f < o->logs.n && rc == EXIT_OK; f++) {
         corax_table *t;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_table_load(o->logs.path[f], o->c.load.format, &t, &err);
+        corax_status st = corax_table_load(o->logs.path[f], ls.table.format, &t, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
-            return EXIT_DATA;
+            rc = EXIT_DATA;
+            break;
         }
         corax_table **tt = realloc(l->table, (l->ntables + 1) * sizeof *tt);
         if (!tt) {
             corax_table_free(t);
-            return EXIT_DATA;
+            rc = EXIT_DATA;
+            break;
         }
         l->table = tt;
         l->table[l->ntables++] = t;
+        corax_table_info info;
+        corax_table_read_info(t, &info);
+        cli_table_done(&o->c, CLI_STRUCTURES, o->logs.path[f], &info);
         long col[NL];
-        for (int k = 0; k < NL; k++)
-            col[k] = corax_table_column(t, log_names[k], o->c.columns);
-        const char *missing = col[L_HOLE] < 0 ? "hole" : col[L_DEPTH] < 0 ? "depth" : NULL;
+        if (table_columns(t, &ls.table, log_names, NL, col)) {
+            rc = EXIT_DATA;
+            break;
+        }
+        const char *missing = col[L_HOLE] < 0 ? "hole"
+                              : col[L_DEPTH] < 0 && (col[L_FROM] < 0 || col[L_TO] < 0)
+                                  ? "depth (or from and to)"
+                                  : NULL;
         if (!missing && col[L_ALPHA] < 0 && col[L_LALPHA] < 0)
             missing = "alpha";
         if (missing) {
             cli_error(o->logs.path[f], 1, "no '%s' column in the header", missing);
-            return EXIT_DATA;
+            rc = EXIT_DATA;
+            break;
         }
         size_t rows = corax_table_rows(t);
+        const char **fp = realloc(field, (corax_table_widest(t) + 1) * sizeof *fp);
+        if (fp)
+            field = fp;
         if (l->n + rows > l->cap) {
             size_t cap = l->cap ? l->cap : 1024;
             while (cap < l->n + rows)
                 cap *= 2;
             corax_qa_reading *p = realloc(l->reading, cap * sizeof *p);
-            if (!p)
-                return EXIT_DATA;
-            l->reading = p;
-            l->cap = cap;
+            if (p) {
+                l->reading = p;
+                l->cap = cap;
+            }
+        }
+        if (!fp || l->n + rows > l->cap) {
+            rc = EXIT_DATA;
+            break;
         }
         for (size_t r = 0; r < rows; r++)
-            read_row(t, r, col, prog, l, &l->reading[l->n++]);
+            read_row(t, f, r, col, &ls, prog, field, l, &l->reading[l->n++]);
     }
-    return EXIT_OK;
+    free(field);
+    return rc;
 }
 
 /* The orientation runs table; its faulty rows become findings. */
-static int load_runs(const check_opts *o, corax_table **table, corax_qa_run **runs, size_t *n,
-                     corax_findings *found)
+static int load_runs(check_opts *o, logs *l, corax_table **table, corax_qa_run **runs,
+                     size_t *n, corax_findings *found)
 {
+    static const char *const names[] = {"hole", "from", "to", "confidence"};
+    corax_table_settings ts = cli_table_settings(&o->c, CLI_RUNS);
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_table_load(o->runs, o->c.load.format, table, &err);
+    corax_status st = corax_table_load(o->runs, ts.format, table, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
     }
     const corax_table *t = *table;
-    long hole = corax_table_column(t, "hole", o->c.columns);
-    long from = corax_table_column(t, "from", o->c.columns);
-    long to = corax_table_column(t, "to", o->c.columns);
-    long conf = corax_table_column(t, "confidence", o->c.columns);
-    if (hole < 0 || from < 0 || to < 0) {
+    corax_table_info info;
+    corax_table_read_info(t, &info);
+    cli_table_done(&o->c, CLI_RUNS, o->runs, &info);
+    long col[4];
+    if (table_columns(t, &ts, names, 4, col))
+        return EXIT_DATA;
+    if (col[0] < 0 || col[1] < 0 || col[2] < 0) {
         cli_error(o->runs, 1, "no '%s' column in the header",
-                  hole < 0 ? "hole" : from < 0 ? "from" : "to");
+                  col[0] < 0 ? "hole" : col[1] < 0 ? "from" : "to");
         return EXIT_DATA;
     }
     size_t rows = corax_table_rows(t);
@@ -310,18 +387,23 @@ static int load_runs(const check_opts *o, corax_table **table, corax_qa_run **ru
     *n = 0;
     for (size_t r = 0; r < rows; r++) {
         double a, b;
-        const char *name = corax_table_cell(t, r, hole, NULL);
-        if (corax_table_number(t, r, from, &a) != CORAX_NUMBER_OK ||
-            corax_table_number(t, r, to, &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) || !name[0]) {
+        const char *name = corax_table_cell(t, r, col[0], NULL);
+        size_t cl;
+        const char *conf = corax_table_cell(t, r, col[3], &cl);
+        if (corax_table_number(t, r, col[1], &a) != CORAX_NUMBER_OK ||
+            corax_table_number(t, r, col[2], &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) ||
+            !name[0]) {
             if (corax_findings_add(found, CORAX_ERROR, "run-row", o->runs, corax_table_line(t, r),
                                    name, NAN, "the run row is not a hole with from < to (from "
                                    "'%.20s', to '%.20s'): it is left out",
-                                   corax_table_cell(t, r, from, NULL),
-                                   corax_table_cell(t, r, to, NULL)) != CORAX_OK)
+                                   corax_table_cell(t, r, col[1], NULL),
+                                   corax_table_cell(t, r, col[2], NULL)) != CORAX_OK)
                 return EXIT_DATA;
             continue;
         }
-        (*runs)[(*n)++] = (corax_qa_run){name, a, b, corax_table_cell(t, r, conf, NULL), o->runs,
+        const char *word = word_of(o->log.confidence_codes, conf, cl, l->unknown_confidence,
+                                   o->runs, o->logs.n, corax_table_line(t, r));
+        (*runs)[(*n)++] = (corax_qa_run){name, a * ts.unit, b * ts.unit, word, o->runs,
                                          corax_table_line(t, r)};
     }
     return EXIT_OK;
@@ -424,6 +506,7 @@ static int write_about(const check_opts *o)
     cli_about_set(a, "run_misfit", "%g", corax_deg(q->run_misfit));
     cli_about_set(a, "hole_turn", "%g", corax_deg(q->hole_turn));
     cli_about_conventions(a, &o->convert);
+    cli_about_codes(a, &o->log);
     return cli_about_commit(a, &o->c);
 }
 
@@ -445,20 +528,18 @@ int cmd_check(int argc, char **argv)
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_program_load(o.c.collars, o.c.surveys, &o.c.load, &prog, &found, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        rc = EXIT_DATA;
-        goto done;
-    }
-    rc = load_logs(&o, prog, &l);
+    rc = cli_load_program_findings(&o.c, &prog, &found);
+    if (rc == EXIT_OK)
+        rc = load_logs(&o, prog, &l);
     if (rc == EXIT_OK && o.runs)
-        rc = load_runs(&o, &run_table, &runs, &nruns, &found);
+        rc = load_runs(&o, &l, &run_table, &runs, &nruns, &found);
     if (rc != EXIT_OK)
         goto done;
-    st = corax_qa_surveys(prog, o.c.surveys, &o.qa, &found);
+    cli_tally_warn(&o.c, "kind code", "has no mapping", l.unknown_kind,
+                   "these rows keep it as their kind");
+    cli_tally_warn(&o.c, "confidence code", "has no mapping", l.unknown_confidence,
+                   "these rows keep it as their confidence");
+    corax_status st = corax_qa_surveys(prog, o.c.surveys, &o.qa, &found);
     if (st == CORAX_OK && l.n)
         st = corax_qa_readings(prog, l.reading, l.n, runs, nruns, &o.convert, &o.qa, &found);
     if (st == CORAX_OK)
@@ -488,6 +569,7 @@ done:
     free(runs);
     logs_free(&l);
     cli_files_free(&o.logs);
+    cli_log_options_free(&o.log);
     free(o.low_words);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;

@@ -81,6 +81,7 @@ enum {
 
 typedef struct convert_opts {
     cli_common c;
+    cli_log_options log;
     convert_setup setup;
     cli_files logs;
     /* one reading */
@@ -174,6 +175,8 @@ static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t
     convert_opts *o = ctx;
     double v;
     int k = cli_convention_option(&o->setup.convert, opt, arg, why, wl);
+    if (!k)
+        k = cli_log_option(&o->c, &o->log, opt, arg, why, wl);
     if (k)
         return k < 0 ? -1 : 0;
     switch (opt) {
@@ -184,7 +187,7 @@ static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t
         o->setup.section_azimuth = corax_rad(v);
         return 0;
     case OPT_STRUCTURES:
-        return cli_files_add(&o->logs, arg, why, wl);
+        return cli_files_add(&o->logs, &o->c, arg, why, wl);
     case OPT_HOLE_AZIMUTH: o->single = 1; return cli_value_number(arg, 0, 360, &o->hole_azimuth, why, wl);
     case OPT_HOLE_DIP: o->single = 1; return cli_value_number(arg, -90, 180, &o->hole_dip, why, wl);
     case OPT_ALPHA: o->single = 1; return cli_value_number(arg, 0, 90, &o->alpha, why, wl);
@@ -245,7 +248,7 @@ static int parse(int argc, char **argv, convert_opts *o)
         fputs(cli_convention_help, stdout);
     if (rc != 0)
         return rc;
-    if (cli_files_from_args(&o->logs, argc, argv)) /* they replace the project's */
+    if (cli_files_from_args(&o->logs, &o->c, argc, argv)) /* they replace the project's */
         return EXIT_DATA;
     size_t stdin_count = 0;
     for (size_t i = 0; i < o->logs.n; i++)
@@ -278,6 +281,7 @@ static int write_about(const convert_opts *o)
     for (size_t i = 0; i < o->logs.n; i++)
         cli_about_set(a, "structures", "%s", o->logs.path[i]);
     cli_about_conventions(a, cv);
+    cli_about_codes(a, &o->log);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
     if (o->setup.draws) {
@@ -334,16 +338,19 @@ int cmd_convert(int argc, char **argv)
         rc = EXIT_DATA;
         goto done;
     }
-    o.setup.dip_convention = o.c.load.dip_convention;
-    o.setup.format = o.c.load.format;
-    o.setup.columns = o.c.columns;
+    o.setup.log = cli_table_settings(&o.c, CLI_STRUCTURES);
+    o.setup.interval = (int)cli_interval_depth(&o.c);
+    o.setup.kind_codes = o.log.kind_codes;
+    o.setup.confidence_codes = o.log.confidence_codes;
+    o.setup.output = o.c.output_format;
     o.setup.quiet = o.c.quiet;
-    rc = convert_files(prog, &o.setup, o.logs.path, o.logs.n, o.c.output);
+    rc = convert_files(&o.c, prog, &o.setup, o.logs.path, o.logs.n, o.c.output);
     if (rc == EXIT_OK && write_about(&o) != 0)
         rc = EXIT_DATA;
     corax_program_free(prog);
 done:
     cli_files_free(&o.logs);
+    cli_log_options_free(&o.log);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;
 }

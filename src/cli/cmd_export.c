@@ -154,7 +154,7 @@ static int export_csv(const export_opts *o, corax_writer *w, size_t *written, si
     for (int k = 0; rc == EXIT_OK && k < n; k++) {
         corax_row row;
         corax_structure s;
-        while (cli_converted_next(&o->c, &t[k], &row, &s)) {
+        while (cli_converted_next(&t[k], &row, &s)) {
             if (!s.located || !s.oriented) {
                 (*left_out)++;
                 continue;
@@ -204,7 +204,7 @@ static int read_all(const export_opts *o, const corax_program *prog, corax_kinds
         }
         corax_row row;
         corax_structure s;
-        while (cli_converted_next(&o->c, &t, &row, &s)) {
+        while (cli_converted_next(&t, &row, &s)) {
             if (!s.located || !s.oriented) {
                 (*left_out)++;
                 continue;

@@ -267,7 +267,7 @@ static int read_structures(slab_run *r)
     corax_writer_end_row(r->w);
     corax_row row;
     corax_structure s;
-    while (cli_converted_next(&r->o->c, &t, &row, &s))
+    while (cli_converted_next(&t, &row, &s))
         if (keep(r, &row, &s) < 0) {
             cli_converted_close(&t);
             return EXIT_DATA;

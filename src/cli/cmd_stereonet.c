@@ -23,7 +23,7 @@ static const char stereonet_help[] =
     "                        Kamb, exponential smoothing, Vollmer 1995) or none\n"
     "  --contour-step SIGMA  contour interval in standard deviations (default 2)\n"
     "  --terzaghi            weight planes by Terzaghi (1965) against the bias of\n"
-    "                        sampling along the hole (needs hole_azimuth, hole_dip)\n"
+    "                        sampling along the hole (needs hole_azimuth, hole_plunge)\n"
     "  --terzaghi-min-angle DEG\n"
     "                        planes closer than DEG to parallel with the hole weigh\n"
     "                        as at DEG (default 15)\n"
@@ -90,7 +90,7 @@ typedef struct groups {
 
 /* Columns of one input table (-1 when absent). */
 typedef struct columns {
-    long dip, dip_direction, trend, plunge, hole_azimuth, hole_dip, group;
+    long dip, dip_direction, trend, plunge, hole_azimuth, hole_plunge, group;
     long *where;
 } columns;
 
@@ -179,7 +179,7 @@ static int parse(int argc, char **argv, stereo_opts *o)
     if (optind >= argc)
         return cli_usage("stereonet", "no input: name one or more converted tables");
     if (!o->c.project && /* a shared project file may name them for other commands */
-        (o->c.collars || o->c.surveys || o->c.columns || o->c.load.declination != 0.0 ||
+        (o->c.collars || o->c.surveys || o->c.all.columns || o->c.load.declination != 0.0 ||
          o->c.load.convergence != 0.0))
         return cli_usage("stereonet", "--collars, --surveys, --columns, --declination and "
                                       "--convergence do not apply: stereonet reads converted "
@@ -329,19 +329,14 @@ static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, 
                         corax_vec3 normal, double *w, char *why, size_t whylen)
 {
     const angle_spec spec[2] = {{col->hole_azimuth, "hole_azimuth", 0, 360},
-                                {col->hole_dip, "hole_dip", -180, 180}};
-    double v[2], plunge;
+                                {col->hole_plunge, "hole_plunge", -90, 90}};
+    double v[2];
     int r = read_pair(t, row, spec, v, why, whylen);
     if (r == PAIR_NONE)
         snprintf(why, whylen, "no hole direction for the Terzaghi weight");
-    if (r == PAIR_OK && corax_dip_to_plunge(v[1], o->c.load.dip_convention, &plunge) != CORAX_OK) {
-        snprintf(why, whylen, "hole_dip %g does not fit the %s convention", v[1],
-                 cli_dip_convention_name(o->c.load.dip_convention));
-        r = PAIR_BAD;
-    }
     if (r != PAIR_OK)
         return 0;
-    *w = corax_terzaghi_weight(normal, corax_direction(corax_rad(v[0]), plunge),
+    *w = corax_terzaghi_weight(normal, corax_direction(corax_rad(v[0]), corax_rad(v[1])),
                                corax_rad(o->min_angle));
     return 1;
 }
@@ -413,7 +408,7 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
     col->trend = corax_table_find(t, "trend");
     col->plunge = corax_table_find(t, "plunge");
     col->hole_azimuth = corax_table_find(t, "hole_azimuth");
-    col->hole_dip = corax_table_find(t, "hole_dip");
+    col->hole_plunge = corax_table_find(t, "hole_plunge");
     col->group = o->group_by ? corax_table_find(t, o->group_by) : -1;
     if (o->group_by && col->group < 0)
         return cli_usage("stereonet", "--group-by: %s has no column '%s'", path, o->group_by);
@@ -432,8 +427,12 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
         col->dip = col->dip_direction = -1;
     if (!lines)
         col->trend = col->plunge = -1;
-    if (o->style.weighted && planes && (col->hole_azimuth < 0 || col->hole_dip < 0)) {
-        cli_error(path, 1, "--terzaghi needs the hole_azimuth and hole_dip columns");
+    if (o->style.weighted && planes && (col->hole_azimuth < 0 || col->hole_plunge < 0)) {
+        cli_error(path, 1, "--terzaghi needs the hole_azimuth and hole_plunge columns%s",
+                  corax_table_find(t, "hole_dip") >= 0
+                      ? " (this table gives hole_dip, whose dip convention it does not state: "
+                        "convert it again with this corax)"
+                      : "");
         return EXIT_DATA;
     }
     return 0;
@@ -456,8 +455,9 @@ static int read_table(const stereo_opts *o, const char *path, groups *gs)
     corax_table *t;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_table_load(path, o->c.load.format, &t, &err);
-    if (st == CORAX_EFORMAT && is_empty_file(path, o->c.load.format)) {
+    corax_table_format format = cli_table_settings(&o->c, CLI_CONVERTED).format;
+    corax_status st = corax_table_load(path, format, &t, &err);
+    if (st == CORAX_EFORMAT && is_empty_file(path, format)) {
         if (!o->c.quiet)
             cli_error(path, 0, "warning: the file is empty");
         return 0;

@@ -30,6 +30,9 @@ typedef struct trace_opts {
     cli_common c;
     const char *at;
     double step;
+    char decimal; /* the --at table's decimal mark, as read */
+    double unit;  /* metres per unit of its depths */
+    corax_dip_convention dip; /* of the dips written: the surveys' */
 } trace_opts;
 
 enum { OPT_AT = OPT_COMMAND_BASE, OPT_STEP };
@@ -72,8 +75,9 @@ static void trace_row(const trace_opts *o, const corax_program *prog, const cora
     const corax_hole *hole = corax_program_find(prog, hole_name, hl);
     double depth;
     char why[200];
-    corax_number_status ds = corax_field_number(row, col[1], o->c.load.format.decimal, "depth",
-                                                &depth, why, sizeof why);
+    corax_number_status ds = corax_field_number(row, col[1], o->decimal, "depth", &depth, why,
+                                                sizeof why);
+    depth *= o->unit;
     const char *status;
     corax_hole_point pt;
     if (!hole) {
@@ -90,34 +94,47 @@ static void trace_row(const trace_opts *o, const corax_program *prog, const cora
         write_blank_point(w);
     } else {
         status = corax_where_name(pt.where);
-        write_point(w, &pt, o->c.load.dip_convention);
+        write_point(w, &pt, o->dip);
     }
     write_text(w, status);
     write_text(w, note);
     corax_writer_end_row(w);
 }
 
-static int trace_at(const trace_opts *o, const corax_program *prog, corax_writer *w)
+static int trace_at(trace_opts *o, const corax_program *prog, corax_writer *w)
 {
     static const char *const names[] = {"hole", "depth"};
+    static const char *const out[] = {"x", "y", "z", "azimuth", "dip", "status", "note"};
+    corax_table_settings ts = cli_table_settings(&o->c, CLI_DEPTHS);
     long col[2];
     size_t width;
     corax_row row;
     corax_reader *r;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_reader_open(o->at, o->c.load.format, &r, &err);
+    corax_status st = corax_reader_open(o->at, ts.format, &r, &err);
     if (st == CORAX_OK)
-        st = corax_table_header(r, names, 2, 2, o->c.columns, col, &width, &row, &err);
+        st = corax_table_header(r, names, 2, 2, ts.columns, col, &width, &row, &err);
     if (st == CORAX_OK) {
-        for (size_t i = 0; i < row.count; i++)
-            corax_writer_field(w, row.field[i], row.length[i]);
-        static const char *const out[] = {"x", "y", "z", "azimuth", "dip", "status", "note"};
+        corax_table_info info;
+        corax_reader_info(r, &info);
+        o->decimal = info.format.decimal;
+        o->unit = ts.unit;
+        for (size_t i = 0; i < row.count; i++) {
+            char name[512];
+            size_t len = corax_carried_name(row.field[i], out, 7, name, sizeof name);
+            corax_writer_field(w, name, len);
+        }
         for (size_t i = 0; i < 7; i++)
             write_text(w, out[i]);
         corax_writer_end_row(w);
         while ((st = corax_reader_next(r, &row, &err)) == CORAX_OK)
             trace_row(o, prog, &row, col, width, w);
+    }
+    if (r) {
+        corax_table_info info;
+        corax_reader_info(r, &info);
+        cli_table_done(&o->c, CLI_DEPTHS, o->at, &info);
     }
     corax_reader_close(r);
     if (st != CORAX_END) {
@@ -159,7 +176,7 @@ static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
             }
             status = "no-survey";
         } else {
-            write_point(w, &pt, o->c.load.dip_convention);
+            write_point(w, &pt, o->dip);
             status = corax_where_name(pt.where);
         }
         corax_writer_number(w, corax_deg(dls), 3);
@@ -171,11 +188,14 @@ static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
     return 0;
 }
 
-static int trace_all(const trace_opts *o, const corax_program *prog, corax_writer *w)
+static int trace_all(trace_opts *o, const corax_program *prog, corax_writer *w)
 {
-    static const char header[] =
-        "hole,depth,x,y,z,azimuth,dip,dogleg_severity,point,status\n";
-    corax_writer_text(w, header, sizeof header - 1);
+    static const char *const header[] = {"hole",    "depth",           "x",     "y",
+                                         "z",       "azimuth",         "dip",   "dogleg_severity",
+                                         "point",   "status"};
+    for (size_t i = 0; i < sizeof header / sizeof *header; i++)
+        write_text(w, header[i]);
+    corax_writer_end_row(w);
     for (size_t i = 0; i < corax_program_size(prog); i++)
         if (trace_hole(o, corax_program_hole(prog, i), w) != 0) {
             cli_error(NULL, 0, "out of memory");
@@ -230,6 +250,8 @@ int cmd_trace(int argc, char **argv)
         cli_error_record(&err, st);
         rc = EXIT_DATA;
     } else {
+        corax_writer_format(w, o.c.output_format);
+        o.dip = cli_table_dip(&o.c, CLI_SURVEYS);
         rc = o.at ? trace_at(&o, prog, w) : trace_all(&o, prog, w);
         if (rc == EXIT_OK) {
             st = corax_writer_commit(w, &err);
@@ -248,6 +270,7 @@ int cmd_trace(int argc, char **argv)
             cli_about_set(a, "at", "%s", o.at);
         else
             cli_about_set(a, "step", "%g", o.step);
+        cli_about_set(a, "dip", "%s, as the surveys give it", cli_dip_convention_name(o.dip));
         if (cli_about_commit(a, &o.c) != 0)
             rc = EXIT_DATA;
     }

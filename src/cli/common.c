@@ -85,15 +85,27 @@ int cli_usage(const char *command, const char *fmt, ...)
     return EXIT_USAGE;
 }
 
+int cli_load_program_findings(cli_common *c, corax_program **prog, corax_findings *found)
+{
+    corax_load_info info;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st =
+        corax_program_load(c->collars, c->surveys, &c->load, prog, found, &info, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        return EXIT_DATA;
+    }
+    cli_table_done(c, CLI_COLLARS, c->collars, &info.collars);
+    cli_table_done(c, CLI_SURVEYS, c->surveys, &info.surveys);
+    return EXIT_OK;
+}
+
 corax_program *cli_load_program(cli_common *c)
 {
     corax_program *prog = NULL;
     corax_findings problems = {0};
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_program_load(c->collars, c->surveys, &c->load, &prog, &problems, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
+    if (cli_load_program_findings(c, &prog, &problems) != EXIT_OK) {
         corax_findings_clear(&problems);
         return NULL;
     }
@@ -176,6 +188,30 @@ void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
     about_add(a, "\n");
 }
 
+static const char *delimiter_word(char d)
+{
+    return d == ';' ? "semicolon" : d == '\t' ? "tab" : "comma";
+}
+
+/* One input table: where it came from and how it was read. */
+static void about_table(cli_about *a, const cli_common *c, const cli_table_read *r)
+{
+    const corax_table_info *f = &r->info;
+    char skipped[120] = "";
+    if (f->comments || f->blank_rows)
+        snprintf(skipped, sizeof skipped, "; skipped %zu comment line%s and %zu blank row%s",
+                 f->comments, f->comments == 1 ? "" : "s", f->blank_rows,
+                 f->blank_rows == 1 ? "" : "s");
+    const char *decimal = f->format.decimal == ','   ? "comma"
+                          : f->format.decimal == '.' ? "point"
+                                                     : "point or comma";
+    cli_about_set(a, cli_table_name(r->id), "%s (delimiter %s%s; decimal mark %s%s; %s%s)",
+                  r->path, delimiter_word(f->format.delimiter),
+                  f->delimiter_detected ? ", found" : "", decimal,
+                  f->decimal_detected ? ", found" : "",
+                  cli_table_settings(c, r->id).unit == 1.0 ? "metres" : "feet", skipped);
+}
+
 cli_about *cli_about_new(const char *command, const cli_common *c)
 {
     cli_about *a = calloc(1, sizeof *a);
@@ -189,23 +225,27 @@ cli_about *cli_about_new(const char *command, const cli_common *c)
     strftime(when, sizeof when, "%Y-%m-%dT%H:%M:%SZ", gmtime_r(&now, &tm));
     cli_about_set(a, "time", "%s", when);
     cli_about_set(a, "output", "%s", strcmp(c->output, "-") ? c->output : "standard output");
+    cli_about_set(a, "output_format", "delimiter %s; decimal mark %s; lengths in metres",
+                  delimiter_word(c->output_format.delimiter),
+                  c->output_format.decimal == ',' ? "comma" : "point");
     cli_about_section(a, "inputs");
-    if (c->collars)
-        cli_about_set(a, "collars", "%s", c->collars);
-    if (c->surveys)
-        cli_about_set(a, "surveys", "%s", c->surveys);
-    cli_about_set(a, "delimiter", "%s", c->load.format.delimiter == ';' ? "semicolon" : "comma");
-    cli_about_set(a, "decimal_mark", "%s", c->load.format.decimal == ',' ? "comma" : "point");
-    cli_about_section(a, "survey");
-    cli_about_set(a, "dip_convention", "%s", cli_dip_convention_name(c->load.dip_convention));
+    for (size_t i = 0; c->reads && i < c->reads->n; i++)
+        about_table(a, c, &c->reads->item[i]);
     if (!c->collars && !c->surveys) /* a command that reads no surveys: no desurvey either */
         return a;
+    cli_about_section(a, "survey");
+    cli_about_set(a, "collars_dip_convention", "%s", cli_dip_convention_name(c->load.collar_dip));
+    cli_about_set(a, "surveys_dip_convention", "%s", cli_dip_convention_name(c->load.survey_dip));
     cli_about_set(a, "declination", "%g", c->load.declination);
     cli_about_set(a, "convergence", "%g", c->load.convergence);
     cli_about_set(a, "azimuth_correction", "%g (added to every survey azimuth; collar "
                   "azimuths are taken as given)", c->load.declination - c->load.convergence);
-    cli_about_set(a, "desurvey", "minimum curvature; straight from the collar above the first "
-                  "station; straight on along the last tangent below the last station");
+    cli_about_set(a, "desurvey", "minimum curvature; %s above the first "
+                  "station; straight on along the last tangent below the last station",
+                  c->load.collar_station ? "curving from the collar's set-up (a station at 0 m)"
+                                         : "straight from the collar");
+    for (size_t i = 0; i < c->nreject; i++)
+        cli_about_set(a, "rejected_station", "%s at %g", c->reject[i].hole, c->reject[i].depth);
     return a;
 }
 

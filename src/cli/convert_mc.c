@@ -8,8 +8,10 @@
 
 #include "cli/convert_rows.h"
 
-/* Every log, in one table. */
-static int load_logs(convert_run *r, const char *const *files, size_t nfiles, corax_table **out)
+/* Every log, in one table; end[f] is the number of rows up to the end of
+ * log f, and decimal[f] its decimal mark. */
+static int load_logs(cli_common *c, convert_run *r, const char *const *files, size_t nfiles,
+                     corax_table **out, size_t *end, char *decimal)
 {
     corax_table *all = NULL;
     for (size_t f = 0; f < nfiles; f++) {
@@ -18,16 +20,26 @@ static int load_logs(convert_run *r, const char *const *files, size_t nfiles, co
         corax_error err;
         corax_error_clear(&err);
         corax_status st = convert_open_log(r, files[f], &rd, &row, &err);
-        if (st == CORAX_OK && !all && !(all = corax_table_new(files[0], r->s->format.decimal, &row)))
-            st = CORAX_ENOMEM;
+        corax_table_info info;
+        if (st == CORAX_OK) {
+            corax_reader_info(rd, &info);
+            decimal[f] = info.format.decimal;
+            if (!all && !(all = corax_table_new(files[0], decimal[f], &row)))
+                st = CORAX_ENOMEM;
+        }
         while (st == CORAX_OK && (st = corax_reader_next(rd, &row, &err)) == CORAX_OK)
             st = corax_table_append(all, &row);
+        if (rd) {
+            corax_reader_info(rd, &info);
+            cli_table_done(c, CLI_STRUCTURES, files[f], &info);
+        }
         corax_reader_close(rd);
         if (st != CORAX_END) {
             cli_error_record(&err, st);
             corax_table_free(all);
             return EXIT_DATA;
         }
+        end[f] = corax_table_rows(all);
     }
     *out = all;
     return EXIT_OK;
@@ -127,6 +139,8 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
     for (int k = 0; !failed && k < nlanes; k++)
         failed = !(mc[k] = corax_mc_new()) ||
                  (cloud && corax_writer_memory(&cw[k]) != CORAX_OK);
+    for (int k = 0; !failed && cloud && k < nlanes; k++)
+        corax_writer_format(cw[k], s->output);
     for (size_t k = 0; !failed && k < count; k++) {
         const convert_eval *e = &ev[g[k].row];
         mr[k] = (corax_mc_reading){e->rd, e->errors, e->res};
@@ -175,13 +189,30 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
     return failed ? EXIT_DATA : EXIT_OK;
 }
 
-int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
+/* Point the lane at the log that row i came from. */
+static void lane_at_row(convert_lane *ln, const char *const *files, const size_t *end,
+                        const char *decimal, size_t i)
+{
+    size_t f = 0;
+    while (end[f] <= i)
+        f++;
+    ln->file = files[f];
+    ln->file_index = f;
+    ln->decimal = decimal[f];
+}
+
+int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
                        const char *const *files, size_t nfiles)
 {
     corax_table *all = NULL;
-    int rc = load_logs(r, files, nfiles, &all);
-    if (rc != EXIT_OK)
+    size_t *end = calloc(nfiles + 1, sizeof *end);
+    char *decimal = calloc(nfiles + 1, 1);
+    int rc = end && decimal ? load_logs(c, r, files, nfiles, &all, end, decimal) : EXIT_DATA;
+    if (rc != EXIT_OK) {
+        free(end);
+        free(decimal);
         return rc;
+    }
     size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL;
     convert_eval *ev = calloc(n ? n : 1, sizeof *ev);
     const char **field = malloc((corax_table_widest(all) + 1) * sizeof *field);
@@ -192,6 +223,7 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
     for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
         corax_row row;
         corax_table_row(all, i, field, &row);
+        lane_at_row(&lanes[0], files, end, decimal, i);
         convert_evaluate(r, &lanes[0], &row, &ev[i]);
     }
     member *g = rc == EXIT_OK ? group_rows(ev, n, &count, &groups, &ngroups) : NULL;
@@ -204,8 +236,12 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
             cli_error_record(&err, st);
             rc = EXIT_DATA;
         } else {
-            static const char head[] = "hole,depth,draw,dip,dip_direction,x,y,z\n";
-            corax_writer_text(cloud, head, sizeof head - 1);
+            static const char *const head[] = {"hole", "depth", "draw", "dip",
+                                               "dip_direction", "x", "y", "z"};
+            corax_writer_format(cloud, r->s->output);
+            for (size_t k = 0; k < sizeof head / sizeof *head; k++)
+                corax_writer_field(cloud, head[k], strlen(head[k]));
+            corax_writer_end_row(cloud);
         }
     }
     if (rc == EXIT_OK)
@@ -220,6 +256,7 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
     for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
         corax_row row;
         corax_table_row(all, i, field, &row);
+        lane_at_row(&lanes[0], files, end, decimal, i);
         convert_write(r, &lanes[0], &row, &ev[i], by_row[i]);
     }
     if (cloud) {
@@ -237,6 +274,8 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
     free(g);
     free(field);
     free(ev);
+    free(end);
+    free(decimal);
     corax_table_free(all);
     if (rc != EXIT_OK && rc != EXIT_DATA)
         rc = EXIT_DATA;

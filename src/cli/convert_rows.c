@@ -11,41 +11,66 @@
 #include "io/fields.h"
 
 static const char *const col_names[NCOLS] = {
-    "hole", "depth", "alpha", "beta", "gamma", "line_alpha", "line_beta",
-    "alpha_error", "beta_error", "line_error", "depth_error", "confidence"};
+    "hole",      "depth",     "from",        "to",          "alpha",      "beta",
+    "gamma",     "line_alpha", "line_beta",  "alpha_error", "beta_error", "line_error",
+    "depth_error", "confidence", "kind"};
+
+static const char *const own_names[NOWN] = {"hole", "depth", "kind", "confidence"};
+static const int own_cols[NOWN] = {COL_HOLE, COL_DEPTH, COL_KIND, COL_CONFIDENCE};
 
 static const char *const out_names[] = {
-    "x",          "y",           "z",     "hole_azimuth", "hole_dip", "dip", "dip_direction",
+    "x",          "y",           "z",     "hole_azimuth", "hole_plunge", "dip", "dip_direction",
     "strike",     "pole_trend",  "pole_plunge", "nx",     "ny",       "nz",
 };
+static const char *const line_names[] = {"trend", "plunge"};
+static const char *const section_names[] = {"apparent_dip", "apparent_dip_toward"};
+static const char *const spread_names[] = {"dip_sd", "dip_direction_sd", "cone95", "kappa",
+                                           "position_sd"};
+static const char *const tail_names[] = {"status", "note"};
+
+#define COUNT(a) (sizeof(a) / sizeof(a)[0])
 
 /* Rows are read a batch at a time and converted in chunks on every thread. */
 enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
 
+static void write_names(corax_writer *w, const char *const *names, size_t n, int used)
+{
+    for (size_t i = 0; used && i < n; i++)
+        corax_writer_field(w, names[i], strlen(names[i]));
+}
+
+/* The names corax writes after the log's, in order: n of them in names. */
+static size_t own_header(const convert_run *r, const char **names)
+{
+    const char *const *groups[] = {out_names, line_names, section_names, spread_names,
+                                   tail_names};
+    const size_t sizes[] = {COUNT(out_names), COUNT(line_names), COUNT(section_names),
+                            COUNT(spread_names), COUNT(tail_names)};
+    const int used[] = {1, r->has_lines, r->s->has_section, r->s->draws > 0, 1};
+    size_t n = 0;
+    for (int k = 0; k < NOWN; k++)
+        if (r->own[k])
+            names[n++] = own_names[k];
+    for (size_t g = 0; g < COUNT(groups); g++)
+        for (size_t i = 0; used[g] && i < sizes[g]; i++)
+            names[n++] = groups[g][i];
+    return n;
+}
+
+/* The log's header, with "log_" before a name corax writes itself (so that no
+ * name appears twice), then corax's own names. */
 static void write_header(convert_run *r, const corax_row *header)
 {
-    corax_writer *w = r->w;
-    for (size_t i = 0; i < header->count; i++)
-        corax_writer_field(w, header->field[i], header->length[i]);
-    for (size_t i = 0; i < sizeof out_names / sizeof out_names[0]; i++)
-        corax_writer_field(w, out_names[i], strlen(out_names[i]));
-    if (r->has_lines) {
-        corax_writer_field(w, "trend", 5);
-        corax_writer_field(w, "plunge", 6);
+    const char *names[NOWN + COUNT(out_names) + COUNT(line_names) + COUNT(section_names) +
+                      COUNT(spread_names) + COUNT(tail_names)];
+    size_t n = own_header(r, names);
+    for (size_t i = 0; i < header->count; i++) {
+        char name[512];
+        size_t len = corax_carried_name(header->field[i], names, n, name, sizeof name);
+        corax_writer_field(r->w, name, len);
     }
-    if (r->s->has_section) {
-        corax_writer_field(w, "apparent_dip", 12);
-        corax_writer_field(w, "apparent_dip_toward", 19);
-    }
-    if (r->s->draws) {
-        static const char *const spread[] = {"dip_sd", "dip_direction_sd", "cone95", "kappa",
-                                             "position_sd"};
-        for (int i = 0; i < 5; i++)
-            corax_writer_field(w, spread[i], strlen(spread[i]));
-    }
-    corax_writer_field(w, "status", 6);
-    corax_writer_field(w, "note", 4);
-    corax_writer_end_row(w);
+    write_names(r->w, names, n, 1);
+    corax_writer_end_row(r->w);
 }
 
 static const corax_hole *find_hole(const convert_run *shared, convert_lane *r, const char *name, size_t len)
@@ -64,31 +89,47 @@ static const corax_hole *find_hole(const convert_run *shared, convert_lane *r, c
 }
 
 /* Read the reading's numbers; a phrase in why for the first that is not one. */
-static int read_numbers(const convert_run *r, const corax_row *row, corax_reading *rd, char *why,
-                        size_t wl)
+static int read_numbers(const convert_run *r, const convert_lane *ln, const corax_row *row,
+                        corax_reading *rd, char *why, size_t wl)
 {
-    double *slot[COL_LBETA + 1] = {NULL, &rd->depth, &rd->alpha, &rd->beta, &rd->gamma,
-                           &rd->line_alpha, &rd->line_beta};
+    double *slot[] = {&rd->alpha, &rd->beta, &rd->gamma, &rd->line_alpha, &rd->line_beta};
     *rd = corax_reading_empty();
-    int ok = 1;
-    for (int k = COL_DEPTH; k <= COL_LBETA; k++) {
+    int ok = corax_field_depth(row, r->col + COL_DEPTH, ln->decimal, r->s->log.unit,
+                               r->s->interval, &rd->depth, why, wl) == CORAX_NUMBER_OK;
+    for (int k = COL_ALPHA; k <= COL_LBETA; k++) {
         if (r->col[k] < 0)
             continue;
         double v;
         char phrase[160];
-        corax_number_status st = corax_field_number(row, r->col[k], r->s->format.decimal,
-                                                    col_names[k], &v, phrase, sizeof phrase);
+        corax_number_status st = corax_field_number(row, r->col[k], ln->decimal, col_names[k],
+                                                    &v, phrase, sizeof phrase);
         if (st == CORAX_NUMBER_OK)
-            *slot[k] = k == COL_DEPTH ? v : corax_rad(v);
-        else if (st != CORAX_NUMBER_EMPTY || k == COL_DEPTH) {
+            *slot[k - COL_ALPHA] = corax_rad(v);
+        else if (st != CORAX_NUMBER_EMPTY) {
             if (ok)
                 snprintf(why, wl, "%s", phrase);
             ok = 0;
-            if (k == COL_DEPTH)
-                rd->depth = NAN;
         }
     }
     return ok;
+}
+
+/* A kind or confidence as its word: through the codes when there are any
+ * (an unknown code counted in `unknown`, which may be NULL, and kept as it is
+ * written). */
+static const char *word_of(const convert_lane *ln, const corax_codes *codes, const char *text,
+                           size_t len, size_t *wl, corax_tally *unknown, long line)
+{
+    *wl = len;
+    if (!codes || !len)
+        return text;
+    const char *w = corax_codes_word(codes, text, len, wl);
+    if (w)
+        return w;
+    *wl = len;
+    if (unknown)
+        corax_tally_add(unknown, text, len, ln->file, ln->file_index, line);
+    return text;
 }
 
 static void write_blanks(corax_writer *w, int n)
@@ -106,7 +147,7 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
         corax_writer_number(w, res->point.position.y, 3);
         corax_writer_number(w, res->point.position.z, 3);
         corax_writer_azimuth(w, corax_deg(az), 2);
-        corax_writer_number(w, corax_plunge_to_dip(plunge, r->s->dip_convention), 2);
+        corax_writer_number(w, corax_deg(plunge), 2);
     } else {
         write_blanks(w, 5);
     }
@@ -148,20 +189,24 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
 
 /* This row's reading errors: the run's, a confidence's line error, and the
  * row's own columns. 0 with why filled when one cannot be used. */
-static int row_errors(const convert_run *r, const corax_row *row, corax_error_model *e,
-                      char *why, size_t wl)
+static int row_errors(const convert_run *r, convert_lane *ln, const corax_row *row,
+                      corax_error_model *e, char *why, size_t wl)
 {
     const convert_setup *s = r->s;
     *e = s->errors;
     if (r->col[COL_CONFIDENCE] >= 0) {
-        size_t n;
-        const char *c = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
+        size_t n, len;
+        const char *text = corax_field_text(row, r->col[COL_CONFIDENCE], &len);
+        const char *c = word_of(ln, s->confidence_codes, text, len, &n, NULL, 0);
         if (n) {
             size_t k = 0;
             while (k < s->nconfidence &&
                    !(strlen(s->confidence[k].name) == n && strncasecmp(s->confidence[k].name, c, n) == 0))
                 k++;
             if (k == s->nconfidence) {
+                /* an unknown code was counted already, when the row was read */
+                if (!s->confidence_codes || corax_codes_word(s->confidence_codes, text, len, &n))
+                    corax_tally_add(ln->no_line_error, c, n, ln->file, ln->file_index, row->line);
                 snprintf(why, wl, "no uncertainty: confidence '%.40s' has no line error "
                          "(--confidence-errors)", c);
                 return 0;
@@ -176,7 +221,7 @@ static int row_errors(const convert_run *r, const corax_row *row, corax_error_mo
             continue;
         double v;
         char phrase[120];
-        corax_number_status st = corax_field_number(row, r->col[cols[i]], s->format.decimal,
+        corax_number_status st = corax_field_number(row, r->col[cols[i]], ln->decimal,
                                                     col_names[cols[i]], &v, phrase, sizeof phrase);
         if (st == CORAX_NUMBER_EMPTY)
             continue;
@@ -186,7 +231,7 @@ static int row_errors(const convert_run *r, const corax_row *row, corax_error_mo
             snprintf(why, wl, "no uncertainty: %s", phrase);
             return 0;
         }
-        *slot[i] = cols[i] == COL_DEPTH_ERROR ? v : corax_rad(v);
+        *slot[i] = cols[i] == COL_DEPTH_ERROR ? v * s->log.unit : corax_rad(v);
     }
     return 1;
 }
@@ -197,7 +242,7 @@ void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *r
     ev->rd = corax_reading_empty();
     ev->why[0] = ev->mc_why[0] = '\0';
     int ragged = corax_field_ragged(row, r->width, ev->why, sizeof ev->why) != NULL;
-    ev->usable = !ragged && read_numbers(r, row, &ev->rd, ev->why, sizeof ev->why);
+    ev->usable = !ragged && read_numbers(r, ln, row, &ev->rd, ev->why, sizeof ev->why);
     size_t hl;
     const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
     ev->hole = find_hole(r, ln, name, hl);
@@ -209,7 +254,7 @@ void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *r
     }
     ev->simulate = 0;
     if (r->s->draws && (ev->res.has_plane || ev->res.has_line))
-        ev->simulate = row_errors(r, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
+        ev->simulate = row_errors(r, ln, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
 }
 
 static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp)
@@ -227,6 +272,35 @@ static void write_spread(const convert_run *r, corax_writer *w, const corax_spre
     corax_writer_number(w, sp->position_sd, 3);
 }
 
+/* corax's own hole, depth (metres), kind and confidence (words), where the
+ * log's columns would not read back as they are; unknown codes are counted. */
+static void write_own(const convert_run *r, convert_lane *ln, const corax_row *row,
+                      const convert_eval *ev)
+{
+    corax_writer *w = ln->w;
+    size_t len, wl;
+    const char *text;
+    if (r->own[OWN_HOLE]) {
+        text = corax_field_text(row, r->col[COL_HOLE], &len);
+        corax_writer_field(w, text, len);
+    }
+    if (r->own[OWN_DEPTH])
+        corax_writer_number(w, ev->rd.depth, 4);
+    if (r->col[COL_KIND] >= 0) { /* counted whether or not it is written again */
+        text = corax_field_text(row, r->col[COL_KIND], &len);
+        text = word_of(ln, r->s->kind_codes, text, len, &wl, ln->unknown_kind, row->line);
+        if (r->own[OWN_KIND])
+            corax_writer_field(w, text, wl);
+    }
+    if (r->col[COL_CONFIDENCE] >= 0) {
+        text = corax_field_text(row, r->col[COL_CONFIDENCE], &len);
+        text = word_of(ln, r->s->confidence_codes, text, len, &wl, ln->unknown_confidence,
+                       row->line);
+        if (r->own[OWN_CONFIDENCE])
+            corax_writer_field(w, text, wl);
+    }
+}
+
 void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
                    const convert_eval *ev, const corax_spread *sp)
 {
@@ -235,6 +309,7 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
     size_t nl = 0;
     for (size_t i = 0; i < r->width; i++)
         corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
+    write_own(r, ln, row, ev);
     write_result(r, w, &ev->res);
     write_spread(r, w, sp);
     unsigned c = ev->res.conditions;
@@ -356,19 +431,37 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
     return CORAX_OK;
 }
 
+/* Which of the log's columns corax writes again, in its own words. */
+static void choose_own(convert_run *r, const corax_row *header)
+{
+    const convert_setup *s = r->s;
+    for (int k = 0; k < NOWN; k++) {
+        long c = r->col[own_cols[k]];
+        /* a reader of the converted table, knowing none of the user's names */
+        int found_as_is = c >= 0 && corax_column_find(header, own_names[k], NULL) == c;
+        r->own[k] = c >= 0 && !found_as_is;
+    }
+    r->own[OWN_DEPTH] |= r->col[COL_DEPTH] < 0 || s->log.unit != 1.0;
+    r->own[OWN_KIND] |= r->col[COL_KIND] >= 0 && s->kind_codes;
+    r->own[OWN_CONFIDENCE] |= r->col[COL_CONFIDENCE] >= 0 && s->confidence_codes;
+}
+
 corax_status convert_open_log(convert_run *r, const char *path, corax_reader **reader,
                               corax_row *header, corax_error *err)
 {
-    corax_status st = corax_reader_open(path, r->s->format, reader, err);
+    corax_status st = corax_reader_open(path, r->s->log.format, reader, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(*reader, col_names, NCOLS, 2, r->s->columns, r->col, &r->width,
+    st = corax_table_header(*reader, col_names, NCOLS, 1, r->s->log.columns, r->col, &r->width,
                             header, err);
+    if (st == CORAX_OK && r->col[COL_DEPTH] < 0 && (r->col[COL_FROM] < 0 || r->col[COL_TO] < 0))
+        st = corax_column_missing(path, header, "depth", r->s->log.columns, err);
     if (st == CORAX_OK && r->col[COL_ALPHA] < 0 && r->col[COL_LALPHA] < 0)
         st = corax_error_set(err, CORAX_EFORMAT, path, header->line,
                              "no 'alpha' or 'line_alpha' column: nothing to convert");
     if (st == CORAX_OK && !r->first) { /* the first log sets the output's columns */
         r->has_lines = r->col[COL_GAMMA] >= 0 || r->col[COL_LALPHA] >= 0;
+        choose_own(r, header);
         write_header(r, header);
         r->first = calloc(header->count ? header->count : 1, sizeof *r->first);
         for (size_t i = 0; r->first && i < header->count; i++)
@@ -386,8 +479,19 @@ corax_status convert_open_log(convert_run *r, const char *path, corax_reader **r
     return st;
 }
 
-static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
-                            corax_writer **chunk, corax_writer **done, const char *path)
+void convert_lane_file(convert_lane *ln, const char *path, size_t index,
+                       const corax_reader *reader)
+{
+    corax_table_info info;
+    corax_reader_info(reader, &info);
+    ln->file = path;
+    ln->file_index = index;
+    ln->decimal = info.format.decimal;
+}
+
+static int convert_one_file(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
+                            corax_writer **chunk, corax_writer **done, const char *path,
+                            size_t index)
 {
     corax_reader *rd;
     corax_error err;
@@ -396,8 +500,10 @@ static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
     corax_status st = convert_open_log(r, path, &rd, &row, &err);
     corax_table *cur = NULL, *next = NULL;
     if (st == CORAX_OK) {
-        cur = corax_table_new(path, r->s->format.decimal, &row);
-        next = cur ? corax_table_new(path, r->s->format.decimal, &row) : NULL;
+        for (int k = 0; k < nlanes; k++)
+            convert_lane_file(&lanes[k], path, index, rd);
+        cur = corax_table_new(path, lanes[0].decimal, &row);
+        next = cur ? corax_table_new(path, lanes[0].decimal, &row) : NULL;
         st = next ? fill_batch(rd, cur, &err) : CORAX_ENOMEM;
     }
     while ((st == CORAX_OK || st == CORAX_END) && corax_table_rows(cur) > 0) {
@@ -424,6 +530,11 @@ static int convert_one_file(convert_run *r, convert_lane *lanes, int nlanes,
     write_chunks(r, done); /* the last batch */
     corax_table_free(cur);
     corax_table_free(next);
+    if (rd) {
+        corax_table_info info;
+        corax_reader_info(rd, &info);
+        cli_table_done(c, CLI_STRUCTURES, path, &info);
+    }
     corax_reader_close(rd);
     if (st != CORAX_END) {
         cli_error_record(&err, st);
@@ -456,8 +567,39 @@ static void summary(const convert_lane *lanes, int nlanes)
     fputc('\n', stderr);
 }
 
-int convert_files(const corax_program *prog, const convert_setup *s, const char *const *files,
-                  size_t nfiles, const char *output)
+/* Every lane's counts of values with no meaning, said once each. */
+static int warn_unknown(const cli_common *c, const convert_run *r, convert_lane *lanes,
+                        int nlanes)
+{
+    for (int k = 1; k < nlanes; k++)
+        if (corax_tally_merge(lanes[0].unknown_kind, lanes[k].unknown_kind) != CORAX_OK ||
+            corax_tally_merge(lanes[0].unknown_confidence, lanes[k].unknown_confidence) !=
+                CORAX_OK ||
+            corax_tally_merge(lanes[0].no_line_error, lanes[k].no_line_error) != CORAX_OK)
+            return -1;
+    cli_tally_warn(c, "kind code", "has no mapping", lanes[0].unknown_kind,
+                   "these rows keep it as their kind");
+    cli_tally_warn(c, "confidence code", "has no mapping", lanes[0].unknown_confidence,
+                   r->s->draws ? "these rows get no uncertainty"
+                               : "these rows keep it as their confidence");
+    cli_tally_warn(c, "confidence", "has no line error (--confidence-errors)",
+                   lanes[0].no_line_error, "these rows get no uncertainty");
+    return 0;
+}
+
+static void lanes_free(convert_lane *lanes, int nlanes)
+{
+    for (int k = 0; lanes && k < nlanes; k++) {
+        free(lanes[k].field);
+        corax_tally_free(lanes[k].unknown_kind);
+        corax_tally_free(lanes[k].unknown_confidence);
+        corax_tally_free(lanes[k].no_line_error);
+    }
+    free(lanes);
+}
+
+int convert_files(cli_common *c, const corax_program *prog, const convert_setup *s,
+                  const char *const *files, size_t nfiles, const char *output)
 {
     convert_run r;
     memset(&r, 0, sizeof r);
@@ -467,22 +609,34 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
     corax_writer *chunk[2][BATCH_CHUNKS] = {{NULL}};
     int rc = lanes ? EXIT_OK : EXIT_DATA;
-    for (int k = 0; k < nlanes && rc == EXIT_OK; k++)
+    for (int k = 0; k < nlanes && rc == EXIT_OK; k++) {
         lanes[k].last_len = (size_t)-1;
-    for (int c = 0; c < 2 * BATCH_CHUNKS && rc == EXIT_OK; c++)
-        if (corax_writer_memory(&chunk[c / BATCH_CHUNKS][c % BATCH_CHUNKS]) != CORAX_OK)
+        lanes[k].unknown_kind = corax_tally_new();
+        lanes[k].unknown_confidence = corax_tally_new();
+        lanes[k].no_line_error = corax_tally_new();
+        if (!lanes[k].unknown_kind || !lanes[k].unknown_confidence || !lanes[k].no_line_error)
             rc = EXIT_DATA;
+    }
+    for (int k = 0; k < 2 * BATCH_CHUNKS && rc == EXIT_OK; k++) {
+        corax_writer **w = &chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS];
+        if (corax_writer_memory(w) != CORAX_OK)
+            rc = EXIT_DATA;
+        else
+            corax_writer_format(*w, s->output);
+    }
     corax_error err;
     corax_error_clear(&err);
     corax_status st = rc == EXIT_OK ? corax_writer_open(output, &r.w, &err) : CORAX_ENOMEM;
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         rc = EXIT_DATA;
+    } else {
+        corax_writer_format(r.w, s->output);
     }
     if (rc == EXIT_OK && s->draws)
-        rc = convert_with_draws(&r, lanes, nlanes, files, nfiles);
+        rc = convert_with_draws(c, &r, lanes, nlanes, files, nfiles);
     for (size_t i = 0; i < nfiles && rc == EXIT_OK && !s->draws; i++)
-        rc = convert_one_file(&r, lanes, nlanes, chunk[0], chunk[1], files[i]);
+        rc = convert_one_file(c, &r, lanes, nlanes, chunk[0], chunk[1], files[i], i);
     free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != EXIT_OK) {
         corax_writer_discard(r.w);
@@ -492,11 +646,11 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
     } else if (!s->quiet) {
         summary(lanes, nlanes);
     }
-    for (int k = 0; lanes && k < nlanes; k++)
-        free(lanes[k].field);
-    for (int c = 0; c < 2 * BATCH_CHUNKS; c++)
-        corax_writer_discard(chunk[c / BATCH_CHUNKS][c % BATCH_CHUNKS]);
-    free(lanes);
+    if (rc == EXIT_OK && warn_unknown(c, &r, lanes, nlanes))
+        rc = EXIT_DATA;
+    for (int k = 0; k < 2 * BATCH_CHUNKS; k++)
+        corax_writer_discard(chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS]);
+    lanes_free(lanes, nlanes);
     return rc;
 }
 
@@ -534,12 +688,13 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
 {
     const corax_convert_options *o = &s->convert;
     double plunge;
-    if (corax_dip_to_plunge(hole_dip, cc->load.dip_convention, &plunge) != CORAX_OK)
+    corax_dip_convention dipc = cli_table_dip(cc, CLI_SURVEYS);
+    if (corax_dip_to_plunge(hole_dip, dipc, &plunge) != CORAX_OK)
         return cli_usage("convert", "--hole-dip %g is outside the range of %s", hole_dip,
-                         cli_dip_convention_name(cc->load.dip_convention));
+                         cli_dip_convention_name(dipc));
     corax_vec3 t = corax_direction(corax_rad(hole_azimuth), plunge);
     printf("hole         azimuth %.2f, dip %.2f (%s)\n", corax_wrap_degrees(hole_azimuth, 2),
-           hole_dip, cli_dip_convention_name(cc->load.dip_convention));
+           hole_dip, cli_dip_convention_name(dipc));
     print_conventions(&o->conventions);
     corax_core_frame f;
     int framed = corax_core_off_vertical(t) >= o->vertical_limit &&

@@ -14,9 +14,10 @@ typedef struct convert_confidence {
 
 typedef struct convert_setup {
     corax_convert_options convert;
-    corax_dip_convention dip_convention; /* for hole_dip in and out */
-    corax_table_format format;
-    const corax_column_map *columns;
+    corax_table_settings log;  /* how the core logs are read */
+    int interval;              /* where an interval puts its reading (cli_interval) */
+    const corax_codes *kind_codes, *confidence_codes; /* NULL: values are words */
+    corax_table_format output; /* the converted table's format */
     int has_section;
     double section_azimuth; /* radians */
     int quiet;
@@ -29,11 +30,17 @@ typedef struct convert_setup {
     const char *cloud; /* every draw, or NULL */
 } convert_setup;
 
-/* Logical columns of a core log. */
+/* Logical columns of a core log (depth, from and to in this order). */
 enum {
-    COL_HOLE, COL_DEPTH, COL_ALPHA, COL_BETA, COL_GAMMA, COL_LALPHA, COL_LBETA,
-    COL_ALPHA_ERROR, COL_BETA_ERROR, COL_LINE_ERROR, COL_DEPTH_ERROR, COL_CONFIDENCE, NCOLS
+    COL_HOLE, COL_DEPTH, COL_FROM, COL_TO, COL_ALPHA, COL_BETA, COL_GAMMA, COL_LALPHA,
+    COL_LBETA, COL_ALPHA_ERROR, COL_BETA_ERROR, COL_LINE_ERROR, COL_DEPTH_ERROR,
+    COL_CONFIDENCE, COL_KIND, NCOLS
 };
+
+/* The log's columns corax writes again in its own words, when a reader of the
+ * converted table would not find them as they are (other header names, other
+ * units, an interval for a depth, code words). */
+enum { OWN_HOLE, OWN_DEPTH, OWN_KIND, OWN_CONFIDENCE, NOWN };
 
 /* What every row of a run shares; read-only while rows are converted. */
 typedef struct convert_run {
@@ -41,6 +48,7 @@ typedef struct convert_run {
     const convert_setup *s;
     corax_writer *w; /* the output */
     int has_lines;
+    int own[NOWN];   /* which of the log's columns corax writes again */
     size_t width;
     long col[NCOLS];
     char **first;    /* the first log's header names: later logs must match */
@@ -50,6 +58,12 @@ typedef struct convert_run {
 /* One thread's state: where its rows go and what it has seen. */
 typedef struct convert_lane {
     corax_writer *w; /* the chunk being written */
+    const char *file; /* the log being read, its place in the list, its decimal mark */
+    size_t file_index;
+    char decimal;
+    /* values with no meaning: kind and confidence codes without a word, and
+     * confidence words without a line error */
+    corax_tally *unknown_kind, *unknown_confidence, *no_line_error;
     /* the hole of the previous row, to skip the look-up down a log */
     char last_name[128];
     size_t last_len;
@@ -87,15 +101,19 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
 corax_status convert_open_log(convert_run *r, const char *path, corax_reader **reader,
                               corax_row *header, corax_error *err);
 
+/* The log a lane reads from now on: its name, place and format. */
+void convert_lane_file(convert_lane *ln, const char *path, size_t index,
+                       const corax_reader *reader);
+
 /* The uncertainty run: every log in memory, holes simulated in parallel,
  * rows written in order. An exit status (messages printed). */
-int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
+int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
                        const char *const *files, size_t nfiles);
 
 /* Stream every structures file through the conversion into one output.
- * Returns an exit status (messages printed). */
-int convert_files(const corax_program *prog, const convert_setup *s, const char *const *files,
-                  size_t nfiles, const char *output);
+ * Returns an exit status (messages printed); each log read is noted in c. */
+int convert_files(cli_common *c, const corax_program *prog, const convert_setup *s,
+                  const char *const *files, size_t nfiles, const char *output);
 
 /* One reading at the core shed: a labelled answer on standard output.
  * Angles in degrees; NaN for what was not given. */

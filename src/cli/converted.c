@@ -13,11 +13,14 @@ int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
     corax_error err;
     memset(t, 0, sizeof *t);
     t->path = path;
+    t->c = c;
+    corax_table_settings ts = cli_table_settings(c, CLI_CONVERTED);
+    t->unit = ts.unit;
     corax_error_clear(&err);
-    corax_status st = corax_reader_open(path, c->load.format, &t->reader, &err);
+    corax_status st = corax_reader_open(path, ts.format, &t->reader, &err);
     if (st == CORAX_OK)
         st = corax_table_header(t->reader, corax_structure_column_names, CORAX_STRUCTURE_COLUMNS,
-                                CORAX_STRUCTURE_REQUIRED, c->columns, col, &t->width, &t->header,
+                                CORAX_STRUCTURE_REQUIRED, ts.columns, col, &t->width, &t->header,
                                 &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
@@ -26,11 +29,13 @@ int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
         return EXIT_DATA;
     }
     corax_structure_columns_set(&t->columns, col);
+    corax_table_info info;
+    corax_reader_info(t->reader, &info);
+    t->decimal = info.format.decimal;
     return EXIT_OK;
 }
 
-int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
-                       corax_structure *s)
+int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s)
 {
     corax_error err;
     char why[240];
@@ -45,9 +50,14 @@ int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
             return 0;
         }
         const char *ragged = corax_field_ragged(row, t->width, why, sizeof why);
-        if (!ragged && corax_structure_read(row, &t->columns, c->load.format.decimal, s, why,
-                                            sizeof why) == CORAX_OK)
+        if (!ragged &&
+            corax_structure_read(row, &t->columns, t->decimal, s, why, sizeof why) == CORAX_OK) {
+            s->depth *= t->unit;
+            s->position.x *= t->unit;
+            s->position.y *= t->unit;
+            s->position.z *= t->unit;
             return 1;
+        }
         if (t->problems++ < MAX_SHOWN)
             cli_error(t->path, row->line, "%s", why);
         else if (t->problems == MAX_SHOWN + 1)
@@ -57,6 +67,11 @@ int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
 
 int cli_converted_close(cli_converted *t)
 {
+    if (t->reader) {
+        corax_table_info info;
+        corax_reader_info(t->reader, &info);
+        cli_table_done(t->c, CLI_CONVERTED, t->path, &info);
+    }
     corax_reader_close(t->reader);
     t->reader = NULL;
     if (!t->problems)

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 
 #include "cli/cli.h"
 #include "corax/project.h"
@@ -15,23 +16,46 @@ const char *cli_dip_convention_name(corax_dip_convention c)
     return (unsigned)c < 3 ? dip_names[c] : "unknown";
 }
 
+static void table_unset(cli_table *t)
+{
+    memset(t, 0, sizeof *t);
+    t->delimiter = t->decimal = t->units = t->dip = t->interval_depth = CLI_UNSET;
+}
+
 void cli_common_init(cli_common *c, const char *command)
 {
     memset(c, 0, sizeof *c);
     c->command = command;
     c->output = "-";
     c->load = corax_load_options_default();
+    c->output_format = (corax_table_format){',', '.'};
+    table_unset(&c->all);
+    for (int i = 0; i < CLI_NTABLES; i++)
+        table_unset(&c->table[i]);
+    c->reads = calloc(1, sizeof *c->reads); /* NULL: nothing recorded */
 }
 
 void cli_common_free(cli_common *c)
 {
-    corax_column_map_free(c->columns);
-    c->columns = NULL;
+    corax_column_map_free(c->all.columns);
+    c->all.columns = NULL;
+    for (int i = 0; i < CLI_NTABLES; i++) {
+        corax_column_map_free(c->table[i].columns);
+        corax_column_map_free(c->table[i].merged);
+        c->table[i].columns = c->table[i].merged = NULL;
+    }
     for (size_t i = 0; i < c->nowned; i++)
         free(c->owned[i]);
     free(c->owned);
     c->owned = NULL;
     c->nowned = 0;
+    free(c->reject);
+    c->reject = NULL;
+    c->nreject = 0;
+    if (c->reads)
+        free(c->reads->item);
+    free(c->reads);
+    c->reads = NULL;
 }
 
 /* Keep a string alive as long as the options. */
@@ -78,13 +102,90 @@ int cli_value_choice(const char *arg, const char *const *names, int count, int *
     return -1;
 }
 
+/* "QC003@120,QC004@36.5": stations to leave out. 0, or -1 with why filled. */
+static int reject_stations(cli_common *c, const char *arg, char *why, size_t wl)
+{
+    for (const char *p = arg; *p;) {
+        const char *end = strchr(p, ',');
+        if (!end)
+            end = p + strlen(p);
+        while (p < end && (*p == ' ' || *p == '\t'))
+            p++;
+        const char *at = memchr(p, '@', (size_t)(end - p));
+        double depth;
+        if (!at || at == p ||
+            corax_parse_number(at + 1, (size_t)(end - at - 1), '.', &depth) != CORAX_NUMBER_OK ||
+            depth < 0) {
+            snprintf(why, wl, "'%.*s' is not HOLE@DEPTH", (int)(end - p), p);
+            return -1;
+        }
+        size_t hl = (size_t)(at - p);
+        while (hl && (p[hl - 1] == ' ' || p[hl - 1] == '\t'))
+            hl--;
+        corax_station_ref *r = realloc(c->reject, (c->nreject + 1) * sizeof *r);
+        const char *hole = r ? own_string(c, strndup(p, hl)) : NULL;
+        if (r)
+            c->reject = r;
+        if (!hole) {
+            snprintf(why, wl, "out of memory");
+            return -1;
+        }
+        c->reject[c->nreject++] = (corax_station_ref){hole, depth};
+        p = *end ? end + 1 : end;
+    }
+    return 0;
+}
+
+/* An output table's delimiter or decimal mark (never found: corax decides). */
+static int output_format(cli_common *c, int opt, const char *arg, char *why, size_t wl)
+{
+    int v;
+    if (opt == OPT_OUTPUT_DELIMITER ? cli_value_delimiter(arg, &v, why, wl)
+                                    : cli_value_decimal(arg, &v, why, wl))
+        return -1;
+    if (v == 0) {
+        snprintf(why, wl, "an output's format is given, not found: say which");
+        return -1;
+    }
+    if (opt == OPT_OUTPUT_DELIMITER)
+        c->output_format.delimiter = (char)v;
+    else
+        c->output_format.decimal = (char)v;
+    return 0;
+}
+
 /* A shared option: 1 applied, 0 not a shared option, -1 with why filled. */
 static int common_option(cli_common *c, int opt, const char *arg, char *why, size_t wl)
 {
-    static const char *const delimiters[] = {",", ";", "comma", "semicolon"};
-    static const char *const marks[] = {"point", "comma"};
     corax_error err;
-    int k;
+    int *units = opt == OPT_UNITS              ? &c->all.units
+                 : opt == OPT_COLLARS_UNITS    ? &c->table[CLI_COLLARS].units
+                 : opt == OPT_SURVEYS_UNITS    ? &c->table[CLI_SURVEYS].units
+                 : opt == OPT_STRUCTURES_UNITS ? &c->table[CLI_STRUCTURES].units
+                                               : NULL;
+    int *dip = opt == OPT_DIP_CONVENTION ? &c->all.dip
+               : opt == OPT_COLLARS_DIP  ? &c->table[CLI_COLLARS].dip
+               : opt == OPT_SURVEYS_DIP  ? &c->table[CLI_SURVEYS].dip
+                                         : NULL;
+    corax_column_map **map = opt == OPT_COLUMNS              ? &c->all.columns
+                             : opt == OPT_COLLARS_COLUMNS    ? &c->table[CLI_COLLARS].columns
+                             : opt == OPT_SURVEYS_COLUMNS    ? &c->table[CLI_SURVEYS].columns
+                             : opt == OPT_STRUCTURES_COLUMNS ? &c->table[CLI_STRUCTURES].columns
+                                                             : NULL;
+    if (map) {
+        corax_error_clear(&err);
+        if (corax_column_map_add(map, arg, &err) != CORAX_OK) {
+            snprintf(why, wl, "%s", err.message);
+            return -1;
+        }
+        return 1;
+    }
+    if (units)
+        return cli_value_units(arg, units, why, wl) ? -1 : 1;
+    if (dip)
+        return cli_value_dip(arg, dip, why, wl) ? -1 : 1;
+    if (opt == OPT_DELIMITER || opt == OPT_DECIMAL_MARK || opt == OPT_DECIMAL_COMMA)
+        c->format_from_options |= !c->in_project;
     switch (opt) {
     case OPT_COLLARS: c->collars = arg; return 1;
     case OPT_SURVEYS: c->surveys = arg; return 1;
@@ -92,34 +193,17 @@ static int common_option(cli_common *c, int opt, const char *arg, char *why, siz
     case OPT_PROJECT: return 1; /* read before everything else */
     case 'o': c->output = arg; return 1;
     case 'q': c->quiet = 1; return 1;
-    case OPT_COLUMNS:
-        corax_error_clear(&err);
-        if (corax_column_map_add(&c->columns, arg, &err) != CORAX_OK) {
-            snprintf(why, wl, "%s", err.message);
-            return -1;
-        }
-        c->load.columns = c->columns;
-        return 1;
-    case OPT_DIP_CONVENTION:
-        if (cli_value_choice(arg, dip_names, 3, &k, why, wl))
-            return -1;
-        c->load.dip_convention = (corax_dip_convention)k;
-        return 1;
     case OPT_DECLINATION:
         return cli_value_number(arg, -180, 180, &c->load.declination, why, wl) ? -1 : 1;
     case OPT_CONVERGENCE:
         return cli_value_number(arg, -180, 180, &c->load.convergence, why, wl) ? -1 : 1;
-    case OPT_DELIMITER:
-        if (cli_value_choice(arg, delimiters, 4, &k, why, wl))
-            return -1;
-        c->load.format.delimiter = k % 2 ? ';' : ',';
-        return 1;
-    case OPT_DECIMAL_COMMA: c->load.format.decimal = ','; return 1;
-    case OPT_DECIMAL_MARK:
-        if (cli_value_choice(arg, marks, 2, &k, why, wl))
-            return -1;
-        c->load.format.decimal = k ? ',' : '.';
-        return 1;
+    case OPT_DELIMITER: return cli_value_delimiter(arg, &c->all.delimiter, why, wl) ? -1 : 1;
+    case OPT_DECIMAL_COMMA: c->all.decimal = ','; return 1;
+    case OPT_DECIMAL_MARK: return cli_value_decimal(arg, &c->all.decimal, why, wl) ? -1 : 1;
+    case OPT_COLLAR_STATION: c->load.collar_station = 1; return 1;
+    case OPT_REJECT_STATION: return reject_stations(c, arg, why, wl) ? -1 : 1;
+    case OPT_OUTPUT_DELIMITER:
+    case OPT_OUTPUT_DECIMAL: return output_format(c, opt, arg, why, wl) ? -1 : 1;
     }
     return 0;
 }
@@ -138,9 +222,14 @@ static const struct {
     {"inputs", "structures", "structures", 1},
     {"output", "file", "output", 1},
     {"output", "about", "about", 1},
+    {"output", "delimiter", "output-delimiter", 0},
+    {"output", "decimal_mark", "output-decimal-mark", 0},
     {"tables", "delimiter", "delimiter", 0},
     {"tables", "decimal_mark", "decimal-mark", 0},
+    {"tables", "units", "units", 0},
     {"survey", "dip_convention", "dip-convention", 0},
+    {"survey", "collar_station", "collar-station", 0},
+    {"survey", "reject", "reject-station", 0},
     {"survey", "declination", "declination", 0},
     {"survey", "convergence", "convergence", 0},
     {"core", "reference_line", "reference-line", 0},
@@ -212,10 +301,24 @@ typedef struct project_ctx {
     const char *dir; /* the project file's folder, with a trailing '/', or "" */
 } project_ctx;
 
+/* Sections whose keys are entries of a list option: code = word. */
+static const struct {
+    const char *section, *option;
+} list_sections[] = {{"kind_codes", "kind-codes"}, {"confidence_codes", "confidence-codes"},
+                     {"columns", "columns"}};
+enum { NLISTS = sizeof list_sections / sizeof list_sections[0] };
+
+/* The options a table section's path stands for. */
+static const char *const path_options[CLI_NTABLES] = {"collars", "surveys", "structures", "runs",
+                                                      NULL, NULL};
+
 static int known_section(const char *section)
 {
-    if (strcmp(section, "columns") == 0)
+    if (cli_table_section(section) >= 0)
         return 1;
+    for (int i = 0; i < NLISTS; i++)
+        if (strcmp(list_sections[i].section, section) == 0)
+            return 1;
     for (int i = 0; i < NKEYS; i++)
         if (strcmp(project_keys[i].section, section) == 0)
             return 1;
@@ -230,14 +333,32 @@ static const struct option *find_long(const struct option *o, const char *name)
     return NULL;
 }
 
+/* A project value for an option without one: 1 yes, 0 no, -1 neither. */
+static int yes_or_no(const char *value)
+{
+    static const char *const words[] = {"no", "yes", "false", "true", "off", "on", "0", "1"};
+    for (int i = 0; i < 8; i++)
+        if (strcasecmp(value, words[i]) == 0)
+            return i % 2;
+    return -1;
+}
+
 /* Apply option `name` with arg, as a project key would. 0 ok, -1 why filled. */
 static int apply(project_ctx *p, const char *name, const char *arg, char *why, size_t wl)
 {
     const struct option *o = find_long(p->longopts, name);
     if (!o)
         return 0; /* not this command's concern */
-    if (o->has_arg == no_argument)
+    if (o->has_arg == no_argument) {
+        int yes = yes_or_no(arg);
+        if (yes < 0) {
+            snprintf(why, wl, "'%s' is not yes or no", arg);
+            return -1;
+        }
+        if (!yes)
+            return 0;
         arg = NULL;
+    }
     int k = common_option(p->c, o->val, arg, why, wl);
     if (k < 0)
         return -1;
@@ -257,12 +378,28 @@ static int on_project_key(void *user, const char *section, const char *key, cons
         corax_error_set(err, CORAX_EFORMAT, NULL, line, "unknown section [%s]", section);
         return 1;
     }
-    if (strcmp(section, "columns") == 0) { /* logical name = header name */
-        char spec[400];
+    for (int i = 0; i < NLISTS; i++) { /* name = value, an entry of a list option */
+        if (strcmp(section, list_sections[i].section))
+            continue;
+        char spec[600];
         snprintf(spec, sizeof spec, "%s=%s", key, value);
-        if (apply(p, "columns", spec, why, sizeof why) == 0)
+        if (apply(p, list_sections[i].option, spec, why, sizeof why) == 0)
             return 0;
-        corax_error_set(err, CORAX_EFORMAT, NULL, line, "[columns] %s: %s", key, why);
+        corax_error_set(err, CORAX_EFORMAT, NULL, line, "[%s] %s: %s", section, key, why);
+        return 1;
+    }
+    int table = cli_table_section(section);
+    if (table >= 0) {
+        int k = cli_table_key(p->c, (cli_table_id)table, key, value, why, sizeof why);
+        if (k == 1) { /* the table's path: the option that names it */
+            const char *arg = own_string(p->c, join_path(value[0] != '/' ? p->dir : "", value));
+            k = arg ? apply(p, path_options[table], arg, why, sizeof why) : -1;
+            if (!arg)
+                snprintf(why, sizeof why, "out of memory");
+        }
+        if (k == 0)
+            return 0;
+        corax_error_set(err, CORAX_EFORMAT, NULL, line, "[%s] %s: %s", section, key, why);
         return 1;
     }
     for (int i = 0; i < NKEYS; i++) {
@@ -312,7 +449,9 @@ static int read_project(cli_common *c, const char *path, const struct option *lo
     project_ctx p = {c, longopts, own, ctx, dir};
     corax_error err;
     corax_error_clear(&err);
+    c->in_project = 1;
     corax_status st = corax_ini_read(path, on_project_key, &p, &err);
+    c->in_project = 0;
     free(dir);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
@@ -364,8 +503,12 @@ int cli_parse(int argc, char **argv, cli_common *c, const struct option *longopt
     return 0;
 }
 
-int cli_files_add(cli_files *f, const char *path, char *why, size_t wl)
+int cli_files_add(cli_files *f, const cli_common *c, const char *path, char *why, size_t wl)
 {
+    if (!c->in_project && !f->from_options) { /* the command line's replace the project's */
+        f->from_options = 1;
+        f->n = 0;
+    }
     const char **p = realloc(f->path, (f->n + 1) * sizeof *p);
     if (!p) {
         snprintf(why, wl, "out of memory");
@@ -376,14 +519,11 @@ int cli_files_add(cli_files *f, const char *path, char *why, size_t wl)
     return 0;
 }
 
-int cli_files_from_args(cli_files *f, int argc, char **argv)
+int cli_files_from_args(cli_files *f, const cli_common *c, int argc, char **argv)
 {
     char why[64];
-    if (optind >= argc)
-        return 0;
-    f->n = 0;
     for (int i = optind; i < argc; i++)
-        if (cli_files_add(f, argv[i], why, sizeof why))
+        if (cli_files_add(f, c, argv[i], why, sizeof why))
             return -1;
     return 0;
 }
@@ -395,11 +535,44 @@ void cli_files_free(cli_files *f)
     f->n = 0;
 }
 
+/* Each input table's header names: the defaults' under its own. */
+static int merge_columns(cli_common *c)
+{
+    corax_error err;
+    corax_error_clear(&err);
+    for (int i = 0; i < CLI_NTABLES; i++) {
+        cli_table *t = &c->table[i];
+        if (i == CLI_CONVERTED || !t->columns)
+            continue;
+        if ((c->all.columns && corax_column_map_merge(&t->merged, c->all.columns) != CORAX_OK) ||
+            corax_column_map_merge(&t->merged, t->columns) != CORAX_OK)
+            return -1;
+    }
+    return 0;
+}
+
 int cli_common_finish(cli_common *c, int need_program)
 {
-    if (c->load.format.decimal == ',' && c->load.format.delimiter != ';')
-        return cli_usage(c->command, "--decimal-comma needs --delimiter ';' (a comma cannot "
-                                     "both separate fields and mark decimals)");
+    for (int i = -1; i < CLI_NTABLES; i++) {
+        const cli_table *t = i < 0 ? &c->all : &c->table[i];
+        int delim = t->delimiter != CLI_UNSET ? t->delimiter : c->all.delimiter;
+        if (t->decimal == ',' && delim == ',')
+            return cli_usage(c->command, "a decimal comma needs another delimiter than a comma "
+                                         "(a comma cannot both separate fields and mark "
+                                         "decimals)%s%s",
+                             i < 0 ? "" : ": in ", i < 0 ? "" : cli_table_name((cli_table_id)i));
+    }
+    if (c->output_format.decimal == ',' && c->output_format.delimiter == ',')
+        return cli_usage(c->command, "an output with decimal commas needs another delimiter "
+                                     "than a comma (output delimiter)");
+    if (merge_columns(c))
+        return cli_usage(c->command, "out of memory");
+    c->load.collars = cli_table_settings(c, CLI_COLLARS);
+    c->load.surveys = cli_table_settings(c, CLI_SURVEYS);
+    c->load.collar_dip = cli_table_dip(c, CLI_COLLARS);
+    c->load.survey_dip = cli_table_dip(c, CLI_SURVEYS);
+    c->load.reject = c->reject;
+    c->load.nreject = c->nreject;
     if (need_program && (!c->collars || !c->surveys))
         return cli_usage(c->command, "--collars and --surveys are both needed");
     return 0;

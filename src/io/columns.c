@@ -8,36 +8,52 @@
 #include "corax/table.h"
 
 /* Each logical column with the header names accepted for it without a
- * mapping (the logical name first). Matching ignores case. */
-static const char *const known[][6] = {
-    {"hole", "hole_id", "holeid", "drillhole", NULL},
-    {"x", "east", "easting", NULL},
-    {"y", "north", "northing", NULL},
-    {"z", "elevation", "elev", "rl", NULL},
-    {"azimuth", "azi", "az", NULL},
-    {"dip", NULL},
-    {"length", "hole_length", "total_depth", "eoh", "max_depth", NULL},
-    {"depth", "md", "measured_depth", NULL},
-    {"alpha", NULL},
-    {"beta", NULL},
-    {"gamma", NULL},
-    {"line_alpha", NULL},
-    {"line_beta", NULL},
-    {"kind", "feature", "type", "structure", NULL},
-    {"confidence", "orientation_confidence", NULL},
-    {"from", "depth_from", NULL},
-    {"to", "depth_to", NULL},
-    {"alpha_error", NULL},
-    {"beta_error", NULL},
-    {"line_error", NULL},
-    {"depth_error", NULL},
-    {"azimuth_error", NULL},
-    {"dip_error", NULL},
-    {"dip_direction", NULL},
-    {"trend", NULL},
-    {"plunge", NULL},
-    {"status", NULL},
-    {"polarity", "younging", NULL},
+ * mapping (the logical name first) and what it holds. Matching ignores case,
+ * and a space, an underscore, a hyphen and a full stop count as the same
+ * mark, so "Hole ID", "hole_id" and "HOLE-ID" are one name. Spellings are
+ * the trade's common ones; a name that could mean another convention (an
+ * "inclination" that may run from vertical) is never taken for granted. */
+enum { NALIAS = 10 };
+static const struct {
+    const char *name[NALIAS];
+    const char *meaning;
+} known[] = {
+    {{"hole", "hole_id", "holeid", "hole_name", "hole_no", "hole_number", "drillhole",
+      "drill_hole", "drillhole_id", NULL}, "the hole's name"},
+    {{"x", "east", "easting", "x_coord", "collar_x", "collar_east", NULL}, "east coordinate"},
+    {{"y", "north", "northing", "y_coord", "collar_y", "collar_north", NULL},
+     "north coordinate"},
+    {{"z", "elevation", "elev", "rl", "collar_rl", "collar_z", "collar_elevation",
+      "reduced_level", NULL}, "elevation (up positive)"},
+    {{"azimuth", "azi", "az", "azim", "bearing", NULL}, "azimuth, degrees from north"},
+    {{"dip", NULL}, "dip of the hole, in the table's dip convention"},
+    {{"length", "hole_length", "total_depth", "eoh", "max_depth", "final_depth", "td", NULL},
+     "the hole's length"},
+    {{"depth", "md", "measured_depth", "depth_m", "at_depth", NULL},
+     "depth along the hole from the collar"},
+    {{"alpha", "alpha_angle", NULL}, "alpha: angle of a plane to the core axis"},
+    {{"beta", "beta_angle", NULL}, "beta: angle around the core from the orientation line"},
+    {{"gamma", "gamma_angle", NULL}, "gamma: angle of a line within its plane"},
+    {{"line_alpha", NULL}, "a line's angle to the core axis"},
+    {{"line_beta", NULL}, "a line's angle around the core from the orientation line"},
+    {{"kind", "feature", "type", "structure", "structure_type", "feature_type", NULL},
+     "the kind of feature (bedding, vein, ...) or its code"},
+    {{"confidence", "orientation_confidence", "orientation_quality", NULL},
+     "the orientation's confidence (good, fair, poor) or its code"},
+    {{"from", "depth_from", "from_m", "from_depth", NULL}, "start of an interval (depth)"},
+    {{"to", "depth_to", "to_m", "to_depth", NULL}, "end of an interval (depth)"},
+    {{"alpha_error", NULL}, "1-sigma error of alpha, degrees"},
+    {{"beta_error", NULL}, "1-sigma error of beta, degrees"},
+    {{"line_error", NULL}, "1-sigma error of the orientation line, degrees"},
+    {{"depth_error", NULL}, "1-sigma error of the depth"},
+    {{"azimuth_error", NULL}, "1-sigma error of a survey azimuth, degrees"},
+    {{"dip_error", NULL}, "1-sigma error of a survey dip, degrees"},
+    {{"dip_direction", NULL}, "a plane's dip direction, degrees"},
+    {{"trend", NULL}, "a line's trend, degrees"},
+    {{"plunge", NULL}, "a line's plunge, degrees down"},
+    {{"status", NULL}, "corax's status of a row"},
+    {{"polarity", "younging", NULL}, "younging: upright, overturned or unknown"},
+    {{"use", NULL}, "a survey station to use (yes) or reject (no)"},
 };
 
 enum { NKNOWN = sizeof known / sizeof known[0] };
@@ -54,9 +70,41 @@ struct corax_column_map {
 static long known_index(const char *logical, size_t len)
 {
     for (long i = 0; i < NKNOWN; i++)
-        if (strlen(known[i][0]) == len && strncasecmp(known[i][0], logical, len) == 0)
+        if (strlen(known[i].name[0]) == len && strncasecmp(known[i].name[0], logical, len) == 0)
             return i;
     return -1;
+}
+
+const char *corax_column_at(size_t i, const char *const **aliases, const char **meaning)
+{
+    if (i >= NKNOWN)
+        return NULL;
+    if (aliases)
+        *aliases = known[i].name + 1;
+    if (meaning)
+        *meaning = known[i].meaning;
+    return known[i].name[0];
+}
+
+/* The mark that joins words of a header name, in any of its spellings. */
+static int joiner(char c) { return c == ' ' || c == '_' || c == '-' || c == '.'; }
+
+int corax_column_name_match(const char *a, size_t alen, const char *b, size_t blen)
+{
+    if (alen != blen)
+        return 0;
+    for (size_t i = 0; i < alen; i++) {
+        char x = a[i], y = b[i];
+        if (joiner(x) && joiner(y))
+            continue;
+        if (x >= 'A' && x <= 'Z')
+            x = (char)(x - 'A' + 'a');
+        if (y >= 'A' && y <= 'Z')
+            y = (char)(y - 'A' + 'a');
+        if (x != y)
+            return 0;
+    }
+    return 1;
 }
 
 int corax_column_known(const char *logical)
@@ -104,6 +152,20 @@ static corax_status map_put(corax_column_map *map, const char *logical, size_t l
     return CORAX_OK;
 }
 
+corax_status corax_column_map_merge(corax_column_map **mapp, const corax_column_map *from)
+{
+    if (!*mapp && !(*mapp = calloc(1, sizeof **mapp)))
+        return CORAX_ENOMEM;
+    for (size_t i = 0; from && i < from->count; i++) {
+        const pair *q = &from->item[i];
+        corax_status st = map_put(*mapp, q->logical, strlen(q->logical), q->actual,
+                                  strlen(q->actual));
+        if (st != CORAX_OK)
+            return st;
+    }
+    return CORAX_OK;
+}
+
 static void trim(const char **s, const char **e)
 {
     while (*s < *e && (**s == ' ' || **s == '\t'))
@@ -148,27 +210,32 @@ static long header_index(const corax_row *header, const char *name)
 {
     size_t n = strlen(name);
     for (size_t i = 0; i < header->count; i++)
-        if (header->length[i] == n && strncasecmp(header->field[i], name, n) == 0)
+        if (corax_column_name_match(header->field[i], header->length[i], name, n))
             return (long)i;
     return -1;
+}
+
+const char *corax_column_mapped(const corax_column_map *map, const char *logical)
+{
+    for (size_t i = 0; map && i < map->count; i++)
+        if (strcasecmp(map->item[i].logical, logical) == 0)
+            return map->item[i].actual;
+    return NULL;
 }
 
 long corax_column_find(const corax_row *header, const char *logical,
                        const corax_column_map *map)
 {
-    if (map) /* one mapping serves every table: a table without the mapped
-              * name may still use the usual one */
-        for (size_t i = 0; i < map->count; i++)
-            if (strcasecmp(map->item[i].logical, logical) == 0) {
-                long c = header_index(header, map->item[i].actual);
-                if (c >= 0)
-                    return c;
-            }
+    const char *mapped = corax_column_mapped(map, logical);
+    if (mapped) { /* the user named it: that header or nothing */
+        long c = header_index(header, mapped);
+        return c >= 0 ? c : CORAX_COLUMN_MAPPED_MISSING;
+    }
     long k = known_index(logical, strlen(logical));
     if (k < 0)
         return header_index(header, logical);
-    for (int j = 0; j < 6 && known[k][j]; j++) {
-        long i = header_index(header, known[k][j]);
+    for (int j = 0; j < NALIAS && known[k].name[j]; j++) {
+        long i = header_index(header, known[k].name[j]);
         if (i >= 0)
             return i;
     }

@@ -1,5 +1,6 @@
 /* io: reading typed values out of table rows, with the words to explain a
  * value that cannot be used. */
+#include <math.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -48,6 +49,32 @@ int corax_field_nonnegative(double value, const char *name, char *why, size_t wh
     return 0;
 }
 
+corax_number_status corax_field_depth(const corax_row *row, const long col[3], char decimal,
+                                      double unit, int where, double *depth, char *why,
+                                      size_t whylen)
+{
+    corax_number_status st;
+    if (col[0] >= 0 || col[1] < 0 || col[2] < 0) {
+        st = corax_field_number(row, col[0], decimal, "depth", depth, why, whylen);
+    } else {
+        double from = NAN, to = NAN;
+        st = corax_field_number(row, col[1], decimal, "from", &from, why, whylen);
+        if (st == CORAX_NUMBER_OK)
+            st = corax_field_number(row, col[2], decimal, "to", &to, why, whylen);
+        if (st == CORAX_NUMBER_OK && to < from) {
+            snprintf(why, whylen, "the interval ends (to %g) before it starts (from %g)", to,
+                     from);
+            st = CORAX_NUMBER_NOT_NUMBER;
+        }
+        *depth = where == 1 ? from : where == 2 ? to : 0.5 * (from + to);
+    }
+    if (st == CORAX_NUMBER_OK)
+        *depth *= unit;
+    else
+        *depth = NAN;
+    return st;
+}
+
 const char *corax_field_text(const corax_row *row, long col, size_t *length)
 {
     if (col < 0 || (size_t)col >= row->count) {
@@ -56,6 +83,30 @@ const char *corax_field_text(const corax_row *row, long col, size_t *length)
     }
     *length = row->length[col];
     return row->field[col];
+}
+
+corax_status corax_column_missing(const char *path, const corax_row *header,
+                                  const char *logical, const corax_column_map *map,
+                                  corax_error *err)
+{
+    char list[160] = "";
+    size_t used = 0;
+    for (size_t k = 0; k < header->count && used + 2 < sizeof list; k++)
+        used += (size_t)snprintf(list + used, sizeof list - used, "%s%s", k ? ", " : "",
+                                 header->field[k]);
+    const char *mapped = corax_column_mapped(map, logical);
+    if (mapped)
+        return corax_error_set(err, CORAX_EFORMAT, path, header->line,
+                               "no '%s' column in the header, which the column names give "
+                               "for %s (it has: %s)",
+                               mapped, logical, list);
+    int semicolons = header->count == 1 && strchr(header->field[0], ';');
+    return corax_error_set(err, CORAX_EFORMAT, path, header->line,
+                           "no '%s' column in the header (it has: %s)%s", logical, list,
+                           semicolons ? "; the header looks semicolon-separated: say "
+                                        "delimiter = semicolon or --delimiter ';'"
+                                      : "; a column name setting can map another name "
+                                        "(corax help columns)");
 }
 
 corax_status corax_table_header(corax_reader *reader, const char *const *names, size_t n,
@@ -76,26 +127,33 @@ corax_status corax_table_header(corax_reader *reader, const char *const *names, 
     }
     for (size_t i = 0; i < n; i++) {
         col[i] = corax_column_find(&header, names[i], map);
-        if (col[i] < 0 && i < required) {
-            char list[160] = "";
-            size_t used = 0;
-            for (size_t k = 0; k < header.count && used + 2 < sizeof list; k++)
-                used += (size_t)snprintf(list + used, sizeof list - used, "%s%s",
-                                         k ? ", " : "", header.field[k]);
-            int semicolons = header.count == 1 && strchr(header.field[0], ';');
-            return corax_error_set(err, CORAX_EFORMAT, path, header.line,
-                                   "no '%s' column in the header (it has: %s)%s", names[i],
-                                   list,
-                                   semicolons ? "; the header looks semicolon-separated: try "
-                                                "--delimiter ';'"
-                                   : map      ? ""
-                                              : "; --columns can map another name");
-        }
+        if (col[i] == CORAX_COLUMN_MAPPED_MISSING || (col[i] < 0 && i < required))
+            return corax_column_missing(path, &header, names[i], map, err);
     }
     *width = header.count;
     if (header_out)
         *header_out = header;
     return CORAX_OK;
+}
+
+static int clashes(const char *name, size_t len, const char *const *names, size_t n)
+{
+    for (size_t i = 0; i < n; i++)
+        if (corax_column_name_match(name, len, names[i], strlen(names[i])))
+            return 1;
+    return 0;
+}
+
+size_t corax_carried_name(const char *name, const char *const *names, size_t n, char *out,
+                          size_t outlen)
+{
+    size_t len = (size_t)snprintf(out, outlen, "%s", name);
+    while (len + 4 < outlen && clashes(out, len, names, n)) {
+        memmove(out + 4, out, len + 1);
+        memcpy(out, "log_", 4);
+        len += 4;
+    }
+    return len < outlen ? len : outlen - 1;
 }
 
 const char *corax_field_ragged(const corax_row *row, size_t width, char *why, size_t whylen)

@@ -26,12 +26,36 @@ const char *corax_field_text(const corax_row *row, long col, size_t *length);
 /* Read a table's header row and find the logical columns names[0..n) in it;
  * the first `required` of them must be there. col[i] gets each index (-1 when
  * absent) and *width the number of header fields. CORAX_EFORMAT (err names
- * file and line) for an empty file, a repeated header name or a missing
- * required column. header (may be NULL) gets the header row itself, valid
+ * file and line) for an empty file, a repeated header name, a missing
+ * required column, or any of them mapped to a header the table lacks. header (may be NULL) gets the header row itself, valid
  * until the next read. */
 corax_status corax_table_header(corax_reader *reader, const char *const *names, size_t n,
                                 size_t required, const corax_column_map *map, long *col,
                                 size_t *width, corax_row *header, corax_error *err);
+
+/* The error for a logical column a header lacks: the mapped name the map
+ * gives for it, or the usual names; the message lists the header. Returns
+ * CORAX_EFORMAT. */
+corax_status corax_column_missing(const char *path, const corax_row *header,
+                                  const char *logical, const corax_column_map *map,
+                                  corax_error *err);
+
+/* A reading's depth in metres: column col[0] (depth) when the table has it,
+ * else the interval col[1] (from) to col[2] (to) at its middle (where 0),
+ * its start (1) or its end (2); times unit (metres per the table's unit).
+ * On anything but CORAX_NUMBER_OK, why says what is wrong (an empty depth is
+ * CORAX_NUMBER_EMPTY; an interval whose end precedes its start is
+ * CORAX_NUMBER_NOT_NUMBER). */
+corax_number_status corax_field_depth(const corax_row *row, const long col[3], char decimal,
+                                      double unit, int where, double *depth, char *why,
+                                      size_t whylen);
+
+/* The name under which an input column is carried into an output that also
+ * has columns of its own (names[0..n)): the input's name, or "log_" before it
+ * (again while it still clashes) when corax writes that name itself, so that
+ * no name appears twice. Returns the length written to out (cut to outlen). */
+size_t corax_carried_name(const char *name, const char *const *names, size_t n, char *out,
+                          size_t outlen);
 
 /* The phrase for a row whose width differs from the header's, or NULL. */
 const char *corax_field_ragged(const corax_row *row, size_t width, char *why, size_t whylen);

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 
 #include "corax/load.h"
 #include "io/fields.h"
@@ -12,9 +13,8 @@ corax_load_options corax_load_options_default(void)
 {
     corax_load_options o;
     memset(&o, 0, sizeof o);
-    o.format = corax_table_format_default();
-    o.columns = NULL;
-    o.dip_convention = CORAX_DIP_NEGATIVE_DOWN;
+    o.collars = o.surveys = corax_table_settings_default();
+    o.collar_dip = o.survey_dip = CORAX_DIP_NEGATIVE_DOWN;
     return o;
 }
 
@@ -27,6 +27,7 @@ typedef struct collar_rec {
 typedef struct survey_rec {
     char *hole;
     corax_station station;
+    int rejected; /* left out on request (the table's `use`, or a reject) */
 } survey_rec;
 
 typedef struct records {
@@ -64,40 +65,47 @@ static void *append(void *arrayp, size_t *count, size_t *cap, size_t size)
     return base + (*count)++ * size;
 }
 
-/* The dip range of a convention, for messages. */
-static void dip_range(corax_dip_convention c, double *lo, double *hi)
-{
-    *lo = c == CORAX_DIP_FROM_VERTICAL ? 0.0 : -90.0;
-    *hi = c == CORAX_DIP_FROM_VERTICAL ? 180.0 : 90.0;
-}
+static const char *const dip_words[] = {
+    "negative-down (-90 to 90, negative for a downward hole)",
+    "positive-down (-90 to 90, positive for a downward hole)",
+    "from-vertical (0 to 180, 0 straight down)"};
 
 /* Azimuth and dip from two columns; 1 ok, 0 both empty, -1 fault (why says). */
-static int read_direction(const corax_row *row, long caz, long cdip,
-                          const corax_load_options *o, double *az, double *plunge, char *why,
+static int read_direction(const corax_row *row, long caz, long cdip, char decimal,
+                          corax_dip_convention conv, double *az, double *plunge, char *why,
                           size_t wl)
 {
-    double a, d, lo, hi;
-    corax_number_status sa = corax_field_number(row, caz, o->format.decimal, "azimuth", &a, why, wl);
+    double a, d;
+    corax_number_status sa = corax_field_number(row, caz, decimal, "azimuth", &a, why, wl);
     if (sa != CORAX_NUMBER_OK && sa != CORAX_NUMBER_EMPTY)
         return -1;
     char why2[160];
-    corax_number_status sd = corax_field_number(row, cdip, o->format.decimal, "dip", &d, why2, sizeof why2);
+    corax_number_status sd = corax_field_number(row, cdip, decimal, "dip", &d, why2, sizeof why2);
     if (sd != CORAX_NUMBER_OK && sd != CORAX_NUMBER_EMPTY) {
         snprintf(why, wl, "%s", why2);
         return -1;
     }
     if (sa == CORAX_NUMBER_EMPTY && sd == CORAX_NUMBER_EMPTY)
         return 0;
-    if (sa == CORAX_NUMBER_EMPTY || sd == CORAX_NUMBER_EMPTY) {
-        snprintf(why, wl, "%s", sa == CORAX_NUMBER_EMPTY ? why : why2);
+    if (sd == CORAX_NUMBER_EMPTY) {
+        snprintf(why, wl, "%s", why2);
         return -1;
+    }
+    if (corax_dip_to_plunge(d, conv, plunge) != CORAX_OK) {
+        snprintf(why, wl, "dip %.10g does not fit the table's dip convention, %s: is the "
+                 "dip_convention right?", d, dip_words[conv]);
+        return -1;
+    }
+    if (sa == CORAX_NUMBER_EMPTY) { /* no azimuth: only a vertical hole goes without */
+        if (fabs(fabs(*plunge) - CORAX_PI / 2) > 1e-9) {
+            snprintf(why, wl, "the azimuth is empty, and only a vertical hole (dip %s) goes "
+                     "without one", conv == CORAX_DIP_FROM_VERTICAL ? "0 or 180" : "-90 or 90");
+            return -1;
+        }
+        a = 0.0;
     }
     if (!corax_field_in_range(a, 0.0, 360.0, "azimuth", why, wl))
         return -1;
-    dip_range(o->dip_convention, &lo, &hi);
-    if (!corax_field_in_range(d, lo, hi, "dip", why, wl))
-        return -1;
-    corax_dip_to_plunge(d, o->dip_convention, plunge);
     *az = corax_rad(a);
     return 1;
 }
@@ -139,19 +147,41 @@ static char *row_hole(const corax_row *row, long col)
     return n ? strndup(s, n) : NULL;
 }
 
+/* Open a table and find its columns: the reader stands after the header. */
+static corax_status open_table(const char *path, const corax_table_settings *t,
+                               const char *const *names, size_t n, size_t required, long *col,
+                               size_t *width, corax_reader **r, corax_error *err)
+{
+    corax_status st = corax_reader_open(path, t->format, r, err);
+    if (st != CORAX_OK)
+        return st;
+    st = corax_table_header(*r, names, n, required, t->columns, col, width, NULL, err);
+    if (st != CORAX_OK) {
+        corax_reader_close(*r);
+        *r = NULL;
+    }
+    return st;
+}
+
+static double unit_of(const corax_table_settings *t) { return t->unit > 0 ? t->unit : 1.0; }
+
 static corax_status read_collars(const char *path, const corax_load_options *o, records *rec,
-                                 corax_findings *problems, corax_error *err)
+                                 corax_findings *problems, corax_table_info *info,
+                                 corax_error *err)
 {
     static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length"};
     long col[7];
     size_t width;
     corax_reader *r;
-    corax_status st = corax_reader_open(path, o->format, &r, err);
+    corax_status st = open_table(path, &o->collars, names, 7, 4, col, &width, &r, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(r, names, 7, 4, o->columns, col, &width, NULL, err);
+    corax_table_info ti;
+    corax_reader_info(r, &ti);
+    char decimal = ti.format.decimal;
+    double unit = unit_of(&o->collars);
     corax_row row;
-    while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
+    while ((st = corax_reader_next(r, &row, err)) == CORAX_OK) {
         char why[200];
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
@@ -162,26 +192,30 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
             snprintf(why, sizeof why, "the hole name is empty");
             bad = 1;
         }
-        for (int k = 0; k < 3 && !bad; k++)
-            bad = corax_field_number(&row, col[1 + k], o->format.decimal, names[1 + k], xyz[k],
-                                     why, sizeof why) != CORAX_NUMBER_OK;
+        for (int k = 0; k < 3 && !bad; k++) {
+            bad = corax_field_number(&row, col[1 + k], decimal, names[1 + k], xyz[k], why,
+                                     sizeof why) != CORAX_NUMBER_OK;
+            *xyz[k] *= unit;
+        }
         if (!bad && col[4] >= 0 && col[5] >= 0) {
-            int d = read_direction(&row, col[4], col[5], o, &c.azimuth, &c.plunge, why, sizeof why);
+            int d = read_direction(&row, col[4], col[5], decimal, o->collar_dip, &c.azimuth,
+                                   &c.plunge, why, sizeof why);
             bad = d < 0;
             c.has_direction = d > 0;
         }
         if (!bad && col[6] >= 0) {
-            corax_number_status ls = corax_field_number(&row, col[6], o->format.decimal,
-                                                        "length", &c.length, why, sizeof why);
+            corax_number_status ls = corax_field_number(&row, col[6], decimal, "length",
+                                                        &c.length, why, sizeof why);
             bad = ls == CORAX_NUMBER_NOT_NUMBER || ls == CORAX_NUMBER_NOT_FINITE ||
                   (ls == CORAX_NUMBER_OK &&
                    !corax_field_nonnegative(c.length, "length", why, sizeof why));
-            if (ls == CORAX_NUMBER_EMPTY)
-                c.length = NAN;
+            c.length = ls == CORAX_NUMBER_EMPTY ? (double)NAN : c.length * unit;
         }
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "collar-row", path, row.line,
                                     hl ? hole : NULL, NAN, "%s", why);
+            if (st != CORAX_OK)
+                break;
             continue;
         }
         collar_rec *cr = append(&rec->collar, &rec->ncollar, &rec->capcollar, sizeof *cr);
@@ -193,49 +227,78 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
         cr->collar = c;
         cr->line = row.line;
     }
+    corax_reader_info(r, info);
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
 }
 
+/* A survey's `use` column: 1 use, 0 leave out, -1 not a yes or a no. */
+static int read_use(const corax_row *row, long col)
+{
+    static const char *const yes[] = {"", "yes", "y", "true", "1", "use"};
+    static const char *const no[] = {"no", "n", "false", "0", "reject"};
+    size_t n;
+    const char *t = corax_field_text(row, col, &n);
+    for (size_t i = 0; i < sizeof yes / sizeof *yes; i++)
+        if (strlen(yes[i]) == n && strncasecmp(yes[i], t, n) == 0)
+            return 1;
+    for (size_t i = 0; i < sizeof no / sizeof *no; i++)
+        if (strlen(no[i]) == n && strncasecmp(no[i], t, n) == 0)
+            return 0;
+    return -1;
+}
+
 static corax_status read_surveys(const char *path, const corax_load_options *o, records *rec,
-                                 corax_findings *problems, corax_error *err)
+                                 corax_findings *problems, corax_table_info *info,
+                                 corax_error *err)
 {
     static const char *const names[] = {"hole", "depth", "azimuth", "dip", "azimuth_error",
-                                        "dip_error"};
-    long col[6];
+                                        "dip_error", "use"};
+    long col[7];
     size_t width;
     corax_reader *r;
-    corax_status st = corax_reader_open(path, o->format, &r, err);
+    corax_status st = open_table(path, &o->surveys, names, 7, 4, col, &width, &r, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(r, names, 6, 4, o->columns, col, &width, NULL, err);
+    corax_table_info ti;
+    corax_reader_info(r, &ti);
+    char decimal = ti.format.decimal;
+    double unit = unit_of(&o->surveys);
     corax_row row;
-    while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
+    while ((st = corax_reader_next(r, &row, err)) == CORAX_OK) {
         char why[200];
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
         corax_station s = {NAN, 0, 0, row.line, 0, NAN, NAN};
-        int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
+        int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL, use = 1;
         if (!bad && hl == 0) {
             snprintf(why, sizeof why, "the hole name is empty");
             bad = 1;
         }
-        if (!bad)
-            bad = corax_field_number(&row, col[1], o->format.decimal, "depth", &s.depth, why,
+        if (!bad) {
+            bad = corax_field_number(&row, col[1], decimal, "depth", &s.depth, why,
                                      sizeof why) != CORAX_NUMBER_OK ||
                   !corax_field_nonnegative(s.depth, "depth", why, sizeof why);
+            s.depth *= unit;
+        }
         if (!bad) {
-            int d = read_direction(&row, col[2], col[3], o, &s.azimuth, &s.plunge, why, sizeof why);
+            int d = read_direction(&row, col[2], col[3], decimal, o->survey_dip, &s.azimuth,
+                                   &s.plunge, why, sizeof why);
             if (d == 0)
                 snprintf(why, sizeof why, "the survey has no azimuth and no dip");
             bad = d <= 0;
         }
         if (!bad)
-            bad = !read_station_errors(&row, col + 4, o->format.decimal, &s, why, sizeof why);
+            bad = !read_station_errors(&row, col + 4, decimal, &s, why, sizeof why);
+        if (!bad && col[6] >= 0 && (use = read_use(&row, col[6])) < 0) {
+            snprintf(why, sizeof why, "use '%.20s' is not yes or no", row.field[col[6]]);
+            bad = 1;
+        }
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "survey-row", path, row.line,
-                                    hl ? hole : NULL, s.depth,
-                                    "%s", why);
+                                    hl ? hole : NULL, s.depth, "%s", why);
+            if (st != CORAX_OK)
+                break;
             continue;
         }
         survey_rec *sr = append(&rec->survey, &rec->nsurvey, &rec->capsurvey, sizeof *sr);
@@ -245,7 +308,9 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
             break;
         }
         sr->station = s;
+        sr->rejected = !use;
     }
+    corax_reader_info(r, info);
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
 }
@@ -306,10 +371,37 @@ static corax_status build_hole(const collar_rec *c, corax_station *st, size_t n,
     }
 }
 
+/* Mark the stations the options reject; a reject that names no station is an
+ * error finding (a misspelt hole or depth must not pass unseen). */
+static corax_status mark_rejects(const corax_load_options *o, records *rec,
+                                 corax_findings *problems)
+{
+    double unit = unit_of(&o->surveys);
+    for (size_t i = 0; i < o->nreject; i++) {
+        const corax_station_ref *ref = &o->reject[i];
+        size_t k = first_survey(rec, ref->hole);
+        int found = 0;
+        for (; k < rec->nsurvey && strcmp(rec->survey[k].hole, ref->hole) == 0; k++)
+            if (fabs(rec->survey[k].station.depth - ref->depth * unit) <= 5e-4) {
+                rec->survey[k].rejected = 2;
+                found = 1;
+            }
+        if (!found) {
+            corax_status st = corax_findings_add(
+                problems, CORAX_ERROR, "survey-reject", NULL, 0, ref->hole, ref->depth * unit,
+                "the station to reject, %s at %g, is not in the survey table", ref->hole,
+                ref->depth);
+            if (st != CORAX_OK)
+                return st;
+        }
+    }
+    return CORAX_OK;
+}
+
 /* Desurvey each collar's hole from its stations and add it to the program. */
 static corax_status build_program(const char *cpath, const char *spath,
                                   const corax_load_options *o, records *rec,
-                                  corax_program *prog, corax_findings *problems)
+                                  corax_program *prog, corax_findings *problems, size_t *rejected)
 {
     double correction = corax_rad(o->declination - o->convergence);
     corax_station *buf = NULL;
@@ -323,21 +415,40 @@ static corax_status build_program(const char *cpath, const char *spath,
                                     c->hole);
             continue;
         }
-        size_t k = first_survey(rec, c->hole), n = 0;
+        size_t k = first_survey(rec, c->hole), n = 0, used = 0;
         while (k + n < rec->nsurvey && strcmp(rec->survey[k + n].hole, c->hole) == 0)
             n++;
-        if (n > cap) {
-            corax_station *p = realloc(buf, n * sizeof *p);
+        if (n + 1 > cap) {
+            corax_station *p = realloc(buf, (n + 1) * sizeof *p);
             if (!p) {
                 st = CORAX_ENOMEM;
                 break;
             }
             buf = p;
-            cap = n;
+            cap = n + 1;
         }
-        for (size_t j = 0; j < n; j++)
-            buf[j] = rec->survey[k + j].station;
-        st = build_hole(c, buf, n, correction, o->repair, spath, prog, problems);
+        double first = INFINITY;
+        for (size_t j = 0; j < n && st != CORAX_ENOMEM; j++) {
+            const survey_rec *sr = &rec->survey[k + j];
+            if (!sr->rejected) {
+                buf[used++] = sr->station;
+                first = fmin(first, sr->station.depth);
+                continue;
+            }
+            (*rejected)++;
+            st = corax_findings_add(problems, CORAX_NOTE, "survey-rejected", spath,
+                                    sr->station.line, c->hole, sr->station.depth,
+                                    "the station at %.2f m is left out, as %s says",
+                                    sr->station.depth,
+                                    sr->rejected == 2 ? "the reject list" : "its use column");
+        }
+        if (o->collar_station && used && c->collar.has_direction && first > 0.0) {
+            /* the set-up as a station at the collar; stations get the azimuth
+             * correction, the collar's azimuth is already in the grid */
+            buf[used++] = corax_station_make(0.0, c->collar.azimuth - correction,
+                                             c->collar.plunge, c->line);
+        }
+        st = build_hole(c, buf, used, correction, o->repair, spath, prog, problems);
     }
     free(buf);
     return st;
@@ -370,24 +481,31 @@ static corax_status orphan_surveys(const char *spath, const records *rec,
 
 corax_status corax_program_load(const char *collars_path, const char *surveys_path,
                                 const corax_load_options *options, corax_program **out,
-                                corax_findings *problems, corax_error *err)
+                                corax_findings *problems, corax_load_info *info,
+                                corax_error *err)
 {
     corax_load_options defaults = corax_load_options_default();
     const corax_load_options *o = options ? options : &defaults;
+    corax_load_info scratch;
+    if (!info)
+        info = &scratch;
+    memset(info, 0, sizeof *info);
     records rec;
     memset(&rec, 0, sizeof rec);
     *out = NULL;
     corax_program *prog = corax_program_new();
     if (!prog)
         return CORAX_ENOMEM;
-    corax_status st = read_collars(collars_path, o, &rec, problems, err);
+    corax_status st = read_collars(collars_path, o, &rec, problems, &info->collars, err);
     if (st == CORAX_OK)
-        st = read_surveys(surveys_path, o, &rec, problems, err);
+        st = read_surveys(surveys_path, o, &rec, problems, &info->surveys, err);
     if (st == CORAX_OK) {
         if (rec.nsurvey) /* an empty table has no array at all: qsort wants one */
             qsort(rec.survey, rec.nsurvey, sizeof *rec.survey, survey_cmp);
-        st = build_program(collars_path, surveys_path, o, &rec, prog, problems);
+        st = mark_rejects(o, &rec, problems);
     }
+    if (st == CORAX_OK)
+        st = build_program(collars_path, surveys_path, o, &rec, prog, problems, &info->rejected);
     if (st == CORAX_OK)
         st = orphan_surveys(surveys_path, &rec, prog, problems);
     records_free(&rec);

@@ -17,6 +17,7 @@ static const double pow10_exact[] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1
                                      1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22};
 
 static int is_blank(char c) { return c == ' ' || c == '\t'; }
+static int either(char decimal) { return decimal == 0 || decimal == CORAX_DECIMAL_EITHER; }
 static int is_digit(char c) { return c >= '0' && c <= '9'; }
 
 static int matches_word(const char *s, size_t n, const char *word)
@@ -47,7 +48,7 @@ static corax_number_status slow_path(const char *s, size_t n, char decimal, doub
     if (!buf)
         return CORAX_NUMBER_NOT_NUMBER;
     for (size_t i = 0; i < n; i++) /* the grammar is already checked */
-        buf[i] = s[i] == decimal ? '.' : s[i];
+        buf[i] = s[i] == decimal || (either(decimal) && s[i] == ',') ? '.' : s[i];
     buf[n] = '\0';
     errno = 0;
     double v = strtod(buf, NULL);
@@ -84,7 +85,7 @@ corax_number_status corax_parse_number(const char *text, size_t length, char dec
             exponent++;
         }
     }
-    if (s < end && *s == decimal) {
+    if (s < end && (*s == decimal || (either(decimal) && (*s == '.' || *s == ',')))) {
         for (s++; s < end && is_digit(*s); s++, digits++) {
             if (kept < 19) {
                 mantissa = mantissa * 10 + (uint64_t)(*s - '0');

@@ -2,7 +2,12 @@
  *
  * libcsv pushes fields through callbacks and knows nothing of lines. We feed
  * it one physical line at a time, so every call completes at most one row and
- * the line count is exact, including for quoted fields spanning lines. */
+ * the line count is exact, including for quoted fields spanning lines.
+ *
+ * Tables arrive as people export them: the delimiter and the decimal mark are
+ * found from the first block when they are not given (only where the answer
+ * is unambiguous), lines starting with '#' are comments, rows of empty fields
+ * are blank rows, and blanks around a field are not part of it. */
 #include <csv.h>
 #include <errno.h>
 #include <stdio.h>
@@ -33,12 +38,21 @@ struct corax_reader {
     const char **field;
     size_t count, cap;
     int row_done, failed;
+    int in_comment; /* a comment line continues into the next block */
+
+    corax_table_info info; /* the format as read, and what was skipped */
 };
 
 corax_table_format corax_table_format_default(void)
 {
-    corax_table_format f = {',', '.'};
+    corax_table_format f = {0, 0};
     return f;
+}
+
+corax_table_settings corax_table_settings_default(void)
+{
+    corax_table_settings s = {corax_table_format_default(), NULL, 1.0};
+    return s;
 }
 
 static int grow_fields(corax_reader *r)
@@ -60,11 +74,22 @@ static int grow_fields(corax_reader *r)
     return 1;
 }
 
+/* libcsv's own test for blanks (space and tab) is inline; we use the same
+ * set to spot lines holding nothing but blanks. */
+static int blank_or_space(unsigned char c) { return c == ' ' || c == '\t'; }
+
 static void on_field(void *data, size_t len, void *user)
 {
     corax_reader *r = user;
     if (r->failed)
         return;
+    /* blanks around a value are not part of it, quoted or not */
+    while (len && blank_or_space(*(unsigned char *)data)) {
+        data = (char *)data + 1;
+        len--;
+    }
+    while (len && blank_or_space(((unsigned char *)data)[len - 1]))
+        len--;
     if (r->count == r->cap && !grow_fields(r)) {
         r->failed = 1;
         return;
@@ -97,9 +122,141 @@ static void on_row(int terminator, void *user)
     r->row_done = 1;
 }
 
-/* libcsv's own test for blanks (space and tab) is inline; we use the same
- * set to spot lines holding nothing but blanks. */
-static int blank_or_space(unsigned char c) { return c == ' ' || c == '\t'; }
+static corax_status refill(corax_reader *r, corax_error *err);
+
+/* The line starting at s (n bytes to the end of the block), without its line
+ * end: its length, and in *next where the following line starts. */
+static size_t line_at(const char *s, size_t n, size_t *next)
+{
+    size_t i = 0;
+    while (i < n && s[i] != '\n' && s[i] != '\r')
+        i++;
+    size_t j = i;
+    if (j < n && s[j] == '\r')
+        j++;
+    if (j < n && s[j] == '\n' && (j == i || s[i] == '\r'))
+        j++;
+    else if (j == i && j < n)
+        j++;
+    *next = j;
+    return i;
+}
+
+/* A line that is no row: empty, blanks only, or a comment ('#' first). */
+static int skippable_line(const char *s, size_t n)
+{
+    size_t i = 0;
+    while (i < n && blank_or_space((unsigned char)s[i]))
+        i++;
+    return i == n || s[i] == '#';
+}
+
+/* A field that is a plain decimal number; its decimal mark ('.' or ','), 0
+ * for a whole number, -1 for anything else. */
+static int number_mark(const char *s, size_t n)
+{
+    while (n && blank_or_space((unsigned char)*s)) {
+        s++;
+        n--;
+    }
+    while (n && blank_or_space((unsigned char)s[n - 1]))
+        n--;
+    size_t i = n && (*s == '+' || *s == '-');
+    size_t d0 = i;
+    while (i < n && s[i] >= '0' && s[i] <= '9')
+        i++;
+    if (i == d0)
+        return -1;
+    if (i == n)
+        return 0;
+    int mark = s[i];
+    if (mark != '.' && mark != ',')
+        return -1;
+    size_t d1 = ++i;
+    while (i < n && s[i] >= '0' && s[i] <= '9')
+        i++;
+    return i == n && i > d1 ? mark : -1;
+}
+
+enum { DETECT_ROWS = 2000 }; /* data rows looked at for the decimal mark */
+
+/* Find what the caller left to be found: the delimiter from the header line
+ * (the only one of comma, semicolon and tab it holds), then, when fields are
+ * not separated by commas, the decimal mark from the numbers of the first
+ * rows (points or commas, never both). Looks only at the first block. */
+static corax_status detect_format(corax_reader *r, corax_table_format want, corax_error *err)
+{
+    corax_status st = refill(r, err);
+    if (st != CORAX_OK)
+        return st;
+    const char *s = r->block + r->pos;
+    size_t n = r->have - r->pos, at = 0, next;
+    long line = 1, header_line = 0;
+    char delim = want.delimiter, decimal = want.decimal;
+    long first_mark[2] = {0, 0}; /* first line with a decimal point, a decimal comma */
+    size_t rows = 0;
+    while (at < n && rows < DETECT_ROWS) {
+        size_t len = line_at(s + at, n - at, &next);
+        const char *l = s + at;
+        if (next == n - at && !r->eof && at > 0)
+            break; /* a line cut by the block's end */
+        if (!skippable_line(l, len)) {
+            if (!header_line) {
+                header_line = line;
+                if (!delim) {
+                    int seen[3] = {0, 0, 0}, quoted = 0;
+                    for (size_t i = 0; i < len; i++) {
+                        quoted ^= l[i] == '"';
+                        if (!quoted)
+                            seen[0] |= l[i] == ',', seen[1] |= l[i] == ';', seen[2] |= l[i] == '\t';
+                    }
+                    if (seen[0] + seen[1] + seen[2] > 1)
+                        return corax_error_set(
+                            err, CORAX_EFORMAT, r->path, line,
+                            "the header holds more than one of comma, semicolon and tab: say "
+                            "which separates the fields (delimiter = comma, semicolon or tab "
+                            "in the table's section of the project file, or --delimiter)");
+                    delim = seen[1] ? ';' : seen[2] ? '\t' : ',';
+                    r->info.delimiter_detected = 1;
+                }
+                if (decimal || delim == ',')
+                    break;
+            } else if (!memchr(l, '"', len)) {
+                rows++;
+                for (const char *f = l, *end = l + len; f <= end;) {
+                    const char *q = memchr(f, delim, (size_t)(end - f));
+                    const char *fe = q ? q : end;
+                    int m = number_mark(f, (size_t)(fe - f));
+                    if (m > 0 && !first_mark[m == ','])
+                        first_mark[m == ','] = line;
+                    f = fe + 1;
+                }
+            }
+        }
+        at += next;
+        line += next > len; /* a line end was passed */
+    }
+    if (!delim)
+        delim = ',';
+    if (!decimal) {
+        if (delim != ',' && first_mark[0] && first_mark[1])
+            return corax_error_set(
+                err, CORAX_EFORMAT, r->path, first_mark[0] < first_mark[1] ? first_mark[1] : first_mark[0],
+                "numbers with decimal points (line %ld) and decimal commas (line %ld) both "
+                "appear: say which marks decimals (decimal_mark = point or comma in the "
+                "table's section of the project file, or --decimal-mark)",
+                first_mark[0], first_mark[1]);
+        decimal = delim != ',' && first_mark[1] ? ',' : '.';
+        r->info.decimal_detected = 1;
+    }
+    if (delim == ',' && decimal == ',')
+        return corax_error_set(err, CORAX_EFORMAT, r->path, header_line,
+                               "the fields are separated by commas, so commas cannot also mark "
+                               "decimals: give the delimiter (semicolon or tab)");
+    r->info.format.delimiter = delim;
+    r->info.format.decimal = decimal;
+    return CORAX_OK;
+}
 
 corax_status corax_reader_open(const char *path, corax_table_format format,
                                corax_reader **out, corax_error *err)
@@ -128,7 +285,15 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
         return CORAX_ENOMEM;
     }
     r->parser_ready = 1;
-    csv_set_delim(&r->parser, (unsigned char)format.delimiter);
+    r->info.format = format;
+    if (!format.delimiter || !format.decimal) {
+        corax_status st = detect_format(r, format, err);
+        if (st != CORAX_OK) {
+            corax_reader_close(r);
+            return st;
+        }
+    }
+    csv_set_delim(&r->parser, (unsigned char)r->info.format.delimiter);
     *out = r;
     return CORAX_OK;
 }
@@ -158,10 +323,12 @@ static void split_line(corax_reader *r, const char *s, size_t n)
 {
     const char *end = s + n, delim = (char)r->parser.delim_char;
     const char *p = s;
-    while (p < end && blank_or_space((unsigned char)*p))
+    while (p < end && blank_or_space((unsigned char)*p) && *p != delim)
         p++;
-    if (p == end)
-        return; /* a blank line: no row */
+    if (p == end) { /* a blank line: no row */
+        r->info.blank_rows += n > 0;
+        return;
+    }
     for (p = s;;) {
         const char *q = memchr(p, delim, (size_t)(end - p));
         const char *fe = q ? q : end, *fs = p;
@@ -189,6 +356,24 @@ static void feed_line(corax_reader *r)
         r->prev_cr = 0;
         while (i < n && s[i] != '\n' && s[i] != '\r')
             i++;
+        int comment = r->in_comment;
+        if (!comment && r->parser.pstate == 0 && r->row_line == 0) {
+            size_t k = 0; /* at the start of a row: a comment line is no row */
+            while (k < i && blank_or_space((unsigned char)s[k]))
+                k++;
+            comment = k < i && s[k] == '#';
+            r->info.comments += comment;
+        }
+        if (comment) { /* skip to the line end, which may lie in the next block */
+            r->in_comment = i == n;
+            if (i < n) {
+                r->prev_cr = s[i] == '\r';
+                i++;
+                r->line++;
+            }
+            r->pos += i;
+            return;
+        }
         if (i < n) {
             r->prev_cr = s[i] == '\r';
             i++;
@@ -214,6 +399,14 @@ static void feed_line(corax_reader *r)
     r->pos += i;
 }
 
+static int all_empty(const corax_reader *r)
+{
+    for (size_t i = 0; i < r->count; i++)
+        if (r->length[i])
+            return 0;
+    return 1;
+}
+
 corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err)
 {
     r->count = 0;
@@ -230,6 +423,10 @@ corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err
                 if (open_quote || csv_fini(&r->parser, on_field, on_row, r) != 0)
                     return corax_error_set(err, CORAX_EFORMAT, r->path, start,
                                            "a quoted field is never closed");
+                if (r->row_done && all_empty(r)) {
+                    r->info.blank_rows++;
+                    r->row_done = 0;
+                }
                 if (!r->row_done)
                     return CORAX_END;
                 break;
@@ -242,6 +439,13 @@ corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err
         feed_line(r);
         if (r->failed)
             return CORAX_ENOMEM;
+        if (r->row_done && all_empty(r)) { /* a blank row: skipped, counted */
+            r->info.blank_rows++;
+            r->count = 0;
+            r->text_len = 0;
+            r->row_done = 0;
+            r->row_line = 0;
+        }
     }
     if (r->failed)
         return CORAX_ENOMEM;
@@ -256,6 +460,8 @@ corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err
 }
 
 const char *corax_reader_path(const corax_reader *r) { return r->path; }
+
+void corax_reader_info(const corax_reader *r, corax_table_info *info) { *info = r->info; }
 
 void corax_reader_close(corax_reader *r)
 {

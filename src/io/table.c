@@ -10,6 +10,7 @@
 struct corax_table {
     const char *path;
     char decimal;
+    corax_table_info info;
     char *text;          /* every cell, NUL-terminated, back to back */
     size_t text_len, text_cap;
     size_t *cell;        /* offset of each cell in text */
@@ -81,6 +82,7 @@ corax_table *corax_table_new(const char *path, char decimal, const corax_row *he
         return NULL;
     t->path = path;
     t->decimal = decimal;
+    t->info.format.decimal = decimal;
     if (!push_row(t, header)) {
         corax_table_free(t);
         return NULL;
@@ -135,7 +137,8 @@ corax_status corax_table_load(const char *path, corax_table_format format, corax
         return CORAX_ENOMEM;
     }
     t->path = path;
-    t->decimal = format.decimal;
+    corax_reader_info(r, &t->info);
+    t->decimal = t->info.format.decimal;
     corax_row row;
     st = corax_reader_next(r, &row, err);
     if (st == CORAX_END)
@@ -152,6 +155,7 @@ corax_status corax_table_load(const char *path, corax_table_format format, corax
         }
         st = corax_reader_next(r, &row, err);
     }
+    corax_reader_info(r, &t->info);
     corax_reader_close(r);
     if (st != CORAX_END) {
         corax_table_free(t);
@@ -174,6 +178,8 @@ void corax_table_free(corax_table *t)
 }
 
 const char *corax_table_path(const corax_table *t) { return t->path; }
+
+void corax_table_read_info(const corax_table *t, corax_table_info *info) { *info = t->info; }
 size_t corax_table_rows(const corax_table *t) { return t->nrow - 1; }
 size_t corax_table_columns(const corax_table *t) { return t->row_first[1] - t->row_first[0]; }
 

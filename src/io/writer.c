@@ -26,6 +26,7 @@ struct corax_writer {
     size_t used;
     int failed;     /* errno of the first failed write, 0 if none */
     int row_start;  /* no field written yet on this row */
+    char delimiter, decimal; /* ',' and '.' unless set */
 };
 
 static unsigned long tmp_counter;
@@ -53,6 +54,8 @@ corax_status corax_writer_open(const char *path, corax_writer **out, corax_error
     w->cap = OUT_BUFFER;
     w->buf = malloc(w->cap);
     w->row_start = 1;
+    w->delimiter = ',';
+    w->decimal = '.';
     if (!w->buf)
         goto nomem;
     if (strcmp(path, "-") == 0) {
@@ -165,6 +168,8 @@ corax_status corax_writer_memory(corax_writer **out)
     w->fd = -1;
     w->memory = 1;
     w->row_start = 1;
+    w->delimiter = ',';
+    w->decimal = '.';
     w->cap = 1 << 16;
     w->buf = malloc(w->cap);
     if (!w->buf) {
@@ -202,30 +207,47 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
     free(big);
 }
 
+void corax_writer_format(corax_writer *w, corax_table_format format)
+{
+    w->delimiter = format.delimiter ? format.delimiter : ',';
+    w->decimal = format.decimal == ',' && w->delimiter != ',' ? ',' : '.';
+}
+
 static inline void separator(corax_writer *w)
 {
     if (!w->row_start && make_room(w, 1))
-        w->buf[w->used++] = ',';
+        w->buf[w->used++] = w->delimiter;
     w->row_start = 0;
 }
 
-static int needs_quotes(const char *s, size_t n)
+static int needs_quotes(const char *s, size_t n, char delimiter)
 {
     if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t'))
         return 1;
     for (size_t i = 0; i < n; i++) {
         unsigned char c = (unsigned char)s[i];
-        /* every special byte is below '-': one comparison clears most text */
-        if (c < '-' && (c == ',' || c == '"' || c == '\n' || c == '\r'))
+        /* every special byte but ';' is below '-': one comparison clears most text */
+        if ((c < '-' && (c == ',' || c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
+            c == (unsigned char)delimiter)
             return 1;
     }
     return 0;
 }
 
+/* A number just formatted at the end of the buffer gets the decimal comma. */
+static void mark_decimal(corax_writer *w, size_t n)
+{
+    if (w->decimal == '.')
+        return;
+    char *p = memchr(w->buf + w->used, '.', n);
+    if (p)
+        *p = w->decimal;
+}
+
 void corax_writer_field(corax_writer *w, const char *s, size_t n)
 {
     separator(w);
-    if (!needs_quotes(s, n)) {
+    if (!needs_quotes(s, n, w->delimiter)) {
         corax_writer_text(w, s, n);
         return;
     }
@@ -300,8 +322,11 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
 void corax_writer_number(corax_writer *w, double v, int decimals)
 {
     separator(w);
-    if (make_room(w, 48))
-        w->used += corax_format_fixed(w->buf + w->used, v, decimals);
+    if (make_room(w, 48)) {
+        size_t n = corax_format_fixed(w->buf + w->used, v, decimals);
+        mark_decimal(w, n);
+        w->used += n;
+    }
 }
 
 void corax_writer_azimuth(corax_writer *w, double degrees, int decimals)
@@ -314,6 +339,7 @@ void corax_writer_azimuth(corax_writer *w, double degrees, int decimals)
     size_t n = corax_format_fixed(w->buf + w->used, degrees, decimals);
     if (n >= 3 && memcmp(w->buf + w->used, "360", 3) == 0) /* 359.999 rounded up */
         n = corax_format_fixed(w->buf + w->used, 0.0, decimals);
+    mark_decimal(w, n);
     w->used += n;
 }
 

@@ -13,7 +13,9 @@ fail() { echo "FAIL: $*"; exit 1; }
 grep -q '^declination = 4.5$' "$T/traces.csv.about" || fail "about file lacks the declination"
 grep -q '^convergence = -1.25$' "$T/traces.csv.about" || fail "about file lacks the convergence"
 grep -q '^azimuth_correction = 5.75 ' "$T/traces.csv.about" || fail "about file lacks the correction"
-grep -q '^dip_convention = negative-down$' "$T/traces.csv.about" || fail "about file lacks the convention"
+grep -q '^surveys_dip_convention = negative-down$' "$T/traces.csv.about" || fail "about file lacks the convention"
+grep -q '^collars_dip_convention = negative-down$' "$T/traces.csv.about" || fail "about file lacks the collars' convention"
+grep -q '^surveys = data/surveys.csv (delimiter comma, found; decimal mark point, found; metres)$' "$T/traces.csv.about" || fail "about file lacks how the surveys were read"
 grep -q '^corax_version = ' "$T/traces.csv.about" || fail "about file lacks the version"
 # the correction turns every surveyed azimuth: T1's first station reads 90 + 5.75
 grep -q '^T1,0.000,1000.000,2000.000,300.000,95.750,-60.000,' "$T/traces.csv" || fail "correction not applied"
@@ -51,7 +53,7 @@ cmp -s "$T/neg.csv" "$T/inc.csv" || fail "from-vertical convention changes the t
 "$CORAX" trace --collars data/collars.csv --surveys "$T/shuffled.csv" --step 10 | cut -d, -f1-6 > "$T/shuf.csv"
 cmp -s "$T/neg.csv" "$T/shuf.csv" || fail "survey row order changes the trace"
 sed '1s/.*/HOLE_NO,DEPTH_M,AZI,Dip/' data/surveys.csv > "$T/renamed.csv"
-"$CORAX" trace --collars data/collars.csv --surveys "$T/renamed.csv" --columns hole=HOLE_NO,depth=DEPTH_M --step 10 | cut -d, -f1-6 > "$T/ren.csv"
+"$CORAX" trace --collars data/collars.csv --surveys "$T/renamed.csv" --surveys-columns hole=HOLE_NO,depth=DEPTH_M --step 10 | cut -d, -f1-6 > "$T/ren.csv"
 cmp -s "$T/neg.csv" "$T/ren.csv" || fail "a column mapping changes the trace"
 
 # a million-row --at table: every row comes out, in order
