@@ -104,6 +104,9 @@ const char *corax_reader_path(const corax_reader *reader);
 /* The format as read and what has been skipped so far. */
 void corax_reader_info(const corax_reader *reader, corax_table_info *info);
 
+/* Bytes of the input read so far (for progress). */
+size_t corax_reader_offset(const corax_reader *reader);
+
 /* Close; NULL is allowed. */
 void corax_reader_close(corax_reader *reader);
 
@@ -159,6 +162,15 @@ typedef struct corax_table corax_table;
 corax_status corax_table_load(const char *path, corax_table_format format, corax_table **out,
                               corax_error *err);
 void corax_table_free(corax_table *table);
+
+/* Told how far a long job has come: done (bytes read, say). */
+typedef void (*corax_progress_fn)(void *user, double done);
+
+/* corax_table_load(), telling progress (may be NULL) the bytes read now and
+ * then. */
+corax_status corax_table_load_progress(const char *path, corax_table_format format,
+                                       corax_progress_fn progress, void *user,
+                                       corax_table **out, corax_error *err);
 
 /* An empty table with the given header (copied), for rows added one by one
  * with corax_table_append(); NULL when out of memory. */

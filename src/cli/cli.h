@@ -315,6 +315,25 @@ void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
 /* Write it (when there is somewhere to write) and free it; 0 ok. */
 int cli_about_commit(cli_about *a, const cli_common *c);
 
+/* Progress of a long run on standard error, with the time left: shown only
+ * when standard error is a terminal and the run is not quiet, not before a
+ * second has passed, and at most four times a second. */
+typedef struct cli_progress {
+    int on, shown;
+    const char *what, *unit; /* "uncertainty", "readings" */
+    double total;            /* 0: unknown (no percentage, no estimate) */
+    double start, last;
+    double after;            /* seconds before anything shows */
+} cli_progress;
+
+void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
+                        const char *unit, double total);
+void cli_progress_set(cli_progress *p, double done);
+void cli_progress_end(cli_progress *p);
+
+/* The size of a regular file in bytes, 0 for standard input or others. */
+double cli_file_size(const char *path);
+
 /* A converted table (one structure a row) being read. */
 typedef struct cli_converted {
     const char *path;
@@ -322,6 +341,8 @@ typedef struct cli_converted {
     char decimal;      /* as read */
     double unit;       /* metres per unit of its lengths */
     corax_reader *reader;
+    cli_progress progress;
+    size_t rows;       /* read so far */
     corax_structure_columns columns;
     size_t width;      /* fields in its header */
     corax_row header;  /* valid until the first row is read */
@@ -340,6 +361,23 @@ int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s);
 /* Close; EXIT_DATA (with a summary printed) when there were problems. */
 int cli_converted_close(cli_converted *t);
 
+/* A step of a long run, "corax: COMMAND: ...", on a terminal only (as
+ * progress). */
+void cli_phase(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+
+/* A corax_progress_fn for a cli_progress. */
+void cli_progress_fn(void *user, double done);
+
+/* corax_table_load() with its progress shown. */
+corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
+                            corax_table **out, corax_error *err);
+
+/* The general help, one command's help (EXIT_USAGE for no such command),
+ * and the project file's sections and keys. */
+void cli_main_help(FILE *f);
+int cli_command_help(const char *name);
+void cli_project_help(FILE *f);
+
 /* Commands. */
 int cmd_export(int argc, char **argv);
 int cmd_section(int argc, char **argv);
@@ -347,5 +385,6 @@ int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
 int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
+int cmd_help(int argc, char **argv);
 
 #endif

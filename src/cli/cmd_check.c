@@ -297,7 +297,7 @@ static int load_logs(check_opts *o, const corax_program *prog, logs *l)
         corax_table *t;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_table_load(o->logs.path[f], ls.table.format, &t, &err);
+        corax_status st = cli_table_load(&o->c, o->logs.path[f], ls.table.format, &t, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             rc = EXIT_DATA;
@@ -363,7 +363,7 @@ static int load_runs(check_opts *o, logs *l, corax_table **table, corax_qa_run *
     corax_table_settings ts = cli_table_settings(&o->c, CLI_RUNS);
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_table_load(o->runs, ts.format, table, &err);
+    corax_status st = cli_table_load(&o->c, o->runs, ts.format, table, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -539,6 +539,7 @@ int cmd_check(int argc, char **argv)
                    "these rows keep it as their kind");
     cli_tally_warn(&o.c, "confidence code", "has no mapping", l.unknown_confidence,
                    "these rows keep it as their confidence");
+    cli_phase(&o.c, "checking %zu holes and %zu readings", corax_program_size(prog), l.n);
     corax_status st = corax_qa_surveys(prog, o.c.surveys, &o.qa, &found);
     if (st == CORAX_OK && l.n)
         st = corax_qa_readings(prog, l.reading, l.n, runs, nruns, &o.convert, &o.qa, &found);
@@ -550,8 +551,10 @@ int cmd_check(int argc, char **argv)
         goto done;
     }
     rc = write_findings(&o, &found);
-    if (rc == EXIT_OK && o.report)
+    if (rc == EXIT_OK && o.report) {
+        cli_phase(&o.c, "writing the report");
         rc = write_report(&o, prog, &found, &l);
+    }
     if (rc == EXIT_OK && write_about(&o) != 0)
         rc = EXIT_DATA;
     if (rc == EXIT_OK && !o.c.quiet) {

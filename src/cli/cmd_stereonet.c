@@ -456,7 +456,7 @@ static int read_table(const stereo_opts *o, const char *path, groups *gs)
     corax_error err;
     corax_error_clear(&err);
     corax_table_format format = cli_table_settings(&o->c, CLI_CONVERTED).format;
-    corax_status st = corax_table_load(path, format, &t, &err);
+    corax_status st = cli_table_load(&o->c, path, format, &t, &err);
     if (st == CORAX_EFORMAT && is_empty_file(path, format)) {
         if (!o->c.quiet)
             cli_error(path, 0, "warning: the file is empty");
@@ -686,6 +686,8 @@ static int run(stereo_opts *o, int nfiles, char **files)
     corax_svg *svg = NULL;
     if (rc == 0 && o->stats && !(stats = stats_table(o, &gs)))
         rc = EXIT_DATA;
+    if (rc == 0)
+        cli_phase(&o->c, "drawing");
     if (rc == 0 && !(svg = draw(o, &gs, title)))
         rc = EXIT_DATA;
     corax_error err;

@@ -4,7 +4,6 @@
 #include <omp.h>
 #include <stdlib.h>
 #include <string.h>
-#include <unistd.h>
 
 #include "cli/convert_rows.h"
 
@@ -145,7 +144,8 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
         const convert_eval *e = &ev[g[k].row];
         mr[k] = (corax_mc_reading){e->rd, e->errors, e->res};
     }
-    int progress = !s->quiet && isatty(STDERR_FILENO);
+    cli_progress progress;
+    cli_progress_start(&progress, r->c, "uncertainty", "readings", (double)count);
     size_t done = 0;
     if (!failed) {
 #pragma omp parallel for ordered schedule(dynamic, 1) num_threads(nlanes)
@@ -170,12 +170,11 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
                     const char *text = corax_writer_contents(cw[t], &len);
                     corax_writer_text(cloud, text, len);
                 }
-                if (progress)
-                    fprintf(stderr, "\rcorax: uncertainty: %zu of %zu holes", ++done, ngroups);
+                done += n;
+                cli_progress_set(&progress, (double)done);
             }
         }
-        if (progress)
-            fputc('\n', stderr);
+        cli_progress_end(&progress);
     }
     for (int k = 0; mc && k < nlanes; k++)
         corax_mc_free(mc[k]);

@@ -499,6 +499,8 @@ static int convert_one_file(cli_common *c, convert_run *r, convert_lane *lanes, 
     corax_row row;
     corax_status st = convert_open_log(r, path, &rd, &row, &err);
     corax_table *cur = NULL, *next = NULL;
+    cli_progress progress;
+    cli_progress_start(&progress, c, path, "bytes", cli_file_size(path));
     if (st == CORAX_OK) {
         for (int k = 0; k < nlanes; k++)
             convert_lane_file(&lanes[k], path, index, rd);
@@ -526,7 +528,9 @@ static int convert_one_file(cli_common *c, convert_run *r, convert_lane *lanes, 
         corax_table *t = cur; /* the batch just read is converted next */
         cur = next;
         next = t;
+        cli_progress_set(&progress, (double)corax_reader_offset(rd));
     }
+    cli_progress_end(&progress);
     write_chunks(r, done); /* the last batch */
     corax_table_free(cur);
     corax_table_free(next);
@@ -603,6 +607,7 @@ int convert_files(cli_common *c, const corax_program *prog, const convert_setup 
 {
     convert_run r;
     memset(&r, 0, sizeof r);
+    r.c = c;
     r.prog = prog;
     r.s = s;
     int nlanes = omp_get_max_threads();

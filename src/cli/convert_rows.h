@@ -44,6 +44,7 @@ enum { OWN_HOLE, OWN_DEPTH, OWN_KIND, OWN_CONFIDENCE, NOWN };
 
 /* What every row of a run shares; read-only while rows are converted. */
 typedef struct convert_run {
+    const cli_common *c;
     const corax_program *prog;
     const convert_setup *s;
     corax_writer *w; /* the output */

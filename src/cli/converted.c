@@ -32,6 +32,7 @@ int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
     corax_table_info info;
     corax_reader_info(t->reader, &info);
     t->decimal = info.format.decimal;
+    cli_progress_start(&t->progress, c, path, "bytes", cli_file_size(path));
     return EXIT_OK;
 }
 
@@ -44,6 +45,8 @@ int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s)
         corax_status st = corax_reader_next(t->reader, row, &err);
         if (st == CORAX_END)
             return 0;
+        if (++t->rows % 65536 == 0)
+            cli_progress_set(&t->progress, (double)corax_reader_offset(t->reader));
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             t->problems++;
@@ -71,6 +74,7 @@ int cli_converted_close(cli_converted *t)
         corax_table_info info;
         corax_reader_info(t->reader, &info);
         cli_table_done(t->c, CLI_CONVERTED, t->path, &info);
+        cli_progress_end(&t->progress);
     }
     corax_reader_close(t->reader);
     t->reader = NULL;

@@ -19,11 +19,12 @@ static const command commands[] = {
     {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
     {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
     {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},
+    {"help", cmd_help, "help on a command, the column names, or the project file"},
 };
 
 enum { NCOMMANDS = sizeof commands / sizeof commands[0] };
 
-static void help(FILE *f)
+void cli_main_help(FILE *f)
 {
     fputs("usage: corax COMMAND [options] [FILE...]\n"
           "\n"
@@ -34,20 +35,31 @@ static void help(FILE *f)
           f);
     for (int i = 0; i < NCOMMANDS; i++)
         fprintf(f, "  %-10s %s\n", commands[i].name, commands[i].summary);
-    fputs("\n'corax COMMAND --help' shows a command's options; 'corax --version' the version.\n",
+    fputs("\n'corax COMMAND --help' (or 'corax help COMMAND') shows a command's options;\n"
+          "'corax help columns' the column names corax takes; 'corax help project' the\n"
+          "project file's sections and keys; 'corax --version' the version.\n",
           f);
+}
+
+int cli_command_help(const char *name)
+{
+    for (int i = 0; i < NCOMMANDS; i++)
+        if (strcmp(name, commands[i].name) == 0) {
+            char *argv[] = {(char *)commands[i].name, (char *)"--help", NULL};
+            return commands[i].run(2, argv);
+        }
+    return cli_usage(NULL, "no help on '%s': name a command, columns or project", name);
 }
 
 int main(int argc, char **argv)
 {
     gsl_set_error_handler_off(); /* the library reports GSL failures as statuses */
     if (argc < 2) {
-        help(stderr);
+        cli_main_help(stderr);
         return EXIT_USAGE;
     }
-    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
-        strcmp(argv[1], "help") == 0) {
-        help(stdout);
+    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0) {
+        cli_main_help(stdout);
         return fflush(stdout) == 0 ? EXIT_OK : EXIT_DATA;
     }
     if (strcmp(argv[1], "--version") == 0) {

@@ -271,6 +271,41 @@ static const struct {
 };
 enum { NKEYS = sizeof project_keys / sizeof project_keys[0] };
 
+void cli_project_help(FILE *f)
+{
+    fputs("A project file (INI: [section] headings, key = value lines, ';' or '#'\n"
+          "comments) stands for options: each key below is the long option beside it,\n"
+          "and options on the command line override it. Paths are relative to the\n"
+          "project file's folder. A key whose option a command lacks does not concern\n"
+          "that command.\n",
+          f);
+    const char *section = "";
+    for (int i = 0; i < NKEYS; i++) {
+        if (strcmp(section, project_keys[i].section) != 0)
+            fprintf(f, "\n[%s]\n", section = project_keys[i].section);
+        fprintf(f, "  %-24s --%s\n", project_keys[i].key, project_keys[i].option);
+    }
+    fputs("\n[columns]                  NAME = HEADER for every table (corax help columns)\n"
+          "[kind_codes]               CODE = WORD, the log's codes for feature kinds\n"
+          "[confidence_codes]         CODE = WORD, the log's codes for confidence\n"
+          "\n[collars] [surveys] [structures] [runs] [converted]: one table each\n"
+          "  path                     the table (not for converted tables: name them)\n"
+          "  delimiter                comma, semicolon, tab or auto (found: the default)\n"
+          "  decimal_mark             point, comma or auto (found: the default)\n"
+          "  units                    metres or feet: depths, lengths (and, for collars,\n"
+          "                           coordinates)\n"
+          "  dip_convention           collars and surveys: negative-down, positive-down\n"
+          "                           or from-vertical\n"
+          "  interval_depth           structures: mid, from or to, where a reading of a\n"
+          "                           from/to log sits\n"
+          "  NAME = HEADER            the table's header name for a column corax reads\n"
+          "A table's own settings win over [tables] and [columns], which are the\n"
+          "defaults for collars, surveys, structures and runs. Converted tables are read\n"
+          "as corax writes them (the format found, either decimal mark) unless\n"
+          "[converted] or the command line says otherwise.\n",
+          f);
+}
+
 /* dir (ending in '/', or "") joined to a relative path, with each "../"
  * taking back a folder of dir where it can: "examples/" + "../surveys/x.csv"
  * is "surveys/x.csv". */

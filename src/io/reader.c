@@ -39,6 +39,7 @@ struct corax_reader {
     size_t count, cap;
     int row_done, failed;
     int in_comment; /* a comment line continues into the next block */
+    size_t consumed;  /* bytes of the blocks before this one */
 
     corax_table_info info; /* the format as read, and what was skipped */
 };
@@ -161,6 +162,10 @@ static int number_mark(const char *s, size_t n)
     }
     while (n && blank_or_space((unsigned char)s[n - 1]))
         n--;
+    if (n >= 2 && s[0] == '"' && s[n - 1] == '"') { /* a quoted number counts too */
+        s++;
+        n -= 2;
+    }
     size_t i = n && (*s == '+' || *s == '-');
     size_t d0 = i;
     while (i < n && s[i] >= '0' && s[i] <= '9')
@@ -179,6 +184,20 @@ static int number_mark(const char *s, size_t n)
 }
 
 enum { DETECT_ROWS = 2000 }; /* data rows looked at for the decimal mark */
+
+/* The end of the field starting at f: the next delimiter outside quotes, or
+ * the end of the line. */
+static const char *field_end(const char *f, const char *end, char delim)
+{
+    int quoted = 0;
+    for (; f < end; f++) {
+        if (*f == '"')
+            quoted = !quoted;
+        else if (*f == delim && !quoted)
+            return f;
+    }
+    return end;
+}
 
 /* Find what the caller left to be found: the delimiter from the header line
  * (the only one of comma, semicolon and tab it holds), then, when fields are
@@ -221,11 +240,10 @@ static corax_status detect_format(corax_reader *r, corax_table_format want, cora
                 }
                 if (decimal || delim == ',')
                     break;
-            } else if (!memchr(l, '"', len)) {
+            } else {
                 rows++;
                 for (const char *f = l, *end = l + len; f <= end;) {
-                    const char *q = memchr(f, delim, (size_t)(end - f));
-                    const char *fe = q ? q : end;
+                    const char *fe = field_end(f, end, delim);
                     int m = number_mark(f, (size_t)(fe - f));
                     if (m > 0 && !first_mark[m == ','])
                         first_mark[m == ','] = line;
@@ -302,6 +320,7 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
  * leave a block after feeding all of it). */
 static corax_status refill(corax_reader *r, corax_error *err)
 {
+    r->consumed += r->have;
     r->have = fread(r->block, 1, READ_BLOCK, r->fp);
     r->pos = 0;
     if (r->have < READ_BLOCK) {
@@ -462,6 +481,8 @@ corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err
 const char *corax_reader_path(const corax_reader *r) { return r->path; }
 
 void corax_reader_info(const corax_reader *r, corax_table_info *info) { *info = r->info; }
+
+size_t corax_reader_offset(const corax_reader *r) { return r->consumed + r->pos; }
 
 void corax_reader_close(corax_reader *r)
 {

@@ -126,6 +126,13 @@ size_t corax_table_widest(const corax_table *t)
 corax_status corax_table_load(const char *path, corax_table_format format, corax_table **out,
                               corax_error *err)
 {
+    return corax_table_load_progress(path, format, NULL, NULL, out, err);
+}
+
+corax_status corax_table_load_progress(const char *path, corax_table_format format,
+                                       corax_progress_fn progress, void *user,
+                                       corax_table **out, corax_error *err)
+{
     *out = NULL;
     corax_reader *r;
     corax_status st = corax_reader_open(path, format, &r, err);
@@ -153,6 +160,8 @@ corax_status corax_table_load(const char *path, corax_table_format format, corax
             st = CORAX_ENOMEM;
             break;
         }
+        if (progress && t->nrow % 65536 == 0)
+            progress(user, (double)corax_reader_offset(r));
         st = corax_reader_next(r, &row, err);
     }
     corax_reader_info(r, &t->info);

@@ -227,7 +227,7 @@ static int needs_quotes(const char *s, size_t n, char delimiter)
     for (size_t i = 0; i < n; i++) {
         unsigned char c = (unsigned char)s[i];
         /* every special byte but ';' is below '-': one comparison clears most text */
-        if ((c < '-' && (c == ',' || c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
+        if ((c < '-' && (c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
             c == (unsigned char)delimiter)
             return 1;
     }

@@ -1,0 +1,94 @@
+/* cli: progress on standard error for long runs, with an estimate of the time
+ * left; only when standard error is a terminal and the run is not quiet, so
+ * logs and pipes never see it. */
+#include <stdarg.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/stat.h>
+#include <time.h>
+#include <unistd.h>
+
+#include "cli/cli.h"
+
+static double now(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
+}
+
+void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
+                        const char *unit, double total)
+{
+    p->on = !c->quiet && isatty(STDERR_FILENO);
+    p->what = what;
+    p->unit = unit;
+    p->total = total;
+    p->start = p->last = now();
+    p->shown = 0;
+    /* a short run shows nothing; CORAX_PROGRESS_AFTER (seconds) moves the
+     * threshold, for the tests */
+    const char *after = getenv("CORAX_PROGRESS_AFTER");
+    p->after = after ? atof(after) : 1.0;
+}
+
+double cli_file_size(const char *path)
+{
+    struct stat st;
+    if (strcmp(path, "-") == 0 || stat(path, &st) != 0 || !S_ISREG(st.st_mode))
+        return 0.0;
+    return (double)st.st_size;
+}
+
+void cli_progress_set(cli_progress *p, double done)
+{
+    if (!p->on)
+        return;
+    double t = now();
+    if (t - p->last < 0.25 && done < p->total) /* four times a second at most */
+        return;
+    if (t - p->start < p->after)
+        return;
+    p->last = t;
+    p->shown = 1;
+    if (p->total > 0 && done > 0 && done <= p->total) {
+        double left = (t - p->start) * (p->total - done) / done;
+        fprintf(stderr, "\rcorax: %s: %3.0f%% of %.0f %s, about %.0f s left   ", p->what,
+                100.0 * done / p->total, p->total, p->unit, left);
+    } else {
+        fprintf(stderr, "\rcorax: %s: %.0f %s   ", p->what, done, p->unit);
+    }
+    fflush(stderr);
+}
+
+void cli_progress_end(cli_progress *p)
+{
+    if (p->on && p->shown)
+        fprintf(stderr, "\rcorax: %s: done in %.0f s%40s\n", p->what, now() - p->start, "");
+    p->on = 0;
+}
+
+void cli_progress_fn(void *user, double done) { cli_progress_set(user, done); }
+
+corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
+                            corax_table **out, corax_error *err)
+{
+    cli_progress p;
+    cli_progress_start(&p, c, path, "bytes", cli_file_size(path));
+    corax_status st = corax_table_load_progress(path, format, cli_progress_fn, &p, out, err);
+    cli_progress_end(&p);
+    return st;
+}
+
+void cli_phase(const cli_common *c, const char *fmt, ...)
+{
+    if (c->quiet || !isatty(STDERR_FILENO))
+        return;
+    va_list ap;
+    fprintf(stderr, "corax: %s: ", c->command);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
