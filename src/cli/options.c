@@ -626,7 +626,11 @@ const char cli_convention_help[] =
     "  --near-parallel DEG       flag alpha below this (default 10)\n"
     "  --near-perpendicular DEG  flag alpha above this (default 80)\n"
     "  --vertical-limit DEG      a hole within this of vertical has no usable\n"
-    "                            bottom-of-hole line (default 5)\n";
+    "                            bottom-of-hole line (default 5)\n"
+    "Core logs:\n"
+    "  --interval-depth mid|from|to  where a reading of a from/to log sits (mid)\n"
+    "  --kind-codes MAP          the log's codes for feature kinds, e.g. BD=bedding,VN=vein\n"
+    "  --confidence-codes MAP    its codes for confidence, e.g. G=good,M=fair,P=poor\n";
 
 int cli_convention_option(corax_convert_options *o, int opt, const char *arg, char *why,
                           size_t wl)
