@@ -76,4 +76,11 @@ for bad in "--surveys-dip-convention from-vertical" "--columns depth=DEPTH_M" \
     grep -q '^corax: data/[a-z_]*\.csv:[0-9]*: ' "$T/bad.err" || fail "no FILE:LINE for $bad: $(cat "$T/bad.err")"
     [ ! -e "$T/bad.csv" ] && [ ! -e "$T/bad.csv.about" ] || fail "a file was written for: $bad"
 done
+
+# the README lists every column name corax takes, as `corax help columns` does
+"$CORAX" help columns | awk '/^  [a-z_]+ / { print $1 }' > "$T/columns"
+[ "$(wc -l < "$T/columns")" -gt 20 ] || fail "help columns lists too few"
+while read -r c; do
+    grep -q "^  | \`$c\` |" ../../README.md || fail "README lacks the column $c"
+done < "$T/columns"
 echo ok
