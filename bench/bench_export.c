@@ -54,7 +54,7 @@ static void export(const char *label, const char *path, const corax_program *pro
     corax_export_counts n;
     corax_error err;
     double t0 = now();
-    if (corax_export_vtk(path, prog, s, STRUCTURES, o, &n, &err) != CORAX_OK) {
+    if (corax_export_vtk(NULL, path, prog, s, STRUCTURES, o, &n, &err) != CORAX_OK) {
         fprintf(stderr, "bench: export failed: %s\n", err.message);
         exit(1);
     }

@@ -54,7 +54,7 @@ static void test_vtk_discs_and_traces(void **state)
     o.disc_sides = 12;
     const char *path = test_tmp_path("discs.vtk");
     corax_export_counts n;
-    assert_int_equal(corax_export_vtk(path, prog, s, 2, &o, &n, NULL), CORAX_OK);
+    assert_int_equal(corax_export_vtk(NULL, path, prog, s, 2, &o, &n, NULL), CORAX_OK);
     /* H1: 0, 10, ..., 100 (stations at 0 and 50 among them); H2 has no path */
     assert_int_equal(n.traces, 1);
     assert_int_equal(n.trace_points, 11);
@@ -124,7 +124,7 @@ static void test_vtk_points_with_normals(void **state)
     o.shape = CORAX_EXPORT_POINTS;
     o.step = 50;
     const char *path = test_tmp_path("points.vtk");
-    assert_int_equal(corax_export_vtk(path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
+    assert_int_equal(corax_export_vtk(NULL, path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
     char *text = test_read_file(path, NULL);
     assert_non_null(strstr(text, "VERTICES 1 2\n1 3\nLINES 1 4\n3 0 1 2\n"));
     double *nrm = numbers_after(text, "NORMALS normal double", 12);
@@ -143,7 +143,7 @@ static void test_vtk_points_with_normals(void **state)
     remove(path);
     /* structures only, no program */
     o.traces = 0;
-    assert_int_equal(corax_export_vtk(path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
+    assert_int_equal(corax_export_vtk(NULL, path, prog, &s, 1, &o, NULL, NULL), CORAX_OK);
     text = test_read_file(path, NULL);
     assert_non_null(strstr(text, "POINTS 1 double\n"));
     assert_null(strstr(text, "LINES"));
@@ -151,7 +151,7 @@ static void test_vtk_points_with_normals(void **state)
     remove(path);
     o.disc_sides = 2;
     o.shape = CORAX_EXPORT_DISCS;
-    assert_int_equal(corax_export_vtk(path, prog, &s, 1, &o, NULL, NULL), CORAX_EARG);
+    assert_int_equal(corax_export_vtk(NULL, path, prog, &s, 1, &o, NULL, NULL), CORAX_EARG);
     corax_program_free(prog);
 }
 

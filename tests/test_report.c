@@ -139,7 +139,7 @@ static char *write_page(const corax_report_input *in, const char *name)
 {
     const char *path = test_tmp_path(name);
     corax_error err = {0};
-    corax_status st = corax_report_write(in, path, &err);
+    corax_status st = corax_report_write(in, NULL, path, &err);
     if (st != CORAX_OK)
         fail_msg("report not written: %s (%s)", err.message, corax_strerror(st));
     char *doc = test_read_file(path, NULL);
@@ -424,7 +424,7 @@ static void test_large_hole_thinned(void **state)
     corax_report_model_free(&m);
     const char *path_out = test_tmp_path("report-big.html");
     corax_error err;
-    assert_int_equal(corax_report_write(&in, path_out, &err), CORAX_OK);
+    assert_int_equal(corax_report_write(&in, NULL, path_out, &err), CORAX_OK);
     char *page = test_read_file(path_out, NULL);
     assert_non_null(strstr(page, "one reading in every 2 is drawn"));
     free(page);
@@ -474,7 +474,7 @@ static void test_failed_write_leaves_nothing(void **state)
     assert_int_equal(mkdir(dir, 0777), 0);
     /* a folder that does not exist */
     snprintf(missing, sizeof missing, "%s/no/such/folder/report.html", dir);
-    assert_int_equal(corax_report_write(&f->in, missing, &err), CORAX_EIO);
+    assert_int_equal(corax_report_write(&f->in, NULL, missing, &err), CORAX_EIO);
     assert_string_equal(err.file, missing);
     assert_int_equal(entries(dir), 0);
     /* the name is a folder with something in it: the rename at the end fails */
@@ -483,19 +483,19 @@ static void test_failed_write_leaves_nothing(void **state)
     char inside[800];
     snprintf(inside, sizeof inside, "%s/keep", taken);
     test_write_file(inside, "kept");
-    assert_int_equal(corax_report_write(&f->in, taken, &err), CORAX_EIO);
+    assert_int_equal(corax_report_write(&f->in, NULL, taken, &err), CORAX_EIO);
     assert_int_equal(entries(dir), 1); /* only the folder: no temporary file left */
     assert_int_equal(entries(taken), 1);
     /* a finding of no known severity: refused before anything is written */
     char page[700];
     snprintf(page, sizeof page, "%s/page.html", dir);
     f->findings.item[0].severity = (corax_severity)7;
-    assert_int_equal(corax_report_write(&f->in, page, &err), CORAX_EARG);
+    assert_int_equal(corax_report_write(&f->in, NULL, page, &err), CORAX_EARG);
     assert_int_equal(entries(dir), 1);
-    assert_int_equal(corax_report_write(NULL, page, &err), CORAX_EARG);
+    assert_int_equal(corax_report_write(NULL, NULL, page, &err), CORAX_EARG);
     f->findings.item[0].severity = CORAX_NOTE;
     f->in.readings = NULL; /* counted but not given */
-    assert_int_equal(corax_report_write(&f->in, page, &err), CORAX_EARG);
+    assert_int_equal(corax_report_write(&f->in, NULL, page, &err), CORAX_EARG);
     unlink(inside);
     rmdir(taken);
     rmdir(dir);

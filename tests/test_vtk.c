@@ -48,7 +48,7 @@ static void test_ascii_layout(void **state)
     (void)state;
     const char *path = test_tmp_path("small.vtk");
     corax_vtk *v;
-    assert_int_equal(corax_vtk_open(path, CORAX_VTK_ASCII, "two\ncells", &v, NULL), CORAX_OK);
+    assert_int_equal(corax_vtk_open(NULL, path, CORAX_VTK_ASCII, "two\ncells", &v, NULL), CORAX_OK);
     corax_vtk_decimals(v, 3);
     write_small(v);
     assert_int_equal(corax_vtk_commit(v, NULL), CORAX_OK);
@@ -113,7 +113,7 @@ static void test_binary_layout(void **state)
     (void)state;
     const char *path = test_tmp_path("small-bin.vtk");
     corax_vtk *v;
-    assert_int_equal(corax_vtk_open(path, CORAX_VTK_BINARY, "bin", &v, NULL), CORAX_OK);
+    assert_int_equal(corax_vtk_open(NULL, path, CORAX_VTK_BINARY, "bin", &v, NULL), CORAX_OK);
     write_small(v);
     assert_int_equal(corax_vtk_commit(v, NULL), CORAX_OK);
     size_t n;
@@ -152,7 +152,7 @@ static void test_misuse_is_refused(void **state)
         corax_vtk *v;
         corax_error err;
         corax_error_clear(&err);
-        assert_int_equal(corax_vtk_open(path, CORAX_VTK_ASCII, "bad", &v, NULL), CORAX_OK);
+        assert_int_equal(corax_vtk_open(NULL, path, CORAX_VTK_ASCII, "bad", &v, NULL), CORAX_OK);
         corax_vtk_points(v, 2);
         corax_vtk_point(v, (corax_vec3){0, 0, 0});
         if (k == 0) { /* one point short */

@@ -220,7 +220,7 @@ int main(int argc, char **argv)
     corax_error err = {0};
     double t0 = seconds();
     if (st == CORAX_OK)
-        st = corax_report_write(&in, argv[1], &err);
+        st = corax_report_write(&in, NULL, argv[1], &err);
     double t1 = seconds();
     int rc = 0;
     if (st != CORAX_OK) {

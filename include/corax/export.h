@@ -84,7 +84,7 @@ typedef struct corax_export_counts {
  * structures to a VTK file, streaming: memory does not grow with the
  * output. The file is whole or absent. counts (may be NULL) gets what was
  * written. CORAX_EARG for options out of range, CORAX_EIO, CORAX_ENOMEM. */
-corax_status corax_export_vtk(const char *path, const corax_program *program,
+corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_program *program,
                               const corax_export_structure *structures, size_t n,
                               const corax_export_options *options,
                               corax_export_counts *counts, corax_error *err);

@@ -13,9 +13,53 @@ extern "C" {
 
 typedef struct corax_writer corax_writer;
 
-/* Open an output ("-" for standard output). A file is written under a
- * temporary name in the same folder and renamed over `path` only by
- * corax_writer_commit(), so a failed run never leaves half a file. */
+/* The output files of one run, made public together: a failed or stopped run
+ * changes none of them. */
+typedef struct corax_outputs corax_outputs;
+
+/* An empty set; NULL when out of memory. */
+corax_outputs *corax_outputs_new(void);
+
+/* Rename every file the set holds into place. CORAX_EIO (err names the
+ * file) when a rename fails: the files not yet renamed are removed. */
+corax_status corax_outputs_publish(corax_outputs *set, corax_error *err);
+
+/* Files held, waiting to be published. */
+size_t corax_outputs_pending(const corax_outputs *set);
+
+/* Remove every file the set holds, unpublished. */
+void corax_outputs_discard(corax_outputs *set);
+
+/* Discard and free; NULL allowed. */
+void corax_outputs_free(corax_outputs *set);
+
+/* Remove every temporary file of the set's writers, open or held. Safe in a
+ * signal handler: it only calls unlink(). */
+void corax_outputs_remove_temporaries(const corax_outputs *set);
+
+/* Open an output: "-" is standard output. A device, a pipe, a socket, or a
+ * file under /dev or /proc (/dev/stdout) is written straight, and its write
+ * errors (a full disk) are reported by corax_writer_commit(). Any other file
+ * is written under a temporary name in its own folder (through a symlink, in
+ * the folder of the file it names) and appears under its real name only
+ * when whole, with the mode the file had. With a set (may be NULL), the
+ * commit holds the file for corax_outputs_publish(); without, it renames
+ * it at once. CORAX_EIO, with a message naming the path, for an empty path,
+ * a folder, or a file that cannot be created. */
+corax_status corax_writer_open_in(corax_outputs *set, const char *path, corax_writer **out,
+                                  corax_error *err);
+
+/* Whether two paths name the same file: the same device and inode when both
+ * exist (but for character devices, which take many writers), the same
+ * resolved folder and name when neither does. "-" is never the same. */
+int corax_path_same(const char *a, const char *b);
+
+/* Whether an output at path is a file corax writes whole and renames into
+ * place (a new or regular file), rather than a stream it writes straight (a
+ * device, a pipe, standard output). */
+int corax_path_replaceable(const char *path);
+
+/* corax_writer_open_in() without a set. */
 corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err);
 
 /* A writer that keeps its output in memory (for building pieces of a table
@@ -63,8 +107,9 @@ void corax_writer_integer(corax_writer *w, long long value);
 /* End the current CSV row. */
 void corax_writer_end_row(corax_writer *w);
 
-/* Flush and finish: for a file, close and rename it into place. CORAX_EIO if
- * any write failed (nothing is left under the real name then). Frees w. */
+/* Flush and finish: for a file, sync, close and rename it into place (or
+ * hold it in the writer's set). CORAX_EIO if any write failed, naming the
+ * path (nothing is left under the real name then). Frees w. */
 corax_status corax_writer_commit(corax_writer *w, corax_error *err);
 
 /* Abandon the output, removing the temporary file. Frees w; NULL allowed. */

@@ -16,8 +16,10 @@ typedef int (*corax_ini_handler)(void *user, const char *section, const char *ke
                                  const char *value, long line, corax_error *err);
 
 /* Read an INI file: [section] headings, key = value lines, ';' or '#'
- * comments. CORAX_EIO when it cannot be opened, CORAX_EFORMAT for a line that
- * is neither (err names file and line) or when the handler stops. */
+ * comments. CORAX_EIO when it cannot be opened (or is a folder),
+ * CORAX_EFORMAT for a line that is neither, an indented line (which INI
+ * readers take as the continuation of the value above), or when the handler
+ * stops; err names the file and line. */
 corax_status corax_ini_read(const char *path, corax_ini_handler handler, void *user,
                             corax_error *err);
 

@@ -11,6 +11,7 @@
 #include "corax/convert.h"
 #include "corax/finding.h"
 #include "corax/qa.h"
+#include "corax/output.h"
 #include "corax/status.h"
 #include "corax/survey.h"
 
@@ -42,7 +43,8 @@ typedef struct corax_report_input {
  * is escaped; nothing on the page is fetched or run.
  * CORAX_EARG for a NULL input or path, a finding of no known severity, or a
  * count without its array; CORAX_EIO (err names the file), CORAX_ENOMEM. */
-corax_status corax_report_write(const corax_report_input *input, const char *path,
+corax_status corax_report_write(const corax_report_input *input, corax_outputs *set,
+                                const char *path,
                                 corax_error *err);
 
 #ifdef __cplusplus

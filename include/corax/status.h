@@ -24,13 +24,17 @@ typedef enum corax_status {
 const char *corax_strerror(corax_status status);
 
 /* Context for an error, filled by the function that failed so that the command
- * line can print `corax: FILE:LINE: message`. file is borrowed from the caller
- * (the path it passed in) and may be NULL; line is 1-based, 0 when unknown. */
+ * line can print `corax: FILE:LINE: message`. file is a copy of the path
+ * (cut to fit), "" when none, so the record outlives whatever it names; line
+ * is 1-based, 0 when unknown. */
 typedef struct corax_error {
-    const char *file;
+    char file[256];
     long line;
     char message[320];
 } corax_error;
+
+/* Set the file of an error record (NULL or "" for none); err may be NULL. */
+void corax_error_file(corax_error *err, const char *file);
 
 /* Clear an error record (file NULL, line 0, empty message). */
 void corax_error_clear(corax_error *err);

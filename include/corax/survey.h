@@ -143,7 +143,10 @@ typedef struct corax_hole_depth {
  * through corax_hole_at() on the arc, never on chords between stations.
  *
  * *out is allocated (release it with free()) and *n gets its length.
- * CORAX_EARG for a negative or non-finite step, CORAX_ENOMEM. */
+ * CORAX_EARG for a negative or non-finite step, or a step that would give
+ * more than CORAX_MAX_HOLE_POINTS points; CORAX_ENOMEM. */
+enum { CORAX_MAX_HOLE_POINTS = 1000000 }; /* a million points down one hole is
+                                             a mistaken step, not a plot */
 corax_status corax_hole_depths(const corax_hole *hole, double step, corax_hole_depth **out,
                                size_t *n);
 

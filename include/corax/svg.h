@@ -6,6 +6,7 @@
 
 #include <stddef.h>
 
+#include "corax/output.h"
 #include "corax/status.h"
 
 #ifdef __cplusplus
@@ -65,7 +66,8 @@ void corax_svg_escaped(corax_svg *svg, const char *text);
 const char *corax_svg_finish(corax_svg *svg, size_t *length);
 
 /* Finish and write to path ("-" for standard output), whole or not at all. */
-corax_status corax_svg_save(corax_svg *svg, const char *path, corax_error *err);
+corax_status corax_svg_save(corax_svg *svg, corax_outputs *set, const char *path,
+                            corax_error *err);
 
 #ifdef __cplusplus
 }

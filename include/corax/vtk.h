@@ -18,6 +18,7 @@
 #include <stddef.h>
 
 #include "corax/geometry.h"
+#include "corax/output.h"
 #include "corax/status.h"
 
 #ifdef __cplusplus
@@ -31,7 +32,8 @@ typedef struct corax_vtk corax_vtk;
 
 /* Open a file ("-" for standard output) and write the header; the title is
  * one line (line breaks become blanks, cut at 255 bytes). */
-corax_status corax_vtk_open(const char *path, corax_vtk_encoding encoding, const char *title,
+corax_status corax_vtk_open(corax_outputs *set, const char *path, corax_vtk_encoding encoding,
+                            const char *title,
                             corax_vtk **out, corax_error *err);
 
 /* Decimals for ASCII doubles, 0..9 (default 6). */

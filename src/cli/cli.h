@@ -53,6 +53,16 @@ typedef struct cli_reads {
     size_t n;
 } cli_reads;
 
+/* A file a run reads or writes, and the option that named it. */
+typedef struct cli_path {
+    const char *option, *path;
+} cli_path;
+
+typedef struct cli_paths {
+    cli_path *item;
+    size_t n;
+} cli_paths;
+
 /* Options shared by the commands that read a drill program. */
 typedef struct cli_common {
     const char *command; /* for messages */
@@ -72,6 +82,9 @@ typedef struct cli_common {
     struct cli_reads *reads; /* tables read so far: a record kept beside the
                                 options, so that commands holding them const
                                 still note what they read */
+    corax_outputs *outputs;  /* the run's files, made public together */
+    cli_paths *inputs, *outputs_named; /* for the same-file check */
+    const char *about_path;  /* where the record goes, or NULL */
     int quiet;
     char **owned;        /* strings made while reading options (project paths) */
     size_t nowned;
@@ -298,6 +311,21 @@ void cli_error(const char *file, long line, const char *fmt, ...)
 void cli_error_record(const corax_error *err, corax_status st);
 void cli_finding(const corax_finding *f);
 
+/* Faults in a table's rows: the first CLI_SHOWN are printed as `corax:
+ * FILE:LINE: message`, the rest counted. Every command that reads a table
+ * refuses it when it has any (one policy for all). */
+enum { CLI_SHOWN = 50 };
+typedef struct cli_problems {
+    size_t n;
+} cli_problems;
+
+void cli_problem(cli_problems *p, const char *file, long line, const char *fmt, ...)
+    __attribute__((format(printf, 4, 5)));
+
+/* After the last row: EXIT_OK when there were none; else how many were not
+ * shown, and "N problems in WHAT; nothing written", and EXIT_DATA. */
+int cli_problems_end(const cli_problems *p, const char *what);
+
 /* A note on stderr, `corax: note: message`, unless --quiet. */
 void cli_note(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
@@ -346,7 +374,7 @@ typedef struct cli_converted {
     corax_structure_columns columns;
     size_t width;      /* fields in its header */
     corax_row header;  /* valid until the first row is read */
-    size_t problems;   /* faulty rows met so far */
+    cli_problems problems; /* faulty rows met so far */
 } cli_converted;
 
 /* Open a converted table and find its columns; 0, or EXIT_DATA with the
@@ -371,6 +399,27 @@ void cli_progress_fn(void *user, double done);
 /* corax_table_load() with its progress shown. */
 corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
                             corax_table **out, corax_error *err);
+
+/* ---- the run's files ---- */
+
+/* Note an input or output of the run, with the option that names it (for
+ * messages); NULL and "-" are ignored. cli_common_finish() notes the shared
+ * ones (--collars, --surveys, the project file, -o and the record). */
+void cli_input(cli_common *c, const char *option, const char *path);
+void cli_output(cli_common *c, const char *option, const char *path);
+
+/* No output may be an input or another output (same device and inode, or the
+ * same resolved name): 0, or EXIT_USAGE with the message printed. */
+int cli_files_check(cli_common *c);
+
+/* The end of a run: with rc EXIT_OK, every held output is made public (an
+ * exit status, the message printed when that fails); otherwise all are
+ * removed and rc returned. */
+int cli_run_end(cli_common *c, int rc);
+
+/* Remove the temporaries of this set when a signal stops the process. */
+void cli_signals(void);
+void cli_files_watch(corax_outputs *set);
 
 /* The general help, one command's help (EXIT_USAGE for no such command),
  * and the project file's sections and keys. */

@@ -159,6 +159,10 @@ static int parse(int argc, char **argv, check_opts *o)
         return rc;
     if (cli_files_from_args(&o->logs, &o->c, argc, argv)) /* they replace the project's */
         return EXIT_DATA;
+    for (size_t i = 0; i < o->logs.n; i++)
+        cli_input(&o->c, "a core log", o->logs.path[i]);
+    cli_input(&o->c, "--runs", o->runs);
+    cli_output(&o->c, "--report", o->report);
     return cli_common_finish(&o->c, 1);
 }
 
@@ -392,7 +396,7 @@ static int load_runs(check_opts *o, logs *l, corax_table **table, corax_qa_run *
         const char *conf = corax_table_cell(t, r, col[3], &cl);
         if (corax_table_number(t, r, col[1], &a) != CORAX_NUMBER_OK ||
             corax_table_number(t, r, col[2], &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) ||
-            !name[0]) {
+            b * ts.unit > CORAX_MAX_DEPTH || !name[0]) {
             if (corax_findings_add(found, CORAX_ERROR, "run-row", o->runs, corax_table_line(t, r),
                                    name, NAN, "the run row is not a hole with from < to (from "
                                    "'%.20s', to '%.20s'): it is left out",
@@ -416,7 +420,7 @@ static int write_findings(const check_opts *o, const corax_findings *f)
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->c.output, &w, &err);
+    corax_status st = corax_writer_open_in(o->c.outputs, o->c.output, &w, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -476,7 +480,7 @@ static int write_report(const check_opts *o, const corax_program *prog,
                              found, l->reading, l->n, &o->convert};
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_report_write(&in, o->report, &err);
+    corax_status st = corax_report_write(&in, o->c.outputs, o->report, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -574,6 +578,7 @@ done:
     cli_files_free(&o.logs);
     cli_log_options_free(&o.log);
     free(o.low_words);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;
 }

@@ -269,6 +269,9 @@ static int parse(int argc, char **argv, convert_opts *o)
     }
     if (o->logs.n == 0)
         return cli_usage("convert", "no STRUCTURES file (a core log, or - for standard input)");
+    for (size_t i = 0; i < o->logs.n; i++)
+        cli_input(&o->c, "a core log", o->logs.path[i]);
+    cli_output(&o->c, "--cloud", o->setup.cloud);
     return cli_common_finish(&o->c, 1);
 }
 
@@ -351,6 +354,7 @@ int cmd_convert(int argc, char **argv)
 done:
     cli_files_free(&o.logs);
     cli_log_options_free(&o.log);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;
 }

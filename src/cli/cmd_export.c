@@ -103,6 +103,8 @@ static int parse(int argc, char **argv, export_opts *o)
         return rc;
     o->inputs = argv + optind;
     o->ninputs = argc - optind;
+    for (int i = 0; i < o->ninputs; i++)
+        cli_input(&o->c, "a converted table", o->inputs[i]);
     if (o->format == FORMAT_NONE)
         return cli_usage("export", "--format csv or --format vtk is needed");
     if (o->format == FORMAT_CSV) {
@@ -281,7 +283,7 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
         corax_export_counts counts;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_export_vtk(o->c.output, prog, v.item, v.n, &opt, &counts, &err);
+        corax_status st = corax_export_vtk(o->c.outputs, o->c.output, prog, v.item, v.n, &opt, &counts, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             rc = EXIT_DATA;
@@ -308,7 +310,7 @@ static int run(const export_opts *o, const corax_program *prog)
         corax_writer *w;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_writer_open(o->c.output, &w, &err);
+        corax_status st = corax_writer_open_in(o->c.outputs, o->c.output, &w, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             rc = EXIT_DATA;
@@ -356,6 +358,7 @@ int cmd_export(int argc, char **argv)
         return rc;
     rc = run(&o, prog);
     corax_program_free(prog);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc;
 }

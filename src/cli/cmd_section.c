@@ -146,6 +146,8 @@ static int parse(int argc, char **argv, section_opts *o)
         return cli_usage("section", "--from must be less than --to");
     if (o->svg && strcmp(o->svg, "-") == 0 && strcmp(o->c.output, "-") == 0)
         return cli_usage("section", "the table and the drawing cannot both go to standard output");
+    cli_input(&o->c, "the converted table", o->input);
+    cli_output(&o->c, "--svg", o->svg);
     return cli_common_finish(&o->c, 1);
 }
 
@@ -400,7 +402,7 @@ static int finish(slab_run *r, corax_svg *svg)
     corax_status st = corax_writer_commit(r->w, &err);
     r->w = NULL;
     if (st == CORAX_OK && svg)
-        st = corax_svg_save(svg, r->o->svg, &err);
+        st = corax_svg_save(svg, r->o->c.outputs, r->o->svg, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -418,7 +420,7 @@ static int run(const section_opts *o, const corax_program *prog)
         r.section.to = o->to;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->c.output, &r.w, &err);
+    corax_status st = corax_writer_open_in(o->c.outputs, o->c.output, &r.w, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -473,6 +475,7 @@ int cmd_section(int argc, char **argv)
         return rc;
     rc = run(&o, prog);
     corax_program_free(prog);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc;
 }

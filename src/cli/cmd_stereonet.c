@@ -36,7 +36,8 @@ static const char stereonet_help[] =
     "  --title TEXT          the page title\n"
     "  --stats FILE          statistics, one row per group and kind of data\n"
     "\n"
-    "Rows without usable angles are skipped and counted. The statistics: Fisher\n"
+    "Rows without angles (unoriented readings) are skipped and counted; a row with\n"
+    "a faulty value is an error, and nothing is written. The statistics: Fisher\n"
     "mean, kappa and alpha95 (empty for fewer than 3 readings), the orientation\n"
     "tensor's eigenvalues and principal axes, Woodcock's K and C.\n"
     "\n";
@@ -85,7 +86,8 @@ typedef struct groups {
     group *item;
     size_t count, cap, last;
     int full;      /* a row would have made group MAX_GROUPS + 1 */
-    size_t skipped, invalid, warned;
+    size_t skipped;        /* rows with no angles (not faults) */
+    cli_problems problems; /* faulty rows */
 } groups;
 
 /* Columns of one input table (-1 when absent). */
@@ -187,6 +189,9 @@ static int parse(int argc, char **argv, stereo_opts *o)
     if (o->stats && strcmp(o->stats, "-") == 0 && strcmp(o->c.output, "-") == 0)
         return cli_usage("stereonet", "the net and --stats cannot both go to standard output");
     o->style.min_angle = corax_rad(o->min_angle);
+    for (int i = optind; i < argc; i++)
+        cli_input(&o->c, "a converted table", argv[i]);
+    cli_output(&o->c, "--stats", o->stats);
     return cli_common_finish(&o->c, 0);
 }
 
@@ -310,12 +315,10 @@ static int read_pair(const corax_table *t, size_t row, const angle_spec spec[2],
     return PAIR_OK;
 }
 
-static void row_warning(const stereo_opts *o, groups *gs, const corax_table *t, size_t row,
-                        const char *why, const char *what)
+/* A faulty row: a problem (the table is refused, as every command does). */
+static void row_fault(groups *gs, const corax_table *t, size_t row, const char *why)
 {
-    if (o->c.quiet || gs->warned++ >= 20)
-        return;
-    cli_error(corax_table_path(t), corax_table_line(t, row), "warning: %s; %s", why, what);
+    cli_problem(&gs->problems, corax_table_path(t), corax_table_line(t, row), "%s", why);
 }
 
 static int out_of_memory(void)
@@ -365,7 +368,13 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
     const angle_spec line[2] = {{col->trend, "trend", 0, 360}, {col->plunge, "plunge", 0, 90}};
     char why[200];
     double v[2], w = 1.0;
-    int used = 0, bad = 0;
+    int used = 0;
+    if (corax_table_width(t, row) != corax_table_columns(t)) {
+        snprintf(why, sizeof why, "the row has %zu fields but the header has %zu",
+                 corax_table_width(t, row), corax_table_columns(t));
+        row_fault(gs, t, row, why);
+        return 0;
+    }
     int r = read_pair(t, row, plane, v, why, sizeof why);
     if (r == PAIR_OK) {
         corax_vec3 n = corax_plane_normal((corax_plane){corax_rad(v[0]), corax_rad(v[1])});
@@ -376,10 +385,8 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         else
             used = 1;
     }
-    if (r == PAIR_BAD) {
-        row_warning(o, gs, t, row, why, "plane left out");
-        bad = 1;
-    }
+    if (r == PAIR_BAD)
+        row_fault(gs, t, row, why);
     r = read_pair(t, row, line, v, why, sizeof why);
     if (r == PAIR_OK) {
         if (!push(&g->lines, NULL, &g->nlines, &g->line_cap,
@@ -387,13 +394,11 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
             return out_of_memory();
         used = 1;
     } else if (r == PAIR_BAD) {
-        row_warning(o, gs, t, row, why, "line left out");
-        bad = 1;
+        row_fault(gs, t, row, why);
     }
     if (!used) {
         g->skipped++;
         gs->skipped++;
-        gs->invalid += bad;
     }
     return 0;
 }
@@ -572,7 +577,7 @@ static corax_writer *stats_table(const stereo_opts *o, const groups *gs)
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->stats, &w, &err);
+    corax_status st = corax_writer_open_in(o->c.outputs, o->stats, &w, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return NULL;
@@ -674,12 +679,12 @@ static int run(stereo_opts *o, int nfiles, char **files)
     for (int i = 0; i < nfiles && rc == 0; i++)
         rc = read_table(o, files[i], &gs);
     if (rc == 0)
+        rc = cli_problems_end(&gs.problems, "the converted tables");
+    if (rc == 0)
         rc = summarise(o, &gs);
-    if (rc == 0 && gs.warned > 20 && !o->c.quiet)
-        cli_error(NULL, 0, "%zu more warnings not shown", gs.warned - 20);
     if (rc == 0 && gs.skipped && !o->c.quiet)
-        cli_error(NULL, 0, "%zu row%s skipped: no usable angles (%zu with bad values)",
-                  gs.skipped, gs.skipped == 1 ? "" : "s", gs.invalid);
+        cli_note(&o->c, "%zu row%s without angles skipped", gs.skipped,
+                 gs.skipped == 1 ? "" : "s");
     char title[256];
     default_title(o, nfiles, files, title, sizeof title);
     corax_writer *stats = NULL;
@@ -693,7 +698,7 @@ static int run(stereo_opts *o, int nfiles, char **files)
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == 0 && (st = corax_svg_save(svg, o->c.output, &err)) == CORAX_OK && stats) {
+    if (rc == 0 && (st = corax_svg_save(svg, o->c.outputs, o->c.output, &err)) == CORAX_OK && stats) {
         st = corax_writer_commit(stats, &err);
         stats = NULL;
     }
@@ -724,6 +729,7 @@ int cmd_stereonet(int argc, char **argv)
     for (size_t i = 0; i < o.nwhere; i++)
         free(o.where[i].column);
     free(o.where);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc;
 }

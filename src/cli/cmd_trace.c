@@ -152,8 +152,17 @@ static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
 {
     corax_hole_depth *p;
     size_t n;
-    if (corax_hole_depths(h, o->step, &p, &n) != CORAX_OK)
+    corax_status st = corax_hole_depths(h, o->step, &p, &n);
+    if (st == CORAX_EARG) {
+        cli_error(NULL, 0, "hole %s is %.10g m long: a point every %g m makes more than %d "
+                  "points; take a longer step", corax_hole_name(h), corax_hole_length(h),
+                  o->step, CORAX_MAX_HOLE_POINTS);
         return -1;
+    }
+    if (st != CORAX_OK) {
+        cli_error(NULL, 0, "out of memory");
+        return -1;
+    }
     const char *name = corax_hole_name(h);
     size_t hint = 0;
     for (size_t k = 0; k < n; k++) {
@@ -197,10 +206,8 @@ static int trace_all(trace_opts *o, const corax_program *prog, corax_writer *w)
         write_text(w, header[i]);
     corax_writer_end_row(w);
     for (size_t i = 0; i < corax_program_size(prog); i++)
-        if (trace_hole(o, corax_program_hole(prog, i), w) != 0) {
-            cli_error(NULL, 0, "out of memory");
+        if (trace_hole(o, corax_program_hole(prog, i), w) != 0)
             return EXIT_DATA;
-        }
     return EXIT_OK;
 }
 
@@ -230,6 +237,7 @@ static int parse(int argc, char **argv, trace_opts *o)
         return cli_usage("trace", "unexpected argument '%s'", argv[optind]);
     if (o->at && o->step > 0.0)
         return cli_usage("trace", "--at and --step do not go together");
+    cli_input(&o->c, "--at", o->at);
     return cli_common_finish(&o->c, 1);
 }
 
@@ -245,7 +253,7 @@ int cmd_trace(int argc, char **argv)
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open(o.c.output, &w, &err);
+    corax_status st = corax_writer_open_in(o.c.outputs, o.c.output, &w, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         rc = EXIT_DATA;
@@ -275,6 +283,7 @@ int cmd_trace(int argc, char **argv)
             rc = EXIT_DATA;
     }
     corax_program_free(prog);
+    rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc;
 }

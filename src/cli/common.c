@@ -61,13 +61,36 @@ void cli_error(const char *file, long line, const char *fmt, ...)
 
 void cli_error_record(const corax_error *err, corax_status st)
 {
-    cli_error(err->file, err->line, "%s", err->message[0] ? err->message : corax_strerror(st));
+    cli_error(err->file[0] ? err->file : NULL, err->line, "%s",
+              err->message[0] ? err->message : corax_strerror(st));
 }
 
 void cli_finding(const corax_finding *f)
 {
     cli_error(f->file, f->line, "%s%s", f->severity == CORAX_WARNING ? "warning: " : "",
               f->message);
+}
+
+void cli_problem(cli_problems *p, const char *file, long line, const char *fmt, ...)
+{
+    if (p->n++ >= CLI_SHOWN)
+        return;
+    char text[600];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(text, sizeof text, fmt, ap);
+    va_end(ap);
+    cli_error(file, line, "%s", text);
+}
+
+int cli_problems_end(const cli_problems *p, const char *what)
+{
+    if (!p->n)
+        return EXIT_OK;
+    if (p->n > CLI_SHOWN)
+        cli_error(NULL, 0, "... and %zu more not shown; fix these first", p->n - CLI_SHOWN);
+    cli_error(NULL, 0, "%zu problem%s in %s; nothing written", p->n, p->n == 1 ? "" : "s", what);
+    return EXIT_DATA;
 }
 
 void cli_note(const cli_common *c, const char *fmt, ...)
@@ -120,21 +143,17 @@ corax_program *cli_load_program(cli_common *c)
         corax_findings_clear(&problems);
         return NULL;
     }
-    size_t errors = corax_findings_count(&problems, CORAX_ERROR), shown = 0;
+    size_t errors = corax_findings_count(&problems, CORAX_ERROR);
+    cli_problems shown = {0};
     for (size_t i = 0; i < problems.count; i++) {
         const corax_finding *f = &problems.item[i];
-        if (f->severity < CORAX_ERROR && (c->quiet || errors))
-            continue;
-        if (shown++ == 50) {
-            cli_error(NULL, 0, "... and more problems; fix these first");
-            break;
-        }
-        cli_finding(f);
+        if (f->severity == CORAX_ERROR)
+            cli_problem(&shown, f->file, f->line, "%s", f->message);
+        else if (!c->quiet && !errors)
+            cli_finding(f);
     }
     corax_findings_clear(&problems);
-    if (errors) {
-        cli_error(NULL, 0, "%zu problem%s in the collar and survey tables; nothing written",
-                  errors, errors == 1 ? "" : "s");
+    if (cli_problems_end(&shown, "the collar and survey tables") != EXIT_OK) {
         corax_program_free(prog);
         return NULL;
     }
@@ -265,19 +284,11 @@ int cli_about_commit(cli_about *a, const cli_common *c)
     if (!a)
         return -1;
     int rc = 0;
-    char *path = NULL;
-    if (c->about) {
-        path = strdup(c->about);
-    } else if (strcmp(c->output, "-") != 0) {
-        size_t n = strlen(c->output) + 8;
-        if ((path = malloc(n)))
-            snprintf(path, n, "%s.about", c->output);
-    }
-    if (path) {
+    if (c->about_path) {
         corax_writer *w;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st = corax_writer_open(path, &w, &err);
+        corax_status st = corax_writer_open_in(c->outputs, c->about_path, &w, &err);
         if (st == CORAX_OK) {
             corax_writer_text(w, a->text, a->len);
             st = corax_writer_commit(w, &err);
@@ -287,7 +298,6 @@ int cli_about_commit(cli_about *a, const cli_common *c)
             rc = -1;
         }
     }
-    free(path);
     free(a->text);
     free(a);
     return rc;

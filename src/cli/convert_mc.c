@@ -230,7 +230,7 @@ int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int n
     if (rc == EXIT_OK && !spread)
         rc = EXIT_DATA;
     if (rc == EXIT_OK && r->s->cloud) {
-        corax_status st = corax_writer_open(r->s->cloud, &cloud, &err);
+        corax_status st = corax_writer_open_in(r->c->outputs, r->s->cloud, &cloud, &err);
         if (st != CORAX_OK) {
             cli_error_record(&err, st);
             rc = EXIT_DATA;

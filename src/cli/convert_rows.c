@@ -631,7 +631,8 @@ int convert_files(cli_common *c, const corax_program *prog, const convert_setup 
     }
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = rc == EXIT_OK ? corax_writer_open(output, &r.w, &err) : CORAX_ENOMEM;
+    corax_status st =
+        rc == EXIT_OK ? corax_writer_open_in(c->outputs, output, &r.w, &err) : CORAX_ENOMEM;
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         rc = EXIT_DATA;

@@ -5,7 +5,6 @@
 #include "cli/cli.h"
 #include "io/fields.h"
 
-enum { MAX_SHOWN = 50 }; /* problems printed before the rest are only counted */
 
 int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
 {
@@ -48,8 +47,8 @@ int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s)
         if (++t->rows % 65536 == 0)
             cli_progress_set(&t->progress, (double)corax_reader_offset(t->reader));
         if (st != CORAX_OK) {
-            cli_error_record(&err, st);
-            t->problems++;
+            cli_problem(&t->problems, err.file[0] ? err.file : NULL, err.line, "%s",
+                        err.message[0] ? err.message : corax_strerror(st));
             return 0;
         }
         const char *ragged = corax_field_ragged(row, t->width, why, sizeof why);
@@ -61,10 +60,7 @@ int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s)
             s->position.z *= t->unit;
             return 1;
         }
-        if (t->problems++ < MAX_SHOWN)
-            cli_error(t->path, row->line, "%s", why);
-        else if (t->problems == MAX_SHOWN + 1)
-            cli_error(t->path, 0, "... and more problems; fix these first");
+        cli_problem(&t->problems, t->path, row->line, "%s", why);
     }
 }
 
@@ -78,9 +74,7 @@ int cli_converted_close(cli_converted *t)
     }
     corax_reader_close(t->reader);
     t->reader = NULL;
-    if (!t->problems)
-        return EXIT_OK;
-    cli_error(t->path, 0, "%zu problem%s in the converted table; nothing written", t->problems,
-              t->problems == 1 ? "" : "s");
-    return EXIT_DATA;
+    char what[600];
+    snprintf(what, sizeof what, "the converted table %s", t->path);
+    return cli_problems_end(&t->problems, what);
 }

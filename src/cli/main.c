@@ -54,6 +54,7 @@ int cli_command_help(const char *name)
 int main(int argc, char **argv)
 {
     gsl_set_error_handler_off(); /* the library reports GSL failures as statuses */
+    cli_signals();               /* a stopped run leaves no temporary files */
     if (argc < 2) {
         cli_main_help(stderr);
         return EXIT_USAGE;

@@ -33,6 +33,10 @@ void cli_common_init(cli_common *c, const char *command)
     for (int i = 0; i < CLI_NTABLES; i++)
         table_unset(&c->table[i]);
     c->reads = calloc(1, sizeof *c->reads); /* NULL: nothing recorded */
+    c->outputs = corax_outputs_new();           /* NULL: refused by cli_common_finish */
+    c->inputs = calloc(1, sizeof *c->inputs);
+    c->outputs_named = calloc(1, sizeof *c->outputs_named);
+    cli_files_watch(c->outputs);
 }
 
 void cli_common_free(cli_common *c)
@@ -56,6 +60,14 @@ void cli_common_free(cli_common *c)
         free(c->reads->item);
     free(c->reads);
     c->reads = NULL;
+    cli_files_watch(NULL);
+    corax_outputs_free(c->outputs); /* anything not published is removed */
+    c->outputs = NULL;
+    for (cli_paths **ps = (cli_paths *[]){c->inputs, c->outputs_named, NULL}; *ps; ps++) {
+        free((*ps)->item);
+        free(*ps);
+    }
+    c->inputs = c->outputs_named = NULL;
 }
 
 /* Keep a string alive as long as the options. */
@@ -328,13 +340,42 @@ static char *join_path(const char *dir, const char *path)
     return out;
 }
 
+/* A key met in the project file, for the check that none is given twice. */
+typedef struct seen_key {
+    char *section, *key;
+    long line;
+} seen_key;
+
 typedef struct project_ctx {
     cli_common *c;
     const struct option *longopts;
     cli_option_fn own;
     void *own_ctx;
     const char *dir; /* the project file's folder, with a trailing '/', or "" */
+    seen_key *seen;
+    size_t nseen;
 } project_ctx;
+
+/* 0 the first time a key is met; its earlier line when it is met again; -1
+ * when out of memory. Project files hold tens of keys: a list will do. */
+static long seen_before(project_ctx *p, const char *section, const char *key, long line)
+{
+    for (size_t i = 0; i < p->nseen; i++)
+        if (strcmp(p->seen[i].section, section) == 0 && strcasecmp(p->seen[i].key, key) == 0)
+            return p->seen[i].line;
+    seen_key *k = realloc(p->seen, (p->nseen + 1) * sizeof *k);
+    if (!k)
+        return -1;
+    p->seen = k;
+    k[p->nseen] = (seen_key){strdup(section), strdup(key), line};
+    if (!k[p->nseen].section || !k[p->nseen].key) {
+        free(k[p->nseen].section);
+        free(k[p->nseen].key);
+        return -1;
+    }
+    p->nseen++;
+    return 0;
+}
 
 /* Sections whose keys are entries of a list option: code = word. */
 static const struct {
@@ -413,6 +454,16 @@ static int on_project_key(void *user, const char *section, const char *key, cons
         corax_error_set(err, CORAX_EFORMAT, NULL, line, "unknown section [%s]", section);
         return 1;
     }
+    long earlier = seen_before(p, section, key, line);
+    if (earlier) {
+        if (earlier < 0)
+            corax_error_set(err, CORAX_ENOMEM, NULL, line, "out of memory");
+        else
+            corax_error_set(err, CORAX_EFORMAT, NULL, line,
+                            "'%s' in [%s] is given twice (lines %ld and %ld): say it once",
+                            key, section, earlier, line);
+        return 1;
+    }
     for (int i = 0; i < NLISTS; i++) { /* name = value, an entry of a list option */
         if (strcmp(section, list_sections[i].section))
             continue;
@@ -481,13 +532,18 @@ static int read_project(cli_common *c, const char *path, const struct option *lo
     if (!dir)
         return EXIT_DATA;
     snprintf(dir, slash ? (size_t)(slash - path) + 2 : 1, "%s", path);
-    project_ctx p = {c, longopts, own, ctx, dir};
+    project_ctx p = {c, longopts, own, ctx, dir, NULL, 0};
     corax_error err;
     corax_error_clear(&err);
     c->in_project = 1;
     corax_status st = corax_ini_read(path, on_project_key, &p, &err);
     c->in_project = 0;
     free(dir);
+    for (size_t i = 0; i < p.nseen; i++) {
+        free(p.seen[i].section);
+        free(p.seen[i].key);
+    }
+    free(p.seen);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
@@ -570,6 +626,22 @@ void cli_files_free(cli_files *f)
     f->n = 0;
 }
 
+/* Where the record of the run goes: --about, or OUTPUT.about beside an output
+ * file that corax writes whole (not beside a device, a pipe or standard
+ * output); NULL for none. */
+static const char *about_path(cli_common *c)
+{
+    if (c->about)
+        return c->about;
+    if (!corax_path_replaceable(c->output))
+        return NULL;
+    size_t n = strlen(c->output) + 7;
+    char *p = malloc(n);
+    if (p)
+        snprintf(p, n, "%s.about", c->output);
+    return own_string(c, p);
+}
+
 /* Each input table's header names: the defaults' under its own. */
 static int merge_columns(cli_common *c)
 {
@@ -610,7 +682,15 @@ int cli_common_finish(cli_common *c, int need_program)
     c->load.nreject = c->nreject;
     if (need_program && (!c->collars || !c->surveys))
         return cli_usage(c->command, "--collars and --surveys are both needed");
-    return 0;
+    if (!c->outputs)
+        return cli_usage(c->command, "out of memory");
+    cli_input(c, "--collars", c->collars);
+    cli_input(c, "--surveys", c->surveys);
+    cli_input(c, "--project", c->project);
+    cli_output(c, "-o", c->output);
+    c->about_path = about_path(c);
+    cli_output(c, "--about", c->about_path);
+    return cli_files_check(c);
 }
 
 /* ---- core conventions ---- */

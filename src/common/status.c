@@ -32,9 +32,15 @@ void corax_error_clear(corax_error *err)
 {
     if (!err)
         return;
-    err->file = NULL;
+    err->file[0] = '\0';
     err->line = 0;
     err->message[0] = '\0';
+}
+
+void corax_error_file(corax_error *err, const char *file)
+{
+    if (err)
+        snprintf(err->file, sizeof err->file, "%s", file ? file : "");
 }
 
 corax_status corax_error_set(corax_error *err, corax_status status, const char *file,
@@ -42,7 +48,7 @@ corax_status corax_error_set(corax_error *err, corax_status status, const char *
 {
     if (!err)
         return status;
-    err->file = file;
+    corax_error_file(err, file);
     err->line = line;
     va_list ap;
     va_start(ap, fmt);

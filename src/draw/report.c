@@ -694,8 +694,8 @@ static corax_status check_input(const corax_report_input *in, corax_error *err)
     return CORAX_OK;
 }
 
-corax_status corax_report_write(const corax_report_input *input, const char *path,
-                                corax_error *err)
+corax_status corax_report_write(const corax_report_input *input, corax_outputs *set,
+                                const char *path, corax_error *err)
 {
     if (!input || !path)
         return corax_error_set(err, CORAX_EARG, NULL, 0, "no report input or no path");
@@ -706,7 +706,7 @@ corax_status corax_report_write(const corax_report_input *input, const char *pat
     if ((st = corax_report_model_build(&m, input)) != CORAX_OK)
         return corax_error_set(err, st, path, 0, "out of memory preparing the report");
     corax_writer *w;
-    if ((st = corax_writer_open(path, &w, err)) == CORAX_OK) {
+    if ((st = corax_writer_open_in(set, path, &w, err)) == CORAX_OK) {
         page p = {w, &m, input};
         st = whole_page(&p);
         if (st == CORAX_OK)

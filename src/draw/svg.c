@@ -255,14 +255,15 @@ const char *corax_svg_finish(corax_svg *s, size_t *length)
     return s->text;
 }
 
-corax_status corax_svg_save(corax_svg *s, const char *path, corax_error *err)
+corax_status corax_svg_save(corax_svg *s, corax_outputs *set, const char *path,
+                            corax_error *err)
 {
     size_t n;
     const char *text = corax_svg_finish(s, &n);
     if (!text)
         return corax_error_set(err, CORAX_ENOMEM, path, 0, "out of memory drawing the picture");
     corax_writer *w;
-    corax_status st = corax_writer_open(path, &w, err);
+    corax_status st = corax_writer_open_in(set, path, &w, err);
     if (st != CORAX_OK)
         return st;
     corax_writer_text(w, text, n);

@@ -255,7 +255,7 @@ static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_
     return CORAX_OK;
 }
 
-corax_status corax_export_vtk(const char *path, const corax_program *program,
+corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_program *program,
                               const corax_export_structure *s, size_t n,
                               const corax_export_options *o, corax_export_counts *counts,
                               corax_error *err)
@@ -268,7 +268,7 @@ corax_status corax_export_vtk(const char *path, const corax_program *program,
     corax_status st = count_traces(&t);
     corax_vtk *v = NULL;
     if (st == CORAX_OK)
-        st = corax_vtk_open(path, o->encoding, o->title ? o->title : "corax export", &v, err);
+        st = corax_vtk_open(set, path, o->encoding, o->title ? o->title : "corax export", &v, err);
     if (st == CORAX_OK) {
         corax_vtk_decimals(v, 6);
         st = write_vtk(v, &t, s, n, o);

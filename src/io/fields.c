@@ -37,7 +37,7 @@ int corax_field_in_range(double value, double lo, double hi, const char *name, c
 {
     if (value >= lo && value <= hi)
         return 1;
-    snprintf(why, whylen, "%s %g is outside [%g, %g]", name, value, lo, hi);
+    snprintf(why, whylen, "%s %.10g is outside [%g, %g]", name, value, lo, hi);
     return 0;
 }
 
@@ -45,7 +45,7 @@ int corax_field_nonnegative(double value, const char *name, char *why, size_t wh
 {
     if (value >= 0.0)
         return 1;
-    snprintf(why, whylen, "%s %g is negative", name, value);
+    snprintf(why, whylen, "%s %.10g is negative", name, value);
     return 0;
 }
 
@@ -68,11 +68,24 @@ corax_number_status corax_field_depth(const corax_row *row, const long col[3], c
         }
         *depth = where == 1 ? from : where == 2 ? to : 0.5 * (from + to);
     }
-    if (st == CORAX_NUMBER_OK)
+    if (st == CORAX_NUMBER_OK) {
         *depth *= unit;
-    else
+        if (!corax_field_plausible(*depth, CORAX_MAX_DEPTH, "depth", why, whylen))
+            st = CORAX_NUMBER_NOT_FINITE;
+    }
+    if (st != CORAX_NUMBER_OK)
         *depth = NAN;
     return st;
+}
+
+int corax_field_plausible(double value, double limit, const char *name, char *why,
+                          size_t whylen)
+{
+    if (fabs(value) <= limit)
+        return 1;
+    snprintf(why, whylen, "%s %.10g m is not plausible (beyond %g m): a slip in the table?",
+             name, value, limit);
+    return 0;
 }
 
 const char *corax_field_text(const corax_row *row, long col, size_t *length)
@@ -122,7 +135,7 @@ corax_status corax_table_header(corax_reader *reader, const char *const *names, 
         return st;
     st = corax_header_check(&header, err);
     if (st != CORAX_OK) {
-        err->file = path;
+        corax_error_file(err, path);
         return st;
     }
     for (size_t i = 0; i < n; i++) {

@@ -20,6 +20,18 @@ int corax_field_in_range(double value, double lo, double hi, const char *name, c
 /* 1 when value >= 0; else 0 and why says "name v is negative". */
 int corax_field_nonnegative(double value, const char *name, char *why, size_t whylen);
 
+/* Plausible sizes, in metres: a depth or a length up to CORAX_MAX_DEPTH (ten
+ * times the deepest hole ever drilled), a coordinate within
+ * CORAX_MAX_COORDINATE of its origin (any map grid's metres or feet). A
+ * value beyond is a slip (1e308 pasted into a cell), not a place. */
+#define CORAX_MAX_DEPTH 1e5
+#define CORAX_MAX_COORDINATE 1e8
+
+/* 1 when |value| <= limit; else 0 and why says "name V (metres) is not
+ * plausible: beyond LIMIT". */
+int corax_field_plausible(double value, double limit, const char *name, char *why,
+                          size_t whylen);
+
 /* The text of column col ("" when col < 0 or past the end of the row). */
 const char *corax_field_text(const corax_row *row, long col, size_t *length);
 

@@ -196,6 +196,8 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
             bad = corax_field_number(&row, col[1 + k], decimal, names[1 + k], xyz[k], why,
                                      sizeof why) != CORAX_NUMBER_OK;
             *xyz[k] *= unit;
+            bad = bad || !corax_field_plausible(*xyz[k], CORAX_MAX_COORDINATE, names[1 + k],
+                                                why, sizeof why);
         }
         if (!bad && col[4] >= 0 && col[5] >= 0) {
             int d = read_direction(&row, col[4], col[5], decimal, o->collar_dip, &c.azimuth,
@@ -206,10 +208,12 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
         if (!bad && col[6] >= 0) {
             corax_number_status ls = corax_field_number(&row, col[6], decimal, "length",
                                                         &c.length, why, sizeof why);
+            c.length = ls == CORAX_NUMBER_EMPTY ? (double)NAN : c.length * unit;
             bad = ls == CORAX_NUMBER_NOT_NUMBER || ls == CORAX_NUMBER_NOT_FINITE ||
                   (ls == CORAX_NUMBER_OK &&
-                   !corax_field_nonnegative(c.length, "length", why, sizeof why));
-            c.length = ls == CORAX_NUMBER_EMPTY ? (double)NAN : c.length * unit;
+                   (!corax_field_nonnegative(c.length, "length", why, sizeof why) ||
+                    !corax_field_plausible(c.length, CORAX_MAX_DEPTH, "length", why,
+                                           sizeof why)));
         }
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "collar-row", path, row.line,
@@ -280,6 +284,8 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
                                      sizeof why) != CORAX_NUMBER_OK ||
                   !corax_field_nonnegative(s.depth, "depth", why, sizeof why);
             s.depth *= unit;
+            bad = bad || !corax_field_plausible(s.depth, CORAX_MAX_DEPTH, "depth", why,
+                                                sizeof why);
         }
         if (!bad) {
             int d = read_direction(&row, col[2], col[3], decimal, o->survey_dip, &s.azimuth,

@@ -4,6 +4,7 @@
 #include <ini.h>
 #include <stdio.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "corax/project.h"
 
@@ -34,8 +35,16 @@ static char *read_line(char *str, int num, void *stream)
     const char *p = str;
     if (s->line == 1 && strncmp(p, "\xEF\xBB\xBF", 3) == 0)
         p += 3;
+    const char *text = p;
     while (*p == ' ' || *p == '\t')
         p++;
+    if (p > text && *p && *p != '\n' && *p != '\r' && *p != ';' && *p != '#' && !s->stopped) {
+        /* inih would glue it onto the previous value: say so instead */
+        corax_error_set(s->err, CORAX_EFORMAT, s->path, s->line,
+                        "an indented line would continue the value above it; start each "
+                        "key = value, and each [section], at the beginning of its line");
+        s->stopped = 1;
+    }
     if (*p == '[' && !s->stopped) {
         const char *end = strchr(p, ']');
         if (end) {
@@ -64,6 +73,10 @@ corax_status corax_ini_read(const char *path, corax_ini_handler handler, void *u
                             corax_error *err)
 {
     ini_state s = {NULL, path, 0, handler, user, err, 0};
+    struct stat st;
+    if (stat(path, &st) == 0 && S_ISDIR(st.st_mode))
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot open: it is a folder, not a "
+                               "project file");
     s.fp = fopen(path, "r");
     if (!s.fp)
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot open: %s", strerror(errno));
@@ -71,7 +84,7 @@ corax_status corax_ini_read(const char *path, corax_ini_handler handler, void *u
     fclose(s.fp);
     if (s.stopped) {
         if (err)
-            err->file = path;
+            corax_error_file(err, path);
         return CORAX_EFORMAT;
     }
     if (rc > 0)

@@ -16,7 +16,12 @@
 
 #include "corax/table.h"
 
-enum { READ_BLOCK = 1 << 20 };
+enum {
+    READ_BLOCK = 1 << 20,
+    MAX_LINE = 1 << 20,  /* bytes in one line: no table of readings comes near */
+    MAX_ROW = 1 << 24,   /* bytes in one row, its quoted line breaks included */
+    MAX_FIELDS = 10000,  /* fields in one row */
+};
 
 struct corax_reader {
     FILE *fp;
@@ -40,6 +45,8 @@ struct corax_reader {
     int row_done, failed;
     int in_comment; /* a comment line continues into the next block */
     size_t consumed;  /* bytes of the blocks before this one */
+    size_t line_len;  /* bytes of the current line in earlier blocks */
+    const char *too_big; /* a limit passed, named; NULL if none */
 
     corax_table_info info; /* the format as read, and what was skipped */
 };
@@ -84,6 +91,13 @@ static void on_field(void *data, size_t len, void *user)
     corax_reader *r = user;
     if (r->failed)
         return;
+    if (r->count == MAX_FIELDS || r->text_len + len > MAX_ROW) {
+        r->too_big = r->count == MAX_FIELDS ? "the row has more than 10000 fields"
+                                            : "the row is longer than 16 MiB (a quote never "
+                                              "closed?)";
+        r->failed = 1;
+        return;
+    }
     /* blanks around a value are not part of it, quoted or not */
     while (len && blank_or_space(*(unsigned char *)data)) {
         data = (char *)data + 1;
@@ -333,6 +347,20 @@ static corax_status refill(corax_reader *r, corax_error *err)
         r->first_block = 0;
         if (r->have >= 3 && memcmp(r->block, "\xEF\xBB\xBF", 3) == 0)
             r->pos = 3; /* UTF-8 byte-order mark */
+        if (r->have >= 2 && (memcmp(r->block, "\xFF\xFE", 2) == 0 ||
+                             memcmp(r->block, "\xFE\xFF", 2) == 0))
+            return corax_error_set(err, CORAX_EFORMAT, r->path, 1,
+                                   "the file is UTF-16 text: save it as UTF-8 (for example "
+                                   "iconv -f UTF-16 -t UTF-8 FILE > FILE.csv)");
+        const char *nul = memchr(r->block, '\0', r->have);
+        if (nul) {
+            long line = 1;
+            for (const char *p = r->block; p < nul; p++)
+                line += *p == '\n';
+            return corax_error_set(err, CORAX_EFORMAT, r->path, line,
+                                   "the file holds NUL bytes: it is not a text table "
+                                   "(UTF-16 without its mark, or a binary file?)");
+        }
     }
     return CORAX_OK;
 }
@@ -382,6 +410,12 @@ static void feed_line(corax_reader *r)
                 k++;
             comment = k < i && s[k] == '#';
             r->info.comments += comment;
+        }
+        r->line_len = i < n ? 0 : r->line_len + i; /* a line cut by the block's end */
+        if (r->line_len > MAX_LINE) {
+            r->too_big = "the line is longer than 1 MiB: is this a table?";
+            r->failed = 1;
+            return;
         }
         if (comment) { /* skip to the line end, which may lie in the next block */
             r->in_comment = i == n;
@@ -457,7 +491,10 @@ corax_status corax_reader_next(corax_reader *r, corax_row *row, corax_error *err
         }
         feed_line(r);
         if (r->failed)
-            return CORAX_ENOMEM;
+            return r->too_big ? corax_error_set(err, CORAX_EFORMAT, r->path,
+                                                r->row_line ? r->row_line : r->line, "%s",
+                                                r->too_big)
+                              : CORAX_ENOMEM;
         if (r->row_done && all_empty(r)) { /* a blank row: skipped, counted */
             r->info.blank_rows++;
             r->count = 0;

@@ -228,7 +228,8 @@ corax_status corax_structure_read(const corax_row *row, const corax_structure_co
             corax_field_number(row, c->depth, decimal, "depth", &s->depth, why, whylen);
         if (st == CORAX_NUMBER_EMPTY)
             s->depth = NAN;
-        else if (st != CORAX_NUMBER_OK)
+        else if (st != CORAX_NUMBER_OK ||
+                 !corax_field_plausible(s->depth, CORAX_MAX_DEPTH, "depth", why, whylen))
             return CORAX_EVALUE;
     }
     long pc[3] = {c->x, c->y, c->z}, dc[2] = {c->dip, c->dip_direction};
@@ -237,6 +238,9 @@ corax_status corax_structure_read(const corax_row *row, const corax_structure_co
     int oriented = located < 0 ? -1 : read_group(row, dc, dip_name, 2, decimal, d, why, whylen);
     if (located < 0 || oriented < 0)
         return CORAX_EVALUE;
+    for (int k = 0; located && k < 3; k++)
+        if (!corax_field_plausible(p[k], CORAX_MAX_COORDINATE, pos_name[k], why, whylen))
+            return CORAX_EVALUE;
     if (oriented && (!corax_field_in_range(d[0], 0, 90, "dip", why, whylen) ||
                      !corax_field_in_range(d[1], 0, 360, "dip_direction", why, whylen)))
         return CORAX_EVALUE;

@@ -153,7 +153,7 @@ corax_status corax_table_load_progress(const char *path, corax_table_format form
     if (st == CORAX_OK) {
         st = corax_header_check(&row, err);
         if (err && st != CORAX_OK)
-            err->file = path;
+            corax_error_file(err, path);
     }
     while (st == CORAX_OK) {
         if (!push_row(t, &row)) {

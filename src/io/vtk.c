@@ -93,14 +93,15 @@ static void clean_name(char *out, size_t cap, const char *name)
         snprintf(out, cap, "data");
 }
 
-corax_status corax_vtk_open(const char *path, corax_vtk_encoding encoding, const char *title,
+corax_status corax_vtk_open(corax_outputs *set, const char *path, corax_vtk_encoding encoding,
+                            const char *title,
                             corax_vtk **out, corax_error *err)
 {
     *out = NULL;
     corax_vtk *v = calloc(1, sizeof *v);
     if (!v)
         return CORAX_ENOMEM;
-    corax_status st = corax_writer_open(path, &v->w, err);
+    corax_status st = corax_writer_open_in(set, path, &v->w, err);
     if (st != CORAX_OK) {
         free(v);
         return st;

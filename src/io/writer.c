@@ -13,6 +13,7 @@
 #include "common/format.h"
 #include "corax/geometry.h"
 #include "corax/output.h"
+#include "io/outputs.h"
 
 enum { OUT_BUFFER = 1 << 18 };
 
@@ -20,8 +21,8 @@ struct corax_writer {
     int fd;         /* -1 for a memory writer */
     int memory;     /* output stays in buf, which grows */
     size_t cap;
-    char *path;     /* real name, NULL for standard output */
-    char *tmp;      /* temporary name */
+    corax_outputs *set; /* holds the file when committed, or NULL */
+    corax_target target; /* where a file or stream goes */
     char *buf;
     size_t used;
     int failed;     /* errno of the first failed write, 0 if none */
@@ -29,65 +30,50 @@ struct corax_writer {
     char delimiter, decimal; /* ',' and '.' unless set */
 };
 
-static unsigned long tmp_counter;
-
-static char *temp_name(const char *path)
+static corax_writer *writer_new(size_t cap)
 {
-    const char *slash = strrchr(path, '/');
-    size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
-    const char *base = path + dirlen;
-    size_t n = strlen(path) + 64;
-    char *t = malloc(n);
-    if (t)
-        snprintf(t, n, "%.*s.%s.%ld.%lu.part", (int)dirlen, path, base, (long)getpid(),
-                 tmp_counter++);
-    return t;
-}
-
-corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err)
-{
-    *out = NULL;
     corax_writer *w = calloc(1, sizeof *w);
     if (!w)
-        return CORAX_ENOMEM;
-    w->fd = -1;
-    w->cap = OUT_BUFFER;
-    w->buf = malloc(w->cap);
+        return NULL;
+    w->fd = w->target.fd = -1;
+    w->cap = cap;
     w->row_start = 1;
     w->delimiter = ',';
     w->decimal = '.';
-    if (!w->buf)
-        goto nomem;
+    if (!(w->buf = malloc(cap))) {
+        free(w);
+        return NULL;
+    }
+    return w;
+}
+
+corax_status corax_writer_open_in(corax_outputs *set, const char *path, corax_writer **out,
+                                  corax_error *err)
+{
+    *out = NULL;
+    corax_writer *w = writer_new(OUT_BUFFER);
+    if (!w)
+        return CORAX_ENOMEM;
     if (strcmp(path, "-") == 0) {
         w->fd = STDOUT_FILENO;
         *out = w;
         return CORAX_OK;
     }
-    w->path = strdup(path);
-    if (!w->path)
-        goto nomem;
-    for (int tries = 0; tries < 100; tries++) {
-        free(w->tmp);
-        w->tmp = temp_name(path);
-        if (!w->tmp)
-            goto nomem;
-        w->fd = open(w->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
-        if (w->fd >= 0 || errno != EEXIST)
-            break;
+    corax_status st = corax_target_open(set, path, &w->target, err);
+    if (st != CORAX_OK) {
+        free(w->buf);
+        free(w);
+        return st;
     }
-    if (w->fd < 0) {
-        int e = errno;
-        corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
-        free(w->tmp);
-        w->tmp = NULL;
-        corax_writer_discard(w);
-        return CORAX_EIO;
-    }
+    w->set = set;
+    w->fd = w->target.fd;
     *out = w;
     return CORAX_OK;
-nomem:
-    corax_writer_discard(w);
-    return CORAX_ENOMEM;
+}
+
+corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err)
+{
+    return corax_writer_open_in(NULL, path, out, err);
 }
 
 static void write_all(corax_writer *w, const char *p, size_t n)
@@ -162,20 +148,10 @@ void corax_writer_text(corax_writer *w, const char *text, size_t n)
 
 corax_status corax_writer_memory(corax_writer **out)
 {
-    corax_writer *w = calloc(1, sizeof *w);
+    corax_writer *w = writer_new(1 << 16);
     if (!w)
         return CORAX_ENOMEM;
-    w->fd = -1;
     w->memory = 1;
-    w->row_start = 1;
-    w->delimiter = ',';
-    w->decimal = '.';
-    w->cap = 1 << 16;
-    w->buf = malloc(w->cap);
-    if (!w->buf) {
-        free(w);
-        return CORAX_ENOMEM;
-    }
     *out = w;
     return CORAX_OK;
 }
@@ -359,39 +335,26 @@ void corax_writer_end_row(corax_writer *w)
 
 corax_status corax_writer_commit(corax_writer *w, corax_error *err)
 {
-    if (!w->memory)
+    corax_status st = CORAX_OK;
+    if (!w->memory) {
         flush(w);
-    const char *name = w->path ? w->path : "standard output";
-    if (w->path) {
-        if (!w->failed && fsync(w->fd) != 0)
-            w->failed = errno;
-        if (close(w->fd) != 0 && !w->failed)
-            w->failed = errno;
-        w->fd = -1;
-        if (!w->failed && rename(w->tmp, w->path) != 0)
-            w->failed = errno;
-        if (!w->failed) {
-            free(w->tmp); /* renamed: nothing left to remove */
-            w->tmp = NULL;
-        }
+        if (w->fd == STDOUT_FILENO && w->failed) /* standard output: nothing to remove */
+            st = corax_error_set(err, CORAX_EIO, "standard output", 0, "cannot write: %s",
+                                 strerror(w->failed));
+        else if (w->fd != STDOUT_FILENO)
+            st = corax_target_close(w->set, &w->target, w->failed, err);
     }
-    int failed = w->failed;
-    corax_writer_discard(w);
-    if (failed)
-        return corax_error_set(err, CORAX_EIO, name, 0, "cannot write: %s", strerror(failed));
-    return CORAX_OK;
+    free(w->buf);
+    free(w);
+    return st;
 }
 
 void corax_writer_discard(corax_writer *w)
 {
     if (!w)
         return;
-    if (w->path && w->fd >= 0)
-        close(w->fd);
-    if (w->tmp)
-        unlink(w->tmp);
-    free(w->tmp);
-    free(w->path);
+    if (!w->memory && w->fd != STDOUT_FILENO)
+        corax_target_discard(w->set, &w->target);
     free(w->buf);
     free(w);
 }

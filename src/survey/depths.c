@@ -23,7 +23,7 @@ corax_status corax_hole_depths(const corax_hole *h, double step, corax_hole_dept
     size_t ns = corax_hole_station_count(h);
     double length = corax_hole_length(h);
     double nsteps = step > 0.0 ? floor(length / step) + 1.0 : 0.0;
-    if (nsteps > 1e9) /* a billion points down one hole is a mistake, not a plot */
+    if (nsteps > CORAX_MAX_HOLE_POINTS)
         return CORAX_EARG;
     size_t cap = (size_t)nsteps + ns + 2, k = 0;
     corax_hole_depth *p = malloc(cap * sizeof *p);

@@ -1,0 +1,308 @@
+/* io: where output files go. A regular file is written under a temporary name
+ * in its own folder and renamed over its target only when whole, keeping the
+ * target's mode and writing through a symlink to the file it names; a
+ * device, a pipe or standard output is written straight, and its write
+ * errors (a full disk) are reported. The files of one run can be held and
+ * made public together, and their temporaries removed when the run is
+ * stopped by a signal. */
+#define _XOPEN_SOURCE 700 /* realpath */
+#include <errno.h>
+#include <fcntl.h>
+#include <limits.h>
+#include <signal.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "io/outputs.h"
+
+enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
+
+typedef struct held {
+    char *path, *final, *tmp;
+} held;
+
+struct corax_outputs {
+    /* every temporary alive, for the signal handler: it reads only these
+     * pointers and the count, and calls only unlink */
+    char *temp[MAX_FILES];
+    volatile sig_atomic_t ntemp;
+    held pending[MAX_FILES]; /* closed, waiting to be published */
+    size_t npending;
+};
+
+corax_outputs *corax_outputs_new(void) { return calloc(1, sizeof(corax_outputs)); }
+
+static void forget_temp(corax_outputs *set, const char *tmp)
+{
+    if (!set || !tmp)
+        return;
+    for (sig_atomic_t i = 0; i < set->ntemp; i++)
+        if (set->temp[i] == tmp) {
+            set->temp[i] = set->temp[set->ntemp - 1];
+            set->ntemp--;
+            return;
+        }
+}
+
+static void free_held(held *h)
+{
+    free(h->path);
+    free(h->final);
+    free(h->tmp);
+}
+
+void corax_outputs_discard(corax_outputs *set)
+{
+    if (!set)
+        return;
+    for (size_t i = 0; i < set->npending; i++) {
+        forget_temp(set, set->pending[i].tmp);
+        unlink(set->pending[i].tmp);
+        free_held(&set->pending[i]);
+    }
+    set->npending = 0;
+}
+
+void corax_outputs_free(corax_outputs *set)
+{
+    corax_outputs_discard(set);
+    free(set);
+}
+
+void corax_outputs_remove_temporaries(const corax_outputs *set)
+{
+    if (!set)
+        return;
+    for (sig_atomic_t i = 0; i < set->ntemp; i++)
+        if (set->temp[i])
+            unlink(set->temp[i]);
+}
+
+corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
+{
+    corax_status st = CORAX_OK;
+    size_t i = 0;
+    for (; i < set->npending; i++) {
+        held *h = &set->pending[i];
+        if (rename(h->tmp, h->final) != 0) {
+            st = corax_error_set(err, CORAX_EIO, h->path, 0, "cannot write: %s",
+                                 strerror(errno));
+            break;
+        }
+        forget_temp(set, h->tmp);
+        free_held(h);
+    }
+    /* a rename that failed leaves the rest unpublished: remove them */
+    memmove(set->pending, set->pending + i, (set->npending - i) * sizeof *set->pending);
+    set->npending -= i;
+    corax_outputs_discard(set);
+    return st;
+}
+
+size_t corax_outputs_pending(const corax_outputs *set) { return set ? set->npending : 0; }
+
+/* ---- one target ---- */
+
+/* A file under /dev or /proc (a device, or a process's descriptor such as
+ * /dev/stdout) is never replaced, only written. */
+static int system_file(const char *resolved)
+{
+    return strncmp(resolved, "/dev/", 5) == 0 || strncmp(resolved, "/proc/", 6) == 0;
+}
+
+/* The descriptor a path names (/dev/stdout, /dev/stderr, /dev/fd/N,
+ * /proc/self/fd/N), or -1. Opening such a path anew would start at its
+ * beginning, or replace the file behind it; the descriptor is written as it
+ * stands. */
+static int descriptor_named(const char *path)
+{
+    if (strcmp(path, "/dev/stdout") == 0)
+        return STDOUT_FILENO;
+    if (strcmp(path, "/dev/stderr") == 0)
+        return STDERR_FILENO;
+    const char *digits = strncmp(path, "/dev/fd/", 8) == 0          ? path + 8
+                         : strncmp(path, "/proc/self/fd/", 14) == 0 ? path + 14
+                                                                     : NULL;
+    if (!digits || !*digits)
+        return -1;
+    char *end;
+    long n = strtol(digits, &end, 10);
+    return *end || n < 0 || n > INT_MAX ? -1 : (int)n;
+}
+
+static char *temp_name(const char *final, unsigned tries, const void *salt)
+{
+    const char *slash = strrchr(final, '/');
+    size_t dirlen = slash ? (size_t)(slash - final + 1) : 0;
+    size_t n = strlen(final) + 80;
+    char *t = malloc(n);
+    if (t)
+        snprintf(t, n, "%.*s.%s.%ld.%lx.%u.part", (int)dirlen, final, final + dirlen,
+                 (long)getpid(), (unsigned long)(uintptr_t)salt, tries);
+    return t;
+}
+
+static corax_status fail_open(corax_target *t, const char *path, int e, const char *why,
+                              corax_error *err)
+{
+    free(t->path);
+    free(t->final);
+    free(t->tmp);
+    memset(t, 0, sizeof *t);
+    t->fd = -1;
+    if (why)
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", why);
+    return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
+}
+
+corax_status corax_target_open(corax_outputs *set, const char *path, corax_target *t,
+                               corax_error *err)
+{
+    memset(t, 0, sizeof *t);
+    t->fd = -1;
+    if (!path[0])
+        return fail_open(t, path, 0, "the file name is empty", err);
+    if (!(t->path = strdup(path)))
+        return CORAX_ENOMEM;
+    int fd = descriptor_named(path);
+    if (fd >= 0) { /* /dev/stdout and the like: the descriptor itself, where it stands */
+        t->fd = dup(fd);
+        return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
+    }
+    struct stat st;
+    int exists = stat(path, &st) == 0; /* follows symlinks: the file they name */
+    char resolved[PATH_MAX];
+    if (exists && !realpath(path, resolved))
+        return fail_open(t, path, errno, NULL, err);
+    if (exists && S_ISDIR(st.st_mode))
+        return fail_open(t, path, 0, "it is a folder", err);
+    if (exists && (!S_ISREG(st.st_mode) || system_file(resolved))) {
+        /* a device, a pipe, a socket: written straight */
+        t->fd = open(path, O_WRONLY | O_CLOEXEC | O_NOCTTY | (S_ISREG(st.st_mode) ? O_TRUNC : 0));
+        return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
+    }
+    if (set && set->ntemp == MAX_FILES)
+        return fail_open(t, path, 0, "too many output files in one run", err);
+    if (!(t->final = strdup(exists ? resolved : path)))
+        return fail_open(t, path, ENOMEM, NULL, err);
+    for (unsigned tries = 0; tries < 100; tries++) {
+        free(t->tmp);
+        if (!(t->tmp = temp_name(t->final, tries, t)))
+            return fail_open(t, path, ENOMEM, NULL, err);
+        t->fd = open(t->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
+        if (t->fd >= 0 || errno != EEXIST)
+            break;
+    }
+    if (t->fd < 0)
+        return fail_open(t, path, errno, NULL, err);
+    if (exists && fchmod(t->fd, st.st_mode & 07777) != 0) { /* the target's mode stays */
+        int e = errno;
+        close(t->fd);
+        unlink(t->tmp);
+        return fail_open(t, path, e, NULL, err);
+    }
+    if (set)
+        set->temp[set->ntemp++] = t->tmp;
+    return CORAX_OK;
+}
+
+corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
+                                corax_error *err)
+{
+    if (t->tmp && !failed && fsync(t->fd) != 0)
+        failed = errno;
+    if (t->fd >= 0 && t->fd != STDOUT_FILENO && close(t->fd) != 0 && !failed)
+        failed = errno;
+    t->fd = -1;
+    if (!failed && t->tmp && set) { /* held until the run publishes it */
+        if (set->npending == MAX_FILES) {
+            failed = EMFILE;
+        } else {
+            set->pending[set->npending++] = (held){t->path, t->final, t->tmp};
+            memset(t, 0, sizeof *t);
+            t->fd = -1;
+            return CORAX_OK;
+        }
+    }
+    if (!failed && t->tmp && rename(t->tmp, t->final) != 0)
+        failed = errno;
+    if (failed && t->tmp)
+        unlink(t->tmp);
+    forget_temp(set, t->tmp);
+    corax_status st = CORAX_OK;
+    if (failed) /* the message is made before the path is freed */
+        st = corax_error_set(err, CORAX_EIO, t->path ? t->path : "standard output", 0,
+                             "cannot write: %s", strerror(failed));
+    free(t->path);
+    free(t->final);
+    free(t->tmp);
+    memset(t, 0, sizeof *t);
+    t->fd = -1;
+    return st;
+}
+
+void corax_target_discard(corax_outputs *set, corax_target *t)
+{
+    if (t->fd >= 0 && t->fd != STDOUT_FILENO)
+        close(t->fd);
+    if (t->tmp)
+        unlink(t->tmp);
+    forget_temp(set, t->tmp);
+    free(t->path);
+    free(t->final);
+    free(t->tmp);
+    memset(t, 0, sizeof *t);
+    t->fd = -1;
+}
+
+/* A path's folder, resolved, and its last name: "/real/folder/name". */
+static char *canonical(const char *path)
+{
+    char resolved[PATH_MAX];
+    if (realpath(path, resolved))
+        return strdup(resolved);
+    const char *slash = strrchr(path, '/');
+    char dir[PATH_MAX];
+    snprintf(dir, sizeof dir, "%.*s", slash ? (int)(slash - path) + (slash == path) : 1,
+             slash ? path : ".");
+    if (!realpath(dir, resolved))
+        return NULL;
+    const char *base = slash ? slash + 1 : path;
+    size_t n = strlen(resolved) + strlen(base) + 2;
+    char *out = malloc(n);
+    if (out)
+        snprintf(out, n, "%s/%s", strcmp(resolved, "/") ? resolved : "", base);
+    return out;
+}
+
+int corax_path_same(const char *a, const char *b)
+{
+    if (strcmp(a, "-") == 0 || strcmp(b, "-") == 0)
+        return 0;
+    struct stat sa, sb;
+    int ea = stat(a, &sa) == 0, eb = stat(b, &sb) == 0;
+    if (ea && eb) /* a device may take many writers (/dev/null twice is fine) */
+        return sa.st_dev == sb.st_dev && sa.st_ino == sb.st_ino && !S_ISCHR(sa.st_mode);
+    if (ea != eb)
+        return 0;
+    char *ca = canonical(a), *cb = canonical(b); /* neither exists yet */
+    int same = ca && cb && strcmp(ca, cb) == 0;
+    free(ca);
+    free(cb);
+    return same;
+}
+
+int corax_path_replaceable(const char *path)
+{
+    if (strcmp(path, "-") == 0 || descriptor_named(path) >= 0 || system_file(path))
+        return 0;
+    struct stat st;
+    char resolved[PATH_MAX];
+    if (stat(path, &st) != 0)
+        return 1; /* a new file */
+    return S_ISREG(st.st_mode) && realpath(path, resolved) && !system_file(resolved);
+}
