@@ -81,9 +81,10 @@ corax_status corax_export_extra_read(const corax_row *row, const corax_export_co
 extern const char *const corax_export_csv_columns[9];
 enum { CORAX_EXPORT_CSV_COLUMNS = 9 };
 
-/* Write those fields for a located, oriented structure: coordinates to the
+/* Write those fields for a located structure: coordinates to the
  * millimetre, dip and dip direction (degrees) to 0.01, the upward unit
- * normal to 1e-6, and polarity 1 (upright), -1 (overturned) or empty. */
+ * normal to 1e-6 (all five empty for a line without a plane), and polarity
+ * 1 (upright), -1 (overturned) or empty. */
 void corax_export_csv_fields(corax_writer *w, const corax_structure *s);
 
 /* With lineations: lx, ly, lz, the unit vector of the line (down-plunge). */

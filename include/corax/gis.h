@@ -102,7 +102,8 @@ void corax_gis_text(corax_gis *g, size_t field, const char *text, size_t length)
 void corax_gis_point(corax_gis *g, corax_vec3 p);
 void corax_gis_line(corax_gis *g, const corax_vec3 *p, const double *m, size_t n);
 
-/* Write the current feature. CORAX_EIO (err gives OGR's message). */
+/* Write the current feature (in CAD, one without geometry is left out: it
+ * has nothing to draw). CORAX_EIO (err gives OGR's message). */
 corax_status corax_gis_write(corax_gis *g, corax_error *err);
 
 /* Close the file and move it into place under its real name. CORAX_EIO when

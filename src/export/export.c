@@ -18,11 +18,16 @@ void corax_export_csv_fields(corax_writer *w, const corax_structure *s)
     corax_writer_number(w, s->position.x, 3);
     corax_writer_number(w, s->position.y, 3);
     corax_writer_number(w, s->position.z, 3);
-    corax_writer_number(w, corax_deg(s->plane.dip), 2);
-    corax_writer_azimuth(w, corax_deg(s->plane.dip_direction), 2);
-    corax_writer_number(w, n.x, 6);
-    corax_writer_number(w, n.y, 6);
-    corax_writer_number(w, n.z, 6);
+    if (s->oriented) {
+        corax_writer_number(w, corax_deg(s->plane.dip), 2);
+        corax_writer_azimuth(w, corax_deg(s->plane.dip_direction), 2);
+        corax_writer_number(w, n.x, 6);
+        corax_writer_number(w, n.y, 6);
+        corax_writer_number(w, n.z, 6);
+    } else { /* a line alone: no plane */
+        for (int i = 0; i < 5; i++)
+            corax_writer_field(w, "", 0);
+    }
     if (s->polarity)
         corax_writer_integer(w, s->polarity);
     else

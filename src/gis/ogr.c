@@ -423,6 +423,11 @@ corax_status corax_gis_write(corax_gis *g, corax_error *err)
 {
     if (!g->feature)
         return corax_error_set(err, CORAX_EARG, g->path, 0, "no feature begun");
+    if (g->cad && !OGR_F_GetGeometryRef(g->feature)) { /* nothing to draw */
+        OGR_F_Destroy(g->feature);
+        g->feature = NULL;
+        return CORAX_OK;
+    }
     quiet_begin();
     OGRErr e = OGR_L_CreateFeature(g->layer[g->current].layer, g->feature);
     corax_status st = e == OGRERR_NONE
