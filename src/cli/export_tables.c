@@ -197,7 +197,8 @@ static corax_status make_layer(export_sink *k, const scan *s, corax_gis_shape sh
         if (s->kept[i])
             f[n++] = (corax_gis_field){s->name[i], s->numeric[i] ? CORAX_GIS_REAL
                                                                  : CORAX_GIS_TEXT};
-    memcpy(f + n, ours, nours * sizeof *ours);
+    if (nours)
+        memcpy(f + n, ours, nours * sizeof *ours);
     corax_status st = corax_gis_layer(k->g, k->layer, shape, 0, f, n + nours, layer, err);
     free(f);
     return st;
