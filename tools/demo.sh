@@ -4,7 +4,7 @@
 set -eu
 : "${CORAX:?}"
 cd "$(dirname "$0")/.."
-OUT=demo-output
+OUT=${DEMO_OUT:-demo-output} # the tests write it elsewhere
 mkdir -p "$OUT"
 # The demo surveys are magnetic; the local grid is 0.8 degrees east of true north
 # and the declination 6.2 degrees east (both invented for the demo). The project
