@@ -157,18 +157,26 @@ static int export_option(void *ctx, int opt, const char *arg, char *why, size_t 
     return -1;
 }
 
+int export_list_next(const char **p, const char **item, size_t *len)
+{
+    if (!*p || !**p)
+        return 0;
+    const char *end = strchr(*p, ',');
+    *item = *p;
+    *len = end ? (size_t)(end - *p) : strlen(*p);
+    *p += *len + (end != NULL);
+    return 1;
+}
+
 int export_wants(const export_opts *o, const char *layer)
 {
     if (!o->layers)
         return 1;
-    size_t n = strlen(layer);
-    for (const char *p = o->layers; *p;) {
-        const char *end = strchr(p, ',');
-        size_t len = end ? (size_t)(end - p) : strlen(p);
-        if (len == n && strncasecmp(p, layer, n) == 0)
+    size_t n = strlen(layer), len;
+    const char *item, *p = o->layers;
+    while (export_list_next(&p, &item, &len))
+        if (len == n && strncasecmp(item, layer, n) == 0)
             return 1;
-        p += len + (end != NULL);
-    }
     return 0;
 }
 

@@ -45,6 +45,10 @@ typedef struct export_opts {
 #define LAYER_FINDINGS "findings"
 #define LAYER_CONTACTS "contacts"
 
+/* The next item of a comma-separated list at *p: 1 with *item and *len
+ * set and *p moved past it, 0 at the end. */
+int export_list_next(const char **p, const char **item, size_t *len);
+
 /* Whether --layers asks for a layer (always, without --layers). */
 int export_wants(const export_opts *o, const char *layer);
 

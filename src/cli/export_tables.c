@@ -621,20 +621,18 @@ static int contact_reading(void *ctx, int table, const corax_row *row, const cor
 
 static int contact_kinds(contact_data *d)
 {
-    const char *list = d->o->contact_kinds ? d->o->contact_kinds : "contact";
-    for (const char *p = list; *p;) {
-        const char *end = strchr(p, ',');
-        size_t len = end ? (size_t)(end - p) : strlen(p);
+    const char *p = d->o->contact_kinds ? d->o->contact_kinds : "contact", *item;
+    size_t len;
+    while (export_list_next(&p, &item, &len)) {
         int *w = realloc(d->wanted, (d->nwanted + 1) * sizeof *w);
-        int code = corax_kinds_code(d->kinds, p, len);
+        int code = corax_kinds_code(d->kinds, item, len);
+        if (w)
+            d->wanted = w;
         if (!w || code < 0) {
-            free(w == d->wanted ? NULL : w);
             cli_error(NULL, 0, "out of memory");
             return EXIT_DATA;
         }
-        d->wanted = w;
         d->wanted[d->nwanted++] = code;
-        p += len + (end != NULL);
     }
     return EXIT_OK;
 }
@@ -647,19 +645,18 @@ static int *age_ranks(contact_data *d, cli_about *a)
         return NULL;
     for (size_t i = 0; i < d->u.n; i++)
         rank[i] = -1;
-    const char *p = d->o->youngest_first;
-    for (int order = 0; p && *p; order++) {
-        const char *end = strchr(p, ',');
-        size_t len = end ? (size_t)(end - p) : strlen(p);
+    const char *p = d->o->youngest_first, *item;
+    size_t len;
+    for (int order = 0; export_list_next(&p, &item, &len); order++) {
         int found = 0;
         for (size_t i = 0; i < d->u.n; i++)
-            if (strlen(d->u.name[i]) == len && strncasecmp(d->u.name[i], p, len) == 0) {
+            if (strlen(d->u.name[i]) == len && strncasecmp(d->u.name[i], item, len) == 0) {
                 rank[i] = order;
                 found = 1;
             }
         if (!found)
-            cli_note(&d->o->c, "--youngest-first: no interval has the unit '%.*s'", (int)len, p);
-        p += len + (end != NULL);
+            cli_note(&d->o->c, "--youngest-first: no interval has the unit '%.*s'", (int)len,
+                     item);
     }
     if (d->o->youngest_first)
         cli_about_set(a, "youngest_first", "%s", d->o->youngest_first);
