@@ -23,7 +23,8 @@ static const char export_help[] =
     "                        --contacts\n"
     "  --format vtk          legacy VTK: traces, structures as discs or points, cell\n"
     "                        data kind, dip, dip_direction, polarity, hole, lineation\n"
-    "                        (vector), trend, plunge, the Monte Carlo columns (-1: none)\n"
+    "                        (vector), trend, plunge, the Monte Carlo columns (-1: none);\n"
+    "                        or, with --intervals, the intervals as lines\n"
     "  --format gpkg|geojson|dxf|shp|DRIVER\n"
     "                        through GDAL: layers structures (3-D points, every\n"
     "                        attribute), traces (3-D lines, depth as measure), collars,\n"
@@ -204,9 +205,14 @@ static int parse_csv(export_opts *o)
 
 static int parse_vtk(export_opts *o)
 {
-    if (o->findings || o->layers || o->nintervals || o->contacts)
-        return cli_usage("export", "--findings, --layers, --intervals and --contacts are for "
-                                   "csv and the GIS formats (gpkg, geojson, dxf, shp, ...)");
+    if (o->findings || o->layers || o->contacts)
+        return cli_usage("export", "--findings, --layers and --contacts are for csv and the "
+                                   "GIS formats (gpkg, geojson, dxf, shp, ...)");
+    if (o->nintervals > 1 || (o->nintervals && o->ninputs))
+        return cli_usage("export", "--intervals with --format vtk writes one interval table "
+                                   "alone: leave out the converted tables");
+    if (o->nintervals)
+        return cli_common_finish(&o->c, 1);
     if (o->radius_given && o->vtk.shape == CORAX_EXPORT_POINTS)
         return cli_usage("export", "--radius is for --shape discs");
     if (!o->vtk.traces && o->ninputs == 0)
@@ -567,6 +573,7 @@ static int run(const export_opts *o, const corax_program *prog)
         return EXIT_DATA;
     }
     int structures = o->format != FORMAT_GIS && !o->nintervals && !o->contacts;
+    int vtk_intervals = o->format == FORMAT_VTK && o->nintervals;
     cli_about_section(a, "export");
     cli_about_set(a, "format", "%s", o->format_name);
     cli_about_set(a, "crs", "%s", o->crs ? o->crs : "none given");
@@ -574,6 +581,8 @@ static int run(const export_opts *o, const corax_program *prog)
         rc = export_gis(o, prog, a);
     else if (o->format == FORMAT_CSV)
         rc = export_csv_table(o, prog, a, &written, &left_out);
+    else if (vtk_intervals)
+        rc = export_intervals_vtk(o, prog, a);
     else
         rc = export_vtk(o, prog, kinds, &written, &left_out);
     if (rc == EXIT_OK && structures) {

@@ -83,6 +83,9 @@ typedef struct export_sink {
 
 int export_intervals(const export_opts *o, const corax_program *prog, const export_table *t,
                      export_sink *sink);
+/* The intervals of the first --intervals table as legacy VTK lines (from,
+ * middle, to) with their columns as cell data. */
+int export_intervals_vtk(const export_opts *o, const corax_program *prog, cli_about *a);
 int export_findings(const export_opts *o, const corax_program *prog, export_sink *sink);
 int export_contacts(const export_opts *o, const corax_program *prog, export_sink *sink,
                     cli_about *about);

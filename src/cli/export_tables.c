@@ -799,3 +799,243 @@ int export_contacts(const export_opts *o, const corax_program *prog, export_sink
     corax_kinds_free(d.kinds);
     return rc;
 }
+
+/* ---- intervals as legacy VTK ---- */
+
+/* Legacy VTK announces each block's size and takes arrays one at a time, so
+ * the table is read once per block: memory stays flat. Text columns become
+ * integer codes (listed in the .about file) when they hold at most
+ * MAX_CODES distinct values, and are left out otherwise. */
+enum { MAX_CODES = 64 };
+
+typedef struct vtk_intervals {
+    const export_opts *o;
+    const corax_program *prog;
+    scan *s;
+    corax_vtk *v;
+    long column;              /* the column of the current array */
+    char **code[64];          /* per text column (index < 64): its values */
+    size_t ncode[64];
+    unsigned char coded[64];  /* 1: coded; 0: left out (too many values) */
+    size_t placed;
+} vtk_intervals;
+
+typedef void (*placed_fn)(vtk_intervals *vi, const corax_row *row,
+                          const corax_interval_points *p);
+
+static int each_placed(vtk_intervals *vi, placed_fn fn)
+{
+    corax_reader *r = NULL;
+    corax_row row;
+    corax_error err;
+    corax_error_clear(&err);
+    int rc = open_table(vi->o, vi->s->path, interval_names, 3, &r, vi->s, &row);
+    corax_status st = CORAX_OK;
+    while (rc == EXIT_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
+        corax_interval_points pts;
+        const char *status;
+        char note[160];
+        if (place_interval(vi->o, vi->prog, vi->s, &row, &pts, &status, note, sizeof note))
+            fn(vi, &row, &pts);
+    }
+    if (rc == EXIT_OK && st != CORAX_END)
+        rc = sink_status(st, &err);
+    corax_reader_close(r);
+    return rc;
+}
+
+static int own_column(const scan *s, size_t i)
+{
+    return !s->kept[i] || (long)i == s->col[T_HOLE] || (long)i == s->col[T_FROM] ||
+           (long)i == s->col[T_TO] || i >= 64;
+}
+
+static void count_placed(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)p;
+    vi->placed++;
+    for (size_t i = 0; i < vi->s->width; i++) {
+        if (own_column(vi->s, i) || vi->s->numeric[i] || !vi->coded[i])
+            continue;
+        size_t n;
+        const char *t = corax_field_text(row, (long)i, &n);
+        int known = n == 0;
+        for (size_t k = 0; !known && k < vi->ncode[i]; k++)
+            known = strlen(vi->code[i][k]) == n && memcmp(vi->code[i][k], t, n) == 0;
+        if (known)
+            continue;
+        char **grown = vi->ncode[i] < MAX_CODES
+                           ? realloc(vi->code[i], (vi->ncode[i] + 1) * sizeof *grown)
+                           : NULL;
+        if (grown)
+            vi->code[i] = grown;
+        if (!grown || !(vi->code[i][vi->ncode[i]] = strndup(t, n)))
+            vi->coded[i] = 0; /* too many values (or no memory): left out */
+        else
+            vi->ncode[i]++;
+    }
+}
+
+static void put_points(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)row;
+    corax_vtk_point(vi->v, p->from.position);
+    corax_vtk_point(vi->v, p->mid.position);
+    corax_vtk_point(vi->v, p->to.position);
+}
+
+static void put_depths(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)p;
+    corax_number_status a, b;
+    double from = number_or_nan(vi->o, row, vi->s->col[T_FROM], &a);
+    double to = number_or_nan(vi->o, row, vi->s->col[T_TO], &b);
+    corax_vtk_double(vi->v, from);
+    corax_vtk_double(vi->v, 0.5 * (from + to));
+    corax_vtk_double(vi->v, to);
+}
+
+static void put_hole(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)p;
+    size_t n;
+    const char *t = corax_field_text(row, vi->s->col[T_HOLE], &n);
+    corax_vtk_int(vi->v, corax_program_index(vi->prog, t, n) + 1);
+}
+
+static void put_direction(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)row;
+    double az, plunge;
+    corax_direction_angles(p->mid.tangent, &az, &plunge);
+    corax_vtk_double(vi->v, vi->column == 0 ? corax_wrap_degrees(corax_deg(az), 6)
+                                            : corax_plunge_to_dip(plunge,
+                                                                  vi->o->c.load.dip_convention));
+}
+
+static void put_column(vtk_intervals *vi, const corax_row *row, const corax_interval_points *p)
+{
+    (void)p;
+    size_t i = (size_t)vi->column, n;
+    if (vi->s->numeric[i]) {
+        corax_number_status st;
+        double v = number_or_nan(vi->o, row, vi->column, &st);
+        corax_vtk_double(vi->v, isnan(v) ? -1.0 : v);
+        return;
+    }
+    const char *t = corax_field_text(row, vi->column, &n);
+    long code = -1;
+    for (size_t k = 0; n && k < vi->ncode[i]; k++)
+        if (strlen(vi->code[i][k]) == n && memcmp(vi->code[i][k], t, n) == 0)
+            code = (long)k;
+    corax_vtk_int(vi->v, code);
+}
+
+static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
+{
+    corax_vtk *v = vi->v;
+    size_t n = vi->placed;
+    int rc;
+    corax_vtk_points(v, 3 * n);
+    if ((rc = each_placed(vi, put_points)) != EXIT_OK)
+        return rc;
+    corax_vtk_cells(v, "LINES", n, 3 * n);
+    for (size_t i = 0; i < n; i++) {
+        corax_vtk_cell(v, 3);
+        for (size_t k = 0; k < 3; k++)
+            corax_vtk_index(v, 3 * i + k);
+    }
+    corax_vtk_point_data(v, 3 * n);
+    corax_vtk_scalars(v, "depth", CORAX_VTK_DOUBLE);
+    if ((rc = each_placed(vi, put_depths)) != EXIT_OK)
+        return rc;
+    corax_vtk_cell_data(v, n);
+    corax_vtk_scalars(v, "hole", CORAX_VTK_INT);
+    if ((rc = each_placed(vi, put_hole)) != EXIT_OK)
+        return rc;
+    corax_vtk_field(v, "attributes", narrays);
+    static const char *const direction[] = {"mid_azimuth", "mid_dip"};
+    for (vi->column = 0; vi->column < 2; vi->column++) {
+        corax_vtk_array(v, direction[vi->column], 1, CORAX_VTK_DOUBLE);
+        if ((rc = each_placed(vi, put_direction)) != EXIT_OK)
+            return rc;
+    }
+    for (size_t i = 0; i < vi->s->width; i++) {
+        if (own_column(vi->s, i) || (!vi->s->numeric[i] && !vi->coded[i]))
+            continue;
+        vi->column = (long)i;
+        corax_vtk_array(v, vi->s->name[i], 1,
+                        vi->s->numeric[i] ? CORAX_VTK_DOUBLE : CORAX_VTK_INT);
+        if ((rc = each_placed(vi, put_column)) != EXIT_OK)
+            return rc;
+    }
+    return EXIT_OK;
+}
+
+static void about_codes(const vtk_intervals *vi, cli_about *a)
+{
+    cli_about_section(a, "codes");
+    for (size_t i = 0; i < vi->s->width; i++) {
+        if (own_column(vi->s, i) || vi->s->numeric[i])
+            continue;
+        if (!vi->coded[i]) {
+            cli_about_set(a, vi->s->name[i], "left out: more than %d values", MAX_CODES);
+            continue;
+        }
+        for (size_t k = 0; k < vi->ncode[i]; k++) {
+            char key[160];
+            snprintf(key, sizeof key, "%s.%zu", vi->s->name[i], k);
+            cli_about_set(a, key, "%s", vi->code[i][k]);
+        }
+    }
+}
+
+int export_intervals_vtk(const export_opts *o, const corax_program *prog, cli_about *a)
+{
+    scan s;
+    vtk_intervals vi;
+    memset(&vi, 0, sizeof vi);
+    memset(vi.coded, 1, sizeof vi.coded);
+    vi.o = o;
+    vi.prog = prog;
+    vi.s = &s;
+    int rc = scan_table(o, prog, o->intervals[0].path, interval_names, 3, NULL, 0, &s);
+    if (rc == EXIT_OK && s.n > 1)
+        qsort(s.iv, s.n, sizeof *s.iv, by_line);
+    if (rc == EXIT_OK)
+        rc = each_placed(&vi, count_placed);
+    size_t narrays = 2;
+    for (size_t i = 0; rc == EXIT_OK && i < s.width; i++)
+        narrays += !own_column(&s, i) && (s.numeric[i] || vi.coded[i]);
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = CORAX_OK;
+    if (rc == EXIT_OK) {
+        char title[200];
+        snprintf(title, sizeof title, "corax %s export: intervals of %s desurveyed; metres, x "
+                 "east, y north, z up", CORAX_VERSION, o->intervals[0].path);
+        st = corax_vtk_open(o->c.output, o->vtk.encoding, title, &vi.v, &err);
+        rc = st == CORAX_OK ? EXIT_OK : sink_status(st, &err);
+    }
+    if (rc == EXIT_OK) {
+        corax_vtk_decimals(vi.v, 6);
+        rc = vtk_interval_blocks(&vi, narrays);
+        if (rc == EXIT_OK)
+            rc = sink_status(corax_vtk_commit(vi.v, &err), &err);
+        else
+            corax_vtk_discard(vi.v);
+    }
+    if (rc == EXIT_OK) {
+        cli_about_section(a, "results");
+        cli_about_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
+        cli_about_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");
+        about_codes(&vi, a);
+    }
+    for (size_t i = 0; i < 64; i++) {
+        for (size_t k = 0; k < vi.ncode[i]; k++)
+            free(vi.code[i][k]);
+        free(vi.code[i]);
+    }
+    scan_free(&s);
+    return rc;
+}

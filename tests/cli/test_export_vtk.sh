@@ -26,6 +26,11 @@ fi
 "$CORAX" export --format vtk $D --step 5 --shape points --binary data/converted.csv -o "$T/points-bin.vtk" 2>/dev/null
 "$CORAX" export --format vtk $D --step 5 --binary -o "$T/traces.vtk"
 "$CORAX" trace $D --step 5 -o "$T/trace.csv"
+# an interval table as lines from, middle, to; and where trace --at puts those depths
+"$CORAX" export --format vtk $D --intervals data/intervals.csv -o "$T/intervals.vtk" 2>/dev/null
+awk -F, 'NR > 1 { printf "%s,%s\n%s,%.10g\n%s,%s\n", $1, $2, $1, ($2 + $3) / 2, $1, $3 }
+         NR == 1 { print "hole,depth" }' data/intervals.csv > "$T/at.csv"
+"$CORAX" trace $D --at "$T/at.csv" -o "$T/at_out.csv"
 # lineations and the Monte Carlo columns: arrays, and arrows 2 m long
 "$CORAX" export --format vtk $D --step 5 --arrows 2 data/converted_lines.csv -o "$T/lines.vtk" 2>/dev/null
 "$CORAX" export --format vtk $D --step 5 --arrows 2 --binary data/converted_lines.csv -o "$T/lines-bin.vtk" 2>/dev/null
@@ -184,6 +189,29 @@ for name in ("lines.vtk", "lines-bin.vtk"):
             check(abs(v[c] - want) < 1e-4, f"{name}: disc {j} {k} {v[c]} want {want}")
     for c in range(len(holes)):
         check(trend[c] == -1 and sd["kappa"][c] == -1, f"{name}: trace {c} has no line or spread")
+
+# intervals: one line of three points per placed interval, at trace --at's points
+at = list(csv.DictReader(open(f"{out}/at_out.csv")))
+ivs = list(csv.DictReader(open("data/intervals.csv")))
+placed = [k for k in range(len(ivs)) if at[3 * k]["status"] in ("ok", "extrapolated", "collar-only", "beyond-end")]
+pd = read("intervals.vtk")
+check(pd.GetNumberOfLines() == len(placed), f"intervals.vtk: {pd.GetNumberOfLines()} lines, want {len(placed)}")
+pts = vtk_to_numpy(pd.GetPoints().GetData())
+depth = array(pd.GetPointData(), "depth")
+cd = pd.GetCellData()
+unit, cu = array(cd, "unit"), array(cd, "cu_pct")
+codes = {}
+for line in open(f"{out}/intervals.vtk.about"):
+    if line.startswith("unit."):
+        k, v = line.split(" = ")
+        codes[int(k[5:])] = v.strip()
+for j, k in enumerate(placed):
+    for i in range(3):
+        for c, name in enumerate("xyz"):
+            check(abs(pts[3 * j + i][c] - float(at[3 * k + i][name])) < 5e-4, f"intervals.vtk: interval {k} point {i} {name}")
+        check(abs(depth[3 * j + i] - float(at[3 * k + i]["depth"])) < 1e-9, f"intervals.vtk: interval {k} depth {i}")
+    check(codes.get(int(unit[j])) == ivs[k]["unit"], f"intervals.vtk: unit of interval {k}")
+    check(abs(cu[j] - (float(ivs[k]["cu_pct"]) if ivs[k]["cu_pct"] else -1)) < 1e-9, f"intervals.vtk: cu_pct of interval {k}")
 
 if failures:
     print("\n".join(failures[:20]))
