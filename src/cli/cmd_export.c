@@ -119,6 +119,12 @@ static int export_option(void *ctx, int opt, const char *arg, char *why, size_t 
     static const char *const shapes[] = {"discs", "points"};
     export_opts *o = ctx;
     int k;
+    const char *table = opt == OPT_INTERVALS && strchr(arg, '=') ? strchr(arg, '=') + 1 : arg;
+    if ((opt == OPT_INTERVALS || opt == OPT_CONTACTS || opt == OPT_FINDINGS) &&
+        strcmp(table, "-") == 0) {
+        snprintf(why, wl, "this table is read twice: give a file, not standard input");
+        return -1;
+    }
     switch (opt) {
     case OPT_FORMAT:
         o->format_name = arg;
