@@ -4,7 +4,7 @@
 CC      ?= cc
 PREFIX  ?= /usr/local
 BUILD   ?= build
-PKGS    := gsl inih
+PKGS    := gsl inih gdal
 TESTPKG := cmocka
 
 WARN    := -Wall -Wextra -Wpedantic -Wshadow -Wstrict-prototypes \
@@ -15,7 +15,9 @@ OPT     ?= -O2 -g
 WERROR  ?=
 SANITIZE ?=
 
-PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
+# -isystem: the libraries' own headers are not ours to warn about (GDAL's
+# enumerators beyond int trip -Wpedantic)
+PKG_CFLAGS := $(patsubst -I%,-isystem %,$(shell pkg-config --cflags $(PKGS) 2>/dev/null))
 PKG_LIBS   := $(shell pkg-config --libs $(PKGS) 2>/dev/null) -lcsv -lm
 TEST_CFLAGS := $(shell pkg-config --cflags $(TESTPKG) 2>/dev/null)
 TEST_LIBS   := $(shell pkg-config --libs $(TESTPKG) 2>/dev/null)

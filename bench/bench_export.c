@@ -78,7 +78,8 @@ int main(void)
         corax_hole_at(corax_program_hole(prog, (size_t)h), depth, NULL, &pt);
         s[i] = (corax_export_structure){pt.position,
                                         {corax_rad(90 * uniform(&seed)), 2 * CORAX_PI * uniform(&seed)},
-                                        depth, (int)(uniform(&seed) * 10) + 1, 0, h};
+                                        depth, (int)(uniform(&seed) * 10) + 1, 0, h, 1, 0,
+                                        {0, 0, 0}, {NAN, NAN, NAN, NAN, NAN}};
     }
     char path[64];
     snprintf(path, sizeof path, "/tmp/corax-bench-%ld.vtk", (long)getpid());

@@ -46,8 +46,8 @@ static void test_vtk_discs_and_traces(void **state)
     (void)state;
     corax_program *prog = one_hole();
     corax_export_structure s[2] = {
-        {{1010, 2001, 280}, {corax_rad(60), corax_rad(225)}, 23.5, 4, -1, 0},
-        {{1030, 1999, 250}, {corax_rad(10), corax_rad(10)}, NAN, 100, 0, -1}};
+        {{1010, 2001, 280}, {corax_rad(60), corax_rad(225)}, 23.5, 4, -1, 0, 1, 0, {0, 0, 0}, {NAN, NAN, NAN, NAN, NAN}},
+        {{1030, 1999, 250}, {corax_rad(10), corax_rad(10)}, NAN, 100, 0, -1, 1, 0, {0, 0, 0}, {NAN, NAN, NAN, NAN, NAN}}};
     corax_export_options o = corax_export_options_default();
     o.step = 10;
     o.disc_radius = 2.5;
@@ -119,7 +119,7 @@ static void test_vtk_points_with_normals(void **state)
 {
     (void)state;
     corax_program *prog = one_hole();
-    corax_export_structure s = {{1010, 2001, 280}, {corax_rad(30), corax_rad(90)}, 5, 1, 1, 0};
+    corax_export_structure s = {{1010, 2001, 280}, {corax_rad(30), corax_rad(90)}, 5, 1, 1, 0, 1, 0, {0, 0, 0}, {NAN, NAN, NAN, NAN, NAN}};
     corax_export_options o = corax_export_options_default();
     o.shape = CORAX_EXPORT_POINTS;
     o.step = 50;
@@ -163,6 +163,7 @@ static void test_csv_fields(void **state)
     assert_int_equal(corax_writer_open(path, &w, NULL), CORAX_OK);
     corax_structure s;
     memset(&s, 0, sizeof s);
+    s.located = s.oriented = 1;
     s.position = (corax_vec3){10.1234, 20, -5};
     s.plane = (corax_plane){corax_rad(90), corax_rad(359.999)};
     s.polarity = -1;
@@ -172,11 +173,19 @@ static void test_csv_fields(void **state)
     s.plane = (corax_plane){0, 0};
     corax_export_csv_fields(w, &s);
     corax_writer_end_row(w);
+    s.oriented = 0; /* a lineation alone: no plane, and its unit vector */
+    corax_export_csv_fields(w, &s);
+    corax_export_extra x = {1, corax_rad(90), corax_rad(30), {0, 0, 0}, {0}, "", 0};
+    x.line = corax_direction(x.trend, x.plunge);
+    corax_export_csv_line(w, &x);
+    corax_writer_end_row(w);
     assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
     char *text = test_read_file(path, NULL);
     /* a vertical plane dipping (almost) north: normal horizontal, north */
     assert_string_equal(text, "10.123,20.000,-5.000,90.00,0.00,-0.000017,1.000000,0.000000,-1\n"
-                              "10.123,20.000,-5.000,0.00,0.00,0.000000,0.000000,1.000000,\n");
+                              "10.123,20.000,-5.000,0.00,0.00,0.000000,0.000000,1.000000,\n"
+                              /* east, 30 below the horizontal: (cos 30, 0, -sin 30) */
+                              "10.123,20.000,-5.000,,,,,,,0.866025,0.000000,-0.500000\n");
     free(text);
     remove(path);
 }

@@ -4,7 +4,7 @@
 set -eu
 : "${CORAX:?}"
 cd "$(dirname "$0")/.."
-OUT=demo-output
+OUT=${DEMO_OUT:-demo-output} # the tests write it elsewhere
 mkdir -p "$OUT"
 # The demo surveys are magnetic; the local grid is 0.8 degrees east of true north
 # and the declination 6.2 degrees east (both invented for the demo). The project
@@ -41,6 +41,21 @@ S="$OUT/structures.csv"
 # The QA of the program: every survey and orientation finding, and the report.
 checked=$("$CORAX" check -p "$PROJECT" -o "$OUT/findings.csv" --report "$OUT/report.html" 2>&1)
 
+# The GIS deliverable: one GeoPackage with layers of structures, hole traces,
+# collars, the QA findings, the lithology log desurveyed, and the contacts
+# between its units, oriented by the bedding measured within 3 m of each (the
+# units youngest first). The same for CAD as DXF, and the intervals as CSV.
+LITH=examples/lithology.csv
+ORDER=sandstone,siltstone,conglomerate,schist
+"$CORAX" export --format gpkg -p "$PROJECT" "$S" --findings "$OUT/findings.csv" \
+    --intervals "$LITH" --contacts "$LITH" --contact-kinds bedding --contact-window 3 \
+    --youngest-first "$ORDER" -o "$OUT/quillon_creek.gpkg" -q
+"$CORAX" export --format dxf -p "$PROJECT" "$S" --intervals "$LITH" \
+    -o "$OUT/quillon_creek.dxf" -q
+"$CORAX" export --format csv -p "$PROJECT" --intervals "$LITH" -o "$OUT/lithology.csv" -q
+"$CORAX" export --format csv -p "$PROJECT" "$S" --contacts "$LITH" --contact-kinds bedding \
+    --contact-window 3 --youngest-first "$ORDER" -o "$OUT/contacts.csv" -q
+
 holes=$(tail -n +2 surveys/collars.csv | wc -l)
 rows=$(tail -n +2 examples/core_log.csv | wc -l)
 echo "corax demo: Quillon Creek, $holes holes, $rows core readings"
@@ -54,6 +69,10 @@ echo "  orientation statistics:  $OUT/net_*_stats.csv"
 echo "  traces for 3-D (VTK):    $OUT/traces.vtk, $OUT/traces-binary.vtk"
 echo "  cross-section:           $OUT/section.svg, $OUT/section.csv"
 echo "  structures for 3-D:      $OUT/structures.vtk, $OUT/structures-model.csv"
+echo "  GIS (GeoPackage, open it): $OUT/quillon_creek.gpkg"
+echo "      layers structures, traces, collars, findings, lithology, contacts"
+echo "  CAD (DXF):               $OUT/quillon_creek.dxf"
+echo "  lithology desurveyed:    $OUT/lithology.csv; contacts: $OUT/contacts.csv"
 echo "  QA findings:             $OUT/findings.csv"
 echo "      ${checked#corax: }"
 echo "  QA report (open it):     $OUT/report.html"

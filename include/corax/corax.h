@@ -11,6 +11,8 @@
 #include "corax/export.h"
 #include "corax/finding.h"
 #include "corax/geometry.h"
+#include "corax/gis.h"
+#include "corax/interval.h"
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/project.h"

@@ -59,6 +59,24 @@ int corax_path_same(const char *a, const char *b);
  * device, a pipe, standard output). */
 int corax_path_replaceable(const char *path);
 
+/* A private folder beside path ("DIR/.NAME.XXXXXX") for a library that
+ * writes a file (and side files) by itself, such as GDAL: *folder gets its
+ * name (free() it). With a set, the set holds the folder: publishing moves
+ * what it holds into place (the file named NAME to path, side files beside
+ * it), discarding or a signal removes it. Without one, the caller places it
+ * with corax_outputs_place_folder(). CORAX_EIO when it cannot be made. */
+corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **folder,
+                                  corax_error *err);
+
+/* Remove a private folder, and from its set (may be NULL): its work is
+ * abandoned. */
+void corax_outputs_drop_folder(corax_outputs *set, const char *folder);
+
+/* Move a private folder's files into place and remove it. CORAX_EIO (err
+ * names path) when a file cannot be moved. */
+corax_status corax_outputs_place_folder(const char *folder, const char *path,
+                                        corax_error *err);
+
 /* corax_writer_open_in() without a set. */
 corax_status corax_writer_open(const char *path, corax_writer **out, corax_error *err);
 

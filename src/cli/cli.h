@@ -342,6 +342,8 @@ void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
     __attribute__((format(printf, 3, 4)));
 /* Write it (when there is somewhere to write) and free it; 0 ok. */
 int cli_about_commit(cli_about *a, const cli_common *c);
+/* Free it unwritten (a failed run); NULL allowed. */
+void cli_about_discard(cli_about *a);
 
 /* Progress of a long run on standard error, with the time left: shown only
  * when standard error is a terminal and the run is not quiet, not before a

@@ -279,6 +279,13 @@ cli_about *cli_about_new(const char *command, const cli_common *c)
     return a;
 }
 
+void cli_about_discard(cli_about *a)
+{
+    if (a)
+        free(a->text);
+    free(a);
+}
+
 int cli_about_commit(cli_about *a, const cli_common *c)
 {
     if (!a)

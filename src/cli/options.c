@@ -244,6 +244,7 @@ static const struct {
     {"survey", "reject", "reject-station", 0},
     {"survey", "declination", "declination", 0},
     {"survey", "convergence", "convergence", 0},
+    {"survey", "crs", "crs", 0},
     {"core", "reference_line", "reference-line", 0},
     {"core", "beta_end", "beta-end", 0},
     {"core", "beta_sense", "beta-sense", 0},

@@ -2,10 +2,12 @@
  * as modelling CSV columns and as legacy VTK polydata streamed block by
  * block (see export.h for the file's layout). */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "corax/export.h"
+#include "io/fields.h"
 
 const char *const corax_export_csv_columns[9] = {
     "x", "y", "z", "dip", "dip_direction", "nx", "ny", "nz", "polarity"};
@@ -16,20 +18,120 @@ void corax_export_csv_fields(corax_writer *w, const corax_structure *s)
     corax_writer_number(w, s->position.x, 3);
     corax_writer_number(w, s->position.y, 3);
     corax_writer_number(w, s->position.z, 3);
-    corax_writer_number(w, corax_deg(s->plane.dip), 2);
-    corax_writer_azimuth(w, corax_deg(s->plane.dip_direction), 2);
-    corax_writer_number(w, n.x, 6);
-    corax_writer_number(w, n.y, 6);
-    corax_writer_number(w, n.z, 6);
+    if (s->oriented) {
+        corax_writer_number(w, corax_deg(s->plane.dip), 2);
+        corax_writer_azimuth(w, corax_deg(s->plane.dip_direction), 2);
+        corax_writer_number(w, n.x, 6);
+        corax_writer_number(w, n.y, 6);
+        corax_writer_number(w, n.z, 6);
+    } else { /* a line alone: no plane */
+        for (int i = 0; i < 5; i++)
+            corax_writer_field(w, "", 0);
+    }
     if (s->polarity)
         corax_writer_integer(w, s->polarity);
     else
         corax_writer_field(w, "", 0);
 }
 
+const char *const corax_export_line_columns[3] = {"lx", "ly", "lz"};
+
+void corax_export_csv_line(corax_writer *w, const corax_export_extra *x)
+{
+    if (!x->has_line) {
+        for (int i = 0; i < 3; i++)
+            corax_writer_field(w, "", 0);
+        return;
+    }
+    corax_writer_number(w, x->line.x, 6);
+    corax_writer_number(w, x->line.y, 6);
+    corax_writer_number(w, x->line.z, 6);
+}
+
+int corax_export_usable(const corax_structure *s, const corax_export_extra *x)
+{
+    return s->located && (s->oriented || x->has_line);
+}
+
+/* ---- lineation, spread and status ---- */
+
+const char *const corax_export_spread_names[CORAX_EXPORT_SPREAD] = {
+    "dip_sd", "dip_direction_sd", "cone95", "kappa", "position_sd"};
+
+void corax_export_columns_find(const corax_row *header, const corax_column_map *map,
+                               corax_export_columns *c)
+{
+    c->trend = corax_column_find(header, "trend", map);
+    c->plunge = corax_column_find(header, "plunge", map);
+    for (int i = 0; i < CORAX_EXPORT_SPREAD; i++)
+        c->spread[i] = corax_column_find(header, corax_export_spread_names[i], map);
+    c->status = corax_column_find(header, "status", map);
+}
+
+int corax_export_has_lines(const corax_export_columns *c)
+{
+    return c->trend >= 0 && c->plunge >= 0;
+}
+
+int corax_export_has_spread(const corax_export_columns *c)
+{
+    for (int i = 0; i < CORAX_EXPORT_SPREAD; i++)
+        if (c->spread[i] < 0)
+            return 0;
+    return 1;
+}
+
+/* An optional number: 1 given, 0 empty, -1 unusable (why says). */
+static int optional_number(const corax_row *row, long col, char decimal, const char *name,
+                           double *v, char *why, size_t wl)
+{
+    *v = NAN;
+    if (col < 0)
+        return 0;
+    corax_number_status st = corax_field_number(row, col, decimal, name, v, why, wl);
+    if (st == CORAX_NUMBER_EMPTY) {
+        *v = NAN;
+        return 0;
+    }
+    return st == CORAX_NUMBER_OK ? 1 : -1;
+}
+
+corax_status corax_export_extra_read(const corax_row *row, const corax_export_columns *c,
+                                     char decimal, corax_export_extra *x, char *why, size_t wl)
+{
+    memset(x, 0, sizeof *x);
+    x->status = corax_field_text(row, c->status, &x->status_len);
+    double trend, plunge;
+    int t = optional_number(row, c->trend, decimal, "trend", &trend, why, wl);
+    int p = t < 0 ? -1 : optional_number(row, c->plunge, decimal, "plunge", &plunge, why, wl);
+    if (t < 0 || p < 0)
+        return CORAX_EVALUE;
+    if (t != p) {
+        snprintf(why, wl, "trend and plunge: one given and one empty");
+        return CORAX_EVALUE;
+    }
+    if (t && (!corax_field_in_range(trend, 0, 360, "trend", why, wl) ||
+              !corax_field_in_range(plunge, -90, 90, "plunge", why, wl)))
+        return CORAX_EVALUE;
+    if (t) {
+        x->has_line = 1;
+        x->trend = corax_wrap_azimuth(corax_rad(trend));
+        x->plunge = corax_rad(plunge);
+        x->line = corax_direction(x->trend, x->plunge);
+    }
+    for (int i = 0; i < CORAX_EXPORT_SPREAD; i++) {
+        int k = optional_number(row, c->spread[i], decimal, corax_export_spread_names[i],
+                                &x->spread[i], why, wl);
+        if (k < 0 || (k && !corax_field_nonnegative(x->spread[i], corax_export_spread_names[i],
+                                                    why, wl)))
+            return CORAX_EVALUE;
+    }
+    return CORAX_OK;
+}
+
 corax_export_options corax_export_options_default(void)
 {
-    corax_export_options o = {CORAX_VTK_ASCII, 1, 5.0, CORAX_EXPORT_DISCS, 5.0, 24, NULL};
+    corax_export_options o = {CORAX_VTK_ASCII, 1, 5.0, CORAX_EXPORT_DISCS, 5.0, 24, NULL, 0.0};
     return o;
 }
 
@@ -124,30 +226,32 @@ static size_t corners(const corax_export_options *o)
     return o->shape == CORAX_EXPORT_DISCS ? (size_t)o->disc_sides : 1;
 }
 
+void corax_export_disc(corax_plane plane, corax_vec3 centre, double radius, int sides,
+                       corax_vec3 *out)
+{
+    corax_vec3 a, b; /* along strike and down dip: the disc's own axes */
+    corax_plane_axes(plane, &a, &b);
+    for (int j = 0; j < sides; j++) {
+        double t = 2.0 * CORAX_PI * (double)j / (double)sides;
+        double ca = radius * cos(t), sb = radius * sin(t);
+        out[j] = (corax_vec3){centre.x + ca * a.x + sb * b.x, centre.y + ca * a.y + sb * b.y,
+                              centre.z + ca * a.z + sb * b.z};
+    }
+}
+
 static void structure_points(corax_vtk *v, const corax_export_structure *s, size_t n,
                              const corax_export_options *o)
 {
     size_t k = corners(o);
-    double circle[2 * 360]; /* the corners on a circle of the disc's radius */
-    for (size_t j = 0; k > 1 && j < k; j++) {
-        double t = 2.0 * CORAX_PI * (double)j / (double)k;
-        circle[2 * j] = o->disc_radius * cos(t);
-        circle[2 * j + 1] = o->disc_radius * sin(t);
-    }
+    corax_vec3 disc[360];
     for (size_t i = 0; i < n; i++) {
         if (k == 1) {
             corax_vtk_point(v, s[i].position);
             continue;
         }
-        corax_vec3 a, b; /* along strike and down dip: the disc's own axes */
-        corax_plane_axes(s[i].plane, &a, &b);
-        for (size_t j = 0; j < k; j++) {
-            double ca = circle[2 * j], sb = circle[2 * j + 1];
-            corax_vec3 p = {s[i].position.x + ca * a.x + sb * b.x,
-                            s[i].position.y + ca * a.y + sb * b.y,
-                            s[i].position.z + ca * a.z + sb * b.z};
-            corax_vtk_point(v, p);
-        }
+        corax_export_disc(s[i].plane, s[i].position, o->disc_radius, (int)k, disc);
+        for (size_t j = 0; j < k; j++)
+            corax_vtk_point(v, disc[j]);
     }
 }
 
@@ -164,16 +268,57 @@ static void structure_cells(corax_vtk *v, size_t n, size_t first, const corax_ex
     }
 }
 
-static void trace_cells(corax_vtk *v, const traces *t)
+/* Structures drawn with an arrow along their lineation. */
+static size_t arrow_count(const corax_export_structure *s, size_t n, const corax_export_options *o)
+{
+    size_t k = 0;
+    for (size_t i = 0; o->arrow > 0.0 && i < n; i++)
+        k += s[i].has_line != 0;
+    return k;
+}
+
+static int has_arrow(const corax_export_structure *s, const corax_export_options *o)
+{
+    return o->arrow > 0.0 && s->has_line;
+}
+
+static corax_vec3 line_of(const corax_export_structure *s)
+{
+    if (!s->has_line)
+        return (corax_vec3){0.0, 0.0, 0.0};
+    return (corax_vec3){s->line[0], s->line[1], s->line[2]};
+}
+
+static void arrow_points(corax_vtk *v, const corax_export_structure *s, size_t n,
+                         const corax_export_options *o)
+{
+    for (size_t i = 0; i < n; i++) {
+        if (!has_arrow(&s[i], o))
+            continue;
+        corax_vec3 l = line_of(&s[i]), p = s[i].position;
+        corax_vtk_point(v, p);
+        corax_vtk_point(v, (corax_vec3){p.x + o->arrow * l.x, p.y + o->arrow * l.y,
+                                        p.z + o->arrow * l.z});
+    }
+}
+
+/* The LINES block: the traces, then the arrows (their points numbered
+ * from `first_arrow`). */
+static void line_cells(corax_vtk *v, const traces *t, size_t narrows, size_t first_arrow)
 {
     size_t nh = t->program ? corax_program_size(t->program) : 0, next = 0;
-    corax_vtk_cells(v, "LINES", t->holes, t->points);
+    corax_vtk_cells(v, "LINES", t->holes + narrows, t->points + 2 * narrows);
     for (size_t i = 0; i < nh; i++) {
         if (!t->count[i])
             continue;
         corax_vtk_cell(v, t->count[i]);
         for (size_t k = 0; k < t->count[i]; k++)
             corax_vtk_index(v, next++);
+    }
+    for (size_t i = 0; i < narrows; i++) {
+        corax_vtk_cell(v, 2);
+        corax_vtk_index(v, first_arrow + 2 * i);
+        corax_vtk_index(v, first_arrow + 2 * i + 1);
     }
 }
 
@@ -193,35 +338,148 @@ static double value_dip_direction(const corax_export_structure *s)
 static double value_polarity(const corax_export_structure *s) { return s ? s->polarity : 0.0; }
 static double value_hole(const corax_export_structure *s) { return (double)s->hole + 1.0; }
 
-/* Cell data in cell order: vertices, lines, polygons. A trace cell's value
- * is fn(NULL), except for the hole array, where it is the trace's hole. */
+static double value_trend(const corax_export_structure *s)
+{
+    if (!s || !s->has_line)
+        return -1.0;
+    double t, p;
+    corax_line_trend_plunge(line_of(s), &t, &p);
+    return corax_wrap_degrees(corax_deg(t), 6);
+}
+
+static double value_plunge(const corax_export_structure *s)
+{
+    if (!s || !s->has_line)
+        return -1.0;
+    double t, p;
+    corax_line_trend_plunge(line_of(s), &t, &p);
+    return corax_deg(p);
+}
+
+static double spread_value(const corax_export_structure *s, int i)
+{
+    return s && isfinite(s->spread[i]) ? (double)s->spread[i] : -1.0;
+}
+static double value_dip_sd(const corax_export_structure *s) { return spread_value(s, 0); }
+static double value_dd_sd(const corax_export_structure *s) { return spread_value(s, 1); }
+static double value_cone95(const corax_export_structure *s) { return spread_value(s, 2); }
+static double value_kappa(const corax_export_structure *s) { return spread_value(s, 3); }
+static double value_position_sd(const corax_export_structure *s) { return spread_value(s, 4); }
+
+/* Cell data in cell order: vertices, lines (traces, then arrows), polygons.
+ * A trace cell's value is fn(NULL), except for the hole array, where it is
+ * the trace's hole; an arrow carries its structure's values. With fn NULL,
+ * the lineation vector instead (zero for a trace and a structure without). */
 static void cell_values(corax_vtk *v, const traces *t, const corax_export_structure *s,
                         size_t n, const corax_export_options *o, cell_value_fn fn)
 {
     int points = o->shape == CORAX_EXPORT_POINTS;
     size_t nh = t->program ? corax_program_size(t->program) : 0;
     for (size_t i = 0; points && i < n; i++)
-        corax_vtk_double(v, fn(&s[i]));
+        fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
     for (size_t i = 0; i < nh; i++)
-        if (t->count[i])
-            corax_vtk_double(v, fn == value_hole ? (double)i + 1.0 : fn(NULL));
+        if (t->count[i]) {
+            if (!fn)
+                corax_vtk_vector(v, line_of(&(corax_export_structure){.has_line = 0}));
+            else
+                corax_vtk_double(v, fn == value_hole ? (double)i + 1.0 : fn(NULL));
+        }
+    for (size_t i = 0; i < n; i++)
+        if (has_arrow(&s[i], o))
+            fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
     for (size_t i = 0; !points && i < n; i++)
-        corax_vtk_double(v, fn(&s[i]));
+        fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
+}
+
+static int any_spread(const corax_export_structure *s, size_t n)
+{
+    for (size_t i = 0; i < n; i++)
+        for (int k = 0; k < CORAX_EXPORT_SPREAD; k++)
+            if (isfinite(s[i].spread[k]))
+                return 1;
+    return 0;
+}
+
+static int any_line(const corax_export_structure *s, size_t n)
+{
+    for (size_t i = 0; i < n; i++)
+        if (s[i].has_line)
+            return 1;
+    return 0;
+}
+
+/* Point data of the structures' points and then the arrows' points. */
+static void structure_depths(corax_vtk *v, const corax_export_structure *s, size_t n,
+                             const corax_export_options *o)
+{
+    size_t k = corners(o);
+    for (size_t i = 0; i < n; i++)
+        for (size_t j = 0; j < k; j++)
+            corax_vtk_double(v, isnan(s[i].depth) ? -1.0 : s[i].depth);
+    for (size_t i = 0; i < n; i++)
+        for (int j = 0; has_arrow(&s[i], o) && j < 2; j++)
+            corax_vtk_double(v, isnan(s[i].depth) ? -1.0 : s[i].depth);
+}
+
+static void structure_normals(corax_vtk *v, const corax_export_structure *s, size_t n,
+                              const corax_export_options *o)
+{
+    for (size_t i = 0; i < n; i++)
+        corax_vtk_vector(v, corax_plane_normal(s[i].plane));
+    for (size_t i = 0; i < n; i++)
+        for (int j = 0; has_arrow(&s[i], o) && j < 2; j++)
+            corax_vtk_vector(v, corax_plane_normal(s[i].plane));
+}
+
+static void attributes(corax_vtk *v, const traces *t, const corax_export_structure *s, size_t n,
+                       const corax_export_options *o)
+{
+    static const struct {
+        const char *name;
+        cell_value_fn fn;
+        corax_vtk_type type;
+    } base[] = {{"dip", value_dip, CORAX_VTK_DOUBLE},
+                {"dip_direction", value_dip_direction, CORAX_VTK_DOUBLE},
+                {"polarity", value_polarity, CORAX_VTK_INT},
+                {"hole", value_hole, CORAX_VTK_INT}},
+      lines[] = {{"trend", value_trend, CORAX_VTK_DOUBLE}, {"plunge", value_plunge, CORAX_VTK_DOUBLE}};
+    static const cell_value_fn spread[CORAX_EXPORT_SPREAD] = {
+        value_dip_sd, value_dd_sd, value_cone95, value_kappa, value_position_sd};
+    int with_lines = any_line(s, n), with_spread = any_spread(s, n);
+    corax_vtk_field(v, "attributes", 4 + (with_lines ? 3 : 0) + (with_spread ? 5 : 0));
+    for (int i = 0; i < 4; i++) {
+        corax_vtk_array(v, base[i].name, 1, base[i].type);
+        cell_values(v, t, s, n, o, base[i].fn);
+    }
+    if (with_lines) {
+        corax_vtk_array(v, "lineation", 3, CORAX_VTK_DOUBLE);
+        cell_values(v, t, s, n, o, NULL);
+        for (int i = 0; i < 2; i++) {
+            corax_vtk_array(v, lines[i].name, 1, lines[i].type);
+            cell_values(v, t, s, n, o, lines[i].fn);
+        }
+    }
+    for (int i = 0; with_spread && i < CORAX_EXPORT_SPREAD; i++) {
+        corax_vtk_array(v, corax_export_spread_names[i], 1, CORAX_VTK_DOUBLE);
+        cell_values(v, t, s, n, o, spread[i]);
+    }
 }
 
 static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_structure *s,
                               size_t n, const corax_export_options *o)
 {
-    size_t k = corners(o), npoints = t->points + n * k;
+    size_t k = corners(o), na = arrow_count(s, n, o);
+    size_t npoints = t->points + n * k + 2 * na;
     corax_vtk_points(v, npoints);
     corax_status st = each_sample(t, v, put_position);
     if (st != CORAX_OK)
         return st;
     structure_points(v, s, n, o);
+    arrow_points(v, s, n, o);
     if (n && o->shape == CORAX_EXPORT_POINTS)
         structure_cells(v, n, t->points, o);
-    if (t->holes)
-        trace_cells(v, t);
+    if (t->holes + na)
+        line_cells(v, t, na, t->points + n * k);
     if (n && o->shape == CORAX_EXPORT_DISCS)
         structure_cells(v, n, t->points, o);
 
@@ -229,29 +487,18 @@ static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_
     corax_vtk_scalars(v, "depth", CORAX_VTK_DOUBLE);
     if ((st = each_sample(t, v, put_depth)) != CORAX_OK)
         return st;
-    for (size_t i = 0; i < n; i++)
-        for (size_t j = 0; j < k; j++)
-            corax_vtk_double(v, isnan(s[i].depth) ? -1.0 : s[i].depth);
+    structure_depths(v, s, n, o);
     if (o->shape == CORAX_EXPORT_POINTS) {
         corax_vtk_normals(v, "normal");
         if ((st = each_sample(t, v, put_no_normal)) != CORAX_OK)
             return st;
-        for (size_t i = 0; i < n; i++)
-            corax_vtk_vector(v, corax_plane_normal(s[i].plane));
+        structure_normals(v, s, n, o);
     }
 
-    corax_vtk_cell_data(v, t->holes + n);
+    corax_vtk_cell_data(v, t->holes + n + na);
     corax_vtk_scalars(v, "kind", CORAX_VTK_INT);
     cell_values(v, t, s, n, o, value_kind);
-    corax_vtk_field(v, "attributes", 4);
-    corax_vtk_array(v, "dip", 1, CORAX_VTK_DOUBLE);
-    cell_values(v, t, s, n, o, value_dip);
-    corax_vtk_array(v, "dip_direction", 1, CORAX_VTK_DOUBLE);
-    cell_values(v, t, s, n, o, value_dip_direction);
-    corax_vtk_array(v, "polarity", 1, CORAX_VTK_INT);
-    cell_values(v, t, s, n, o, value_polarity);
-    corax_vtk_array(v, "hole", 1, CORAX_VTK_INT);
-    cell_values(v, t, s, n, o, value_hole);
+    attributes(v, t, s, n, o);
     return CORAX_OK;
 }
 
@@ -260,10 +507,11 @@ corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_
                               const corax_export_options *o, corax_export_counts *counts,
                               corax_error *err)
 {
-    if (!(o->step > 0.0) || !(o->disc_radius > 0.0) || o->disc_sides < 3 || o->disc_sides > 360)
+    if (!(o->step > 0.0) || !(o->disc_radius > 0.0) || o->disc_sides < 3 ||
+        o->disc_sides > 360 || !(o->arrow >= 0.0))
         return corax_error_set(err, CORAX_EARG, path, 0,
                                "export: step and disc radius must be positive, a disc needs "
-                               "3 to 360 corners");
+                               "3 to 360 corners, arrows a length of 0 or more");
     traces t = {o->traces ? program : NULL, o->step, NULL, 0, 0};
     corax_status st = count_traces(&t);
     corax_vtk *v = NULL;
@@ -282,8 +530,8 @@ corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_
         counts->traces = t.holes;
         counts->trace_points = t.points;
         counts->structures = n;
-        counts->points = t.points + n * corners(o);
-        counts->cells = t.holes + n;
+        counts->points = t.points + n * corners(o) + 2 * arrow_count(s, n, o);
+        counts->cells = t.holes + n + arrow_count(s, n, o);
     }
     free(t.count);
     return st;

@@ -124,14 +124,26 @@ void corax_carry_header(const corax_carry *c, corax_writer *w)
         corax_writer_field(w, c->name[i], strlen(c->name[i]));
 }
 
-void corax_carry_row(const corax_carry *c, long table, const corax_row *row, corax_writer *w)
+const char *corax_carry_name(const corax_carry *c, size_t i) { return c->name[i]; }
+
+const char *corax_carry_value(const corax_carry *c, long table, const corax_row *row, size_t k,
+                              size_t *length)
 {
     const carry_table *t = &c->table[table];
+    long i = k < t->n ? t->col[k] : -1;
+    if (i >= 0 && (size_t)i < row->count) {
+        *length = row->length[i];
+        return row->field[i];
+    }
+    *length = 0;
+    return "";
+}
+
+void corax_carry_row(const corax_carry *c, long table, const corax_row *row, corax_writer *w)
+{
     for (size_t k = 0; k < c->nname; k++) {
-        long i = k < t->n ? t->col[k] : -1;
-        if (i >= 0 && (size_t)i < row->count)
-            corax_writer_field(w, row->field[i], row->length[i]);
-        else
-            corax_writer_field(w, "", 0);
+        size_t n;
+        const char *v = corax_carry_value(c, table, row, k, &n);
+        corax_writer_field(w, v, n);
     }
 }

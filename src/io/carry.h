@@ -36,4 +36,12 @@ void corax_carry_header(const corax_carry *c, corax_writer *w);
 /* Write a row's carried fields, from table number `table` (no end of row). */
 void corax_carry_row(const corax_carry *c, long table, const corax_row *row, corax_writer *w);
 
+/* The name of carried column i (i < corax_carry_count()). */
+const char *corax_carry_name(const corax_carry *c, size_t i);
+
+/* The text of carried column i in a row of table number `table` ("" when
+ * that table lacks the column); *length gets its length. */
+const char *corax_carry_value(const corax_carry *c, long table, const corax_row *row, size_t i,
+                              size_t *length);
+
 #endif

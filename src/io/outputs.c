@@ -14,6 +14,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <dirent.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -23,6 +24,7 @@ enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
 
 typedef struct held {
     char *path, *final, *tmp;
+    int folder; /* tmp is a private folder whose files go beside final */
 } held;
 
 struct corax_outputs {
@@ -55,13 +57,122 @@ static void free_held(held *h)
     free(h->tmp);
 }
 
+/* Remove a file, or a folder with what it holds (only ever a private folder
+ * of corax's own making). */
+static void remove_tree(const char *path)
+{
+    struct stat st;
+    if (lstat(path, &st) != 0)
+        return;
+    if (!S_ISDIR(st.st_mode)) {
+        unlink(path);
+        return;
+    }
+    DIR *d = opendir(path);
+    struct dirent *e;
+    while (d && (e = readdir(d)) != NULL) {
+        if (strcmp(e->d_name, ".") == 0 || strcmp(e->d_name, "..") == 0)
+            continue;
+        char child[PATH_MAX];
+        if ((size_t)snprintf(child, sizeof child, "%s/%s", path, e->d_name) < sizeof child)
+            remove_tree(child);
+    }
+    if (d)
+        closedir(d);
+    rmdir(path);
+}
+
+/* Move everything in a private folder into place: the file named as the
+ * target's last name to the target, any side files beside it. */
+static int move_folder(const char *folder, const char *final)
+{
+    const char *slash = strrchr(final, '/');
+    size_t dirlen = slash ? (size_t)(slash - final + 1) : 0;
+    DIR *d = opendir(folder);
+    if (!d)
+        return errno;
+    int failed = 0;
+    struct dirent *e;
+    while (!failed && (e = readdir(d)) != NULL) {
+        if (strcmp(e->d_name, ".") == 0 || strcmp(e->d_name, "..") == 0)
+            continue;
+        char src[PATH_MAX], dst[PATH_MAX];
+        int own = strcmp(e->d_name, final + dirlen) == 0;
+        if ((size_t)snprintf(src, sizeof src, "%s/%s", folder, e->d_name) >= sizeof src ||
+            (size_t)snprintf(dst, sizeof dst, "%.*s%s", (int)dirlen, final,
+                             own ? final + dirlen : e->d_name) >= sizeof dst)
+            failed = ENAMETOOLONG;
+        else if (rename(src, dst) != 0)
+            failed = errno;
+    }
+    closedir(d);
+    return failed;
+}
+
+corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **folder,
+                                  corax_error *err)
+{
+    *folder = NULL;
+    const char *slash = strrchr(path, '/');
+    size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
+    size_t n = strlen(path) + 16;
+    char *d = malloc(n);
+    if (!d)
+        return CORAX_ENOMEM;
+    snprintf(d, n, "%.*s.%s.XXXXXX", (int)dirlen, path, path + dirlen);
+    if (!mkdtemp(d)) {
+        int e = errno;
+        free(d);
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
+    }
+    if (set && set->npending < MAX_FILES) {
+        held *h = &set->pending[set->npending];
+        h->path = strdup(path);
+        h->final = strdup(path);
+        h->tmp = strdup(d);
+        h->folder = 1;
+        if (!h->path || !h->final || !h->tmp) {
+            free_held(h);
+            remove_tree(d);
+            free(d);
+            return CORAX_ENOMEM;
+        }
+        set->npending++;
+    }
+    *folder = d;
+    return CORAX_OK;
+}
+
+void corax_outputs_drop_folder(corax_outputs *set, const char *folder)
+{
+    for (size_t i = 0; set && i < set->npending; i++)
+        if (set->pending[i].folder && strcmp(set->pending[i].tmp, folder) == 0) {
+            free_held(&set->pending[i]);
+            set->pending[i] = set->pending[--set->npending];
+            break;
+        }
+    remove_tree(folder);
+}
+
+corax_status corax_outputs_place_folder(const char *folder, const char *path, corax_error *err)
+{
+    int failed = move_folder(folder, path);
+    remove_tree(folder);
+    if (failed)
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot put it in place: %s",
+                               failed == ENOTEMPTY || failed == EEXIST
+                                   ? "a folder of that name is there and not empty"
+                                   : strerror(failed));
+    return CORAX_OK;
+}
+
 void corax_outputs_discard(corax_outputs *set)
 {
     if (!set)
         return;
     for (size_t i = 0; i < set->npending; i++) {
         forget_temp(set, set->pending[i].tmp);
-        unlink(set->pending[i].tmp);
+        remove_tree(set->pending[i].tmp);
         free_held(&set->pending[i]);
     }
     set->npending = 0;
@@ -80,6 +191,11 @@ void corax_outputs_remove_temporaries(const corax_outputs *set)
     for (sig_atomic_t i = 0; i < set->ntemp; i++)
         if (set->temp[i])
             unlink(set->temp[i]);
+    /* a private folder: best effort (reading a folder is not strictly safe in a
+     * signal handler, but the process is ending) */
+    for (size_t i = 0; i < set->npending; i++)
+        if (set->pending[i].folder)
+            remove_tree(set->pending[i].tmp);
 }
 
 corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
@@ -88,7 +204,11 @@ corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
     size_t i = 0;
     for (; i < set->npending; i++) {
         held *h = &set->pending[i];
-        if (rename(h->tmp, h->final) != 0) {
+        if (h->folder) {
+            st = corax_outputs_place_folder(h->tmp, h->final, err);
+            if (st != CORAX_OK)
+                break;
+        } else if (rename(h->tmp, h->final) != 0) {
             st = corax_error_set(err, CORAX_EIO, h->path, 0, "cannot write: %s",
                                  strerror(errno));
             break;
@@ -222,7 +342,7 @@ corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
         if (set->npending == MAX_FILES) {
             failed = EMFILE;
         } else {
-            set->pending[set->npending++] = (held){t->path, t->final, t->tmp};
+            set->pending[set->npending++] = (held){t->path, t->final, t->tmp, 0};
             memset(t, 0, sizeof *t);
             t->fd = -1;
             return CORAX_OK;

@@ -26,6 +26,14 @@ fi
 "$CORAX" export --format vtk $D --step 5 --shape points --binary data/converted.csv -o "$T/points-bin.vtk" 2>/dev/null
 "$CORAX" export --format vtk $D --step 5 --binary -o "$T/traces.vtk"
 "$CORAX" trace $D --step 5 -o "$T/trace.csv"
+# an interval table as lines from, middle, to; and where trace --at puts those depths
+"$CORAX" export --format vtk $D --intervals data/intervals.csv -o "$T/intervals.vtk" 2>/dev/null
+awk -F, 'NR > 1 { printf "%s,%s\n%s,%.10g\n%s,%s\n", $1, $2, $1, ($2 + $3) / 2, $1, $3 }
+         NR == 1 { print "hole,depth" }' data/intervals.csv > "$T/at.csv"
+"$CORAX" trace $D --at "$T/at.csv" -o "$T/at_out.csv"
+# lineations and the Monte Carlo columns: arrays, and arrows 2 m long
+"$CORAX" export --format vtk $D --step 5 --arrows 2 data/converted_lines.csv -o "$T/lines.vtk" 2>/dev/null
+"$CORAX" export --format vtk $D --step 5 --arrows 2 --binary data/converted_lines.csv -o "$T/lines-bin.vtk" 2>/dev/null
 
 /usr/bin/python3 - "$T" data/converted.csv <<'EOF'
 import csv, math, sys
@@ -147,6 +155,63 @@ check_traces(pd, "traces.vtk")
 a, b = read("discs.vtk"), read("discs-bin.vtk")
 pa, pb = vtk_to_numpy(a.GetPoints().GetData()), vtk_to_numpy(b.GetPoints().GetData())
 check(abs(pa - pb).max() < 1e-6, "ASCII and binary points differ")
+
+# lineations (VTK draws planes: the line alone is left out) and uncertainty
+lined = [r for r in csv.DictReader(open("data/converted_lines.csv")) if r["x"] and r["dip"]]
+with_line = [r for r in lined if r["trend"]]
+for name in ("lines.vtk", "lines-bin.vtk"):
+    pd = read(name)
+    n_ar = len(with_line)
+    check(pd.GetNumberOfPolys() == len(lined), f"{name}: {pd.GetNumberOfPolys()} discs, want {len(lined)}")
+    check(pd.GetNumberOfLines() == len(holes) + n_ar, f"{name}: {pd.GetNumberOfLines()} lines, want traces and {n_ar} arrows")
+    cd = pd.GetCellData()
+    vec, trend, plunge = array(cd, "lineation"), array(cd, "trend"), array(cd, "plunge")
+    sd = {c: array(cd, c) for c in ("dip_sd", "dip_direction_sd", "cone95", "kappa", "position_sd")}
+    pts = vtk_to_numpy(pd.GetPoints().GetData())
+    first_arrow = n_tr + 24 * len(lined)
+    # cells: traces, arrows, discs
+    for j, r in enumerate(with_line):
+        c = len(holes) + j
+        tr, pl = math.radians(float(r["trend"])), math.radians(float(r["plunge"]))
+        want = (math.sin(tr) * math.cos(pl), math.cos(tr) * math.cos(pl), -math.sin(pl))
+        check(all(abs(vec[c][k] - want[k]) < 1e-6 for k in range(3)), f"{name}: arrow {j} lineation")
+        a, b = pts[first_arrow + 2 * j], pts[first_arrow + 2 * j + 1]
+        check(all(abs(b[k] - a[k] - 2 * want[k]) < 1e-5 for k in range(3)), f"{name}: arrow {j} 2 m down-plunge")
+        check(abs(a[0] - float(r["x"])) < 1e-6, f"{name}: arrow {j} starts at its structure")
+    for j, r in enumerate(lined):
+        c = len(holes) + len(with_line) + j
+        if r["trend"]:
+            check(abs(trend[c] - float(r["trend"])) < 1e-4 and abs(plunge[c] - float(r["plunge"])) < 1e-4, f"{name}: disc {j} trend, plunge")
+        else:
+            check(trend[c] == -1 and plunge[c] == -1 and not any(vec[c]), f"{name}: disc {j} has no line")
+        for k, v in sd.items():
+            want = float(r[k]) if r[k] else -1
+            check(abs(v[c] - want) < 1e-4, f"{name}: disc {j} {k} {v[c]} want {want}")
+    for c in range(len(holes)):
+        check(trend[c] == -1 and sd["kappa"][c] == -1, f"{name}: trace {c} has no line or spread")
+
+# intervals: one line of three points per placed interval, at trace --at's points
+at = list(csv.DictReader(open(f"{out}/at_out.csv")))
+ivs = list(csv.DictReader(open("data/intervals.csv")))
+placed = [k for k in range(len(ivs)) if at[3 * k]["status"] in ("ok", "extrapolated", "collar-only", "beyond-end")]
+pd = read("intervals.vtk")
+check(pd.GetNumberOfLines() == len(placed), f"intervals.vtk: {pd.GetNumberOfLines()} lines, want {len(placed)}")
+pts = vtk_to_numpy(pd.GetPoints().GetData())
+depth = array(pd.GetPointData(), "depth")
+cd = pd.GetCellData()
+unit, cu = array(cd, "unit"), array(cd, "cu_pct")
+codes = {}
+for line in open(f"{out}/intervals.vtk.about"):
+    if line.startswith("unit."):
+        k, v = line.split(" = ")
+        codes[int(k[5:])] = v.strip()
+for j, k in enumerate(placed):
+    for i in range(3):
+        for c, name in enumerate("xyz"):
+            check(abs(pts[3 * j + i][c] - float(at[3 * k + i][name])) < 5e-4, f"intervals.vtk: interval {k} point {i} {name}")
+        check(abs(depth[3 * j + i] - float(at[3 * k + i]["depth"])) < 1e-9, f"intervals.vtk: interval {k} depth {i}")
+    check(codes.get(int(unit[j])) == ivs[k]["unit"], f"intervals.vtk: unit of interval {k}")
+    check(abs(cu[j] - (float(ivs[k]["cu_pct"]) if ivs[k]["cu_pct"] else -1)) < 1e-9, f"intervals.vtk: cu_pct of interval {k}")
 
 if failures:
     print("\n".join(failures[:20]))
