@@ -12,6 +12,7 @@
 #include "corax/geometry.h"
 #include "corax/load.h"
 #include "corax/output.h"
+#include "corax/plan.h"
 #include "corax/project.h"
 #include "corax/projection.h"
 #include "corax/qa.h"
