@@ -718,6 +718,8 @@ static void test_tables(void **state)
     corax_plan_inputs_free(&in);
     assert_int_equal(corax_plan_targets_load(sets, &lo, &in, &problems, &err), CORAX_EFORMAT);
     assert_non_null(strstr(err.message, "no 'target' column"));
+    remove(holes);
+    remove(sets);
 }
 
 int main(void)

@@ -196,5 +196,6 @@ int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
 int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
+int cmd_plan(int argc, char **argv);
 
 #endif

@@ -38,6 +38,13 @@ static const char *const known[][6] = {
     {"plunge", NULL},
     {"status", NULL},
     {"polarity", "younging", NULL},
+    {"set", NULL},      /* the tables of a drill plan */
+    {"target", NULL},
+    {"lift", NULL},
+    {"drift", NULL},
+    {"kappa", NULL},
+    {"cone95", NULL},
+    {"weight", NULL},
 };
 
 enum { NKNOWN = sizeof known / sizeof known[0] };

@@ -149,14 +149,16 @@ size_t corax_plan_pierce_note(const corax_plan_pierce *p, double length, char *b
         corax_note_add(buf, size, &used, "the hole runs in the plane");
     else if (p->status == CORAX_PLAN_NEAR_PARALLEL)
         corax_note_add(buf, size, &used,
-                       "the hole meets the plane at a glancing angle: the pierce point "
-                       "moves far along the hole with a small error in either");
+                       "the hole meets the plane at a glancing angle: a small error in "
+                       "the hole's or the plane's orientation moves the pierce point far");
     if (!isnan(p->again))
         corax_note_add(buf, size, &used, "crosses it again at %.2f m", p->again);
     if (!p->reached) {
         corax_note_add(buf, size, &used, "closest approach %.2f m from the plane, at %.2f m%s",
                        p->distance, p->depth,
-                       fabs(p->depth - length) < 1e-6 ? " (the end of the hole)" : "");
+                       fabs(p->depth - length) < 1e-6 ? " (the end of the hole)"
+                       : p->depth < 1e-6              ? " (the collar)"
+                                                      : "");
         if (isnan(p->drilled_on))
             corax_note_add(buf, size, &used, "drilled on straight it would not reach the plane");
         else

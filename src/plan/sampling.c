@@ -196,10 +196,14 @@ static void finish(const corax_plan_model *m, size_t i, const along *g, size_t p
     s->no_reference = g->framed == 0;
     s->low_from = g->low_first < 0 ? (double)NAN : (double)g->low_first * length / n;
     s->low_to = g->low_first < 0 ? (double)NAN : (double)(g->low_last + 1) * length / n;
-    s->status = s->alpha < CORAX_PLAN_PARALLEL_LIMIT         ? CORAX_PLAN_PARALLEL
-                : s->alpha < m->options.near_parallel ? CORAX_PLAN_NEAR_PARALLEL
-                : s->no_reference                     ? CORAX_PLAN_NO_REFERENCE
-                                                      : CORAX_PLAN_OK;
+    /* near-parallel: the planes crossed are, or the hole keeps within the
+     * threshold of the mean plane all along (a spread set is then still
+     * crossed, by its stray planes, at a few degrees more) */
+    int low_all = g->low_first == 0 && g->low_last == (long)pieces - 1;
+    s->status = s->alpha < CORAX_PLAN_PARALLEL_LIMIT                 ? CORAX_PLAN_PARALLEL
+                : s->alpha < m->options.near_parallel || low_all ? CORAX_PLAN_NEAR_PARALLEL
+                : s->no_reference                                ? CORAX_PLAN_NO_REFERENCE
+                                                                 : CORAX_PLAN_OK;
     if (s->status == CORAX_PLAN_PARALLEL)
         s->beta = NAN;
 }
@@ -241,11 +245,17 @@ size_t corax_plan_sampling_note(const corax_plan_sampling *s, double length,
         corax_note_add(buf, size, &used,
                        "the hole runs along these planes: it would cross none of them, and "
                        "beta is undefined");
-    else if (s->status == CORAX_PLAN_NEAR_PARALLEL)
+    else if (s->status == CORAX_PLAN_NEAR_PARALLEL && s->alpha < o->near_parallel)
         corax_note_add(buf, size, &used,
                        "expected alpha %.1f is below %.3g: the hole would cross %.0f%% as many "
                        "of these planes as a hole square to them, each poorly oriented",
                        corax_deg(s->alpha), low, 100.0 * s->factor);
+    else if (s->status == CORAX_PLAN_NEAR_PARALLEL)
+        corax_note_add(buf, size, &used,
+                       "the hole keeps within %.3g degrees of the mean plane: it would cross "
+                       "%.0f%% as many of these planes as a hole square to them, only the "
+                       "stray ones of the spread",
+                       low, 100.0 * s->factor);
     if (!isnan(s->low_from) && (s->low_from > 0.0 || s->low_to < length))
         corax_note_add(buf, size, &used, "the mean plane's alpha is below %.3g from %.0f to %.0f m",
                        low, s->low_from, s->low_to);
