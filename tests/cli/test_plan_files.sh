@@ -27,7 +27,7 @@ for want in '>Test plan<' 'class="best"' 'class="setplane k0"' 'class="setplane 
     'class="cone k1"' '>PA<' '>PB<' '>PC<' 'Best direction (ring)' 'local practice'; do
     grep -qF "$want" "$T/score.svg" || fail "the picture lacks $want"
 done
-cells=$(grep -o 'class="cell s[0-9]"' "$T/score.svg" | wc -l)
+cells=$(grep -o 'class="cell s[0-9][ "]' "$T/score.svg" | wc -l)
 [ "$cells" = $((181 + 8)) ] || fail "$cells cells drawn, not 181 and the key's 8"
 
 # a failed sweep (a set parallel to every direction) leaves no file behind
