@@ -48,7 +48,7 @@ static void put(const page *g, double azimuth, double plunge, int move)
 static void draw_cell(const page *g, const corax_plan_direction *d)
 {
     const corax_plan_picture *p = g->p;
-    char cls[24];
+    char cls[40];
     snprintf(cls, sizeof cls, "cell s%zu", band_of(d->score));
     double low = fmax(0.0, d->plunge - 0.5 * p->plunge_step);
     double high = fmin(QUARTER, d->plunge + 0.5 * p->plunge_step);
@@ -132,7 +132,7 @@ static void score_key(page *g)
     corax_panel *pn = &g->panel;
     corax_panel_line(pn, "label", 0, "Score of a hole direction");
     for (size_t b = CORAX_BANDS; b-- > 0;) {
-        char cls[24];
+        char cls[40];
         snprintf(cls, sizeof cls, "cell s%zu keybox", b);
         if (pn->svg)
             corax_svg_rect(pn->svg, pn->x, pn->y - 11, 22, 12, cls);
@@ -150,7 +150,7 @@ static void set_entries(page *g)
     corax_panel_line(pn, "label", 0, "Sets (pole and mean plane)");
     for (size_t i = 0; i < corax_plan_model_sets(m); i++) {
         const corax_plan_set *s = corax_plan_model_set(m, i);
-        char cls[24], spread[48] = "no spread";
+        char cls[40], spread[48] = "no spread";
         snprintf(cls, sizeof cls, "pt f%zu", corax_palette_colour_of(i));
         if (pn->svg)
             corax_palette_symbol(pn->svg, corax_palette_shape_of(i), pn->x + 6, pn->y - 4, 11,
