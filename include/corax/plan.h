@@ -26,6 +26,11 @@ extern "C" {
  * core run shows its ends and beta is undefined. */
 #define CORAX_PLAN_PARALLEL_LIMIT 1e-4
 
+/* The most directions a sweep may hold (a degree apart, the lower
+ * hemisphere holds about 33,000), and the longest planned hole, metres. */
+#define CORAX_PLAN_MAX_DIRECTIONS 100000
+#define CORAX_PLAN_MAX_LENGTH 20000.0
+
 /* Metres between the planned stations of a curved plan: the unit of its lift
  * and drift. */
 #define CORAX_PLAN_STATION_STEP 30.0
@@ -67,7 +72,7 @@ typedef struct corax_plan_hole {
     corax_vec3 collar;  /* x east, y north, z up, metres */
     double azimuth;     /* radians */
     double plunge;      /* radians, positive down */
-    double length;      /* metres, > 0 */
+    double length;      /* metres, in (0, CORAX_PLAN_MAX_LENGTH] */
     double lift, drift; /* radians per 30 m; 0 for a straight hole */
     long line;          /* source line, 0 when none */
 } corax_plan_hole;
@@ -77,7 +82,7 @@ typedef struct corax_plan_hole {
  * each turned from the one before by the lift and drift (pro rata for a
  * shorter last course), and is desurveyed by minimum curvature like any
  * surveyed hole. The collar records the length. CORAX_EVALUE for a length
- * that is not above 0 or a value that is not finite; CORAX_ESURVEY when a
+ * outside (0, CORAX_PLAN_MAX_LENGTH] or a value that is not finite; CORAX_ESURVEY when a
  * course would turn by 180 degrees; CORAX_ENOMEM. The caller frees *out with
  * corax_hole_free(). */
 corax_status corax_plan_path(const corax_plan_hole *plan, corax_hole **out, corax_error *err);
@@ -227,8 +232,8 @@ typedef struct corax_plan_direction {
  * covering the whole circle does not repeat its start; a vertical direction
  * comes once, with the range's first azimuth. *out is allocated (free()).
  * CORAX_EARG, with a message naming the range, for a step that is not above
- * 0 or a value that is not finite (the range is empty), or for more than a
- * million directions. */
+ * 0 or a value that is not finite (the range is empty), or for more than
+ * CORAX_PLAN_MAX_DIRECTIONS directions. */
 corax_status corax_plan_directions(corax_plan_range azimuth, corax_plan_range plunge,
                                    corax_plan_direction **out, size_t *n, corax_error *err);
 

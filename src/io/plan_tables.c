@@ -70,7 +70,7 @@ static int hole_row(row_in *r, void *item)
                  "(see --dip-convention)", dip);
         return 0;
     }
-    if (!number(r, 6, "length", 0, 1e6, NAN, &h->length) ||
+    if (!number(r, 6, "length", 0, CORAX_PLAN_MAX_LENGTH, NAN, &h->length) ||
         !number(r, 7, "lift", -30, 30, 0.0, &lift) || !number(r, 8, "drift", -30, 30, 0.0, &drift))
         return 0;
     if (!(h->length > 0.0)) {

@@ -68,12 +68,12 @@ corax_status corax_plan_path(const corax_plan_hole *plan, corax_hole **out, cora
 {
     *out = NULL;
     double length = plan->length;
-    if (!(length > 0.0) || !isfinite(length) || !isfinite(plan->azimuth) ||
+    if (!(length > 0.0 && length <= CORAX_PLAN_MAX_LENGTH) || !isfinite(plan->azimuth) ||
         !isfinite(plan->plunge) || !isfinite(plan->lift) || !isfinite(plan->drift))
         return corax_error_set(err, CORAX_EVALUE, NULL, plan->line,
-                               "planned hole %s: its length, direction, lift and drift must "
-                               "be finite and its length above 0",
-                               plan->name);
+                               "planned hole %s: its direction, lift and drift must be "
+                               "finite and its length in (0, %g] m",
+                               plan->name, CORAX_PLAN_MAX_LENGTH);
     corax_collar collar = {plan->collar, plan->azimuth, plan->plunge, 1, length};
     if (plan->lift == 0.0 && plan->drift == 0.0) /* straight along the collar */
         return corax_hole_new(plan->name, &collar, NULL, 0, 0.0, out, err);

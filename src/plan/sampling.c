@@ -146,8 +146,8 @@ size_t corax_plan_pieces(const corax_hole *hole, double length)
 {
     if (corax_hole_station_count(hole) == 0)
         return 1;
-    double n = ceil(length);
-    return n < 1.0 ? 1 : n > 1e6 ? 1000000 : (size_t)n;
+    double n = ceil(length); /* a piece a metre (CORAX_PLAN_MAX_LENGTH at most) */
+    return n < 1.0 ? 1 : (size_t)fmin(n, CORAX_PLAN_MAX_LENGTH);
 }
 
 /* The sums gathered along a hole for one set. */

@@ -75,11 +75,11 @@ corax_status corax_plan_directions(corax_plan_range az, corax_plan_range pl,
     if (whole && az.from + (double)(naz - 1) * az.step >= az.from + turn - 1e-9)
         naz--; /* the whole circle: the end is the start again */
     size_t npl = range_count(fabs(pl.to - pl.from), pl.step);
-    if ((double)naz * (double)npl > 1e6)
+    if ((double)naz * (double)npl > CORAX_PLAN_MAX_DIRECTIONS)
         return corax_error_set(err, CORAX_EARG, NULL, 0,
-                               "the sweep holds %zu directions; a million is the most: take "
-                               "a larger step",
-                               naz * npl);
+                               "the sweep holds %zu directions; %d is the most: take a "
+                               "larger step",
+                               naz * npl, CORAX_PLAN_MAX_DIRECTIONS);
     corax_plan_direction *d = malloc(naz * npl * sizeof *d);
     if (!d)
         return CORAX_ENOMEM;
