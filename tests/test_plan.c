@@ -565,7 +565,7 @@ static void test_sweep_bad_input(void **state)
     assert_null(d);
     corax_plan_range nan_range = {NAN, 1, 1};
     assert_int_equal(corax_plan_directions(az, nan_range, &d, &n, &err), CORAX_EARG);
-    corax_plan_range fine = {0, 2 * CORAX_PI, corax_rad(0.1)}; /* 3600 x 19 */
+    corax_plan_range fine = {0, 2 * CORAX_PI, corax_rad(0.05)}; /* 7200 x 19 */
     assert_int_equal(corax_plan_directions(fine, pl, &d, &n, &err), CORAX_EARG);
     assert_non_null(strstr(err.message, "100000 is the most"));
 }
@@ -691,7 +691,7 @@ static void test_tables(void **state)
                           "b,50,120,20,15,\n"
                           "c,50,120,,20,2\n"
                           "d,50,400,,,\n");
-    corax_load_options lo = corax_load_options_default();
+    corax_plan_load_options lo = corax_plan_load_options_default();
     corax_plan_inputs in = {0};
     corax_findings problems = {0};
     corax_error err;

@@ -6,8 +6,8 @@
 #include <stddef.h>
 
 #include "corax/finding.h"
-#include "corax/load.h"
 #include "corax/plan.h"
+#include "corax/table.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -24,10 +24,20 @@ typedef struct corax_plan_inputs {
     size_t ntargets;
 } corax_plan_inputs;
 
+/* How the plan's tables are written. */
+typedef struct corax_plan_load_options {
+    corax_table_format format;
+    const corax_column_map *columns;   /* the user's header names; may be NULL */
+    corax_dip_convention dip_convention; /* of the planned holes' dips */
+} corax_plan_load_options;
+
+/* Comma-separated, decimal point, no column names, dip negative down. */
+corax_plan_load_options corax_plan_load_options_default(void);
+
 /* Planned holes: hole, x, y, z, azimuth, dip (under options->dip_convention),
  * length; optional lift and drift (degrees per 30 m, in [-30, 30]; empty
  * means 0). */
-corax_status corax_plan_holes_load(const char *path, const corax_load_options *options,
+corax_status corax_plan_holes_load(const char *path, const corax_plan_load_options *options,
                                    corax_plan_inputs *in, corax_findings *problems,
                                    corax_error *err);
 
@@ -35,13 +45,13 @@ corax_status corax_plan_holes_load(const char *path, const corax_load_options *o
  * half-angle in degrees, in (0, 90], of the cone about the mean pole holding
  * 95% of the set's poles; not both), and weight (> 0; empty means 1). Empty
  * kappa and cone95: a set without spread. */
-corax_status corax_plan_sets_load(const char *path, const corax_load_options *options,
+corax_status corax_plan_sets_load(const char *path, const corax_plan_load_options *options,
                                   corax_plan_inputs *in, corax_findings *problems,
                                   corax_error *err);
 
 /* Target planes: target, x, y, z, dip, dip_direction (a plane through the
  * point). */
-corax_status corax_plan_targets_load(const char *path, const corax_load_options *options,
+corax_status corax_plan_targets_load(const char *path, const corax_plan_load_options *options,
                                      corax_plan_inputs *in, corax_findings *problems,
                                      corax_error *err);
 

@@ -213,11 +213,12 @@ static int load(plan_run *r)
     corax_findings problems = {0};
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_plan_holes_load(o->holes, &o->c.load, &r->in, &problems, &err);
+    corax_plan_load_options lo = {o->c.load.format, o->c.columns, o->c.load.dip_convention};
+    corax_status st = corax_plan_holes_load(o->holes, &lo, &r->in, &problems, &err);
     if (st == CORAX_OK)
-        st = corax_plan_sets_load(o->sets, &o->c.load, &r->in, &problems, &err);
+        st = corax_plan_sets_load(o->sets, &lo, &r->in, &problems, &err);
     if (st == CORAX_OK && o->targets)
-        st = corax_plan_targets_load(o->targets, &o->c.load, &r->in, &problems, &err);
+        st = corax_plan_targets_load(o->targets, &lo, &r->in, &problems, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         corax_findings_clear(&problems);

@@ -10,11 +10,17 @@
 #include "corax/plan_load.h"
 #include "io/fields.h"
 
+corax_plan_load_options corax_plan_load_options_default(void)
+{
+    corax_plan_load_options o = {corax_table_format_default(), NULL, CORAX_DIP_NEGATIVE_DOWN};
+    return o;
+}
+
 /* One row being read: its fields, columns and format, and why it failed. */
 typedef struct row_in {
     const corax_row *row;
     const long *col;
-    const corax_load_options *o;
+    const corax_plan_load_options *o;
     char why[200];
 } row_in;
 
@@ -165,7 +171,7 @@ static corax_status repeated_names(const table_kind *k, const char *path, const 
 }
 
 static corax_status read_table(const table_kind *k, const char *path,
-                               const corax_load_options *o, void **items, size_t *count,
+                               const corax_plan_load_options *o, void **items, size_t *count,
                                corax_findings *problems, corax_error *err)
 {
     long col[16];
@@ -213,7 +219,7 @@ static corax_status read_table(const table_kind *k, const char *path,
     return st;
 }
 
-corax_status corax_plan_holes_load(const char *path, const corax_load_options *o,
+corax_status corax_plan_holes_load(const char *path, const corax_plan_load_options *o,
                                    corax_plan_inputs *in, corax_findings *problems,
                                    corax_error *err)
 {
@@ -226,7 +232,7 @@ corax_status corax_plan_holes_load(const char *path, const corax_load_options *o
     return st;
 }
 
-corax_status corax_plan_sets_load(const char *path, const corax_load_options *o,
+corax_status corax_plan_sets_load(const char *path, const corax_plan_load_options *o,
                                   corax_plan_inputs *in, corax_findings *problems,
                                   corax_error *err)
 {
@@ -239,7 +245,7 @@ corax_status corax_plan_sets_load(const char *path, const corax_load_options *o,
     return st;
 }
 
-corax_status corax_plan_targets_load(const char *path, const corax_load_options *o,
+corax_status corax_plan_targets_load(const char *path, const corax_plan_load_options *o,
                                      corax_plan_inputs *in, corax_findings *problems,
                                      corax_error *err)
 {
