@@ -70,6 +70,16 @@ typedef struct plan_opts {
     corax_plan_range azimuth, plunge; /* the sweep in radians, plunges */
 } plan_opts;
 
+/* The dip convention of the planned holes and the swept dips, and how the
+ * plan's tables are written: from the shared options. */
+static corax_dip_convention plan_dips(const cli_common *c) { return c->load.dip_convention; }
+
+static corax_plan_load_options plan_tables(const cli_common *c)
+{
+    corax_plan_load_options lo = {c->load.format, c->columns, plan_dips(c)};
+    return lo;
+}
+
 /* "azimuth=A:B:S,dip=A:B:S" into o->range. */
 static int sweep_spec(plan_opts *o, const char *arg, char *why, size_t wl)
 {
@@ -129,7 +139,7 @@ static int plan_option(void *ctx, int opt, const char *arg, char *why, size_t wl
 /* The sweep's directions, from the ranges and the dip convention. */
 static int expand_sweep(plan_opts *o)
 {
-    corax_dip_convention conv = o->c.load.dip_convention;
+    corax_dip_convention conv = plan_dips(&o->c);
     double *az = o->range[0], *dip = o->range[1], from, to;
     for (int i = 0; i < 2; i++)
         if (corax_dip_to_plunge(dip[i], conv, i ? &to : &from) != CORAX_OK)
@@ -213,7 +223,7 @@ static int load(plan_run *r)
     corax_findings problems = {0};
     corax_error err;
     corax_error_clear(&err);
-    corax_plan_load_options lo = {o->c.load.format, o->c.columns, o->c.load.dip_convention};
+    corax_plan_load_options lo = plan_tables(&o->c);
     corax_status st = corax_plan_holes_load(o->holes, &lo, &r->in, &problems, &err);
     if (st == CORAX_OK)
         st = corax_plan_sets_load(o->sets, &lo, &r->in, &problems, &err);
@@ -339,7 +349,7 @@ static void write_best(const plan_run *r, corax_writer *w)
     for (size_t k = 0; k < r->o->ndirections; k++) {
         const corax_plan_direction *d = &r->o->directions[k];
         corax_writer_azimuth(w, corax_deg(d->azimuth), 2);
-        corax_writer_number(w, corax_plunge_to_dip(d->plunge, r->o->c.load.dip_convention), 2);
+        corax_writer_number(w, corax_plunge_to_dip(d->plunge, plan_dips(&r->o->c)), 2);
         corax_writer_number(w, d->score, 4);
         text_field(w, r->in.sets[d->worst_set].name);
         corax_writer_number(w, corax_deg(d->worst_alpha), 2);
@@ -370,7 +380,7 @@ static int write_picture(const plan_run *r)
     corax_plan_picture pic = {r->model,     o->directions,   o->ndirections,
                               o->azimuth.step, o->plunge.step, r->in.holes,
                               r->in.nholes, r->program,      r->in.ntargets,
-                              o->c.load.dip_convention, o->title};
+                              plan_dips(&o->c), o->title};
     corax_svg *svg;
     corax_error err;
     corax_error_clear(&err);
@@ -421,7 +431,7 @@ static void report_program(const plan_run *r)
         cli_note(c, "best direction of the sweep: azimuth %.1f, dip %.1f, score %.3f (worst "
                     "sampled %s, expected alpha %.1f)",
                  corax_wrap_degrees(corax_deg(d->azimuth), 1),
-                 corax_plunge_to_dip(d->plunge, c->load.dip_convention), d->score,
+                 corax_plunge_to_dip(d->plunge, plan_dips(c)), d->score,
                  r->in.sets[d->worst_set].name, corax_deg(d->worst_alpha));
     }
 }
