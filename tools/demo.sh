@@ -38,6 +38,15 @@ S="$OUT/structures.csv"
 "$CORAX" export --format csv "$S" -o "$OUT/structures-model.csv"
 "$CORAX" export --format vtk -p "$PROJECT" "$S" -o "$OUT/structures.vtk"
 
+# Planning the next holes (QP01-QP03, invented): what each would see of the two
+# main fabrics (the means and kappas the stereonet gives for bedding and
+# foliation), where each meets the Quillon lode, and the best direction within
+# the rig's limits (dip -45 to -90).
+planned=$("$CORAX" plan --holes examples/plan_holes.csv --sets examples/plan_sets.csv \
+    --targets examples/plan_targets.csv -o "$OUT/plan_sampling.csv" --pierce "$OUT/plan_pierce.csv" \
+    --sweep azimuth=0:360:5,dip=-45:-90:5 --best "$OUT/plan_best.csv" --svg "$OUT/plan_score.svg" \
+    --title "Quillon Creek: planned holes QP01 to QP03" 2>&1 | grep 'best direction')
+
 # The QA of the program: every survey and orientation finding, and the report.
 checked=$("$CORAX" check -p "$PROJECT" -o "$OUT/findings.csv" --report "$OUT/report.html" 2>&1)
 
@@ -76,4 +85,6 @@ echo "  lithology desurveyed:    $OUT/lithology.csv; contacts: $OUT/contacts.csv
 echo "  QA findings:             $OUT/findings.csv"
 echo "      ${checked#corax: }"
 echo "  QA report (open it):     $OUT/report.html"
+echo "  drill plan:              $OUT/plan_sampling.csv, plan_pierce.csv, plan_best.csv, plan_score.svg"
+echo "      ${planned#corax: note: }"
 echo "  what each run assumed:   $OUT/*.about"

@@ -15,6 +15,7 @@
 #include "corax/interval.h"
 #include "corax/load.h"
 #include "corax/output.h"
+#include "corax/plan.h"
 #include "corax/project.h"
 #include "corax/projection.h"
 #include "corax/qa.h"

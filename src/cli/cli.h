@@ -437,5 +437,6 @@ int cmd_convert(int argc, char **argv);
 int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
 int cmd_help(int argc, char **argv);
+int cmd_plan(int argc, char **argv);
 
 #endif

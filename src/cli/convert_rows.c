@@ -688,6 +688,29 @@ static void print_conventions(const corax_core_conventions *c)
            c->gamma_anticlockwise ? "anticlockwise" : "clockwise");
 }
 
+/* The alpha and beta a plane would show, with the status of the answer: a
+ * plane along the hole has no beta, and one square to it any beta. */
+static void print_inverse(corax_plan_status st, double alpha, double beta,
+                          const corax_convert_options *o)
+{
+    printf("would show   alpha %.2f, beta ", corax_deg(alpha));
+    if (st == CORAX_PLAN_PARALLEL)
+        printf("undefined (the plane runs along the hole, which never crosses it: the "
+               "ellipse has no down-hole end)\n");
+    else if (isnan(beta))
+        printf("any (the ellipse is a circle)\n");
+    else
+        printf("%.2f\n", corax_wrap_degrees(corax_deg(beta), 2));
+    printf("status       %s\n", corax_plan_status_name(st));
+    if (st == CORAX_PLAN_NEAR_PARALLEL)
+        printf("note         alpha %.2f is below %.3g: a small error in beta swings the plane "
+               "widely, and a hole this way under-samples such planes\n",
+               corax_deg(alpha), corax_deg(o->near_parallel));
+    else if (st == CORAX_PLAN_NEAR_PERPENDICULAR && !isnan(beta))
+        printf("note         alpha %.2f is above %.3g: beta is barely defined\n",
+               corax_deg(alpha), corax_deg(o->near_perpendicular));
+}
+
 int convert_one_reading(const cli_common *cc, const convert_setup *s, double hole_azimuth,
                         double hole_dip, double alpha, double beta, double gamma,
                         const double plane[2], const double line[2])
@@ -715,21 +738,20 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
         double a, b;
         if (!isnan(plane[0])) {
             corax_plane p = {corax_rad(plane[0]), corax_rad(plane[1])};
-            corax_core_plane_angles(&f, corax_plane_normal(p), &o->conventions, &a, &b);
+            corax_plan_status st = corax_plan_angles(t, corax_plane_normal(p), o, &a, &b);
             printf("plane        dip %.2f, dip direction %.2f\n", plane[0],
                    corax_wrap_degrees(plane[1], 2));
-            if (isnan(b))
-                printf("would show   alpha %.2f, beta any (the ellipse is a circle)\n",
-                       corax_deg(a));
-            else
-                printf("would show   alpha %.2f, beta %.2f\n", corax_deg(a),
-                       corax_wrap_degrees(corax_deg(b), 2));
+            print_inverse(st, a, b, o);
         } else {
             corax_vec3 l = corax_direction(corax_rad(line[0]), corax_rad(line[1]));
             corax_core_line_angles(&f, l, &o->conventions, &a, &b);
             printf("line         trend %.2f, plunge %.2f\n", corax_wrap_degrees(line[0], 2), line[1]);
-            printf("would show   line_alpha %.2f, line_beta %.2f\n", corax_deg(a),
-                   isnan(b) ? 0.0 : corax_wrap_degrees(corax_deg(b), 2));
+            if (isnan(b))
+                printf("would show   line_alpha %.2f, line_beta undefined (the line runs along "
+                       "the core axis)\n", corax_deg(a));
+            else
+                printf("would show   line_alpha %.2f, line_beta %.2f\n", corax_deg(a),
+                       corax_wrap_degrees(corax_deg(b), 2));
         }
         return EXIT_OK;
     }

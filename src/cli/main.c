@@ -19,6 +19,7 @@ static const command commands[] = {
     {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
     {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
     {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},
+    {"plan", cmd_plan, "drill planning: what planned holes would see, the best direction"},
     {"help", cmd_help, "help on a command, the column names, or the project file"},
 };
 

@@ -1,4 +1,4 @@
-/* common: printf-style text of any length. */
+/* common: printf-style text of any length, and notes built phrase by phrase. */
 #include <stdio.h>
 #include <stdlib.h>
 
@@ -22,4 +22,26 @@ const char *corax_vformat(char *small, size_t size, char **heap, size_t *len, co
     va_end(again);
     *len = (size_t)n;
     return *heap;
+}
+
+void corax_note_add(char *buf, size_t size, size_t *used, const char *fmt, ...)
+{
+    if (*used + 1 >= size)
+        return;
+    if (*used) {
+        int n = snprintf(buf + *used, size - *used, "; ");
+        *used += (size_t)n;
+        if (*used + 1 >= size) {
+            *used = size - 1;
+            return;
+        }
+    }
+    va_list ap;
+    va_start(ap, fmt);
+    int n = vsnprintf(buf + *used, size - *used, fmt, ap);
+    va_end(ap);
+    if (n > 0)
+        *used += (size_t)n;
+    if (*used >= size)
+        *used = size - 1;
 }

@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "common/format.h"
 #include "corax/convert.h"
 
 static const char *const status_word[CORAX_COND_COUNT] = {
@@ -168,29 +169,6 @@ void corax_convert_reading(const corax_hole *hole, const corax_reading *rd,
                                       given(rd->line_beta) ? rd->line_beta : 0.0, c));
 }
 
-/* Append a phrase to a note, "; " between phrases; never overflows. */
-static void add(char *buf, size_t size, size_t *used, const char *fmt, ...)
-{
-    if (*used + 1 >= size)
-        return;
-    if (*used) {
-        int n = snprintf(buf + *used, size - *used, "; ");
-        *used += (size_t)n;
-        if (*used + 1 >= size) {
-            *used = size - 1;
-            return;
-        }
-    }
-    va_list ap;
-    va_start(ap, fmt);
-    int n = vsnprintf(buf + *used, size - *used, fmt, ap);
-    va_end(ap);
-    if (n > 0)
-        *used += (size_t)n;
-    if (*used >= size)
-        *used = size - 1;
-}
-
 size_t corax_result_note(const corax_result *r, const corax_reading *rd, const corax_hole *hole,
                          const corax_convert_options *o, char *buf, size_t size)
 {
@@ -201,32 +179,34 @@ size_t corax_result_note(const corax_result *r, const corax_reading *rd, const c
         return 0;
     buf[0] = '\0';
     if ((c & CORAX_COND_INVALID) && r->invalid)
-        add(buf, size, &used, r->invalid, r->invalid_value);
+        corax_note_add(buf, size, &used, r->invalid, r->invalid_value);
     if (c & CORAX_COND_UNKNOWN_HOLE)
-        add(buf, size, &used, "the hole is not in the collar table");
+        corax_note_add(buf, size, &used, "the hole is not in the collar table");
     if (c & CORAX_COND_NO_SURVEY)
-        add(buf, size, &used, "the hole has no survey and no collar direction");
+        corax_note_add(buf, size, &used, "the hole has no survey and no collar direction");
     if (c & CORAX_COND_NO_REFERENCE)
-        add(buf, size, &used,
+        corax_note_add(buf, size, &used,
             "the hole is within %.3g degrees of vertical: no bottom-of-hole line to measure "
             "beta from",
             corax_deg(o->vertical_limit));
     if (c & CORAX_COND_UNORIENTED)
-        add(buf, size, &used, "no beta: alpha alone does not orient it");
+        corax_note_add(buf, size, &used, "no beta: alpha alone does not orient it");
     if ((c & CORAX_COND_BEYOND_END) && hole)
-        add(buf, size, &used, "depth %.2f is beyond the hole's length %.2f", rd->depth,
+        corax_note_add(buf, size, &used, "depth %.2f is beyond the hole's length %.2f", rd->depth,
             corax_hole_length(hole));
     if (c & CORAX_COND_COLLAR_ONLY)
-        add(buf, size, &used, "no downhole survey: the collar's azimuth and dip are used");
+        corax_note_add(buf, size, &used,
+                       "no downhole survey: the collar's azimuth and dip are used");
     if (c & CORAX_COND_EXTRAPOLATED)
-        add(buf, size, &used, "below the last survey station: the hole is taken as straight");
+        corax_note_add(buf, size, &used,
+                       "below the last survey station: the hole is taken as straight");
     if (c & CORAX_COND_NEAR_PARALLEL)
-        add(buf, size, &used,
+        corax_note_add(buf, size, &used,
             "alpha %.1f is below %.3g: an error in beta swings this plane almost fully, and "
             "the hole under-samples such planes",
             alpha, corax_deg(o->near_parallel));
     if (c & CORAX_COND_NEAR_PERPENDICULAR)
-        add(buf, size, &used, "alpha %.1f is above %.3g: beta is barely defined", alpha,
+        corax_note_add(buf, size, &used, "alpha %.1f is above %.3g: beta is barely defined", alpha,
             corax_deg(o->near_perpendicular));
     return used;
 }

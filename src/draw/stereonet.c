@@ -11,6 +11,7 @@
 
 #include "corax/contour.h"
 #include "corax/stereonet.h"
+#include "draw/net.h"
 #include "draw/palette.h"
 #include "geometry/vec.h"
 
@@ -31,86 +32,22 @@ corax_net_style corax_net_style_default(void)
     return s;
 }
 
-static void screen(const net *n, double x, double y, double *sx, double *sy)
+static corax_disc disc_of(const net *n)
 {
-    *sx = n->cx + n->r * x;
-    *sy = n->cy - n->r * y;
+    corax_disc d = {n->svg, n->style->projection, n->cx, n->cy, n->r};
+    return d;
 }
 
 static void place(const net *n, corax_vec3 v, double *sx, double *sy)
 {
-    double x, y;
-    corax_project(n->style->projection, v, &x, &y);
-    screen(n, x, y, sx, sy);
+    corax_disc d = disc_of(n);
+    corax_disc_place(&d, v, sx, sy);
 }
 
-/* ---- curves on the sphere ---- */
-
-static void curve_to(const net *n, corax_vec3 v, int move)
-{
-    double x, y;
-    place(n, v, &x, &y);
-    if (move)
-        corax_svg_path_move(n->svg, x, y);
-    else
-        corax_svg_path_line(n->svg, x, y);
-}
-
-/* A curve through the unit vectors p[0..m) (back to p[0] when closed), as it
- * falls on the lower hemisphere: a part above the horizontal is drawn by its
- * opposite ends, so the curve breaks where it crosses the primitive and goes
- * on from the opposite side. */
-static void sphere_curve(const net *n, const corax_vec3 *p, size_t m, int closed, const char *cls)
-{
-    double side = p[0].z > 0.0 ? -1.0 : 1.0;
-    corax_svg_path_begin(n->svg, cls);
-    curve_to(n, vec_scale(p[0], side), 1);
-    for (size_t k = 1; k < (closed ? m + 1 : m); k++) {
-        corax_vec3 a = p[k - 1], b = p[k % m];
-        double bside = b.z > 0.0 ? -1.0 : 1.0;
-        if (bside != side) {
-            corax_vec3 c = vec_comb(a, 1.0, vec_sub(b, a), a.z / (a.z - b.z));
-            c.z = 0.0;
-            c = vec_unit(c);
-            curve_to(n, vec_scale(c, side), 0);
-            side = bside;
-            curve_to(n, vec_scale(c, side), 1);
-        }
-        curve_to(n, vec_scale(b, side), 0);
-    }
-    corax_svg_path_end(n->svg, 0);
-}
-
-/* Two unit vectors making a right-handed frame with the unit vector m. */
-static void frame_about(corax_vec3 m, corax_vec3 *a, corax_vec3 *b)
-{
-    corax_vec3 helper = fabs(m.z) < 0.9 ? vec3(0, 0, 1) : vec3(1, 0, 0);
-    *a = vec_unit(vec_cross(helper, m));
-    *b = vec_cross(m, *a);
-}
-
-/* The great circle of the plane with unit normal `normal`. */
 static void great_circle(const net *n, corax_vec3 normal, const char *cls)
 {
-    corax_vec3 p[37], a, b;
-    frame_about(normal, &a, &b);
-    for (int k = 0; k < 37; k++) {
-        double t = CORAX_PI * k / 36.0;
-        p[k] = vec_comb(a, cos(t), b, sin(t));
-    }
-    sphere_curve(n, p, 37, 0, cls); /* half the circle: the other half is its antipode */
-}
-
-/* The small circle of half-angle `angle` (radians) about the unit axis m. */
-static void small_circle(const net *n, corax_vec3 m, double angle, const char *cls)
-{
-    corax_vec3 p[90], a, b;
-    frame_about(m, &a, &b);
-    for (int k = 0; k < 90; k++) {
-        double t = 2.0 * CORAX_PI * k / 90.0;
-        p[k] = vec_comb(m, cos(angle), vec_comb(a, cos(t), b, sin(t)), sin(angle));
-    }
-    sphere_curve(n, p, 90, 1, cls);
+    corax_disc d = disc_of(n);
+    corax_disc_great_circle(&d, normal, cls);
 }
 
 /* ---- density ---- */
@@ -128,7 +65,8 @@ static void grid_to_net(const net *n, double x, double y, double *sx, double *sy
         x *= r2 / r;
         y *= r2 / r;
     }
-    screen(n, x, y, sx, sy);
+    corax_disc d = disc_of(n);
+    corax_disc_screen(&d, x, y, sx, sy);
 }
 
 static void band_path(const net *n, const corax_isolines *lines, size_t band)
@@ -222,27 +160,6 @@ static corax_status draw_density(const net *n, const plan *p)
     return st;
 }
 
-/* ---- the frame of a net ---- */
-
-static void draw_frame(const net *n)
-{
-    corax_svg *svg = n->svg;
-    corax_svg_group(svg, "frame", NULL);
-    corax_svg_circle(svg, n->cx, n->cy, n->r, "primitive");
-    for (int deg = 0; deg < 360; deg += 10) {
-        double a = corax_rad(deg), len = deg % 90 ? 6.0 : 11.0, sa = sin(a), ca = cos(a);
-        corax_svg_line(svg, n->cx + n->r * sa, n->cy - n->r * ca, n->cx + (n->r + len) * sa,
-                       n->cy - (n->r + len) * ca, "tick");
-    }
-    corax_svg_line(svg, n->cx - 5, n->cy, n->cx + 5, n->cy, "tick");
-    corax_svg_line(svg, n->cx, n->cy - 5, n->cx, n->cy + 5, "tick");
-    double north[6] = {n->cx, n->cy - n->r - 30, n->cx - 6, n->cy - n->r - 14, n->cx + 6,
-                       n->cy - n->r - 14};
-    corax_svg_poly(svg, north, 3, 1, "north");
-    corax_svg_text(svg, n->cx + 10, n->cy - n->r - 16, "label", "start", "N");
-    corax_svg_end_group(svg);
-}
-
 /* ---- the side panel ---- */
 
 static void panel_text(net *n, const char *cls, double indent, const char *fmt, ...)
@@ -250,14 +167,12 @@ static void panel_text(net *n, const char *cls, double indent, const char *fmt, 
 
 static void panel_text(net *n, const char *cls, double indent, const char *fmt, ...)
 {
-    char text[256];
+    corax_panel p = {n->svg, n->px, n->py};
     va_list ap;
     va_start(ap, fmt);
-    vsnprintf(text, sizeof text, fmt, ap);
+    corax_panel_vline(&p, cls, indent, fmt, ap);
     va_end(ap);
-    if (n->svg) /* NULL while measuring the panel */
-        corax_svg_text(n->svg, n->px + indent, n->py, cls, "start", text);
-    n->py += 17.0;
+    n->py = p.y;
 }
 
 static double azimuth_deg(double radians) { return corax_wrap_degrees(corax_deg(radians), 1); }
@@ -392,7 +307,8 @@ static void draw_mean(const net *n, const corax_axial_summary *s, size_t index, 
     if (s->n >= CORAX_FISHER_MIN_READINGS && s->fisher.alpha95 > 0.0 &&
         s->fisher.alpha95 < 0.5 * CORAX_PI) {
         snprintf(cls, sizeof cls, "cone %s", stroke);
-        small_circle(n, s->fisher.mean, s->fisher.alpha95, cls);
+        corax_disc d = disc_of(n);
+        corax_disc_small_circle(&d, s->fisher.mean, s->fisher.alpha95, cls);
     }
     double x, y;
     place(n, s->fisher.mean, &x, &y);
@@ -516,7 +432,8 @@ static corax_status draw_net(net *n, const plan *p)
         if (set->line_summary && set->nlines)
             draw_mean(n, set->line_summary, p->index0 + i, 0);
     }
-    draw_frame(n);
+    corax_disc d = disc_of(n);
+    corax_disc_frame(&d);
     if (readings(p, &has_lines) == 0)
         corax_svg_text(svg, n->cx, n->cy + 30, "note", "middle", "no readings");
     draw_panel(n, p);
@@ -525,21 +442,8 @@ static corax_status draw_net(net *n, const plan *p)
 
 static void page_style(corax_svg *svg)
 {
-    char css[4096];
-    size_t used = (size_t)snprintf(css, sizeof css,
-        "text { font-family: 'DejaVu Sans', Verdana, sans-serif; fill: #1a1a1a; }\n"
-        ".title { font-size: 20px; font-weight: bold; }\n"
-        ".subtitle { font-size: 13px; fill: #444; }\n"
-        ".heading { font-size: 16px; font-weight: bold; }\n"
-        ".label { font-size: 13px; font-weight: bold; }\n"
-        ".small { font-size: 12px; }\n"
-        ".note { font-size: 12px; font-style: italic; fill: #7a3b00; }\n"
-        ".paper { fill: #ffffff; stroke: none; }\n"
-        ".primitive { fill: none; stroke: #1a1a1a; stroke-width: 1.6; }\n"
-        ".tick { stroke: #1a1a1a; stroke-width: 1; }\n"
-        ".north { fill: #1a1a1a; }\n"
+    corax_disc_style(svg,
         ".band { fill-rule: evenodd; stroke: #5b5140; stroke-width: 0.7; }\n"
-        ".pt { stroke: #1a1a1a; stroke-width: 0.6; }\n"
         ".hollow { fill: #ffffff; stroke-width: 1.6; }\n"
         ".gc { fill: none; stroke-width: 0.8; stroke-opacity: 0.75; }\n"
         ".meanplane { fill: none; stroke-width: 2.2; stroke-dasharray: 7 4; }\n"
@@ -547,13 +451,6 @@ static void page_style(corax_svg *svg)
         ".meanring { fill: #ffffff; fill-opacity: 0.6; stroke-width: 2.6; }\n"
         ".axisbox { fill: #ffffff; stroke: #1a1a1a; stroke-width: 1.2; }\n"
         ".axislabel { font-size: 10px; font-weight: bold; }\n");
-    for (size_t i = 0; i < CORAX_PALETTE_SIZE; i++)
-        used += (size_t)snprintf(css + used, sizeof css - used, ".f%zu { fill: %s; }\n"
-                                 ".k%zu { stroke: %s; }\n", i, corax_palette[i], i, corax_palette[i]);
-    for (size_t i = 0; i < CORAX_BANDS; i++)
-        used += (size_t)snprintf(css + used, sizeof css - used, ".b%zu { fill: %s; }\n", i,
-                                 corax_band_fill[i]);
-    corax_svg_style(svg, css);
 }
 
 static void page_heading(corax_svg *svg, const corax_net_style *s)

@@ -54,6 +54,13 @@ static const struct {
     {{"status", NULL}, "corax's status of a row"},
     {{"polarity", "younging", NULL}, "younging: upright, overturned or unknown"},
     {{"use", NULL}, "a survey station to use (yes) or reject (no)"},
+    {{"set", NULL}, "a planned program's structure set (corax plan)"},
+    {{"target", NULL}, "a planned program's target plane (corax plan)"},
+    {{"lift", NULL}, "a planned hole's expected lift, degrees per 30 m (corax plan)"},
+    {{"drift", NULL}, "a planned hole's expected drift, degrees per 30 m (corax plan)"},
+    {{"kappa", NULL}, "a set's Fisher concentration (corax plan)"},
+    {{"cone95", NULL}, "a set's cone of 95% confidence, degrees (corax plan)"},
+    {{"weight", NULL}, "a set's weight in the plan's score (corax plan)"},
 };
 
 enum { NKNOWN = sizeof known / sizeof known[0] };
