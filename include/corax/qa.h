@@ -46,6 +46,9 @@ typedef struct corax_qa_options {
     double turn_gain;        /* ...when the turn cuts its misfit by this fraction (0.4) */
     const char *const *low_confidence; /* confidence words taken as low (NULL-ended;
                                           default "poor", "low") */
+    double azimuth_correction; /* what was added to the survey azimuths (declination
+                                  minus convergence, radians; default 0), to name
+                                  the likely cause of an offset the holes share */
 } corax_qa_options;
 
 corax_qa_options corax_qa_options_default(void);
