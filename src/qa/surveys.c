@@ -114,7 +114,7 @@ static corax_status check_courses(const hole_ctx *c)
         if (gap > o->gap)
             st = corax_findings_add_range(
                 c->out, CORAX_WARNING, "survey-gap", c->file, b.line, c->name, a.depth, b.depth,
-                "stations at %.1f and %.1f m are %.0f m apart (more than %.0f): the path between "
+                "stations at %.1f and %.1f m are %.4g m apart (more than %.4g): the path between "
                 "them is an arc guessed from its ends",
                 a.depth, b.depth, gap, o->gap);
         if (st == CORAX_OK && dls > o->dogleg)
