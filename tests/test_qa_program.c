@@ -5,7 +5,8 @@
  * sign flipped, a comparison off by its equal case). The conventions of
  * oriented core (beta + 180 for a top-of-hole line or the up-hole end, 360
  * - beta for the other sense) are the project's geometry contract, common
- * practice; the other outside values are in docs/check-values.md. */
+ * practice; these and the other outside values are in docs/check-values.md
+ * ("QA of a drill program"). */
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>

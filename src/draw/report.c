@@ -541,9 +541,9 @@ static void program_wide(page *p)
     corax_writer_printf(p->w, "<section id=\"program-wide\"%s>\n<h2>The program as a whole"
                               "</h2>\n",
                         serious ? " class=\"alert\"" : "");
-    out(p, "<p class=\"about\">Read first: a convention or a correction applied wrongly to "
-           "the whole program turns or mirrors every structure alike, and nothing looks odd "
-           "hole by hole. corax converts every oriented reading under each reading of the "
+    out(p, "<p class=\"about\">A convention or a correction applied wrongly to the whole "
+           "program turns or mirrors every structure alike, and nothing looks odd hole by "
+           "hole. corax converts every oriented reading under each reading of the "
            "core conventions (beta + 180, beta mirrored, both) and measures how tightly each "
            "fabric clusters across the holes (Fisher's kappa, Terzaghi-weighted); it compares "
            "each collar's set-up with its first survey station for an azimuth offset the "

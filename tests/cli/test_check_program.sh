@@ -12,6 +12,8 @@
 # - slips of two or three readings in sparse logging (beta + 180, 360 -
 #   beta) are found with the default options, at their depths: the
 #   detection rate over 20 seeds, and no other warning.
+# The conventions, the declination's sign and the kappa range are common
+# practice: docs/check-values.md, "QA of a drill program".
 set -eu
 T=$TMPDIR_CLI/check_program
 mkdir -p "$T"
