@@ -60,7 +60,16 @@ typedef struct test {
     size_t n;
     double pooled[QA_READINGS];
     double *work;
+    /* per hole, for the words */
+    const char **names;
+    struct gain *gain;
+    corax_vec3 *dir;
 } test;
+
+typedef struct gain {
+    size_t hole;
+    double by;
+} gain;
 
 static int kind_of(test *t, const char *name)
 {
@@ -89,7 +98,12 @@ static corax_status gather(test *t)
     t->weight = malloc(cap * sizeof *t->weight);
     t->v = malloc(cap * sizeof *t->v);
     t->work = malloc(cap * sizeof *t->work);
-    if (!kind || !t->item || !t->hole || !t->weight || !t->v || !t->work) {
+    size_t holes = d->nholes ? d->nholes : 1;
+    t->names = malloc(holes * sizeof *t->names);
+    t->gain = malloc(holes * sizeof *t->gain);
+    t->dir = malloc(holes * sizeof *t->dir);
+    if (!kind || !t->item || !t->hole || !t->weight || !t->v || !t->work || !t->names ||
+        !t->gain || !t->dir) {
         free(kind);
         return CORAX_ENOMEM;
     }
@@ -243,11 +257,6 @@ static double hole_misfit(test *t, size_t h, int how)
     return m ? gsl_stats_select(t->work, 1, m, m / 2) : (double)NAN;
 }
 
-typedef struct gain {
-    size_t hole;
-    double by;
-} gain;
-
 static int by_gain(const void *a, const void *b)
 {
     const gain *x = a, *y = b;
@@ -255,43 +264,26 @@ static int by_gain(const void *a, const void *b)
 }
 
 /* The holes whose readings move furthest toward the rest under `how`. */
-static corax_status deciding_holes(test *t, int how, char *buf, size_t size)
+static void deciding_holes(test *t, int how, char *buf, size_t size)
 {
     qa_data *d = t->d;
-    gain *g = malloc((d->nholes ? d->nholes : 1) * sizeof *g);
-    const char **names = malloc((d->nholes ? d->nholes : 1) * sizeof *names);
-    if (!g || !names) {
-        free(g);
-        free(names);
-        return CORAX_ENOMEM;
-    }
     size_t n = 0;
     for (size_t h = 0; h < d->nholes; h++) {
         double before = hole_misfit(t, h, QA_AS_STATED), after = hole_misfit(t, h, how);
         if (before - after >= deciding_gain)
-            g[n++] = (gain){h, before - after};
+            t->gain[n++] = (gain){h, before - after};
     }
-    qsort(g, n, sizeof *g, by_gain);
+    qsort(t->gain, n, sizeof *t->gain, by_gain);
     for (size_t i = 0; i < n; i++)
-        names[i] = d->holes[g[i].hole].name;
-    qa_name_list(buf, size, names, n, SHOWN);
-    free(g);
-    free(names);
-    return CORAX_OK;
+        t->names[i] = d->holes[t->gain[i].hole].name;
+    qa_name_list(buf, size, t->names, n, SHOWN);
 }
 
 /* The holes with fabric readings, and the widest angle between two of
  * their mean directions. */
-static corax_status hole_spread(test *t, char *buf, size_t size, double *widest, size_t *count)
+static void hole_spread(test *t, char *buf, size_t size, double *widest, size_t *count)
 {
     qa_data *d = t->d;
-    corax_vec3 *dir = malloc((d->nholes ? d->nholes : 1) * sizeof *dir);
-    const char **names = malloc((d->nholes ? d->nholes : 1) * sizeof *names);
-    if (!dir || !names) {
-        free(dir);
-        free(names);
-        return CORAX_ENOMEM;
-    }
     size_t n = 0;
     for (size_t h = 0; h < d->nholes; h++) {
         corax_vec3 sum = vec3(0, 0, 0);
@@ -300,19 +292,16 @@ static corax_status hole_spread(test *t, char *buf, size_t size, double *widest,
                 if (t->hole[j] == h && d->items[t->item[j]].res.located)
                     sum = vec_add(sum, d->items[t->item[j]].res.point.tangent);
         if (vec_norm(sum) > 0.0) {
-            dir[n] = vec_unit(sum);
-            names[n++] = d->holes[h].name;
+            t->dir[n] = vec_unit(sum);
+            t->names[n++] = d->holes[h].name;
         }
     }
     *widest = 0.0;
     for (size_t a = 0; a < n; a++)
         for (size_t b = a + 1; b < n; b++)
-            *widest = fmax(*widest, vec_angle(dir[a], dir[b]));
+            *widest = fmax(*widest, vec_angle(t->dir[a], t->dir[b]));
     *count = n;
-    qa_name_list(buf, size, names, n, 4);
-    free(dir);
-    free(names);
-    return CORAX_OK;
+    qa_name_list(buf, size, t->names, n, 4);
 }
 
 /* ---- the verdict ---- */
@@ -327,9 +316,7 @@ static corax_status say_better(test *t, int best)
     fabric_lists(t, QA_AS_STATED, NULL, 0, stated, sizeof stated, NULL);
     if (more)
         snprintf(others, sizeof others, "; %zu more fabric%s alike", more, more == 1 ? "" : "s");
-    corax_status st = deciding_holes(t, best, holes, sizeof holes);
-    if (st != CORAX_OK)
-        return st;
+    deciding_holes(t, best, holes, sizeof holes);
     const char *file = d->items[t->item[0]].r->file;
     return corax_findings_add(d->out, CORAX_WARNING, "program-conventions", file, 0, NULL, NAN,
                               "the log reads as if %s: read that way, %s cluster%s across the "
@@ -345,9 +332,7 @@ static corax_status say_cannot_tell(test *t, int rival)
     char as[200], holes[200], rk[16], sk[16];
     double widest;
     size_t count;
-    corax_status st = hole_spread(t, holes, sizeof holes, &widest, &count);
-    if (st != CORAX_OK)
-        return st;
+    hole_spread(t, holes, sizeof holes, &widest, &count);
     describe(as, sizeof as, &d->convert->conventions, rival);
     kappa_text(rk, sizeof rk, t->pooled[rival]);
     kappa_text(sk, sizeof sk, t->pooled[QA_AS_STATED]);
@@ -411,5 +396,8 @@ corax_status qa_check_conventions(qa_data *d)
     free(t.weight);
     free(t.v);
     free(t.work);
+    free(t.names);
+    free(t.gain);
+    free(t.dir);
     return st;
 }
