@@ -243,7 +243,9 @@ static int reference(const judge_ctx *c, int kind, double centre, size_t from, s
 {
     const qa_hole *hole = c->hole;
     size_t want = 2 * c->d->o->min_run;
-    for (double reach = c->window;; reach *= 2.0) {
+    if (!isfinite(centre))
+        return 0;
+    for (double reach = fmax(c->window, 1.0);; reach *= 2.0) {
         double t[9] = {0};
         size_t n = 0, beyond = 0;
         for (size_t i = hole->first; i < hole->first + hole->n; i++) {
@@ -258,7 +260,7 @@ static int reference(const judge_ctx *c, int kind, double centre, size_t from, s
             qa_tensor_add(t, it->res.normal, 1.0);
             n++;
         }
-        if (n >= want || beyond == 0)
+        if (n >= want || beyond == 0 || reach > 1e6) /* depths are finite: reach takes all */
             return n >= c->d->o->min_run && qa_principal(t, axis, NULL);
     }
 }
