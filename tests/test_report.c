@@ -52,7 +52,7 @@ static corax_hole *hole(const char *name, double x, double y, double azimuth, do
 
 typedef struct fixture {
     corax_program *program;
-    corax_qa_reading reading[32];
+    corax_qa_reading reading[64];
     size_t nreading;
     corax_findings findings;
     corax_convert_options convert;
@@ -502,6 +502,90 @@ static void test_failed_write_leaves_nothing(void **state)
     free_fixture(f);
 }
 
+/* The findings about the program as a whole come first, before the
+ * summary; the summary counts the holes of the program, the collars', and
+ * names apart those only the core log gives (GHOST: a typo, most often). */
+static void test_program_first_and_holes_counted(void **state)
+{
+    (void)state;
+    fixture *f = make_fixture();
+    char *doc = write_page(&f->in, "report-counts.html");
+    assert_true(at(doc, "<section id=\"program-wide\"") < at(doc, "<section id=\"summary\">"));
+    assert_true(at(doc, "<a href=\"#program-wide\">Whole program</a>") <
+                at(doc, "<a href=\"#summary\">Summary</a>"));
+    at(doc, "the rest in 2 of its 4 holes and under 1 name that only the core log gives "
+            "(GHOST), not holes of the program.");
+    at(doc, "Program</dt><dd>4 holes in the collars");
+    /* a program-wide note alone does not frame the section as an alert */
+    assert_null(strstr(doc, "id=\"program-wide\" class=\"alert\""));
+    free(doc);
+    /* a program-wide warning does */
+    assert_int_equal(corax_findings_add(&f->findings, CORAX_WARNING, "program-conventions",
+                                        "log.csv", 0, NULL, NAN, "the log reads as if ..."),
+                     CORAX_OK);
+    assert_int_equal(corax_findings_sort(&f->findings), CORAX_OK);
+    doc = write_page(&f->in, "report-counts-alert.html");
+    size_t wide = at(doc, "<section id=\"program-wide\" class=\"alert\">");
+    assert_true(wide < at(doc, "the log reads as if ...") &&
+                at(doc, "the log reads as if ...") < at(doc, "<section id=\"summary\">"));
+    free(doc);
+    free_fixture(f);
+}
+
+/* A hole's net shades and contours the density of 20 poles or more; below
+ * that it draws the poles alone and says why. */
+static void test_net_contours_need_twenty_poles(void **state)
+{
+    (void)state;
+    for (int many = 0; many < 2; many++) {
+        fixture *f = make_fixture();
+        for (int k = 0; k < (many ? 19 : 10); k++) /* DH10 has one already */
+            add_reading(f, "DH10", 5 + 5 * k, 50 + k % 7, 280 + 3 * k, "bedding");
+        f->in.nreadings = f->nreading;
+        report_model m;
+        assert_int_equal(corax_report_model_build(&m, &f->in), CORAX_OK);
+        assert_string_equal(m.hole[3].name, "DH10");
+        report_net_counts c;
+        corax_svg *svg;
+        assert_int_equal(corax_report_net(&m, &m.hole[3], 4, &c, &svg), CORAX_OK);
+        assert_int_equal(c.poles, many ? 20 : 11);
+        assert_int_equal(c.contoured, many);
+        corax_svg_free(svg);
+        corax_report_model_free(&m);
+        char *doc = write_page(&f->in, "report-contours.html");
+        size_t part = at(doc, "<h3>DH10</h3>");
+        if (many)
+            at(doc + part, "lines hollow), shaded by their density.");
+        else
+            at(doc + part, "No density contours: 11 poles are too few to contour (it takes 20).");
+        free(doc);
+        free_fixture(f);
+    }
+}
+
+/* Readings in a hole within 5 degrees of vertical cannot be placed: no
+ * orientation line can be marked there, and the caption says so rather
+ * than blaming their values. */
+static void test_too_steep_to_place(void **state)
+{
+    (void)state;
+    fixture *f = make_fixture();
+    assert_int_equal(corax_program_add(f->program, hole("V1", 1200, 2000, 90, 88, 60, 1, 1)),
+                     CORAX_OK);
+    add_reading(f, "V1", 20, 40, 100, "bedding");
+    add_reading(f, "V1", 25, 45, 120, "bedding");
+    add_reading(f, "V1", 30, 90, 0, "bedding"); /* square to the core: placed all the same */
+    f->in.nreadings = f->nreading;
+    char *doc = write_page(&f->in, "report-steep.html");
+    size_t part = at(doc, "<h3>V1</h3>");
+    at(doc + part, "2 readings could not be placed: the hole is within 5 degrees of vertical "
+                   "there, too steep for an orientation line to be marked.");
+    assert_true(strstr(doc + part, "their values make no plane or line") == NULL ||
+                at(doc + part, "their values make no plane or line") > at(doc + part, "</article>"));
+    free(doc);
+    free_fixture(f);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -512,6 +596,9 @@ int main(void)
         cmocka_unit_test(test_large_hole_thinned),
         cmocka_unit_test(test_empty_program),
         cmocka_unit_test(test_failed_write_leaves_nothing),
+        cmocka_unit_test(test_program_first_and_holes_counted),
+        cmocka_unit_test(test_net_contours_need_twenty_poles),
+        cmocka_unit_test(test_too_steep_to_place),
     };
     return cmocka_run_group_tests_name("report", tests, NULL, NULL);
 }

@@ -29,7 +29,7 @@ typedef struct corax_finding {
     char hole[64];     /* empty when not tied to a hole */
     double depth;      /* metres, NaN when not tied to a depth */
     double depth_to;   /* the end of an interval from `depth`, else NaN */
-    char message[320];
+    char message[512];
 } corax_finding;
 
 /* A growing list of findings. Zero-initialise, then free with

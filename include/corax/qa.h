@@ -6,9 +6,12 @@
  * orientation readings (values out of range, unoriented readings in oriented
  * runs, low alpha, runs that disagree with their neighbours and whether a
  * line marked on the wrong side or a beta read the wrong way round would
- * explain it, low-confidence runs), and the program (a hole whose fabric
- * scatters more than the program's, a hole whose readings sit turned about
- * its axis or about the vertical). */
+ * explain it, low-confidence runs), and the program as a whole (findings
+ * with no hole: the log read under other conventions than stated, an azimuth
+ * offset between collars and surveys that most holes or a group share,
+ * holes turned alike about the vertical) and against its holes (a hole
+ * whose fabric scatters more than the program's, a hole whose readings sit
+ * turned about its axis or about the vertical). */
 #ifndef CORAX_QA_H
 #define CORAX_QA_H
 
@@ -32,9 +35,12 @@ typedef struct corax_qa_options {
     double collar_mismatch;  /* collar and first station apart by more (default 5 deg) */
     double steep;            /* plunge beyond which a gravity mark is unreliable (70 deg) */
     double low_alpha;        /* alpha below this (default 10 deg) */
-    double run_length;       /* inferred orientation runs (default 3 m, a barrel) */
-    size_t min_run;          /* readings of one kind a run needs to be judged (default 3) */
-    double run_window;       /* neighbours within this of a run make its reference (30 m) */
+    double run_length;       /* an orientation run's length where no runs table gives it
+                                (default 3 m, a barrel; else the table's median) */
+    size_t min_run;          /* readings of one fabric a run needs when no slip explains
+                                it (default 3; two readings can name a slip) */
+    double run_window;       /* neighbours within this of a run make its reference (30 m,
+                                further in sparse logging) */
     double run_misfit;       /* a run this far from its neighbours disagrees (25 deg) */
     size_t min_fabric;       /* readings of a kind in a hole to judge it (default 10) */
     double fabric_strength;  /* a kind whose first normalised eigenvalue reaches this is
@@ -46,6 +52,9 @@ typedef struct corax_qa_options {
     double turn_gain;        /* ...when the turn cuts its misfit by this fraction (0.4) */
     const char *const *low_confidence; /* confidence words taken as low (NULL-ended;
                                           default "poor", "low") */
+    double azimuth_correction; /* what was added to the survey azimuths (declination
+                                  minus convergence, radians; default 0), to name
+                                  the likely cause of an offset the holes share */
 } corax_qa_options;
 
 corax_qa_options corax_qa_options_default(void);
@@ -71,14 +80,19 @@ typedef struct corax_qa_run {
     long line;               /* 0 for an inferred run */
 } corax_qa_run;
 
-/* The survey checks of every hole of a program. Findings are appended, with
- * surveys_file (may be NULL) as the file their lines are in. */
+/* The survey checks of a program: an azimuth offset between the collars'
+ * set-ups and the first stations that most holes (or a group) share, then
+ * every hole. Findings are appended, with surveys_file (may be NULL) as the
+ * file their lines are in. */
 corax_status corax_qa_surveys(const corax_program *program, const char *surveys_file,
                               const corax_qa_options *options, corax_findings *out);
 
-/* The orientation and program checks. runs may be NULL (nruns 0): runs are
- * then inferred from the readings' depths, run_length apart. convert gives
- * the conventions the readings were taken under. Findings are appended. */
+/* The orientation and program checks. runs may be NULL (nruns 0); a hole
+ * without runs has them inferred from its readings (readings in a row that
+ * sit off their neighbours alike, however densely it is logged). convert
+ * gives the conventions the readings were taken under: when the program
+ * reads clearly better under others, a finding says so and the checks of
+ * each hole against the rest read it that way. Findings are appended. */
 corax_status corax_qa_readings(const corax_program *program, const corax_qa_reading *readings,
                                size_t n, const corax_qa_run *runs, size_t nruns,
                                const corax_convert_options *convert,

@@ -36,7 +36,8 @@ static const char check_help[] =
     "  --collar-mismatch DEG collar and first station further apart [5]\n"
     "  --steep DEG           plunge beyond which a gravity mark is unreliable [70]\n"
     "  --low-alpha DEG       alpha below this [10]\n"
-    "  --run-length M        inferred orientation runs [3]\n"
+    "  --run-length M        an orientation run's length when no runs table gives\n"
+    "                        them (a barrel) [3]\n"
     "  --run-misfit DEG      a run this far from its neighbours disagrees [25]\n"
     "  --hole-turn DEG       a hole fitting the program best turned further [15]\n"
     "  --low-confidence LIST confidence words taken as low [poor,low]\n"
@@ -532,6 +533,7 @@ int cmd_check(int argc, char **argv)
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
+    o.qa.azimuth_correction = corax_rad(o.c.load.declination - o.c.load.convergence);
     rc = cli_load_program_findings(&o.c, &prog, &found);
     if (rc == EXIT_OK)
         rc = load_logs(&o, prog, &l);

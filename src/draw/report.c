@@ -1,8 +1,8 @@
-/* draw: the QA report, one self-contained HTML page: the caution, a summary
- * of the findings by severity, hole and check, a plan and a section of the
- * program with the findings marked, the program-wide findings, and every
- * hole with its findings, its strip and its stereonet; the caution again at
- * the foot. Inline CSS and SVG only: no script, nothing fetched. Every text
+/* draw: the QA report, one self-contained HTML page: the caution, the
+ * findings about the program as a whole, a summary of the findings by
+ * severity, hole and check, a plan and a section of the program with the
+ * findings marked, and every hole with its findings, its strip and its
+ * stereonet; the caution again at the foot. Inline CSS and SVG only: no script, nothing fetched. Every text
  * from the data is escaped. Written through corax_writer: whole or not at
  * all. */
 #include <math.h>
@@ -95,6 +95,9 @@ static const char css_page[] =
     ".hole-figs .net{flex:1 1 440px;max-width:640px}\n"
     ".hole-figs .net svg{width:100%}\n"
     ".back{font-size:13px;margin:0}\n"
+    "#program-wide.alert{border:2px solid #e07b00;border-left-width:12px;padding:4px 18px 8px;"
+    "margin-top:24px}\n"
+    "#program-wide.alert h2{margin-top:8px}\n"
     "footer{margin-top:40px}\n"
     "@media print{body{background:#fff}.sheet{padding:0}}\n";
 
@@ -267,9 +270,9 @@ static void head(page *p)
                             m->unreadable);
     out(p, "</dd>\n</dl>\n</header>\n");
     caution_box(p, "Read this first");
-    out(p, "<nav class=\"contents\" aria-label=\"Contents\"><a href=\"#summary\">Summary</a>"
-           "<a href=\"#plan\">Plan</a><a href=\"#section\">Section</a>"
-           "<a href=\"#program-wide\">Whole program</a><a href=\"#holes\">Holes</a></nav>\n");
+    out(p, "<nav class=\"contents\" aria-label=\"Contents\"><a href=\"#program-wide\">Whole "
+           "program</a><a href=\"#summary\">Summary</a><a href=\"#plan\">Plan</a>"
+           "<a href=\"#section\">Section</a><a href=\"#holes\">Holes</a></nav>\n");
 }
 
 /* ---- the summary ---- */
@@ -374,19 +377,44 @@ static corax_status by_check(page *p)
     return CORAX_OK;
 }
 
+/* The names the core log gives that the collars lack: not holes of the
+ * program (a typo, most often), counted apart. */
+static void log_only_names(page *p, size_t *names, size_t *with)
+{
+    const report_model *m = p->m;
+    *names = *with = 0;
+    for (size_t i = 0; i < m->nhole; i++)
+        if (!m->hole[i].path && p->in->program) {
+            ++*names;
+            *with += m->hole[i].nfinding > 0;
+        }
+}
+
 static corax_status summary(page *p)
 {
     const report_model *m = p->m;
-    size_t with = 0;
+    size_t with = 0, strays, strays_with;
     for (size_t i = 0; i < m->nhole; i++)
         with += m->hole[i].nfinding > 0;
+    log_only_names(p, &strays, &strays_with);
+    size_t holes = m->nhole - strays;
     out(p, "<section id=\"summary\">\n<h2>Summary</h2>\n");
     tiles(p);
     corax_writer_printf(p->w, "<p>%zu finding%s in all: %zu about the program as a whole, the "
-                              "rest in %zu of its %zu hole%s.</p>\n",
-                        m->nfinding, m->nfinding == 1 ? "" : "s", m->nwide, with, m->nhole,
-                        m->nhole == 1 ? "" : "s");
-    out(p, "<div class=\"side-by-side\">\n");
+                              "rest in %zu of its %zu hole%s",
+                        m->nfinding, m->nfinding == 1 ? "" : "s", m->nwide, with - strays_with,
+                        holes, holes == 1 ? "" : "s");
+    if (strays) {
+        corax_writer_printf(p->w, " and under %zu name%s that only the core log gives (",
+                            strays, strays == 1 ? "" : "s");
+        for (size_t i = 0, k = 0; i < m->nhole; i++)
+            if (!m->hole[i].path) {
+                out(p, k++ ? ", " : "");
+                text(p, m->hole[i].name);
+            }
+        out(p, "), not holes of the program");
+    }
+    out(p, ".</p>\n<div class=\"side-by-side\">\n");
     by_hole(p);
     corax_status st = by_check(p);
     out(p, "</div>\n</section>\n");
@@ -502,9 +530,24 @@ static void findings_table(page *p, const size_t *index, size_t n, int depths)
     out(p, "</tbody>\n</table>\n");
 }
 
+/* The findings about the program as a whole come first: a convention or a
+ * correction applied wrongly to every hole turns every structure alike, and
+ * nothing looks odd hole by hole. */
 static void program_wide(page *p)
 {
-    out(p, "<section id=\"program-wide\">\n<h2>The program as a whole</h2>\n");
+    size_t serious = 0;
+    for (size_t i = 0; i < p->m->nwide; i++)
+        serious += p->m->finding[p->m->wide[i]].severity >= CORAX_WARNING;
+    corax_writer_printf(p->w, "<section id=\"program-wide\"%s>\n<h2>The program as a whole"
+                              "</h2>\n",
+                        serious ? " class=\"alert\"" : "");
+    out(p, "<p class=\"about\">A convention or a correction applied wrongly to the whole "
+           "program turns or mirrors every structure alike, and nothing looks odd hole by "
+           "hole. corax converts every oriented reading under each reading of the "
+           "core conventions (beta + 180, beta mirrored, both) and measures how tightly each "
+           "fabric clusters across the holes (Fisher's kappa, Terzaghi-weighted); it compares "
+           "each collar's set-up with its first survey station for an azimuth offset the "
+           "holes share; and it looks for holes turned alike about the vertical.</p>\n");
     if (p->m->nwide == 0)
         out(p, "<p class=\"verdict clean\">No findings about the program as a whole.</p>\n");
     else
@@ -577,8 +620,14 @@ static void net_caption(page *p, const report_hole *h, const report_net_counts *
 {
     corax_writer_printf(p->w, "<figcaption>Lower hemisphere, equal area: the %zu reading%s "
                               "that convert to true orientations (poles of planes filled, "
-                              "lines hollow), shaded by their density. ",
-                        c->placed, c->placed == 1 ? "" : "s");
+                              "lines hollow)%s. ",
+                        c->placed, c->placed == 1 ? "" : "s",
+                        c->contoured ? ", shaded by their density" : "");
+    if (!c->contoured && c->poles)
+        corax_writer_printf(p->w, "No density contours: %zu pole%s %s too few to contour "
+                                  "(it takes %d). ",
+                            c->poles, c->poles == 1 ? "" : "s", c->poles == 1 ? "is" : "are",
+                            REPORT_NET_CONTOURS);
     if (c->flagged)
         corax_writer_printf(p->w, "The %zu in stretches named by a warning or an error are "
                                   "orange squares, the rest blue circles.",
@@ -592,9 +641,16 @@ static void net_caption(page *p, const report_hole *h, const report_net_counts *
     if (c->no_beta)
         corax_writer_printf(p->w, " %zu reading%s an alpha but no beta, so no plane.",
                             c->no_beta, c->no_beta == 1 ? " has" : "s have");
-    if (c->unplaced > c->no_beta)
-        corax_writer_printf(p->w, " %zu reading%s could not be placed: %s.",
-                            c->unplaced - c->no_beta, c->unplaced - c->no_beta == 1 ? "" : "s",
+    if (c->too_steep)
+        corax_writer_printf(p->w, " %zu reading%s could not be placed: the hole is within "
+                                  "%.0f degrees of vertical there, too steep for an orientation "
+                                  "line to be marked.",
+                            c->too_steep, c->too_steep == 1 ? "" : "s",
+                            corax_deg(p->m->convert.vertical_limit));
+    size_t other = c->unplaced - c->no_beta - c->too_steep;
+    if (other)
+        corax_writer_printf(p->w, " %zu reading%s could not be placed: %s.", other,
+                            other == 1 ? "" : "s",
                             h->traced ? "their values make no plane or line"
                                       : "the hole has no path to orient them by");
     out(p, "</figcaption>\n");
@@ -668,10 +724,10 @@ static corax_status whole_page(page *p)
 {
     head(p);
     out(p, "<main>\n");
+    program_wide(p);
     corax_status st = summary(p);
     if (st == CORAX_OK)
         st = views(p);
-    program_wide(p);
     if (st == CORAX_OK)
         st = holes(p);
     out(p, "</main>\n<footer>\n");

@@ -110,8 +110,17 @@ typedef struct report_net_counts {
     size_t flagged;   /* of which in flagged stretches */
     size_t unplaced;  /* readings that gave neither... */
     size_t no_beta;   /* ...of which for want of a beta (an alpha alone) */
+    size_t too_steep; /* ...of which because the hole is too near vertical there for
+                         an orientation line */
     size_t drawn;     /* readings drawn, when the net was thinned; else placed */
+    size_t poles;     /* poles drawn */
+    int contoured;    /* the density is shaded and contoured (REPORT_NET_CONTOURS poles
+                         or more) */
 } report_net_counts;
+
+/* Fewer poles than this on a hole's net are drawn without density contours:
+ * a handful of poles gives contours that mean nothing. */
+enum { REPORT_NET_CONTOURS = 20 };
 
 /* The stereonet of a hole's readings: those in flagged stretches picked out
  * from the rest. *out is NULL when nothing could be placed. `index` makes its

@@ -384,6 +384,8 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         counts->placed += keep[j];
         counts->unplaced += !keep[j];
         counts->no_beta += !keep[j] && h->traced && isfinite(r->alpha) && !isfinite(r->beta);
+        counts->too_steep += !keep[j] && (res[j].conditions & CORAX_COND_NO_REFERENCE) &&
+                             isfinite(r->beta);
         counts->flagged += keep[j] && m->flagged[i];
         rest += keep[j] && !m->flagged[i];
     }
@@ -418,6 +420,9 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         snprintf(prefix, sizeof prefix, "hole%zu-net", index);
         corax_net_style style = corax_net_style_default();
         style.grid = 61; /* a small net: a coarser density grid looks as smooth */
+        counts->poles = np[0] + np[1];
+        counts->contoured = counts->poles >= REPORT_NET_CONTOURS;
+        style.contours = counts->contoured;
         style.title = title;
         style.id_prefix = prefix;
         st = corax_stereonet_page(sets, 2, &style, 0, out);

@@ -133,9 +133,10 @@ enum { TURN_BETA, TURN_MIRROR, TURN_VERTICAL, NTURNS };
 /* A reading of hole h under a trial turn; 0 when it gives no plane. */
 static int turned(const qa_data *d, const qa_item *it, int mode, double angle, corax_vec3 *n)
 {
-    double beta = it->r->reading.beta;
+    double beta = qa_beta_read(it->r->reading.beta, d->reading);
     switch (mode) {
-    case TURN_BETA: return angle == 0.0 ? (*n = it->res.normal, 1) : qa_reconvert(d, it, beta + angle, n);
+    case TURN_BETA: return angle == 0.0 ? qa_normal_as(d, it, QA_AS_STATED, n)
+                                        : qa_reconvert(d, it, beta + angle, n);
     case TURN_MIRROR: return qa_reconvert(d, it, 2.0 * CORAX_PI - beta + angle, n);
     default: {
         double c = cos(angle), s = sin(angle), x = it->res.normal.x, y = it->res.normal.y;
@@ -189,51 +190,153 @@ static double best_turn(const qa_data *d, program *p, size_t h, const corax_vec3
     return best;
 }
 
+/* How a turn reads: "with every beta turned by 325 degrees", "with beta
+ * mirrored (read as 47 - beta)", "turned 12 degrees anticlockwise about the
+ * vertical". The angle is rounded before it is wrapped, so that a turn of
+ * -0.2 degrees never reads as 360. */
+static void turn_words(char *buf, size_t size, int mode, double angle)
+{
+    double deg = corax_deg(angle);
+    switch (mode) {
+    case TURN_BETA:
+        snprintf(buf, size, "with every beta turned by %.0f degrees: a reference line or "
+                            "convention of its own?",
+                 corax_wrap_degrees(deg, 0));
+        return;
+    case TURN_MIRROR: {
+        double at = corax_wrap_degrees(deg, 0);
+        snprintf(buf, size, "with beta mirrored (read as %.0f - beta): beta read the other way "
+                            "round in this hole?",
+                 at == 0.0 ? 360.0 : at);
+        return;
+    }
+    default:
+        snprintf(buf, size, "turned %.0f degrees %s about the vertical (seen from above): a "
+                            "declination or grid correction missed or doubled for this hole?",
+                 fabs(deg), deg >= 0.0 ? "clockwise" : "anticlockwise");
+    }
+}
+
+/* A hole's best turn about the vertical, kept to see whether several holes
+ * turn alike. */
+typedef struct vertical_turn {
+    size_t hole;
+    double angle;
+} vertical_turn;
+
+/* The references of hole h: each program fabric's axis in the other holes.
+ * Returns how many of the hole's readings have one, and in *kinds how many
+ * fabrics have min_run of its readings or more. */
+static size_t references(const qa_data *d, const program *p, size_t h, corax_vec3 *reference,
+                         size_t *kinds)
+{
+    size_t usable = 0;
+    *kinds = 0;
+    for (size_t k = 0; k < p->nf; k++) {
+        const fabric *f = &p->f[k];
+        double rest[9];
+        for (int i = 0; i < 9; i++)
+            rest[i] = f->all[i] - f->hole[9 * h + i];
+        reference[k] = vec3(NAN, NAN, NAN);
+        size_t mine = readings_of(f, h);
+        if (program_fabric(d, f) && f->n - mine >= d->o->min_fabric &&
+            qa_principal(rest, &reference[k], NULL)) {
+            usable += mine;
+            *kinds += mine >= d->o->min_run;
+        }
+    }
+    return usable;
+}
+
+/* One hole against the rest: which turn, if any, fits it clearly better.
+ * A turn is only told from a fabric that differs in the hole when two
+ * fabrics or more agree on it: one fabric can always be brought onto the
+ * rest by some turn. -1 when none. */
+static int hole_turn(const qa_data *d, program *p, size_t h, double *angle, double *got,
+                     double *base)
+{
+    corax_vec3 reference[MAX_KINDS];
+    size_t kinds;
+    if (references(d, p, h, reference, &kinds) < d->o->min_fabric || kinds < 2)
+        return -1;
+    *base = misfit(d, p, h, reference, TURN_BETA, 0.0);
+    int best = -1;
+    for (int mode = 0; mode < NTURNS; mode++) {
+        got[mode] = best_turn(d, p, h, reference, mode, &angle[mode]);
+        int far = mode == TURN_MIRROR || fabs(angle[mode]) > d->o->hole_turn;
+        if (far && got[mode] < (1.0 - d->o->turn_gain) * *base &&
+            (best < 0 || got[mode] < got[best]))
+            best = mode;
+    }
+    return best;
+}
+
+/* Several holes turned alike about the vertical: one correction missing or
+ * doubled in all of their surveys. */
+static corax_status turned_alike(qa_data *d, vertical_turn *v, size_t n)
+{
+    const double alike = corax_rad(5.0);
+    if (n < 2)
+        return CORAX_OK;
+    double *a = malloc(n * sizeof *a);
+    const char **names = malloc(n * sizeof *names);
+    corax_status st = a && names ? CORAX_OK : CORAX_ENOMEM;
+    if (st == CORAX_OK) {
+        for (size_t i = 0; i < n; i++)
+            a[i] = v[i].angle;
+        double mid = gsl_stats_select(a, 1, n, n / 2);
+        size_t m = 0;
+        for (size_t i = 0; i < n; i++)
+            if (fabs(v[i].angle - mid) <= alike) {
+                a[m] = v[i].angle;
+                names[m++] = d->holes[v[i].hole].name;
+            }
+        if (m >= 2) {
+            char list[200];
+            qa_name_list(list, sizeof list, names, m, 6);
+            double mean = gsl_stats_mean(a, 1, m), sd = gsl_stats_sd_m(a, 1, m, mean);
+            st = corax_findings_add(
+                d->out, CORAX_WARNING, "holes-turned-alike", d->items[d->holes[v[0].hole].first].r->file,
+                0, NULL, NAN,
+                "%zu holes (%s) fit the rest of the program best turned %.1f +- %.1f degrees %s "
+                "about the vertical (seen from above): a declination or grid correction missed, "
+                "doubled or of the wrong sign in their surveys alone (another tool or survey "
+                "company?)",
+                m, list, fabs(corax_deg(mean)), corax_deg(sd),
+                mean >= 0.0 ? "clockwise" : "anticlockwise");
+        }
+    }
+    free(a);
+    free(names);
+    return st;
+}
+
 static corax_status check_turns(qa_data *d, program *p)
 {
-    static const char *const what[NTURNS] = {
-        "with every beta turned by %.0f degrees: a reference line or convention of its own?",
-        "with beta mirrored (360 - beta) and turned by %.0f degrees: beta read the other way "
-        "round in this hole?",
-        "turned %.0f degrees about the vertical: a declination or grid correction missed or "
-        "doubled for this hole?"};
+    vertical_turn *vertical = malloc((d->nholes ? d->nholes : 1) * sizeof *vertical);
+    if (!vertical)
+        return CORAX_ENOMEM;
+    size_t nvertical = 0;
     corax_status st = CORAX_OK;
     for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++) {
-        corax_vec3 reference[MAX_KINDS];
-        size_t usable = 0;
-        for (size_t k = 0; k < p->nf; k++) {
-            const fabric *f = &p->f[k];
-            double rest[9];
-            for (int i = 0; i < 9; i++)
-                rest[i] = f->all[i] - f->hole[9 * h + i];
-            reference[k] = vec3(NAN, NAN, NAN);
-            size_t mine = readings_of(f, h);
-            if (program_fabric(d, f) && f->n - mine >= d->o->min_fabric &&
-                qa_principal(rest, &reference[k], NULL))
-                usable += mine;
-        }
-        if (usable < d->o->min_fabric)
-            continue;
-        double base = misfit(d, p, h, reference, TURN_BETA, 0.0), angle[NTURNS], got[NTURNS];
-        int best = -1;
-        for (int mode = 0; mode < NTURNS; mode++) {
-            got[mode] = best_turn(d, p, h, reference, mode, &angle[mode]);
-            int far = mode == TURN_MIRROR || fabs(angle[mode]) > d->o->hole_turn;
-            if (far && got[mode] < (1.0 - d->o->turn_gain) * base &&
-                (best < 0 || got[mode] < got[best]))
-                best = mode;
-        }
+        double angle[NTURNS], got[NTURNS], base;
+        int best = hole_turn(d, p, h, angle, got, &base);
         if (best < 0)
             continue;
-        char how[200];
-        double deg = corax_deg(angle[best]);
-        snprintf(how, sizeof how, what[best], best == TURN_VERTICAL ? deg : fmod(deg + 360.0, 360.0));
+        if (best == TURN_VERTICAL)
+            vertical[nvertical++] = (vertical_turn){h, angle[best]};
+        char how[240];
+        turn_words(how, sizeof how, best, angle[best]);
         st = corax_findings_add(d->out, CORAX_WARNING, "hole-turned",
                                 d->items[d->holes[h].first].r->file, 0, d->holes[h].name, NAN,
-                                "the readings of this hole fit the rest of the program best %s "
+                                "the readings of this hole fit the rest of the program%s best %s "
                                 "(typical misfit %.0f degrees, %.0f as read)",
+                                d->reading ? " (read as the program-wide finding suggests)" : "",
                                 how, corax_deg(got[best]), corax_deg(base));
     }
+    if (st == CORAX_OK)
+        st = turned_alike(d, vertical, nvertical);
+    free(vertical);
     return st;
 }
 

@@ -1,8 +1,11 @@
 /* qa: the core log's readings: converted, grouped by hole, placed in their
  * orientation runs, and checked one by one; then the run and program checks. */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+
+#include <gsl/gsl_statistics_double.h>
 
 #include "corax/stats.h"
 #include "geometry/vec.h"
@@ -11,6 +14,15 @@
 double qa_axial_angle(corax_vec3 a, corax_vec3 b)
 {
     return fast_atan2(vec_norm(vec_cross(a, b)), fabs(vec_dot(a, b)));
+}
+
+double qa_beta_read(double beta, int how)
+{
+    if (how & QA_MIRRORED)
+        beta = 2.0 * CORAX_PI - beta;
+    if (how & QA_PLUS_180)
+        beta += CORAX_PI;
+    return beta;
 }
 
 int qa_reconvert(const qa_data *d, const qa_item *it, double beta, corax_vec3 *normal)
@@ -23,6 +35,35 @@ int qa_reconvert(const qa_data *d, const qa_item *it, double beta, corax_vec3 *n
         return 0;
     *normal = res.normal;
     return 1;
+}
+
+int qa_normal_turned(const qa_data *d, const qa_item *it, int how, double turn,
+                     corax_vec3 *normal)
+{
+    if (how == QA_AS_STATED && turn == 0.0) {
+        *normal = it->res.normal;
+        return it->res.has_plane;
+    }
+    double beta = qa_beta_read(qa_beta_read(it->r->reading.beta, d->reading), how);
+    return qa_reconvert(d, it, beta + turn, normal);
+}
+
+int qa_normal_as(const qa_data *d, const qa_item *it, int how, corax_vec3 *normal)
+{
+    return qa_normal_turned(d, it, how, 0.0, normal);
+}
+
+void qa_name_list(char *buf, size_t size, const char *const *names, size_t n, size_t shown)
+{
+    size_t used = 0;
+    buf[0] = '\0';
+    size_t listed = n > shown ? shown : n;
+    for (size_t i = 0; i < listed && used < size; i++) {
+        const char *sep = i == 0 ? "" : (i + 1 == listed && listed == n) ? " and " : ", ";
+        used += (size_t)snprintf(buf + used, size - used, "%s%s", sep, names[i]);
+    }
+    if (listed < n && used < size)
+        snprintf(buf + used, size - used, " and %zu more", n - listed);
 }
 
 void qa_tensor_add(double t[9], corax_vec3 v, double sign)
@@ -99,7 +140,7 @@ static corax_status group(qa_data *d, const corax_qa_reading *r, size_t n)
         size_t hint = 0;
         corax_convert_reading(it->r->path, &it->r->reading, d->convert, &hint, &it->res);
         if (i == 0 || k[i].rank != k[i - 1].rank)
-            d->holes[d->nholes++] = (qa_hole){it->r->hole, it->r->path, i, 0};
+            d->holes[d->nholes++] = (qa_hole){it->r->hole, it->r->path, i, 0, 0};
         d->holes[d->nholes - 1].n++;
     }
     free(k);
@@ -131,64 +172,90 @@ static corax_status add_run(qa_data *d, size_t *cap, corax_qa_run run)
     return CORAX_OK;
 }
 
-/* Runs from the table, by hole and depth, each reading placed in its own. */
-static corax_status given_runs(qa_data *d, const corax_qa_run *runs, size_t n)
+/* The runs of one hole from the table (sorted by hole and depth), each
+ * reading placed in its own. */
+static corax_status hole_given_runs(qa_data *d, qa_hole *hole, const corax_qa_run *sorted,
+                                    size_t n, size_t *cap)
+{
+    size_t lo = 0, hi = n; /* the hole's runs: the first with its name */
+    while (lo < hi) {
+        size_t mid = lo + (hi - lo) / 2;
+        if (strcmp(sorted[mid].hole, hole->name) < 0)
+            lo = mid + 1;
+        else
+            hi = mid;
+    }
+    size_t first = d->nruns;
+    for (size_t k = lo; k < n && strcmp(sorted[k].hole, hole->name) == 0; k++)
+        if (add_run(d, cap, sorted[k]) != CORAX_OK)
+            return CORAX_ENOMEM;
+    hole->given_runs = d->nruns > first;
+    size_t k = first;
+    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
+        double depth = d->items[i].r->reading.depth;
+        while (k < d->nruns && d->runs[k].to < depth)
+            k++;
+        if (k < d->nruns && d->runs[k].from <= depth)
+            d->items[i].run = k;
+    }
+    return CORAX_OK;
+}
+
+/* Runs of one hole inferred from the depths, for the tallies of what is in
+ * them: a run begins at a reading and takes in the readings less than a
+ * barrel below it. */
+static corax_status hole_inferred_runs(qa_data *d, const qa_hole *hole, size_t *cap)
+{
+    size_t first = d->nruns;
+    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
+        qa_item *it = &d->items[i];
+        double depth = it->r->reading.depth;
+        if (isnan(depth))
+            continue;
+        if (d->nruns == first || depth >= d->runs[d->nruns - 1].to) {
+            corax_qa_run run = {hole->name, depth, depth + d->barrel, "", it->r->file, 0};
+            if (add_run(d, cap, run) != CORAX_OK)
+                return CORAX_ENOMEM;
+        }
+        it->run = d->nruns - 1;
+    }
+    return CORAX_OK;
+}
+
+/* The usual length of the table's runs (their median), else `fallback`. */
+static double barrel_of(corax_qa_run *runs, size_t n, double fallback)
+{
+    double *len = malloc((n ? n : 1) * sizeof *len);
+    if (!len || n == 0) {
+        free(len);
+        return fallback;
+    }
+    for (size_t i = 0; i < n; i++)
+        len[i] = runs[i].to - runs[i].from;
+    double b = gsl_stats_select(len, 1, n, n / 2);
+    free(len);
+    return b > 0.0 ? b : fallback;
+}
+
+/* Every hole's runs: the table's where it has them, else inferred. */
+static corax_status place_runs(qa_data *d, const corax_qa_run *runs, size_t n)
 {
     corax_qa_run *sorted = malloc((n ? n : 1) * sizeof *sorted);
     if (!sorted)
         return CORAX_ENOMEM;
-    memcpy(sorted, runs, n * sizeof *sorted);
+    if (n)
+        memcpy(sorted, runs, n * sizeof *sorted);
     qsort(sorted, n, sizeof *sorted, run_cmp);
+    d->barrel = barrel_of(sorted, n, d->o->run_length);
     size_t cap = 0;
     corax_status st = CORAX_OK;
     for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++) {
-        const qa_hole *hole = &d->holes[h];
-        size_t lo = 0, hi = n; /* the hole's runs: the first with its name */
-        while (lo < hi) {
-            size_t mid = lo + (hi - lo) / 2;
-            if (strcmp(sorted[mid].hole, hole->name) < 0)
-                lo = mid + 1;
-            else
-                hi = mid;
-        }
-        size_t first = d->nruns;
-        for (size_t k = lo; k < n && strcmp(sorted[k].hole, hole->name) == 0 && st == CORAX_OK; k++)
-            st = add_run(d, &cap, sorted[k]);
-        size_t k = first;
-        for (size_t i = hole->first; i < hole->first + hole->n && st == CORAX_OK; i++) {
-            double depth = d->items[i].r->reading.depth;
-            while (k < d->nruns && d->runs[k].to < depth)
-                k++;
-            if (k < d->nruns && d->runs[k].from <= depth)
-                d->items[i].run = k;
-        }
+        st = hole_given_runs(d, &d->holes[h], sorted, n, &cap);
+        if (st == CORAX_OK && !d->holes[h].given_runs)
+            st = hole_inferred_runs(d, &d->holes[h], &cap);
     }
     free(sorted);
     return st;
-}
-
-/* Runs inferred from the depths: a run begins at a reading and takes in the
- * readings within run_length below it. */
-static corax_status inferred_runs(qa_data *d)
-{
-    size_t cap = 0;
-    for (size_t h = 0; h < d->nholes; h++) {
-        const qa_hole *hole = &d->holes[h];
-        for (size_t i = hole->first; i < hole->first + hole->n; i++) {
-            qa_item *it = &d->items[i];
-            double depth = it->r->reading.depth;
-            if (isnan(depth))
-                continue;
-            corax_qa_run *last = d->nruns ? &d->runs[d->nruns - 1] : NULL;
-            if (!last || last->hole != hole->name || depth >= last->to) {
-                corax_qa_run run = {hole->name, depth, depth + d->o->run_length, "", it->r->file, 0};
-                if (add_run(d, &cap, run) != CORAX_OK)
-                    return CORAX_ENOMEM;
-            }
-            it->run = d->nruns - 1;
-        }
-    }
-    return CORAX_OK;
 }
 
 /* ---- one reading at a time ---- */
@@ -253,11 +320,13 @@ corax_status corax_qa_readings(const corax_program *prog, const corax_qa_reading
     d.out = out;
     corax_status st = group(&d, r, n);
     if (st == CORAX_OK)
-        st = nruns ? given_runs(&d, runs, nruns) : inferred_runs(&d);
+        st = place_runs(&d, runs, nruns);
     if (st == CORAX_OK)
         st = check_readings(&d, prog);
     if (st == CORAX_OK)
         st = qa_check_runs(&d);
+    if (st == CORAX_OK)
+        st = qa_check_conventions(&d);
     if (st == CORAX_OK)
         st = qa_check_program(&d);
     free(d.items);

@@ -1,10 +1,15 @@
-/* qa: the survey checks of a drill program, hole by hole. */
+/* qa: the survey checks of a drill program: an azimuth offset between the
+ * collars and their surveys that most holes share, then hole by hole. */
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
+#include <gsl/gsl_statistics_double.h>
+#include <stdio.h>
+
 #include "corax/qa.h"
 #include "geometry/vec.h"
+#include "qa/qa_int.h"
 
 corax_qa_options corax_qa_options_default(void)
 {
@@ -29,6 +34,7 @@ corax_qa_options corax_qa_options_default(void)
     o.hole_turn = corax_rad(15.0);
     o.turn_gain = 0.4;
     o.low_confidence = low;
+    o.azimuth_correction = 0.0;
     return o;
 }
 
@@ -50,6 +56,8 @@ typedef struct hole_ctx {
     corax_findings *out;
     const char *file; /* the survey table, for the lines findings name */
     size_t n;
+    double offset;    /* the azimuth offset most holes share (first station minus
+                         collar), taken out before a hole's own is judged; 0 when none */
 } hole_ctx;
 
 static corax_station station(const corax_hole *h, size_t i)
@@ -106,7 +114,7 @@ static corax_status check_courses(const hole_ctx *c)
         if (gap > o->gap)
             st = corax_findings_add_range(
                 c->out, CORAX_WARNING, "survey-gap", c->file, b.line, c->name, a.depth, b.depth,
-                "stations at %.1f and %.1f m are %.0f m apart (more than %.0f): the path between "
+                "stations at %.1f and %.1f m are %.4g m apart (more than %.4g): the path between "
                 "them is an arc guessed from its ends",
                 a.depth, b.depth, gap, o->gap);
         if (st == CORAX_OK && dls > o->dogleg)
@@ -172,15 +180,21 @@ static corax_status check_ends(const hole_ctx *c)
                                       first.depth);
     if (st == CORAX_OK && col->has_direction) {
         corax_vec3 a = corax_direction(col->azimuth, col->plunge);
-        corax_vec3 b = corax_direction(first.azimuth, first.plunge);
+        corax_vec3 b = corax_direction(first.azimuth - c->offset, first.plunge);
         double apart = vec_angle(a, b);
+        char shared[80] = "";
+        if (c->offset != 0.0)
+            snprintf(shared, sizeof shared, " once the offset most holes share (%.1f %s) is "
+                                            "taken out",
+                     fabs(corax_deg(c->offset)), c->offset < 0.0 ? "west" : "east");
         if (apart > o->collar_mismatch)
             st = corax_findings_add(
                 c->out, CORAX_WARNING, "collar-vs-survey", c->file, first.line, c->name, 0.0,
                 "the collar is set up at azimuth %.1f plunging %.1f, but the first station (%.1f m) "
-                "reads azimuth %.1f plunging %.1f, %.1f degrees apart: which is right?",
+                "reads azimuth %.1f plunging %.1f, %.1f degrees apart%s: which is right?",
                 corax_deg(col->azimuth), corax_deg(col->plunge), first.depth,
-                corax_deg(first.azimuth), corax_deg(first.plunge), corax_deg(apart));
+                corax_deg(corax_wrap_azimuth(first.azimuth)), corax_deg(first.plunge),
+                corax_deg(apart), shared);
     }
     if (st == CORAX_OK && isfinite(col->length) && col->length > 0.0 && last.depth > col->length)
         st = corax_findings_add(c->out, CORAX_WARNING, "survey-past-end", c->file, last.line, c->name,
@@ -224,10 +238,164 @@ static corax_status check_steep(const hole_ctx *c)
     return CORAX_OK;
 }
 
+/* ---- an offset shared by the program ---- */
+
+/* Collar and first station within this of the shared offset share it. */
+static const double share_tolerance = 0.0349; /* 2 degrees */
+
+/* The azimuth a hole's first station reads past its collar's (signed, in
+ * (-pi, pi]); 0 when the hole has no such pair or is too steep for an
+ * azimuth to mean much. */
+static int hole_offset(const corax_hole *h, double *offset)
+{
+    const double vertical = corax_rad(80.0);
+    const corax_collar *col = corax_hole_collar(h);
+    corax_station first;
+    if (!col->has_direction || corax_hole_station_count(h) == 0 ||
+        corax_hole_station(h, 0, &first, NULL, NULL) != CORAX_OK ||
+        fabs(col->plunge) > vertical || fabs(first.plunge) > vertical)
+        return 0;
+    *offset = turn(col->azimuth, first.azimuth);
+    return 1;
+}
+
+/* What a shared offset of `mean` says, given the correction the surveys got. */
+static void offset_cause(char *buf, size_t size, double mean, double applied)
+{
+    const double near = corax_rad(1.0);
+    double needed = corax_deg(applied - mean);
+    if (fabs(applied) < corax_rad(0.05))
+        snprintf(buf, size, "a declination or grid correction not applied? (%.1f degrees %s "
+                            "would bring them back)",
+                 fabs(needed), needed >= 0.0 ? "east" : "west");
+    else if (fabs(mean - applied) <= near)
+        snprintf(buf, size, "the correction of %+.1f applied to surveys that already read true "
+                            "or grid north (applied twice)?",
+                 corax_deg(applied));
+    else if (fabs(mean - 2.0 * applied) <= near)
+        snprintf(buf, size, "the correction of %+.1f applied with the wrong sign?",
+                 corax_deg(applied));
+    else
+        snprintf(buf, size, "a correction of %+.1f rather than the %+.1f applied would bring "
+                            "them back: a declination or grid correction wrong?",
+                 needed, corax_deg(applied));
+}
+
+/* The holes whose offsets lie within share_tolerance of the median of the
+ * offsets not yet taken (taken[k] 0), marked with `mark`; their mean and
+ * spread. Returns how many. */
+typedef struct offsets {
+    double *value;     /* per hole with an offset */
+    const char **name;
+    int *taken;        /* 0 free, else the group's mark */
+    double *scratch;
+    size_t n;
+} offsets;
+
+static size_t group(offsets *g, int mark, double *mean, double *sd)
+{
+    size_t n = 0;
+    for (size_t k = 0; k < g->n; k++)
+        if (!g->taken[k])
+            g->scratch[n++] = g->value[k];
+    if (n == 0)
+        return 0;
+    double mid = gsl_stats_select(g->scratch, 1, n, n / 2);
+    size_t m = 0;
+    for (size_t k = 0; k < g->n; k++)
+        if (!g->taken[k] && fabs(g->value[k] - mid) <= share_tolerance) {
+            g->taken[k] = mark;
+            g->scratch[m++] = g->value[k];
+        }
+    *mean = gsl_stats_mean(g->scratch, 1, m);
+    *sd = m > 1 ? gsl_stats_sd_m(g->scratch, 1, m, *mean) : 0.0;
+    return m;
+}
+
+/* The names of the holes in a group (`in`) or out of it, "A, B and C". */
+static void group_names(const offsets *g, int mark, int in, char *buf, size_t size)
+{
+    const char **names = malloc((g->n + 1) * sizeof *names);
+    size_t n = 0;
+    for (size_t k = 0; names && k < g->n; k++)
+        if ((g->taken[k] == mark) == in)
+            names[n++] = g->name[k];
+    if (names)
+        qa_name_list(buf, size, names, n, 3);
+    else
+        snprintf(buf, size, "some");
+    free(names);
+}
+
+/* A constant azimuth offset between the collars' set-ups and the first
+ * stations that most holes share: a declination or grid correction not
+ * applied, applied twice, or applied with the wrong sign. Then a group of
+ * two holes or more whose offsets agree with each other but not with the
+ * rest: a correction missing (or doubled) in their surveys alone. *shared
+ * gets the first (0 when there is none), for the holes' own comparisons. */
+static corax_status check_shared_offset(const corax_program *prog, const char *file,
+                                        const corax_qa_options *o, corax_findings *out,
+                                        double *shared)
+{
+    const double matters = corax_rad(2.0); /* smaller offsets are set-up noise */
+    size_t n = corax_program_size(prog) + 1;
+    offsets g = {malloc(n * sizeof(double)), malloc(n * sizeof(char *)), calloc(n, sizeof(int)),
+                 malloc(n * sizeof(double)), 0};
+    *shared = 0.0;
+    corax_status st = g.value && g.name && g.taken && g.scratch ? CORAX_OK : CORAX_ENOMEM;
+    for (size_t k = 0; st == CORAX_OK && k + 1 < n; k++) {
+        const corax_hole *h = corax_program_hole(prog, k);
+        if (hole_offset(h, &g.value[g.n]))
+            g.name[g.n++] = corax_hole_name(h);
+    }
+    double mean = 0.0, sd = 0.0, gmean, gsd;
+    size_t most = st == CORAX_OK && g.n >= 3 ? group(&g, 1, &mean, &sd) : 0;
+    char cause[240], list[120], others[160] = "";
+    if (most >= 3 && 3 * most >= 2 * g.n && fabs(mean) >= matters &&
+        fabs(mean) >= 3.0 * sd / sqrt((double)most)) {
+        offset_cause(cause, sizeof cause, mean, o->azimuth_correction);
+        if (most < g.n) {
+            group_names(&g, 1, 0, list, sizeof list);
+            snprintf(others, sizeof others, " (all but %s)", list);
+        }
+        *shared = mean;
+        st = corax_findings_add(out, CORAX_WARNING, "azimuth-offset", file, 0, NULL, NAN,
+                                "survey azimuths sit %.1f +- %.1f degrees %s of the collar "
+                                "set-ups in %zu of %zu holes%s, comparing each collar with its "
+                                "first station: %s",
+                                fabs(corax_deg(mean)), corax_deg(sd),
+                                mean < 0.0 ? "west" : "east", most, g.n, others, cause);
+    }
+    size_t few = most >= 3 && st == CORAX_OK ? group(&g, 2, &gmean, &gsd) : 0;
+    if (few >= 2 && fabs(gmean - mean) >= matters && fabs(gmean - mean) >= 3.0 * gsd) {
+        group_names(&g, 2, 1, list, sizeof list);
+        char rest[48] = "none";
+        if (fabs(corax_deg(mean)) >= 0.05)
+            snprintf(rest, sizeof rest, "%.1f %s", fabs(corax_deg(mean)),
+                     mean < 0.0 ? "west" : "east");
+        st = corax_findings_add(out, CORAX_WARNING, "azimuth-offset", file, 0, NULL, NAN,
+                                "the survey azimuths of %zu holes (%s) sit %.1f +- %.1f degrees "
+                                "%s of their collar set-ups, against %s in %zu other holes: a "
+                                "declination or grid correction missing, doubled or of the wrong "
+                                "sign in their surveys alone (another tool?)",
+                                few, list, fabs(corax_deg(gmean)), corax_deg(gsd),
+                                gmean < 0.0 ? "west" : "east", rest, most);
+    }
+    free(g.value);
+    free(g.name);
+    free(g.taken);
+    free(g.scratch);
+    return st;
+}
+
 corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_file,
                               const corax_qa_options *o, corax_findings *out)
 {
     size_t shuffled = 0;
+    double shared;
+    corax_status first = check_shared_offset(prog, surveys_file, o, out, &shared);
+    if (first != CORAX_OK)
+        return first;
     for (size_t k = 0; k < corax_program_size(prog); k++) {
         hole_ctx c;
         c.h = corax_program_hole(prog, k);
@@ -236,6 +404,7 @@ corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_fil
         c.out = out;
         c.file = surveys_file;
         c.n = corax_hole_station_count(c.h);
+        c.offset = shared;
         const corax_collar *col = corax_hole_collar(c.h);
         corax_status st = CORAX_OK;
         if (c.n == 0) {
