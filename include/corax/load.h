@@ -2,6 +2,7 @@
 #ifndef CORAX_LOAD_H
 #define CORAX_LOAD_H
 
+#include "corax/correction.h"
 #include "corax/finding.h"
 #include "corax/survey.h"
 #include "corax/table.h"
@@ -19,6 +20,11 @@ typedef struct corax_load_options {
     double convergence; /* degrees, true to grid: subtracted from survey azimuths */
     int repair;         /* leave out a repeated or reversing station and keep the
                            hole (each still a finding), instead of the hole */
+    const corax_corrector *corrector; /* may be NULL: declination - convergence above
+                           for every station. Else the azimuth corrections per
+                           station (see correction.h), which replace them */
+    corax_corrections *corrections;   /* may be NULL: each station's correction is
+                           appended, and the list sorted for corax_corrections_find() */
 } corax_load_options;
 
 /* Defaults: comma-separated, dip negative down, no azimuth correction. */

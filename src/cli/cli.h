@@ -12,6 +12,21 @@ enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
 
 typedef struct cli_about cli_about;
 
+/* The azimuth corrections asked for (cli/corrections.c). */
+typedef struct cli_corrections {
+    int declination_model;      /* --declination model */
+    int convergence_projection; /* --convergence projection */
+    const char *model_name;     /* --magnetic-model NAME|FILE, or NULL (WMM) */
+    const char *grid_text;      /* --local-grid as given, or NULL */
+    const char *date_text;      /* --survey-date as given, or NULL */
+    int north;                  /* --survey-reference: a corax_north */
+    corax_crs *crs;             /* --crs, opened when given */
+    corax_local_grid grid;
+    corax_magnetic_model *model;
+    corax_corrector corrector;  /* what the loader is given */
+    corax_corrections record;   /* every station's corrections, once loaded */
+} cli_corrections;
+
 /* Options shared by the commands that read a drill program. */
 typedef struct cli_common {
     const char *command; /* for messages */
@@ -21,6 +36,7 @@ typedef struct cli_common {
     const char *project; /* the project file read, or NULL */
     corax_column_map *columns;
     corax_load_options load;
+    cli_corrections corr;
     int quiet;
     char **owned;        /* strings made while reading options (project paths) */
     size_t nowned;
@@ -39,6 +55,11 @@ enum {
     OPT_DECIMAL_MARK,
     OPT_ABOUT,
     OPT_PROJECT,
+    OPT_CRS,
+    OPT_LOCAL_GRID,
+    OPT_SURVEY_DATE,
+    OPT_MAGNETIC_MODEL,
+    OPT_SURVEY_REFERENCE,
     /* the core conventions, for the commands that read core logs */
     OPT_REFERENCE = 1050,
     OPT_BETA_END,
@@ -85,6 +106,11 @@ void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
         {"decimal-mark", required_argument, NULL, OPT_DECIMAL_MARK},         \
         {"about", required_argument, NULL, OPT_ABOUT},                       \
         {"project", required_argument, NULL, OPT_PROJECT},                   \
+        {"crs", required_argument, NULL, OPT_CRS},                           \
+        {"local-grid", required_argument, NULL, OPT_LOCAL_GRID},             \
+        {"survey-date", required_argument, NULL, OPT_SURVEY_DATE},           \
+        {"magnetic-model", required_argument, NULL, OPT_MAGNETIC_MODEL},     \
+        {"survey-reference", required_argument, NULL, OPT_SURVEY_REFERENCE}, \
         {"output", required_argument, NULL, 'o'},                            \
         {"quiet", no_argument, NULL, 'q'}, {"help", no_argument, NULL, 'h'}
 
@@ -132,6 +158,25 @@ int cli_value_number(const char *arg, double lo, double hi, double *value, char 
                      size_t whylen);
 int cli_value_choice(const char *arg, const char *const *names, int count, int *value,
                      char *why, size_t whylen);
+
+/* The corrections' options (--declination, --convergence, --crs,
+ * --local-grid, --survey-date, --magnetic-model, --survey-reference): 1
+ * applied, 0 not one of them, -1 with why filled. */
+int cli_corrections_option(cli_common *c, int opt, const char *arg, char *why, size_t whylen);
+
+/* 1 when any of them asks for more than the default (no correction). */
+int cli_corrections_asked(const cli_common *c);
+
+/* After parsing, for a command that loads a drill program: check that they
+ * go together, read the magnetic model, and hand the corrector to the loader.
+ * 0, or the exit status with the message printed. */
+int cli_corrections_prepare(cli_common *c);
+
+/* Record them in a .about file: the model and its dates, the CRS, the local
+ * grid, and the sign convention. */
+void cli_corrections_about(cli_about *a, const cli_common *c);
+
+void cli_corrections_free(cli_corrections *k);
 
 /* Load the drill program, printing findings; NULL (message printed) when it
  * cannot be used. */

@@ -21,12 +21,14 @@ void cli_common_init(cli_common *c, const char *command)
     c->command = command;
     c->output = "-";
     c->load = corax_load_options_default();
+    c->corr.corrector = corax_corrector_default();
 }
 
 void cli_common_free(cli_common *c)
 {
     corax_column_map_free(c->columns);
     c->columns = NULL;
+    cli_corrections_free(&c->corr);
     for (size_t i = 0; i < c->nowned; i++)
         free(c->owned[i]);
     free(c->owned);
@@ -105,10 +107,6 @@ static int common_option(cli_common *c, int opt, const char *arg, char *why, siz
             return -1;
         c->load.dip_convention = (corax_dip_convention)k;
         return 1;
-    case OPT_DECLINATION:
-        return cli_value_number(arg, -180, 180, &c->load.declination, why, wl) ? -1 : 1;
-    case OPT_CONVERGENCE:
-        return cli_value_number(arg, -180, 180, &c->load.convergence, why, wl) ? -1 : 1;
     case OPT_DELIMITER:
         if (cli_value_choice(arg, delimiters, 4, &k, why, wl))
             return -1;
@@ -121,7 +119,7 @@ static int common_option(cli_common *c, int opt, const char *arg, char *why, siz
         c->load.format.decimal = k ? ',' : '.';
         return 1;
     }
-    return 0;
+    return cli_corrections_option(c, opt, arg, why, wl);
 }
 
 /* ---- project files ---- */
@@ -143,6 +141,11 @@ static const struct {
     {"survey", "dip_convention", "dip-convention", 0},
     {"survey", "declination", "declination", 0},
     {"survey", "convergence", "convergence", 0},
+    {"survey", "crs", "crs", 0},
+    {"survey", "local_grid", "local-grid", 0},
+    {"survey", "survey_date", "survey-date", 0},
+    {"survey", "magnetic_model", "magnetic-model", 2}, /* a file, unless a built-in name */
+    {"survey", "reference", "survey-reference", 0},
     {"core", "reference_line", "reference-line", 0},
     {"core", "beta_end", "beta-end", 0},
     {"core", "beta_sense", "beta-sense", 0},
@@ -269,7 +272,8 @@ static int on_project_key(void *user, const char *section, const char *key, cons
         if (strcmp(project_keys[i].section, section) || strcmp(project_keys[i].key, key))
             continue;
         /* options may keep the text they are given: every value outlives the read */
-        int relative = project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0;
+        int relative = project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0 &&
+                       !(project_keys[i].path == 2 && corax_magnetic_is_builtin(value));
         const char *arg = own_string(p->c, join_path(relative ? p->dir : "", value));
         if (!arg) {
             corax_error_set(err, CORAX_ENOMEM, NULL, line, "out of memory");
@@ -402,7 +406,7 @@ int cli_common_finish(cli_common *c, int need_program)
                                      "both separate fields and mark decimals)");
     if (need_program && (!c->collars || !c->surveys))
         return cli_usage(c->command, "--collars and --surveys are both needed");
-    return 0;
+    return c->collars && c->surveys ? cli_corrections_prepare(c) : 0;
 }
 
 /* ---- core conventions ---- */

@@ -7,6 +7,7 @@
 
 #include "corax/load.h"
 #include "io/fields.h"
+#include "io/stations.h"
 
 corax_load_options corax_load_options_default(void)
 {
@@ -22,11 +23,13 @@ typedef struct collar_rec {
     char *hole;
     corax_collar collar;
     long line;
+    corax_collar_place place; /* date and place, for the azimuth corrections */
 } collar_rec;
 
 typedef struct survey_rec {
     char *hole;
     corax_station station;
+    corax_station_extra extra; /* date, reference and measured field */
 } survey_rec;
 
 typedef struct records {
@@ -142,20 +145,24 @@ static char *row_hole(const corax_row *row, long col)
 static corax_status read_collars(const char *path, const corax_load_options *o, records *rec,
                                  corax_findings *problems, corax_error *err)
 {
-    static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length"};
-    long col[7];
+    static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length",
+                                        CORAX_COLLAR_PLACE_COLUMNS};
+    enum { NCOL = 7 + CORAX_COLLAR_PLACE_NCOL };
+    long col[NCOL];
+    int strict = o->corrector && o->corrector->model; /* dates and places are needed */
     size_t width;
     corax_reader *r;
     corax_status st = corax_reader_open(path, o->format, &r, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(r, names, 7, 4, o->columns, col, &width, NULL, err);
+    st = corax_table_header(r, names, NCOL, 4, o->columns, col, &width, NULL, err);
     corax_row row;
     while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
         char why[200];
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
         corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
+        corax_collar_place place;
         double *xyz[3] = {&c.position.x, &c.position.y, &c.position.z};
         int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
         if (!bad && hl == 0) {
@@ -179,6 +186,9 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
             if (ls == CORAX_NUMBER_EMPTY)
                 c.length = NAN;
         }
+        if (!bad)
+            bad = !corax_read_collar_place(&row, col + 7, o->format.decimal, strict, &place, why,
+                                           sizeof why);
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "collar-row", path, row.line,
                                     hl ? hole : NULL, NAN, "%s", why);
@@ -192,6 +202,7 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
         }
         cr->collar = c;
         cr->line = row.line;
+        cr->place = place;
     }
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
@@ -201,20 +212,23 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
                                  corax_findings *problems, corax_error *err)
 {
     static const char *const names[] = {"hole", "depth", "azimuth", "dip", "azimuth_error",
-                                        "dip_error"};
-    long col[6];
+                                        "dip_error", CORAX_STATION_EXTRA_COLUMNS};
+    enum { NCOL = 6 + CORAX_STATION_EXTRA_NCOL };
+    long col[NCOL];
+    int strict = o->corrector && o->corrector->model; /* dates are needed */
     size_t width;
     corax_reader *r;
     corax_status st = corax_reader_open(path, o->format, &r, err);
     if (st != CORAX_OK)
         return st;
-    st = corax_table_header(r, names, 6, 4, o->columns, col, &width, NULL, err);
+    st = corax_table_header(r, names, NCOL, 4, o->columns, col, &width, NULL, err);
     corax_row row;
     while (st == CORAX_OK && (st = corax_reader_next(r, &row, err)) == CORAX_OK) {
         char why[200];
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
         corax_station s = {NAN, 0, 0, row.line, 0, NAN, NAN};
+        corax_station_extra extra;
         int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
         if (!bad && hl == 0) {
             snprintf(why, sizeof why, "the hole name is empty");
@@ -232,6 +246,9 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
         }
         if (!bad)
             bad = !read_station_errors(&row, col + 4, o->format.decimal, &s, why, sizeof why);
+        if (!bad)
+            bad = !corax_read_station_extra(&row, col + 6, o->format.decimal, strict, &extra, why,
+                                            sizeof why);
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "survey-row", path, row.line,
                                     hl ? hole : NULL, s.depth,
@@ -245,6 +262,7 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
             break;
         }
         sr->station = s;
+        sr->extra = extra;
     }
     corax_reader_close(r);
     return st == CORAX_END ? CORAX_OK : st;
@@ -306,13 +324,18 @@ static corax_status build_hole(const collar_rec *c, corax_station *st, size_t n,
     }
 }
 
-/* Desurvey each collar's hole from its stations and add it to the program. */
+/* Desurvey each collar's hole from its stations, each station's azimuth
+ * corrected, and add it to the program. */
 static corax_status build_program(const char *cpath, const char *spath,
                                   const corax_load_options *o, records *rec,
                                   corax_program *prog, corax_findings *problems)
 {
-    double correction = corax_rad(o->declination - o->convergence);
+    corax_corrector constant = corax_corrector_default();
+    constant.declination = corax_rad(o->declination);
+    constant.convergence = corax_rad(o->convergence);
+    const corax_corrector *corr = o->corrector ? o->corrector : &constant;
     corax_station *buf = NULL;
+    corax_station_extra *extra = NULL;
     size_t cap = 0;
     corax_status st = CORAX_OK;
     for (size_t i = 0; i < rec->ncollar && st != CORAX_ENOMEM; i++) {
@@ -328,18 +351,29 @@ static corax_status build_program(const char *cpath, const char *spath,
             n++;
         if (n > cap) {
             corax_station *p = realloc(buf, n * sizeof *p);
-            if (!p) {
+            corax_station_extra *q = p ? realloc(extra, n * sizeof *q) : NULL;
+            buf = p ? p : buf;
+            extra = q ? q : extra;
+            if (!q) {
                 st = CORAX_ENOMEM;
                 break;
             }
-            buf = p;
             cap = n;
         }
-        for (size_t j = 0; j < n; j++)
+        for (size_t j = 0; j < n; j++) {
             buf[j] = rec->survey[k + j].station;
-        st = build_hole(c, buf, n, correction, o->repair, spath, prog, problems);
+            extra[j] = rec->survey[k + j].extra;
+        }
+        int placed;
+        st = corax_correct_stations(corr, c->hole, &c->collar, &c->place, cpath, c->line, buf,
+                                    extra, &n, spath, o->corrections, problems, &placed);
+        if (st == CORAX_OK && placed)
+            st = build_hole(c, buf, n, 0.0, o->repair, spath, prog, problems);
     }
     free(buf);
+    free(extra);
+    if (o->corrections)
+        corax_corrections_sort(o->corrections);
     return st;
 }
 
