@@ -15,6 +15,7 @@
 #include <stddef.h>
 
 #include "corax/convert.h"
+#include "corax/correction.h"
 #include "corax/finding.h"
 #include "corax/survey.h"
 
@@ -46,6 +47,10 @@ typedef struct corax_qa_options {
     double turn_gain;        /* ...when the turn cuts its misfit by this fraction (0.4) */
     const char *const *low_confidence; /* confidence words taken as low (NULL-ended;
                                           default "poor", "low") */
+    double total_field;      /* a measured total field this far from the model's, nT
+                                (default 300: common practice for field acceptance) */
+    double field_dip;        /* a measured dip of the field this far from the model's
+                                (default 0.45 deg: common practice) */
 } corax_qa_options;
 
 corax_qa_options corax_qa_options_default(void);
@@ -75,6 +80,16 @@ typedef struct corax_qa_run {
  * surveys_file (may be NULL) as the file their lines are in. */
 corax_status corax_qa_surveys(const corax_program *program, const char *surveys_file,
                               const corax_qa_options *options, corax_findings *out);
+
+/* The magnetic field checks: each station whose survey measured the total
+ * field or its dip (total_field, field_dip in the records) is compared with
+ * the magnetic model's field there; a departure beyond the options'
+ * tolerances is a warning (a magnetometer disturbed by magnetic rock, steel
+ * or a faulty tool: its azimuth is doubtful). Measured fields without a model
+ * to compare them with give one note. Findings are appended, with
+ * surveys_file (may be NULL) as the file their lines are in. */
+corax_status corax_qa_field(const corax_corrections *stations, const char *surveys_file,
+                            const corax_qa_options *options, corax_findings *out);
 
 /* The orientation and program checks. runs may be NULL (nruns 0): runs are
  * then inferred from the readings' depths, run_length apart. convert gives

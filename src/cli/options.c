@@ -182,6 +182,8 @@ static const struct {
     {"check", "run_misfit", "run-misfit", 0},
     {"check", "hole_turn", "hole-turn", 0},
     {"check", "low_confidence", "low-confidence", 0},
+    {"check", "total_field", "total-field", 0},
+    {"check", "field_dip", "field-dip", 0},
 };
 enum { NKEYS = sizeof project_keys / sizeof project_keys[0] };
 

@@ -29,6 +29,8 @@ corax_qa_options corax_qa_options_default(void)
     o.hole_turn = corax_rad(15.0);
     o.turn_gain = 0.4;
     o.low_confidence = low;
+    o.total_field = 300.0;
+    o.field_dip = corax_rad(0.45);
     return o;
 }
 
