@@ -237,6 +237,9 @@ static void test_dates(void **state)
                                       "2026.25", "2026-04-05Tnoon"};
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; i++)
         assert_true(isnan(corax_date_parse(bad[i], strlen(bad[i]))));
+    char text[16];
+    corax_date_text(corax_decimal_year(2026, 7, 14), text, sizeof text);
+    assert_string_equal(text, "2026-07-14");
     /* every day of a leap and a common year goes to its decimal year and back */
     for (int y = 2023; y <= 2024; y++)
         for (int mo = 1; mo <= 12; mo++)

@@ -46,6 +46,10 @@ double corax_decimal_year(int year, int month, int day);
 /* The date (at the day's start) holding a decimal year. */
 void corax_year_date(double year, int *y, int *month, int *day);
 
+/* That date as ISO 8601 text, "2026-07-14", in buf (at least 11 bytes; more
+ * for years beyond four digits). */
+void corax_date_text(double year, char *buf, size_t len);
+
 /* Read an ISO 8601 calendar date, YYYY-MM-DD, optionally followed by a time
  * (THH:MM[:SS][Z], or a space and the same), which is ignored: the field moves
  * by well under a hundredth of a degree in a day. len bytes of text (need not
@@ -96,6 +100,9 @@ const char *corax_magnetic_model_name(const corax_magnetic_model *model);
 /* The dates the model is valid for: from *from up to but not including *to
  * (decimal years). */
 void corax_magnetic_model_validity(const corax_magnetic_model *model, double *from, double *to);
+
+/* The same as text: "2025-01-01 to 2029-12-31" (the last day included). */
+void corax_magnetic_validity_text(const corax_magnetic_model *model, char *buf, size_t len);
 
 /* The field at a date (decimal year), a geodetic latitude and longitude
  * (radians, WGS84) and a height above the ellipsoid (metres).

@@ -193,14 +193,9 @@ static int trace_all(const trace_opts *o, const corax_program *prog, corax_write
 /* A decimal year as its date, or an empty field. */
 static void write_date(corax_writer *w, double year)
 {
-    char text[16];
-    int y, m, d;
-    if (isnan(year)) {
-        corax_writer_field(w, "", 0);
-        return;
-    }
-    corax_year_date(year, &y, &m, &d);
-    snprintf(text, sizeof text, "%04d-%02d-%02d", y, m, d);
+    char text[16] = "";
+    if (!isnan(year))
+        corax_date_text(year, text, sizeof text);
     write_text(w, text);
 }
 

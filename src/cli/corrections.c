@@ -123,23 +123,12 @@ int cli_corrections_prepare(cli_common *c)
     return 0;
 }
 
-/* "2025-01-01 to 2029-12-31". */
-static void dates(double from, double to, char *buf, size_t len)
-{
-    int y1, m1, d1, y2, m2, d2;
-    corax_year_date(from, &y1, &m1, &d1);
-    corax_year_date(to - 1e-6, &y2, &m2, &d2);
-    snprintf(buf, len, "%04d-%02d-%02d to %04d-%02d-%02d", y1, m1, d1, y2, m2, d2);
-}
-
 void cli_corrections_about(cli_about *a, const cli_common *c)
 {
     const cli_corrections *k = &c->corr;
     if (k->declination_model) {
-        double from, to;
         char valid[64];
-        corax_magnetic_model_validity(k->model, &from, &to);
-        dates(from, to, valid, sizeof valid);
+        corax_magnetic_validity_text(k->model, valid, sizeof valid);
         cli_about_set(a, "declination", "model: %s, valid %s, at each station's date and its "
                       "collar's place and elevation (taken as height above the ellipsoid)",
                       corax_magnetic_model_name(k->model), valid);

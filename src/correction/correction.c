@@ -6,6 +6,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "common/grow.h"
 #include "corax/correction.h"
 
 static const char *const north_names[] = {"magnetic", "true", "grid"};
@@ -114,14 +115,10 @@ corax_status corax_corrector_station(const corax_corrector *c, const corax_site 
 corax_status corax_corrections_add(corax_corrections *l, const char *hole,
                                    const corax_station_record *rec)
 {
-    if (l->count == l->capacity) {
-        size_t cap = l->capacity ? 2 * l->capacity : 64;
-        corax_station_record *p = realloc(l->item, cap * sizeof *p);
-        if (!p)
-            return CORAX_ENOMEM;
-        l->item = p;
-        l->capacity = cap;
-    }
+    corax_station_record *grown = corax_grow(l->item, l->count, &l->capacity, sizeof *grown, 64);
+    if (!grown)
+        return CORAX_ENOMEM;
+    l->item = grown;
     corax_station_record *r = &l->item[l->count];
     *r = *rec;
     if (!(r->hole = strdup(hole)))

@@ -7,6 +7,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "common/grow.h"
 #include "magnetic/model_int.h"
 
 const char *const corax_magnetic_builtin_names[] = {"WMM",       "WMM2015", "WMM2015v2",
@@ -65,14 +66,10 @@ static size_t leading_numbers(char **tok, size_t n, double *v)
 
 static block *new_block(reader *r, long line)
 {
-    if (r->n == r->cap) {
-        size_t cap = r->cap ? 2 * r->cap : 4;
-        block *p = realloc(r->b, cap * sizeof *p);
-        if (!p)
-            return NULL;
-        r->b = p;
-        r->cap = cap;
-    }
+    block *grown = corax_grow(r->b, r->n, &r->cap, sizeof *grown, 4);
+    if (!grown)
+        return NULL;
+    r->b = grown;
     block *b = &r->b[r->n++];
     memset(b, 0, sizeof *b);
     b->line = line;
@@ -276,16 +273,12 @@ corax_status corax_magnetic_read(const char *path, corax_magnetic_model **out, c
     while ((len = getline(&line, &linecap, f)) >= 0) {
         while (len > 0 && (line[len - 1] == '\n' || line[len - 1] == '\r'))
             line[--len] = '\0';
-        if (n == cap) {
-            size_t c = cap ? 2 * cap : 128;
-            char **p = realloc(lines, c * sizeof *p);
-            if (!p) {
-                st = CORAX_ENOMEM;
-                break;
-            }
-            lines = p;
-            cap = c;
+        char **grown = corax_grow(lines, n, &cap, sizeof *grown, 128);
+        if (!grown) {
+            st = CORAX_ENOMEM;
+            break;
         }
+        lines = grown;
         if (!(lines[n] = strdup(line))) {
             st = CORAX_ENOMEM;
             break;

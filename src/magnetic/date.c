@@ -1,5 +1,6 @@
 /* magnetic: calendar dates as decimal years, the magnetic models' time. */
 #include <math.h>
+#include <stdio.h>
 #include <string.h>
 
 #include "corax/magnetic.h"
@@ -32,6 +33,13 @@ void corax_year_date(double year, int *y, int *month, int *day)
         doy -= month_days(*y, m++);
     *month = m;
     *day = doy;
+}
+
+void corax_date_text(double year, char *buf, size_t len)
+{
+    int y, m, d;
+    corax_year_date(year, &y, &m, &d);
+    snprintf(buf, len, "%04d-%02d-%02d", y, m, d);
 }
 
 /* The number in len digits at s, or -1. */

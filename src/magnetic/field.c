@@ -135,13 +135,14 @@ static void synthesize(int nmax, const double *g, const double *h, double lat, d
     f->inclination = atan2(f->down, f->horizontal);
 }
 
-/* "2025-01-01 to 2029-12-31" for the dates from..to (to not included). */
-static void validity_text(double from, double to, char *buf, size_t len)
+void corax_magnetic_validity_text(const corax_magnetic_model *m, char *buf, size_t len)
 {
-    int y1, m1, d1, y2, m2, d2;
-    corax_year_date(from, &y1, &m1, &d1);
-    corax_year_date(to - 1e-6, &y2, &m2, &d2); /* the last day before `to` */
-    snprintf(buf, len, "%04d-%02d-%02d to %04d-%02d-%02d", y1, m1, d1, y2, m2, d2);
+    double from, to;
+    char a[16], b[16];
+    corax_magnetic_model_validity(m, &from, &to);
+    corax_date_text(from, a, sizeof a);
+    corax_date_text(to - 1e-6, b, sizeof b); /* the last day before `to` */
+    snprintf(buf, len, "%s to %s", a, b);
 }
 
 corax_status corax_magnetic_field_at(const corax_magnetic_model *m, double year, double lat,
@@ -156,15 +157,12 @@ corax_status corax_magnetic_field_at(const corax_magnetic_model *m, double year,
         return corax_error_set(err, CORAX_EVALUE, NULL, 0, "no date for the magnetic model");
     const mag_part *part = part_at(m, year);
     if (!part) {
-        double from, to;
-        char valid[64];
-        int y, mo, d;
-        corax_magnetic_model_validity(m, &from, &to);
-        validity_text(from, to, valid, sizeof valid);
-        corax_year_date(year, &y, &mo, &d);
+        char date[16], valid[64];
+        corax_date_text(year, date, sizeof date);
+        corax_magnetic_validity_text(m, valid, sizeof valid);
         return corax_error_set(err, CORAX_EVALUE, NULL, 0,
-                               "the date %04d-%02d-%02d is outside the validity of the magnetic "
-                               "model %s (%s)", y, mo, d, m->name, valid);
+                               "the date %s is outside the validity of the magnetic model %s "
+                               "(%s)", date, m->name, valid);
     }
     double g[MAG_NCOEF], h[MAG_NCOEF], dt = year - part->epoch;
     for (size_t i = 0; i <= mag_index(part->nmax, part->nmax); i++) {
