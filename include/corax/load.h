@@ -30,8 +30,13 @@ typedef struct corax_load_options {
 /* Defaults: comma-separated, dip negative down, no azimuth correction. */
 corax_load_options corax_load_options_default(void);
 
-/* Read a collar table (hole, x, y, z; optional azimuth, dip, length) and a
- * survey table (hole, depth, azimuth, dip) and desurvey every hole.
+/* Read a collar table (hole, x, y, z; optional azimuth, dip, length, date,
+ * latitude, longitude) and a survey table (hole, depth, azimuth, dip;
+ * optional azimuth_error, dip_error, date, reference, total_field, field_dip)
+ * and desurvey every hole, each station's azimuth corrected as the corrector
+ * says (its date: its own, else its collar's, else the corrector's; its north:
+ * its reference, else the corrector's). Dates are ISO 8601; a date or place
+ * that cannot be read is a fault only when a magnetic model needs it.
  *
  * File-level faults (cannot open, missing required column, repeated header
  * name, broken quoting) stop the load: the status is returned, err says where.
@@ -41,7 +46,9 @@ corax_load_options corax_load_options_default(void);
  * A hole with a fault in its survey (a repeated depth, a 180-degree turn) is
  * left out of the program, its collar alone not standing in for it; with
  * options->repair the offending later station is left out instead, and the
- * hole kept. The caller owns *out. */
+ * hole kept. A collar whose place, or a station whose correction, cannot be
+ * had is a finding too (collar-place, survey-correction). The caller owns
+ * *out. */
 corax_status corax_program_load(const char *collars_path, const char *surveys_path,
                                 const corax_load_options *options, corax_program **out,
                                 corax_findings *problems, corax_error *err);

@@ -8,7 +8,8 @@
 #include "io/fields.h"
 
 static const char trace_help[] =
-    "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES] [-o FILE]\n"
+    "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES]\n"
+    "                   [--corrections FILE] [-o FILE]\n"
     "\n"
     "Desurvey every hole by minimum curvature and report where each hole is and\n"
     "which way it points.\n"

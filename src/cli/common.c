@@ -11,8 +11,10 @@
 
 const char cli_common_help[] =
     "Drill program:\n"
-    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length\n"
-    "  --surveys FILE        survey table: hole, depth, azimuth, dip\n"
+    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length,\n"
+    "                        date, latitude, longitude\n"
+    "  --surveys FILE        survey table: hole, depth, azimuth, dip; optional date,\n"
+    "                        reference (magnetic, true, grid), total_field, field_dip\n"
     "  --columns MAP         header names for corax's columns, e.g.\n"
     "                        hole=HOLE_NO,depth=DEPTH_M (names match without case)\n"
     "  --dip-convention C    negative-down (default: -60 is a downward hole),\n"
