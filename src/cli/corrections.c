@@ -94,8 +94,6 @@ int cli_corrections_prepare(cli_common *c)
     if (k->convergence_projection && !k->crs)
         return cli_usage(c->command, "--convergence projection needs --crs (the CRS of the "
                                      "collar coordinates)");
-    if (k->grid_text && !k->crs && k->convergence_projection)
-        return cli_usage(c->command, "--local-grid with --convergence projection needs --crs");
     if (k->model_name && !k->declination_model)
         return cli_usage(c->command, "--magnetic-model goes with --declination model");
     if (k->declination_model && !k->model) {
@@ -126,7 +124,9 @@ int cli_corrections_prepare(cli_common *c)
 void cli_corrections_about(cli_about *a, const cli_common *c)
 {
     const cli_corrections *k = &c->corr;
-    if (k->declination_model) {
+    if (k->declination_model && !k->model) { /* no surveys read: nothing was corrected */
+        cli_about_set(a, "declination", "model (not used: no survey table read)");
+    } else if (k->declination_model) {
         char valid[64];
         corax_magnetic_validity_text(k->model, valid, sizeof valid);
         cli_about_set(a, "declination", "model: %s, valid %s, at each station's date and its "

@@ -82,4 +82,8 @@ if "$CORAX" trace --collars data/dated_collars.csv --surveys data/dated_surveys_
 [ ! -e "$T/x.csv" ] && [ ! -e "$T/xc.csv" ] || fail "a failed run wrote files"
 if "$CORAX" trace $G --corrections - 2> "$T/err"; then fail "two outputs on stdout"; fi
 grep -q 'cannot both go to standard output' "$T/err" || fail "$(cat "$T/err")"
+# a command that reads collars but no surveys corrects nothing, and says so
+"$CORAX" export --format csv data/converted.csv --collars data/dated_collars.csv \
+    --declination model -o "$T/model.csv" -q || fail "export with --declination model and no surveys"
+grep -q '^declination = model (not used: no survey table read)$' "$T/model.csv.about" || fail "about without surveys"
 echo ok
