@@ -4,7 +4,7 @@
 CC      ?= cc
 PREFIX  ?= /usr/local
 BUILD   ?= build
-PKGS    := gsl inih gdal
+PKGS    := gsl inih gdal proj
 TESTPKG := cmocka
 
 WARN    := -Wall -Wextra -Wpedantic -Wshadow -Wstrict-prototypes \
@@ -35,6 +35,10 @@ BENCH_SRC := $(sort $(wildcard bench/bench_*.c))
 TOOL_SRC  := $(sort $(wildcard tools/*.c))
 
 LIB_OBJ   := $(LIB_SRC:%.c=$(BUILD)/obj/%.o)
+# The built-in magnetic models: data/magnetic/*.COF compiled into the library.
+COF_DATA  := $(sort $(wildcard data/magnetic/*.COF))
+COF_SRC   := $(BUILD)/gen/magnetic_cof.c
+LIB_OBJ   += $(BUILD)/obj/gen/magnetic_cof.o
 CLI_OBJ   := $(CLI_SRC:%.c=$(BUILD)/obj/%.o)
 TEST_AUX_OBJ := $(TEST_AUX:%.c=$(BUILD)/obj/%.o)
 TESTS     := $(TEST_SRC:tests/%.c=$(BUILD)/tests/%)
@@ -52,6 +56,14 @@ all: $(LIB) $(BIN)
 $(BUILD)/obj/%.o: %.c
 	@mkdir -p $(dir $@)
 	$(CC) $(CFLAGS_ALL) $(if $(filter tests/%,$<),$(TEST_CFLAGS)) -c $< -o $@
+
+$(COF_SRC): $(COF_DATA) tools/cof_to_c.sh
+	@mkdir -p $(dir $@)
+	sh tools/cof_to_c.sh $(COF_DATA) > $@.tmp && mv $@.tmp $@
+
+$(BUILD)/obj/gen/magnetic_cof.o: $(COF_SRC)
+	@mkdir -p $(dir $@)
+	$(CC) $(CFLAGS_ALL) -c $< -o $@
 
 $(LIB): $(LIB_OBJ)
 	@mkdir -p $(dir $@)
@@ -110,6 +122,8 @@ install: all
 	install -m 644 $(LIB) $(DESTDIR)$(PREFIX)/lib/libcorax.a
 	install -m 644 include/corax/*.h $(DESTDIR)$(PREFIX)/include/corax/
 	install -m 644 man/corax.1 $(DESTDIR)$(PREFIX)/share/man/man1/corax.1
+	install -d $(DESTDIR)$(PREFIX)/share/corax/magnetic
+	install -m 644 $(COF_DATA) data/magnetic/README.md $(DESTDIR)$(PREFIX)/share/corax/magnetic/
 
 clean:
 	rm -rf build build-sanitize demo-output

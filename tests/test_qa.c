@@ -320,6 +320,74 @@ static void test_given_runs(void **state)
     corax_findings_clear(&found);
 }
 
+/* A station's record with a model field of 56500 nT dipping 77.40 degrees and
+ * what the survey measured (NaN when not). */
+static corax_station_record field_record(long line, double total, double dip_deg,
+                                         const char *model)
+{
+    corax_station_record r;
+    memset(&r, 0, sizeof r);
+    r.hole = (char *)"F1";
+    r.depth = 10.0 * (double)line;
+    r.line = line;
+    r.correction.north = CORAX_NORTH_MAGNETIC;
+    r.correction.field.total = model ? 56500.0 : (double)NAN;
+    r.correction.field.inclination = model ? corax_rad(77.40) : (double)NAN;
+    r.correction.field.model = model;
+    r.total_field = total;
+    r.field_dip = corax_rad(dip_deg);
+    return r;
+}
+
+/* The measured field against the model's, with the tolerances of common
+ * practice for field acceptance in directional surveying (from memory; 300 nT
+ * and 0.45 degrees; docs/check-values.md): inside them nothing, beyond them a
+ * warning saying which and by how much; measurements without a model a note. */
+static void test_field_against_the_model(void **state)
+{
+    (void)state;
+    corax_qa_options o = corax_qa_options_default();
+    assert_close(o.total_field, 300.0, 0, 0, "common practice (docs/check-values.md)");
+    assert_close(corax_deg(o.field_dip), 0.45, 0, 1e-12, "common practice (docs/check-values.md)");
+    corax_station_record r[] = {
+        field_record(2, 56790, 77.80, "WMM2025"),  /* inside both */
+        field_record(3, 56810, 77.40, "WMM2025"),  /* 310 nT above */
+        field_record(4, 56500, 76.90, "WMM2025"),  /* 0.50 degrees below */
+        field_record(5, NAN, NAN, "WMM2025"),      /* nothing measured */
+        field_record(6, 55000, NAN, "WMM2025"),    /* the total alone, far below */
+    };
+    corax_corrections list = {r, 5, 5, 0};
+    corax_findings f = {0};
+    assert_int_equal(corax_qa_field(&list, "s.csv", &o, &f), CORAX_OK);
+    assert_int_equal(f.count, 3);
+    assert_int_equal(f.item[0].line, 3);
+    assert_int_equal(f.item[0].severity, CORAX_WARNING);
+    assert_string_equal(f.item[0].check, "survey-field");
+    assert_non_null(strstr(f.item[0].message, "310 above WMM2025's 56500"));
+    assert_int_equal(f.item[1].line, 4);
+    assert_non_null(strstr(f.item[1].message, "0.50 degrees below WMM2025's 77.40"));
+    assert_null(strstr(f.item[1].message, "total field"));
+    assert_int_equal(f.item[2].line, 6);
+    assert_non_null(strstr(f.item[2].message, "1500 below"));
+    corax_findings_clear(&f);
+    /* tighter tolerances catch the first station too */
+    o.total_field = 250.0;
+    assert_int_equal(corax_qa_field(&list, "s.csv", &o, &f), CORAX_OK);
+    assert_int_equal(f.count, 4);
+    corax_findings_clear(&f);
+    /* without a model: one note for all, none for a gyro's station */
+    corax_station_record bare[] = {field_record(2, 56790, 77.8, NULL),
+                                   field_record(3, 56790, 77.8, NULL),
+                                   field_record(4, 56790, 77.8, NULL)};
+    bare[2].correction.north = CORAX_NORTH_TRUE;
+    corax_corrections none = {bare, 3, 3, 0};
+    assert_int_equal(corax_qa_field(&none, "s.csv", &o, &f), CORAX_OK);
+    assert_int_equal(f.count, 1);
+    assert_int_equal(f.item[0].severity, CORAX_NOTE);
+    assert_non_null(strstr(f.item[0].message, "2 stations measured the magnetic field"));
+    corax_findings_clear(&f);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -330,6 +398,7 @@ int main(void)
         cmocka_unit_test(test_clean_holes_raise_no_warnings),
         cmocka_unit_test(test_findings_are_sorted),
         cmocka_unit_test(test_given_runs),
+        cmocka_unit_test(test_field_against_the_model),
     };
     return cmocka_run_group_tests_name("qa", tests, setup, teardown);
 }

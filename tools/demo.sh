@@ -6,12 +6,14 @@ set -eu
 cd "$(dirname "$0")/.."
 OUT=${DEMO_OUT:-demo-output} # the tests write it elsewhere
 mkdir -p "$OUT"
-# The demo surveys are magnetic; the local grid is 0.8 degrees east of true north
-# and the declination 6.2 degrees east (both invented for the demo). The project
-# file says so, with the inputs and the core conventions.
+# The demo program lies on a local mine grid of its own, tied to UTM zone 8N by
+# two control points; its surveys (magnetic multishots, and two north-seeking
+# gyros) ran from 2025 to 2027. The project file says so: the declination comes
+# from the World Magnetic Model at each station's date and place, the grid
+# convergence from the projection, with the inputs and the core conventions.
 PROJECT=examples/quillon_creek.ini
 
-"$CORAX" trace -p "$PROJECT" -o "$OUT/stations.csv"
+"$CORAX" trace -p "$PROJECT" -o "$OUT/stations.csv" --corrections "$OUT/corrections.csv"
 "$CORAX" trace -p "$PROJECT" --step 5 -o "$OUT/traces.csv"
 # Every reading drawn 500 times through its errors (the defaults, and the
 # log's confidence column for the orientation line): the uncertainty columns.
@@ -69,6 +71,7 @@ holes=$(tail -n +2 surveys/collars.csv | wc -l)
 rows=$(tail -n +2 examples/core_log.csv | wc -l)
 echo "corax demo: Quillon Creek, $holes holes, $rows core readings"
 echo "  desurveyed stations:     $OUT/stations.csv"
+echo "  azimuth corrections:     $OUT/corrections.csv (declination, convergence, rotation)"
 echo "  traces every 5 m:        $OUT/traces.csv"
 echo "  converted structures:    $OUT/structures.csv"
 echo "      ${summary#corax: }"

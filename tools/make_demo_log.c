@@ -7,6 +7,9 @@
  *   build/tools/make_demo_log surveys/collars.csv surveys/surveys.csv \
  *       examples/core_log.csv examples/runs.csv
  *
+ * The holes are desurveyed with the demo's own azimuth corrections (the
+ * project file's: the World Magnetic Model, UTM zone 8N, the local grid).
+ *
  * The slips (what a careful QA pass should report):
  *   QC007 96-105 m   orientation line marked on the wrong side (beta + 180)
  *   QC011 120-129 m  beta read the wrong way round (360 - beta)
@@ -72,17 +75,34 @@ int main(int argc, char **argv)
         fprintf(stderr, "usage: make_demo_log COLLARS SURVEYS CORE_LOG RUNS\n");
         return 2;
     }
+    /* the demo's corrections, as examples/quillon_creek.ini gives them */
     corax_load_options lo = corax_load_options_default();
-    lo.declination = 6.2;
-    lo.convergence = 0.8;
+    corax_corrector corr = corax_corrector_default();
+    corax_magnetic_model *wmm = NULL;
+    corax_crs *crs = NULL;
+    corax_local_grid grid;
     corax_program *prog;
     corax_findings problems = {0};
     corax_error err;
+    if (corax_magnetic_builtin("WMM", &wmm, &err) != CORAX_OK ||
+        corax_crs_new("EPSG:32608", &crs, &err) != CORAX_OK ||
+        corax_local_grid_parse("10000,50000,581862.415,6941713.208,"
+                               "11000,51000,582621.929,6942905.407", &grid, &err) != CORAX_OK) {
+        fprintf(stderr, "make_demo_log: %s\n", err.message);
+        return 1;
+    }
+    corr.model = wmm;
+    corr.crs = crs;
+    corr.convergence_from_crs = 1;
+    corr.local_grid = &grid;
+    lo.corrector = &corr;
     if (corax_program_load(argv[1], argv[2], &lo, &prog, &problems, NULL, &err) != CORAX_OK ||
         corax_findings_count(&problems, CORAX_ERROR)) {
         fprintf(stderr, "make_demo_log: cannot load the demo program\n");
         return 1;
     }
+    corax_crs_free(crs);
+    corax_magnetic_model_free(wmm);
     FILE *log = fopen(argv[3], "w"), *runs = fopen(argv[4], "w");
     if (!log || !runs) {
         perror("make_demo_log");

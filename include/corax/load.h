@@ -2,6 +2,7 @@
 #ifndef CORAX_LOAD_H
 #define CORAX_LOAD_H
 
+#include "corax/correction.h"
 #include "corax/finding.h"
 #include "corax/survey.h"
 #include "corax/table.h"
@@ -30,6 +31,11 @@ typedef struct corax_load_options {
                            instead of running straight */
     const corax_station_ref *reject; /* stations left out (also a survey table's */
     size_t nreject;                  /* `use` column saying no) */
+    const corax_corrector *corrector; /* may be NULL: declination - convergence above
+                           for every station. Else the azimuth corrections per
+                           station (see correction.h), which replace them */
+    corax_corrections *corrections;   /* may be NULL: each station's correction is
+                           appended, and the list sorted for corax_corrections_find() */
 } corax_load_options;
 
 /* Defaults: formats found from the tables, metres, dip negative down, no
@@ -43,9 +49,14 @@ typedef struct corax_load_info {
     size_t rejected;
 } corax_load_info;
 
-/* Read a collar table (hole, x, y, z; optional azimuth, dip, length) and a
- * survey table (hole, depth, azimuth, dip; optional azimuth_error, dip_error,
- * use) and desurvey every hole. Lengths become metres by each table's unit.
+/* Read a collar table (hole, x, y, z; optional azimuth, dip, length, date,
+ * latitude, longitude) and a survey table (hole, depth, azimuth, dip;
+ * optional azimuth_error, dip_error, use, date, reference, total_field,
+ * field_dip) and desurvey every hole, each station's azimuth corrected as the
+ * corrector says (its date: its own, else its collar's, else the corrector's;
+ * its north: its reference, else the corrector's). Dates are ISO 8601; a
+ * date or place that cannot be read is a fault only when a magnetic model
+ * needs it. Lengths become metres by each table's unit.
  *
  * A dip that does not fit its table's convention (a from-vertical inclination
  * of -60, a negative-down dip of 120) is a row fault naming the convention.
@@ -60,7 +71,9 @@ typedef struct corax_load_info {
  * A hole with a fault in its survey (a repeated depth, a 180-degree turn) is
  * left out of the program, its collar alone not standing in for it; with
  * options->repair the offending later station is left out instead, and the
- * hole kept. info (may be NULL) gets what the load found. The caller owns
+ * hole kept. A collar whose place, or a station whose correction, cannot be
+ * had is a finding too (collar-place, survey-correction). info (may be NULL)
+ * gets what the load found. The caller owns
  * *out. */
 corax_status corax_program_load(const char *collars_path, const char *surveys_path,
                                 const corax_load_options *options, corax_program **out,

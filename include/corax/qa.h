@@ -18,6 +18,7 @@
 #include <stddef.h>
 
 #include "corax/convert.h"
+#include "corax/correction.h"
 #include "corax/finding.h"
 #include "corax/survey.h"
 
@@ -55,6 +56,10 @@ typedef struct corax_qa_options {
     double azimuth_correction; /* what was added to the survey azimuths (declination
                                   minus convergence, radians; default 0), to name
                                   the likely cause of an offset the holes share */
+    double total_field;      /* a measured total field this far from the model's, nT
+                                (default 300: common practice for field acceptance) */
+    double field_dip;        /* a measured dip of the field this far from the model's
+                                (default 0.45 deg: common practice) */
 } corax_qa_options;
 
 corax_qa_options corax_qa_options_default(void);
@@ -86,6 +91,16 @@ typedef struct corax_qa_run {
  * file their lines are in. */
 corax_status corax_qa_surveys(const corax_program *program, const char *surveys_file,
                               const corax_qa_options *options, corax_findings *out);
+
+/* The magnetic field checks: each station whose survey measured the total
+ * field or its dip (total_field, field_dip in the records) is compared with
+ * the magnetic model's field there; a departure beyond the options'
+ * tolerances is a warning (a magnetometer disturbed by magnetic rock, steel
+ * or a faulty tool: its azimuth is doubtful). Measured fields without a model
+ * to compare them with give one note. Findings are appended, with
+ * surveys_file (may be NULL) as the file their lines are in. */
+corax_status corax_qa_field(const corax_corrections *stations, const char *surveys_file,
+                            const corax_qa_options *options, corax_findings *out);
 
 /* The orientation and program checks. runs may be NULL (nruns 0); a hole
  * without runs has them inferred from its readings (readings in a row that

@@ -63,6 +63,22 @@ typedef struct cli_paths {
     size_t n;
 } cli_paths;
 
+/* The azimuth corrections asked for (cli/corrections.c). */
+typedef struct cli_corrections {
+    int declination_model;      /* --declination model */
+    int convergence_projection; /* --convergence projection */
+    const char *model_name;     /* --magnetic-model NAME|FILE, or NULL (WMM) */
+    const char *grid_text;      /* --local-grid as given, or NULL */
+    const char *date_text;      /* --survey-date as given, or NULL */
+    int north;                  /* --survey-reference: a corax_north */
+    corax_crs *crs;             /* --crs, opened when given */
+    const char *crs_text;       /* --crs as given (for GDAL), or NULL */
+    corax_local_grid grid;
+    corax_magnetic_model *model;
+    corax_corrector corrector;  /* what the loader is given */
+    corax_corrections record;   /* every station's corrections, once loaded */
+} cli_corrections;
+
 /* Options shared by the commands that read a drill program. */
 typedef struct cli_common {
     const char *command; /* for messages */
@@ -85,6 +101,7 @@ typedef struct cli_common {
     corax_outputs *outputs;  /* the run's files, made public together */
     cli_paths *inputs, *outputs_named; /* for the same-file check */
     const char *about_path;  /* where the record goes, or NULL */
+    cli_corrections corr;
     int quiet;
     char **owned;        /* strings made while reading options (project paths) */
     size_t nowned;
@@ -116,6 +133,11 @@ enum {
     OPT_REJECT_STATION,
     OPT_OUTPUT_DELIMITER,
     OPT_OUTPUT_DECIMAL,
+    OPT_CRS,
+    OPT_LOCAL_GRID,
+    OPT_SURVEY_DATE,
+    OPT_MAGNETIC_MODEL,
+    OPT_SURVEY_REFERENCE,
     /* the core conventions, for the commands that read core logs */
     OPT_REFERENCE = 1050,
     OPT_BETA_END,
@@ -202,6 +224,11 @@ void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
         {"reject-station", required_argument, NULL, OPT_REJECT_STATION},     \
         {"output-delimiter", required_argument, NULL, OPT_OUTPUT_DELIMITER}, \
         {"output-decimal-mark", required_argument, NULL, OPT_OUTPUT_DECIMAL}, \
+        {"crs", required_argument, NULL, OPT_CRS},                           \
+        {"local-grid", required_argument, NULL, OPT_LOCAL_GRID},             \
+        {"survey-date", required_argument, NULL, OPT_SURVEY_DATE},           \
+        {"magnetic-model", required_argument, NULL, OPT_MAGNETIC_MODEL},     \
+        {"survey-reference", required_argument, NULL, OPT_SURVEY_REFERENCE}, \
         {"output", required_argument, NULL, 'o'},                            \
         {"quiet", no_argument, NULL, 'q'}, {"help", no_argument, NULL, 'h'}
 
@@ -290,6 +317,25 @@ int cli_value_delimiter(const char *arg, int *value, char *why, size_t whylen);
 int cli_value_decimal(const char *arg, int *value, char *why, size_t whylen);
 int cli_value_units(const char *arg, int *value, char *why, size_t whylen);
 int cli_value_dip(const char *arg, int *value, char *why, size_t whylen);
+
+/* The corrections' options (--declination, --convergence, --crs,
+ * --local-grid, --survey-date, --magnetic-model, --survey-reference): 1
+ * applied, 0 not one of them, -1 with why filled. */
+int cli_corrections_option(cli_common *c, int opt, const char *arg, char *why, size_t whylen);
+
+/* 1 when any of them asks for more than the default (no correction). */
+int cli_corrections_asked(const cli_common *c);
+
+/* After parsing, for a command that loads a drill program: check that they
+ * go together, read the magnetic model, and hand the corrector to the loader.
+ * 0, or the exit status with the message printed. */
+int cli_corrections_prepare(cli_common *c);
+
+/* Record them in a .about file: the model and its dates, the CRS, the local
+ * grid, and the sign convention. */
+void cli_corrections_about(cli_about *a, const cli_common *c);
+
+void cli_corrections_free(cli_corrections *k);
 
 /* Load the drill program, printing findings; NULL (message printed) when it
  * cannot be used. */

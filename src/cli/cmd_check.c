@@ -41,6 +41,11 @@ static const char check_help[] =
     "  --run-misfit DEG      a run this far from its neighbours disagrees [25]\n"
     "  --hole-turn DEG       a hole fitting the program best turned further [15]\n"
     "  --low-confidence LIST confidence words taken as low [poor,low]\n"
+    "  --total-field NT, --field-dip DEG\n"
+    "                        a station whose measured total field or dip of the field\n"
+    "                        (the surveys' total_field and field_dip columns) departs\n"
+    "                        further from the magnetic model's (--declination model)\n"
+    "                        [300, 0.45: common practice for field acceptance]\n"
     "\n";
 
 enum {
@@ -60,6 +65,8 @@ enum {
     OPT_RUN_MISFIT,
     OPT_HOLE_TURN,
     OPT_LOW_CONFIDENCE,
+    OPT_TOTAL_FIELD,
+    OPT_FIELD_DIP,
 };
 
 typedef struct check_opts {
@@ -106,10 +113,12 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
                   {OPT_FIRST, 0, 1e4, 0},      {OPT_COLLAR, 0.1, 90, 1},
                   {OPT_STEEP, 1, 90, 1},       {OPT_LOW_ALPHA, 0, 90, 1},
                   {OPT_RUN_LENGTH, 0.1, 1e3, 0}, {OPT_RUN_MISFIT, 1, 90, 1},
-                  {OPT_HOLE_TURN, 1, 180, 1}};
+                  {OPT_HOLE_TURN, 1, 180, 1},    {OPT_TOTAL_FIELD, 1, 1e5, 0},
+                  {OPT_FIELD_DIP, 0.01, 90, 1}};
     double *slot[] = {&q->gap,  &q->dogleg,    &q->magnetic_azimuth, &q->magnetic_dip,
                       &q->first_station, &q->collar_mismatch, &q->steep, &q->low_alpha,
-                      &q->run_length, &q->run_misfit, &q->hole_turn};
+                      &q->run_length, &q->run_misfit, &q->hole_turn, &q->total_field,
+                      &q->field_dip};
     for (size_t i = 0; i < sizeof limits / sizeof limits[0]; i++)
         if (limits[i].opt == opt) {
             double v;
@@ -151,6 +160,8 @@ static int parse(int argc, char **argv, check_opts *o)
         {"run-misfit", required_argument, NULL, OPT_RUN_MISFIT},
         {"hole-turn", required_argument, NULL, OPT_HOLE_TURN},
         {"low-confidence", required_argument, NULL, OPT_LOW_CONFIDENCE},
+        {"total-field", required_argument, NULL, OPT_TOTAL_FIELD},
+        {"field-dip", required_argument, NULL, OPT_FIELD_DIP},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, check_help, 1, check_option, o);
@@ -510,6 +521,10 @@ static int write_about(const check_opts *o)
     cli_about_set(a, "run_length", "%g", q->run_length);
     cli_about_set(a, "run_misfit", "%g", corax_deg(q->run_misfit));
     cli_about_set(a, "hole_turn", "%g", corax_deg(q->hole_turn));
+    cli_about_set(a, "total_field", "%g (nT, measured against the magnetic model)",
+                  q->total_field);
+    cli_about_set(a, "field_dip", "%g (degrees, measured against the magnetic model)",
+                  corax_deg(q->field_dip));
     cli_about_conventions(a, &o->convert);
     cli_about_codes(a, &o->log);
     return cli_about_commit(a, &o->c);
@@ -547,6 +562,8 @@ int cmd_check(int argc, char **argv)
                    "these rows keep it as their confidence");
     cli_phase(&o.c, "checking %zu holes and %zu readings", corax_program_size(prog), l.n);
     corax_status st = corax_qa_surveys(prog, o.c.surveys, &o.qa, &found);
+    if (st == CORAX_OK)
+        st = corax_qa_field(&o.c.corr.record, o.c.surveys, &o.qa, &found);
     if (st == CORAX_OK && l.n)
         st = corax_qa_readings(prog, l.reading, l.n, runs, nruns, &o.convert, &o.qa, &found);
     if (st == CORAX_OK)

@@ -30,7 +30,8 @@ static const char export_help[] =
     "                        attribute), traces (3-D lines, depth as measure), collars,\n"
     "                        findings, intervals, contacts; DXF also discs and\n"
     "                        lineations; shp writes a folder\n"
-    "  --crs CRS             reference system of the coordinates, e.g. EPSG:28355\n"
+    "                        (--crs, a shared option, attaches the coordinates'\n"
+    "                        reference system, e.g. EPSG:32754)\n"
     "  --layers LIST         only these GIS layers (GeoJSON holds one a file)\n"
     "  --findings FILE       corax check's findings as a layer of points\n"
     "  --intervals [LAYER=]FILE  a from/to table (hole, from, to, ...) desurveyed at\n"
@@ -65,7 +66,6 @@ enum {
     OPT_STEP,
     OPT_NO_TRACES,
     OPT_ARROWS,
-    OPT_CRS,
     OPT_LAYERS,
     OPT_FINDINGS,
     OPT_INTERVALS,
@@ -150,7 +150,6 @@ static int export_option(void *ctx, int opt, const char *arg, char *why, size_t 
     case OPT_ARROWS:
         o->arrows_given = 1;
         return cli_value_number(arg, 1e-3, 1e5, &o->vtk.arrow, why, wl);
-    case OPT_CRS: o->crs = arg; return 0;
     case OPT_LAYERS: o->layers = arg; return 0;
     case OPT_FINDINGS: o->findings = arg; return 0;
     case OPT_INTERVALS: return add_intervals(o, arg, why, wl);
@@ -269,7 +268,6 @@ static int parse(int argc, char **argv, export_opts *o)
         {"step", required_argument, NULL, OPT_STEP},
         {"no-traces", no_argument, NULL, OPT_NO_TRACES},
         {"arrows", required_argument, NULL, OPT_ARROWS},
-        {"crs", required_argument, NULL, OPT_CRS},
         {"layers", required_argument, NULL, OPT_LAYERS},
         {"findings", required_argument, NULL, OPT_FINDINGS},
         {"intervals", required_argument, NULL, OPT_INTERVALS},
@@ -588,7 +586,7 @@ static int run(const export_opts *o, const corax_program *prog)
     int vtk_intervals = o->format == FORMAT_VTK && o->nintervals;
     cli_about_section(a, "export");
     cli_about_set(a, "format", "%s", o->format_name);
-    cli_about_set(a, "crs", "%s", o->crs ? o->crs : "none given");
+    cli_about_set(a, "crs", "%s", o->c.corr.crs_text ? o->c.corr.crs_text : "none given");
     if (o->format == FORMAT_GIS)
         rc = export_gis(o, prog, a);
     else if (o->format == FORMAT_CSV)

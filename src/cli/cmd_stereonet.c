@@ -181,11 +181,11 @@ static int parse(int argc, char **argv, stereo_opts *o)
     if (optind >= argc)
         return cli_usage("stereonet", "no input: name one or more converted tables");
     if (!o->c.project && /* a shared project file may name them for other commands */
-        (o->c.collars || o->c.surveys || o->c.all.columns || o->c.load.declination != 0.0 ||
-         o->c.load.convergence != 0.0))
-        return cli_usage("stereonet", "--collars, --surveys, --columns, --declination and "
-                                      "--convergence do not apply: stereonet reads converted "
-                                      "tables, whose columns carry corax's names");
+        (o->c.collars || o->c.surveys || o->c.all.columns || cli_corrections_asked(&o->c)))
+        return cli_usage("stereonet", "--collars, --surveys, --columns and the survey "
+                                      "corrections (--declination, --convergence, --crs, ...) "
+                                      "do not apply: stereonet reads converted tables, whose "
+                                      "columns carry corax's names");
     if (o->stats && strcmp(o->stats, "-") == 0 && strcmp(o->c.output, "-") == 0)
         return cli_usage("stereonet", "the net and --stats cannot both go to standard output");
     o->style.min_angle = corax_rad(o->min_angle);

@@ -8,7 +8,8 @@
 #include "io/fields.h"
 
 static const char trace_help[] =
-    "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES] [-o FILE]\n"
+    "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES]\n"
+    "                   [--corrections FILE] [-o FILE]\n"
     "\n"
     "Desurvey every hole by minimum curvature and report where each hole is and\n"
     "which way it points.\n"
@@ -20,6 +21,11 @@ static const char trace_help[] =
     "                        station and the end of the hole, with the dogleg severity\n"
     "                        (degrees per 30 m) at stations\n"
     "                        Without --at or --step: the collar, stations and hole end.\n"
+    "  --corrections FILE    a companion table, one row per survey station: its date\n"
+    "                        and reference, the declination, convergence and local grid\n"
+    "                        rotation applied, the total added to the surveyed azimuth,\n"
+    "                        the collar's latitude and longitude, and the magnetic\n"
+    "                        model's field beside the field the survey measured\n"
     "\n"
     "Status: ok; extrapolated (below the last station); collar-only (no survey: straight\n"
     "along the collar's azimuth and dip); beyond-end (deeper than the hole's length);\n"
@@ -33,9 +39,10 @@ typedef struct trace_opts {
     char decimal; /* the --at table's decimal mark, as read */
     double unit;  /* metres per unit of its depths */
     corax_dip_convention dip; /* of the dips written: the surveys' */
+    const char *corrections; /* the companion table, or NULL */
 } trace_opts;
 
-enum { OPT_AT = OPT_COMMAND_BASE, OPT_STEP };
+enum { OPT_AT = OPT_COMMAND_BASE, OPT_STEP, OPT_CORRECTIONS };
 
 static void write_point(corax_writer *w, const corax_hole_point *pt,
                         corax_dip_convention conv)
@@ -211,11 +218,80 @@ static int trace_all(trace_opts *o, const corax_program *prog, corax_writer *w)
     return EXIT_OK;
 }
 
+/* A decimal year as its date, or an empty field. */
+static void write_date(corax_writer *w, double year)
+{
+    char text[16] = "";
+    if (!isnan(year))
+        corax_date_text(year, text, sizeof text);
+    write_text(w, text);
+}
+
+/* One row per station of every hole, in depth order: what its azimuth got. */
+static void write_corrections(const trace_opts *o, const corax_program *prog, corax_writer *w)
+{
+    static const char header[] =
+        "hole,depth,date,reference,surveyed_azimuth,declination,convergence,rotation,"
+        "correction,azimuth,latitude,longitude,model,model_total_field,model_field_dip,"
+        "total_field,field_dip\n";
+    corax_writer_text(w, header, sizeof header - 1);
+    for (size_t i = 0; i < corax_program_size(prog); i++) {
+        const corax_hole *h = corax_program_hole(prog, i);
+        const char *name = corax_hole_name(h);
+        for (size_t k = 0; k < corax_hole_station_count(h); k++) {
+            corax_station st;
+            corax_hole_station(h, k, &st, NULL, NULL);
+            const corax_station_record *r = corax_corrections_find(&o->c.corr.record, name,
+                                                                   st.line);
+            if (!r)
+                continue; /* every loaded station has its record */
+            const corax_correction *c = &r->correction;
+            write_text(w, name);
+            corax_writer_number(w, st.depth, 3);
+            write_date(w, c->date);
+            write_text(w, corax_north_name(c->north));
+            corax_writer_azimuth(w, corax_deg(r->azimuth), 3);
+            corax_writer_number(w, corax_deg(c->declination), 3);
+            corax_writer_number(w, corax_deg(c->convergence), 3);
+            corax_writer_number(w, corax_deg(c->rotation), 3);
+            corax_writer_number(w, corax_deg(c->total), 3);
+            corax_writer_azimuth(w, corax_deg(st.azimuth), 3);
+            corax_writer_number(w, corax_deg(r->site.latitude), 6);
+            corax_writer_number(w, corax_deg(r->site.longitude), 6);
+            write_text(w, c->field.model ? c->field.model : "");
+            corax_writer_number(w, c->field.total, 1);
+            corax_writer_number(w, corax_deg(c->field.inclination), 2);
+            corax_writer_number(w, r->total_field, 1);
+            corax_writer_number(w, corax_deg(r->field_dip), 2);
+            corax_writer_end_row(w);
+        }
+    }
+}
+
+/* The companion table, whole or not at all. */
+static int trace_corrections(const trace_opts *o, const corax_program *prog)
+{
+    corax_writer *w;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_writer_open(o->corrections, &w, &err);
+    if (st == CORAX_OK) {
+        write_corrections(o, prog, w);
+        st = corax_writer_commit(w, &err);
+    }
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        return EXIT_DATA;
+    }
+    return EXIT_OK;
+}
+
 static int trace_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
 {
     trace_opts *o = ctx;
     switch (opt) {
     case OPT_AT: o->at = arg; return 0;
+    case OPT_CORRECTIONS: o->corrections = arg; return 0;
     case OPT_STEP: return cli_value_number(arg, 1e-3, 1e5, &o->step, why, wl);
     }
     snprintf(why, wl, "not an option of this command");
@@ -228,6 +304,7 @@ static int parse(int argc, char **argv, trace_opts *o)
         CLI_COMMON_OPTIONS,
         {"at", required_argument, NULL, OPT_AT},
         {"step", required_argument, NULL, OPT_STEP},
+        {"corrections", required_argument, NULL, OPT_CORRECTIONS},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, trace_help, 1, trace_option, o);
@@ -237,6 +314,8 @@ static int parse(int argc, char **argv, trace_opts *o)
         return cli_usage("trace", "unexpected argument '%s'", argv[optind]);
     if (o->at && o->step > 0.0)
         return cli_usage("trace", "--at and --step do not go together");
+    if (o->corrections && strcmp(o->corrections, "-") == 0 && strcmp(o->c.output, "-") == 0)
+        return cli_usage("trace", "the trace and --corrections cannot both go to standard output");
     cli_input(&o->c, "--at", o->at);
     return cli_common_finish(&o->c, 1);
 }
@@ -261,6 +340,8 @@ int cmd_trace(int argc, char **argv)
         corax_writer_format(w, o.c.output_format);
         o.dip = cli_table_dip(&o.c, CLI_SURVEYS);
         rc = o.at ? trace_at(&o, prog, w) : trace_all(&o, prog, w);
+        if (rc == EXIT_OK && o.corrections)
+            rc = trace_corrections(&o, prog);
         if (rc == EXIT_OK) {
             st = corax_writer_commit(w, &err);
             if (st != CORAX_OK) {
@@ -279,6 +360,8 @@ int cmd_trace(int argc, char **argv)
         else
             cli_about_set(a, "step", "%g", o.step);
         cli_about_set(a, "dip", "%s, as the surveys give it", cli_dip_convention_name(o.dip));
+        if (o.corrections)
+            cli_about_set(a, "corrections", "%s", o.corrections);
         if (cli_about_commit(a, &o.c) != 0)
             rc = EXIT_DATA;
     }

@@ -11,17 +11,36 @@
 
 const char cli_common_help[] =
     "Drill program:\n"
-    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length\n"
-    "  --surveys FILE        survey table: hole, depth, azimuth, dip\n"
+    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length,\n"
+    "                        date, latitude, longitude\n"
+    "  --surveys FILE        survey table: hole, depth, azimuth, dip; optional date,\n"
+    "                        reference (magnetic, true, grid), total_field, field_dip\n"
     "  --columns MAP         header names for corax's columns, e.g.\n"
     "                        hole=HOLE_NO,depth=DEPTH_M (names match without case)\n"
     "  --dip-convention C    negative-down (default: -60 is a downward hole),\n"
     "                        positive-down, or from-vertical (0 = straight down)\n"
-    "  --declination DEG     magnetic declination, east positive; added to survey\n"
-    "                        azimuths (magnetic to true). Default 0\n"
-    "  --convergence DEG     grid convergence or local grid rotation, positive when\n"
-    "                        grid north is east of true north; subtracted from\n"
-    "                        survey azimuths (true to grid). Default 0\n"
+    "  --declination DEG|model  magnetic declination, east positive; added to\n"
+    "                        magnetic survey azimuths (magnetic to true). Default 0.\n"
+    "                        model: from the World Magnetic Model at each station's\n"
+    "                        date and its collar's place (needs --crs, or latitude\n"
+    "                        and longitude columns in the collars)\n"
+    "  --convergence DEG|projection  grid convergence, positive when grid north is\n"
+    "                        east of true north; subtracted from survey azimuths\n"
+    "                        (true to grid). Default 0. projection: from --crs at\n"
+    "                        each collar\n"
+    "  --crs EPSG:NNNN       the CRS of the collar coordinates (of the CRS side of\n"
+    "                        a local grid), any projected CRS PROJ knows\n"
+    "  --local-grid x1,y1,E1,N1,x2,y2,E2,N2 | origin=E,N,rotation=DEG,scale=S\n"
+    "                        the collars are on a local mine grid: two points known\n"
+    "                        on both grids, or its origin in the CRS, its rotation\n"
+    "                        (local north clockwise of grid north) and scale; its\n"
+    "                        rotation is subtracted from survey azimuths\n"
+    "  --survey-date DATE    the date (YYYY-MM-DD) of stations without one: the\n"
+    "                        surveys' date column comes first, then the collars'\n"
+    "  --magnetic-model M    WMM (default: WMM2015v2, WMM2020, WMM2025 by date),\n"
+    "                        WMM2015, WMM2015v2, WMM2020, WMM2025, or a COF file\n"
+    "  --survey-reference magnetic|true|grid  the north of survey azimuths without a\n"
+    "                        reference column of their own (default magnetic)\n"
     "  --delimiter D         field separator of the input tables: comma, semicolon,\n"
     "                        tab or auto (default: found from each table)\n"
     "  --decimal-mark M      point, comma or auto (default: found from each table)\n"
@@ -266,10 +285,7 @@ cli_about *cli_about_new(const char *command, const cli_common *c)
     cli_about_section(a, "survey");
     cli_about_set(a, "collars_dip_convention", "%s", cli_dip_convention_name(c->load.collar_dip));
     cli_about_set(a, "surveys_dip_convention", "%s", cli_dip_convention_name(c->load.survey_dip));
-    cli_about_set(a, "declination", "%g", c->load.declination);
-    cli_about_set(a, "convergence", "%g", c->load.convergence);
-    cli_about_set(a, "azimuth_correction", "%g (added to every survey azimuth; collar "
-                  "azimuths are taken as given)", c->load.declination - c->load.convergence);
+    cli_corrections_about(a, c);
     cli_about_set(a, "desurvey", "minimum curvature; %s above the first "
                   "station; straight on along the last tangent below the last station",
                   c->load.collar_station ? "curving from the collar's set-up (a station at 0 m)"

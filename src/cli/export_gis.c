@@ -260,7 +260,8 @@ int export_gis(const export_opts *o, const corax_program *prog, cli_about *a)
     corax_gis *g;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_gis_open(o->c.outputs, o->c.output, o->format_name, o->crs, &g, &err);
+    corax_status st = corax_gis_open(o->c.outputs, o->c.output, o->format_name,
+                                      o->c.corr.crs_text, &g, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return st == CORAX_EIO ? EXIT_DATA : EXIT_USAGE;

@@ -22,7 +22,6 @@ typedef struct export_opts {
     const char *format_name;     /* as given */
     corax_export_options vtk;
     int binary_given, shape_given, radius_given, arrows_given;
-    const char *crs;             /* --crs, or the project's [survey] crs */
     const char *findings;        /* --findings: corax check's table */
     export_table intervals[EXPORT_MAX_TABLES];
     int nintervals;

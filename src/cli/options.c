@@ -37,6 +37,7 @@ void cli_common_init(cli_common *c, const char *command)
     c->inputs = calloc(1, sizeof *c->inputs);
     c->outputs_named = calloc(1, sizeof *c->outputs_named);
     cli_files_watch(c->outputs);
+    c->corr.corrector = corax_corrector_default();
 }
 
 void cli_common_free(cli_common *c)
@@ -48,6 +49,7 @@ void cli_common_free(cli_common *c)
         corax_column_map_free(c->table[i].merged);
         c->table[i].columns = c->table[i].merged = NULL;
     }
+    cli_corrections_free(&c->corr);
     for (size_t i = 0; i < c->nowned; i++)
         free(c->owned[i]);
     free(c->owned);
@@ -205,10 +207,6 @@ static int common_option(cli_common *c, int opt, const char *arg, char *why, siz
     case OPT_PROJECT: return 1; /* read before everything else */
     case 'o': c->output = arg; return 1;
     case 'q': c->quiet = 1; return 1;
-    case OPT_DECLINATION:
-        return cli_value_number(arg, -180, 180, &c->load.declination, why, wl) ? -1 : 1;
-    case OPT_CONVERGENCE:
-        return cli_value_number(arg, -180, 180, &c->load.convergence, why, wl) ? -1 : 1;
     case OPT_DELIMITER: return cli_value_delimiter(arg, &c->all.delimiter, why, wl) ? -1 : 1;
     case OPT_DECIMAL_COMMA: c->all.decimal = ','; return 1;
     case OPT_DECIMAL_MARK: return cli_value_decimal(arg, &c->all.decimal, why, wl) ? -1 : 1;
@@ -217,7 +215,7 @@ static int common_option(cli_common *c, int opt, const char *arg, char *why, siz
     case OPT_OUTPUT_DELIMITER:
     case OPT_OUTPUT_DECIMAL: return output_format(c, opt, arg, why, wl) ? -1 : 1;
     }
-    return 0;
+    return cli_corrections_option(c, opt, arg, why, wl);
 }
 
 /* ---- project files ---- */
@@ -245,6 +243,10 @@ static const struct {
     {"survey", "declination", "declination", 0},
     {"survey", "convergence", "convergence", 0},
     {"survey", "crs", "crs", 0},
+    {"survey", "local_grid", "local-grid", 0},
+    {"survey", "survey_date", "survey-date", 0},
+    {"survey", "magnetic_model", "magnetic-model", 2}, /* a file, unless a built-in name */
+    {"survey", "reference", "survey-reference", 0},
     {"core", "reference_line", "reference-line", 0},
     {"core", "beta_end", "beta-end", 0},
     {"core", "beta_sense", "beta-sense", 0},
@@ -281,6 +283,8 @@ static const struct {
     {"check", "run_misfit", "run-misfit", 0},
     {"check", "hole_turn", "hole-turn", 0},
     {"check", "low_confidence", "low-confidence", 0},
+    {"check", "total_field", "total-field", 0},
+    {"check", "field_dip", "field-dip", 0},
 };
 enum { NKEYS = sizeof project_keys / sizeof project_keys[0] };
 
@@ -493,7 +497,8 @@ static int on_project_key(void *user, const char *section, const char *key, cons
         if (strcmp(project_keys[i].section, section) || strcmp(project_keys[i].key, key))
             continue;
         /* options may keep the text they are given: every value outlives the read */
-        int relative = project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0;
+        int relative = project_keys[i].path && value[0] != '/' && strcmp(value, "-") != 0 &&
+                       !(project_keys[i].path == 2 && corax_magnetic_is_builtin(value));
         const char *arg = own_string(p->c, join_path(relative ? p->dir : "", value));
         if (!arg) {
             corax_error_set(err, CORAX_ENOMEM, NULL, line, "out of memory");
@@ -691,7 +696,10 @@ int cli_common_finish(cli_common *c, int need_program)
     cli_output(c, "-o", c->output);
     c->about_path = about_path(c);
     cli_output(c, "--about", c->about_path);
-    return cli_files_check(c);
+    int rc = cli_files_check(c);
+    if (rc == 0 && c->collars && c->surveys)
+        rc = cli_corrections_prepare(c);
+    return rc;
 }
 
 /* ---- core conventions ---- */

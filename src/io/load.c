@@ -8,6 +8,7 @@
 
 #include "corax/load.h"
 #include "io/fields.h"
+#include "io/stations.h"
 
 corax_load_options corax_load_options_default(void)
 {
@@ -22,12 +23,14 @@ typedef struct collar_rec {
     char *hole;
     corax_collar collar;
     long line;
+    corax_collar_place place; /* date and place, for the azimuth corrections */
 } collar_rec;
 
 typedef struct survey_rec {
     char *hole;
     corax_station station;
     int rejected; /* left out on request (the table's `use`, or a reject) */
+    corax_station_extra extra; /* date, reference and measured field */
 } survey_rec;
 
 typedef struct records {
@@ -169,11 +172,14 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
                                  corax_findings *problems, corax_table_info *info,
                                  corax_error *err)
 {
-    static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length"};
-    long col[7];
+    static const char *const names[] = {"hole", "x", "y", "z", "azimuth", "dip", "length",
+                                        CORAX_COLLAR_PLACE_COLUMNS};
+    enum { NCOL = 7 + CORAX_COLLAR_PLACE_NCOL };
+    long col[NCOL];
+    int strict = o->corrector && o->corrector->model; /* dates and places are needed */
     size_t width;
     corax_reader *r;
-    corax_status st = open_table(path, &o->collars, names, 7, 4, col, &width, &r, err);
+    corax_status st = open_table(path, &o->collars, names, NCOL, 4, col, &width, &r, err);
     if (st != CORAX_OK)
         return st;
     corax_table_info ti;
@@ -186,6 +192,7 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
         corax_collar c = {{0, 0, 0}, 0, 0, 0, NAN};
+        corax_collar_place place;
         double *xyz[3] = {&c.position.x, &c.position.y, &c.position.z};
         int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL;
         if (!bad && hl == 0) {
@@ -215,6 +222,9 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
                     !corax_field_plausible(c.length, CORAX_MAX_DEPTH, "length", why,
                                            sizeof why)));
         }
+        if (!bad)
+            bad = !corax_read_collar_place(&row, col + 7, decimal, strict, &place, why,
+                                           sizeof why);
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "collar-row", path, row.line,
                                     hl ? hole : NULL, NAN, "%s", why);
@@ -230,6 +240,7 @@ static corax_status read_collars(const char *path, const corax_load_options *o, 
         }
         cr->collar = c;
         cr->line = row.line;
+        cr->place = place;
     }
     corax_reader_info(r, info);
     corax_reader_close(r);
@@ -257,11 +268,13 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
                                  corax_error *err)
 {
     static const char *const names[] = {"hole", "depth", "azimuth", "dip", "azimuth_error",
-                                        "dip_error", "use"};
-    long col[7];
+                                        "dip_error", "use", CORAX_STATION_EXTRA_COLUMNS};
+    enum { NCOL = 7 + CORAX_STATION_EXTRA_NCOL };
+    long col[NCOL];
+    int strict = o->corrector && o->corrector->model; /* dates are needed */
     size_t width;
     corax_reader *r;
-    corax_status st = open_table(path, &o->surveys, names, 7, 4, col, &width, &r, err);
+    corax_status st = open_table(path, &o->surveys, names, NCOL, 4, col, &width, &r, err);
     if (st != CORAX_OK)
         return st;
     corax_table_info ti;
@@ -274,6 +287,7 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
         size_t hl;
         const char *hole = corax_field_text(&row, col[0], &hl);
         corax_station s = {NAN, 0, 0, row.line, 0, NAN, NAN};
+        corax_station_extra extra;
         int bad = corax_field_ragged(&row, width, why, sizeof why) != NULL, use = 1;
         if (!bad && hl == 0) {
             snprintf(why, sizeof why, "the hole name is empty");
@@ -300,6 +314,9 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
             snprintf(why, sizeof why, "use '%.20s' is not yes or no", row.field[col[6]]);
             bad = 1;
         }
+        if (!bad)
+            bad = !corax_read_station_extra(&row, col + 7, decimal, strict, &extra, why,
+                                            sizeof why);
         if (bad) {
             st = corax_findings_add(problems, CORAX_ERROR, "survey-row", path, row.line,
                                     hl ? hole : NULL, s.depth, "%s", why);
@@ -315,6 +332,7 @@ static corax_status read_surveys(const char *path, const corax_load_options *o, 
         }
         sr->station = s;
         sr->rejected = !use;
+        sr->extra = extra;
     }
     corax_reader_info(r, info);
     corax_reader_close(r);
@@ -404,13 +422,18 @@ static corax_status mark_rejects(const corax_load_options *o, records *rec,
     return CORAX_OK;
 }
 
-/* Desurvey each collar's hole from its stations and add it to the program. */
+/* Desurvey each collar's hole from its stations, each station's azimuth
+ * corrected, and add it to the program. */
 static corax_status build_program(const char *cpath, const char *spath,
                                   const corax_load_options *o, records *rec,
                                   corax_program *prog, corax_findings *problems, size_t *rejected)
 {
-    double correction = corax_rad(o->declination - o->convergence);
+    corax_corrector constant = corax_corrector_default();
+    constant.declination = corax_rad(o->declination);
+    constant.convergence = corax_rad(o->convergence);
+    const corax_corrector *corr = o->corrector ? o->corrector : &constant;
     corax_station *buf = NULL;
+    corax_station_extra *extra = NULL;
     size_t cap = 0;
     corax_status st = CORAX_OK;
     for (size_t i = 0; i < rec->ncollar && st != CORAX_ENOMEM; i++) {
@@ -426,19 +449,20 @@ static corax_status build_program(const char *cpath, const char *spath,
             n++;
         if (n + 1 > cap) {
             corax_station *p = realloc(buf, (n + 1) * sizeof *p);
-            if (!p) {
+            corax_station_extra *q = p ? realloc(extra, (n + 1) * sizeof *q) : NULL;
+            buf = p ? p : buf;
+            extra = q ? q : extra;
+            if (!q) {
                 st = CORAX_ENOMEM;
                 break;
             }
-            buf = p;
             cap = n + 1;
         }
-        double first = INFINITY;
         for (size_t j = 0; j < n && st != CORAX_ENOMEM; j++) {
             const survey_rec *sr = &rec->survey[k + j];
-            if (!sr->rejected) {
-                buf[used++] = sr->station;
-                first = fmin(first, sr->station.depth);
+            if (!sr->rejected) { /* rejected stations need no correction, nor a date */
+                buf[used] = sr->station;
+                extra[used++] = sr->extra;
                 continue;
             }
             (*rejected)++;
@@ -448,15 +472,23 @@ static corax_status build_program(const char *cpath, const char *spath,
                                     sr->station.depth,
                                     sr->rejected == 2 ? "the reject list" : "its use column");
         }
-        if (o->collar_station && used && c->collar.has_direction && first > 0.0) {
-            /* the set-up as a station at the collar; stations get the azimuth
-             * correction, the collar's azimuth is already in the grid */
-            buf[used++] = corax_station_make(0.0, c->collar.azimuth - correction,
-                                             c->collar.plunge, c->line);
-        }
-        st = build_hole(c, buf, used, correction, o->repair, spath, prog, problems);
+        int placed;
+        st = corax_correct_stations(corr, c->hole, &c->collar, &c->place, cpath, c->line, buf,
+                                    extra, &used, spath, o->corrections, problems, &placed);
+        double first = INFINITY;
+        for (size_t j = 0; j < used; j++)
+            first = fmin(first, buf[j].depth);
+        if (st == CORAX_OK && placed && o->collar_station && used && c->collar.has_direction &&
+            first > 0.0) /* the set-up as a station at the collar: its azimuth is in the
+                          * grid already, and the stations above are corrected */
+            buf[used++] = corax_station_make(0.0, c->collar.azimuth, c->collar.plunge, c->line);
+        if (st == CORAX_OK && placed)
+            st = build_hole(c, buf, used, 0.0, o->repair, spath, prog, problems);
     }
     free(buf);
+    free(extra);
+    if (o->corrections)
+        corax_corrections_sort(o->corrections);
     return st;
 }
 

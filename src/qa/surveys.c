@@ -35,6 +35,8 @@ corax_qa_options corax_qa_options_default(void)
     o.turn_gain = 0.4;
     o.low_confidence = low;
     o.azimuth_correction = 0.0;
+    o.total_field = 300.0;
+    o.field_dip = corax_rad(0.45);
     return o;
 }
 
