@@ -48,6 +48,18 @@ enum {
     OPT_NEAR_PARALLEL,
     OPT_NEAR_PERPENDICULAR,
     OPT_VERTICAL_LIMIT,
+    /* the uncertainty, for the commands that draw */
+    OPT_DRAWS = 1070,
+    OPT_SEED,
+    OPT_ALPHA_ERROR,
+    OPT_BETA_ERROR,
+    OPT_LINE_ERROR,
+    OPT_DEPTH_ERROR,
+    OPT_AZIMUTH_ERROR,
+    OPT_DIP_ERROR,
+    OPT_AZIMUTH_ERROR_HOLE,
+    OPT_DIP_ERROR_HOLE,
+    OPT_GRAVITY_ERROR,
     OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
 };
 
@@ -71,6 +83,27 @@ int cli_convention_option(corax_convert_options *cv, int opt, const char *arg, c
 
 /* Record the conventions and thresholds in a .about file. */
 void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
+
+/* Long options for the uncertainty of a reading's place and alpha, and of the
+ * surveys (the core line's own: --beta-error, --line-error, --gravity-error). */
+#define CLI_UNCERTAINTY_OPTIONS                                                   \
+    {"draws", required_argument, NULL, OPT_DRAWS},                                \
+        {"seed", required_argument, NULL, OPT_SEED},                              \
+        {"alpha-error", required_argument, NULL, OPT_ALPHA_ERROR},                \
+        {"depth-error", required_argument, NULL, OPT_DEPTH_ERROR},                \
+        {"azimuth-error", required_argument, NULL, OPT_AZIMUTH_ERROR},            \
+        {"dip-error", required_argument, NULL, OPT_DIP_ERROR},                    \
+        {"azimuth-error-per-hole", required_argument, NULL, OPT_AZIMUTH_ERROR_HOLE}, \
+        {"dip-error-per-hole", required_argument, NULL, OPT_DIP_ERROR_HOLE}
+
+/* Apply an uncertainty option: 1 applied, 0 not one, -1 with why filled.
+ * --draws takes whole numbers from min_draws. */
+int cli_uncertainty_option(corax_error_model *e, size_t *draws, uint64_t *seed, double min_draws,
+                           int opt, const char *arg, char *why, size_t whylen);
+
+/* Record the errors in a .about file (the core line's when core_line). */
+void cli_about_uncertainty(cli_about *a, const corax_error_model *e, size_t draws, uint64_t seed,
+                           int core_line);
 
 /* Long options for the shared set; commands put them first in their table. */
 #define CLI_COMMON_OPTIONS                                                   \
@@ -196,5 +229,6 @@ int cmd_trace(int argc, char **argv);
 int cmd_convert(int argc, char **argv);
 int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
+int cmd_solve(int argc, char **argv);
 
 #endif

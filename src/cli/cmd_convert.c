@@ -65,16 +65,6 @@ enum {
     OPT_GAMMA,
     OPT_PLANE,
     OPT_LINE,
-    OPT_DRAWS,
-    OPT_SEED,
-    OPT_ALPHA_ERROR,
-    OPT_BETA_ERROR,
-    OPT_LINE_ERROR,
-    OPT_DEPTH_ERROR,
-    OPT_AZIMUTH_ERROR,
-    OPT_DIP_ERROR,
-    OPT_AZIMUTH_ERROR_HOLE,
-    OPT_DIP_ERROR_HOLE,
     OPT_CONFIDENCE_ERRORS,
     OPT_CLOUD,
 };
@@ -128,45 +118,15 @@ static int confidence_map(convert_setup *s, const char *arg, char *why, size_t w
 
 static int uncertainty_option(convert_opts *o, int opt, const char *arg, char *why, size_t wl)
 {
-    corax_error_model *e = &o->setup.errors;
-    double v;
     switch (opt) {
-    case OPT_DRAWS:
-        if (cli_value_number(arg, 2, 1e6, &v, why, wl))
-            return -1;
-        if (v != floor(v)) {
-            snprintf(why, wl, "'%s' is not a whole number", arg);
-            return -1;
-        }
-        o->setup.draws = (size_t)v;
-        return 0;
-    case OPT_SEED:
-        if (cli_value_number(arg, 0, 4294967295.0, &v, why, wl))
-            return -1;
-        o->setup.seed = (uint64_t)v;
-        return 0;
     case OPT_CONFIDENCE_ERRORS: return confidence_map(&o->setup, arg, why, wl);
     case OPT_CLOUD: o->setup.cloud = arg; return 0;
     }
-    static const struct {
-        int opt;
-        double max;
-        int metres;
-    } sigma[] = {{OPT_ALPHA_ERROR, 45, 0},       {OPT_BETA_ERROR, 180, 0},
-                 {OPT_LINE_ERROR, 180, 0},       {OPT_DEPTH_ERROR, 100, 1},
-                 {OPT_AZIMUTH_ERROR, 45, 0},     {OPT_DIP_ERROR, 45, 0},
-                 {OPT_AZIMUTH_ERROR_HOLE, 45, 0}, {OPT_DIP_ERROR_HOLE, 45, 0}};
-    double *slot[] = {&e->alpha,   &e->beta, &e->line,         &e->depth,
-                      &e->azimuth, &e->dip,  &e->azimuth_hole, &e->dip_hole};
-    for (int i = 0; i < 8; i++)
-        if (sigma[i].opt == opt) {
-            if (cli_value_number(arg, 0, sigma[i].max, &v, why, wl))
-                return -1;
-            *slot[i] = sigma[i].metres ? v : corax_rad(v);
-            return 0;
-        }
-    snprintf(why, wl, "not an option of this command");
-    return -1;
+    int k = cli_uncertainty_option(&o->setup.errors, &o->setup.draws, &o->setup.seed, 2, opt, arg,
+                                   why, wl);
+    if (k == 0)
+        snprintf(why, wl, "not an option of this command");
+    return k < 0 || k == 0 ? -1 : 0;
 }
 
 static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
@@ -226,16 +186,10 @@ static int parse(int argc, char **argv, convert_opts *o)
         {"gamma", required_argument, NULL, OPT_GAMMA},
         {"plane", required_argument, NULL, OPT_PLANE},
         {"line", required_argument, NULL, OPT_LINE},
-        {"draws", required_argument, NULL, OPT_DRAWS},
-        {"seed", required_argument, NULL, OPT_SEED},
-        {"alpha-error", required_argument, NULL, OPT_ALPHA_ERROR},
+        CLI_UNCERTAINTY_OPTIONS,
         {"beta-error", required_argument, NULL, OPT_BETA_ERROR},
         {"line-error", required_argument, NULL, OPT_LINE_ERROR},
-        {"depth-error", required_argument, NULL, OPT_DEPTH_ERROR},
-        {"azimuth-error", required_argument, NULL, OPT_AZIMUTH_ERROR},
-        {"dip-error", required_argument, NULL, OPT_DIP_ERROR},
-        {"azimuth-error-per-hole", required_argument, NULL, OPT_AZIMUTH_ERROR_HOLE},
-        {"dip-error-per-hole", required_argument, NULL, OPT_DIP_ERROR_HOLE},
+        {"gravity-error", required_argument, NULL, OPT_GRAVITY_ERROR},
         {"confidence-errors", required_argument, NULL, OPT_CONFIDENCE_ERRORS},
         {"cloud", required_argument, NULL, OPT_CLOUD},
         {NULL, 0, NULL, 0},
@@ -281,21 +235,7 @@ static int write_about(const convert_opts *o)
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
     if (o->setup.draws) {
-        const corax_error_model *e = &o->setup.errors;
-        cli_about_section(a, "uncertainty");
-        cli_about_set(a, "draws", "%zu", o->setup.draws);
-        cli_about_set(a, "seed", "%llu", (unsigned long long)o->setup.seed);
-        cli_about_set(a, "generator", "GSL taus2, Gaussians by the ziggurat method (Marsaglia and "
-                      "Tsang 2000) on its 32-bit output; one "
-                      "stream per hole, seeded from the seed and the hole's name");
-        cli_about_set(a, "alpha_error", "%g", corax_deg(e->alpha));
-        cli_about_set(a, "beta_error", "%g", corax_deg(e->beta));
-        cli_about_set(a, "line_error", "%g", corax_deg(e->line));
-        cli_about_set(a, "depth_error", "%g", e->depth);
-        cli_about_set(a, "azimuth_error", "%g", corax_deg(e->azimuth));
-        cli_about_set(a, "dip_error", "%g", corax_deg(e->dip));
-        cli_about_set(a, "azimuth_error_per_hole", "%g", corax_deg(e->azimuth_hole));
-        cli_about_set(a, "dip_error_per_hole", "%g", corax_deg(e->dip_hole));
+        cli_about_uncertainty(a, &o->setup.errors, o->setup.draws, o->setup.seed, 1);
         char map[600] = "";
         size_t used = 0;
         for (size_t i = 0; i < o->setup.nconfidence && used < sizeof map; i++)

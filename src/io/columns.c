@@ -31,6 +31,7 @@ static const char *const known[][6] = {
     {"beta_error", NULL},
     {"line_error", NULL},
     {"depth_error", NULL},
+    {"set", NULL},
     {"azimuth_error", NULL},
     {"dip_error", NULL},
     {"dip_direction", NULL},
