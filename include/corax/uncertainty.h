@@ -50,8 +50,8 @@ corax_error_model corax_error_model_default(void);
  * onto the core's cross-section, points; that projection has length sin h
  * (in units of g), so a sideways error of sin(gravity) turns it by
  *     atan(sin(gravity) / sin(h))
- * (derived): about the tool's own error in a flat hole, 2.0 times it at 30
- * degrees from vertical, 11 times at 5 degrees, and a quarter turn at
+ * (derived): about the tool's own error in a flat hole, twice it at 30
+ * degrees from vertical, 11.3 times at 5 degrees, and a quarter turn at
  * vertical. */
 double corax_gravity_line_error(double gravity, double off_vertical);
 

@@ -34,6 +34,9 @@ static const char convert_help[] =
     "  --alpha-error DEG         alpha reading (default 2)\n"
     "  --beta-error DEG          beta reading (default 5)\n"
     "  --line-error DEG          the orientation line itself (default 5)\n"
+    "  --gravity-error DEG       the marking tool's sense of down (default 1): the\n"
+    "                            line's error grows as atan(sin DEG / sin h), h the\n"
+    "                            hole's angle from vertical\n"
     "  --depth-error M           depth of a reading (default 0.05)\n"
     "  --azimuth-error DEG       survey azimuth, each station (default 1)\n"
     "  --dip-error DEG           survey dip, each station (default 0.5)\n"
@@ -51,8 +54,9 @@ static const char convert_help[] =
     "  --line TREND/PLUNGE       the line_alpha and line_beta this line would show\n"
     "\n"
     "Status: converted; extrapolated; near-parallel; near-perpendicular; collar-only;\n"
-    "beyond-end (these carry an orientation); unoriented; no-reference-line;\n"
-    "no-survey; unknown-hole; invalid (the note says why).\n"
+    "beyond-end (these carry an orientation); dip-only (a plane in a hole within the\n"
+    "vertical limit: its dip, 90 - alpha, and no dip direction); unoriented;\n"
+    "no-reference-line; no-survey; unknown-hole; invalid (the note says why).\n"
     "\n";
 
 enum {

@@ -120,6 +120,11 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
         corax_writer_number(w, res->normal.x, 5);
         corax_writer_number(w, res->normal.y, 5);
         corax_writer_number(w, res->normal.z, 5);
+    } else if (res->conditions & CORAX_COND_DIP_ONLY) { /* the dip, and so the pole's plunge */
+        corax_writer_number(w, corax_deg(res->plane.dip), 2);
+        write_blanks(w, 3);
+        corax_writer_number(w, 90.0 - corax_deg(res->plane.dip), 2);
+        write_blanks(w, 3);
     } else {
         write_blanks(w, 8);
     }
@@ -208,11 +213,14 @@ void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *r
         ev->res.conditions |= CORAX_COND_INVALID;
     }
     ev->simulate = 0;
-    if (r->s->draws && (ev->res.has_plane || ev->res.has_line))
+    if (r->s->draws && (ev->res.has_plane || ev->res.has_line ||
+                        (ev->res.conditions & CORAX_COND_DIP_ONLY)))
         ev->simulate = row_errors(r, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
 }
 
-static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp)
+/* The spread columns; a dip alone has only its dip's spread and the point's. */
+static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp,
+                         int dip_only)
 {
     if (!r->s->draws)
         return;
@@ -221,9 +229,13 @@ static void write_spread(const convert_run *r, corax_writer *w, const corax_spre
         return;
     }
     corax_writer_number(w, corax_deg(sp->dip_sd), 2);
-    corax_writer_number(w, corax_deg(sp->dip_direction_sd), 2);
-    corax_writer_number(w, corax_deg(sp->cone95), 2);
-    corax_writer_number(w, isfinite(sp->kappa) ? sp->kappa : (double)NAN, 1);
+    if (dip_only) {
+        write_blanks(w, 3);
+    } else {
+        corax_writer_number(w, corax_deg(sp->dip_direction_sd), 2);
+        corax_writer_number(w, corax_deg(sp->cone95), 2);
+        corax_writer_number(w, isfinite(sp->kappa) ? sp->kappa : (double)NAN, 1);
+    }
     corax_writer_number(w, sp->position_sd, 3);
 }
 
@@ -236,7 +248,7 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
     for (size_t i = 0; i < r->width; i++)
         corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
     write_result(r, w, &ev->res);
-    write_spread(r, w, sp);
+    write_spread(r, w, sp, (ev->res.conditions & CORAX_COND_DIP_ONLY) != 0);
     unsigned c = ev->res.conditions;
     const char *status = corax_condition_status(c);
     corax_writer_field(w, status, strlen(status));
@@ -596,6 +608,8 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
         printf("strike       %.2f (dip to the right)\n", corax_wrap_degrees(dd - 90, 2));
         printf("pole         trend %.2f, plunge %.2f\n", corax_wrap_degrees(dd + 180, 2), 90 - dip);
     }
+    if (res.conditions & CORAX_COND_DIP_ONLY)
+        printf("plane        dip %.2f, dip direction unknown\n", corax_deg(res.plane.dip));
     if (res.has_line)
         printf("line         trend %.2f, plunge %.2f\n",
                corax_wrap_degrees(corax_deg(res.trend), 2), corax_deg(res.plunge));
@@ -604,5 +618,6 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
     if (corax_result_note(&res, &rd, h, o, note, sizeof note))
         printf("note         %s\n", note);
     corax_hole_free(h);
-    return res.has_plane || res.has_line ? EXIT_OK : EXIT_DATA;
+    return res.has_plane || res.has_line || (res.conditions & CORAX_COND_DIP_ONLY) ? EXIT_OK
+                                                                                   : EXIT_DATA;
 }

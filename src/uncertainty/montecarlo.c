@@ -169,27 +169,34 @@ static void prepare(const corax_mc_reading *m, const corax_convert_options *o, p
     const corax_error_model *e = &m->errors;
     const corax_reading *r = &m->reading;
     const corax_core_conventions *c = &o->conventions;
-    p->plane = m->nominal.has_plane;
+    int dip_only = (m->nominal.conditions & CORAX_COND_DIP_ONLY) != 0;
+    p->plane = m->nominal.has_plane || dip_only;
     p->depth = r->depth;
     p->depth_sigma = e->depth;
     p->alpha = p->plane ? r->alpha : r->line_alpha;
     p->alpha_sigma = e->alpha;
     double b = p->plane ? r->beta : r->line_beta;
     /* a line's own beta runs to its down-hole end: only the reference line and
-     * the sense apply; a plane's also to the end of the ellipse */
-    if (isnan(b))
+     * the sense apply; a plane's also to the end of the ellipse. A dip alone
+     * (a hole near vertical) has its beta drawn anywhere. */
+    if (isnan(b) || dip_only)
         p->beta = NAN;
-    else if (p->plane)
-        p->beta = corax_core_beta_canonical(b, c);
     else
-        p->beta = corax_wrap_azimuth((c->beta_anticlockwise ? -b : b) +
-                                     (c->top_reference ? CORAX_PI : 0.0));
-    p->beta_sigma = sqrt(e->beta * e->beta + e->line * e->line);
+        p->beta = corax_wrap_azimuth((p->plane ? corax_core_beta_canonical(b, c)
+                                               : corax_core_line_beta_canonical(b, c)) +
+                                     (isnan(r->turn) ? 0.0 : r->turn));
+    /* a gravity-marked line errs more as the hole steepens; a line turned to
+     * fit a reference has no mark, its error is the fit's (in e->line) */
+    double g = isnan(r->turn) && !dip_only && m->nominal.located
+                   ? corax_gravity_line_error(e->gravity,
+                                              corax_core_off_vertical(m->nominal.point.tangent))
+                   : 0.0;
+    p->beta_sigma = sqrt(e->beta * e->beta + e->line * e->line + g * g);
     p->sin_alpha = sin(p->alpha);
     p->cos_alpha = cos(p->alpha);
     p->sin_beta = isnan(p->beta) ? 0.0 : sin(p->beta);
     p->cos_beta = isnan(p->beta) ? 1.0 : cos(p->beta);
-    p->reference = p->plane ? m->nominal.normal : m->nominal.line;
+    p->reference = dip_only ? vec3(0.0, 0.0, 1.0) : p->plane ? m->nominal.normal : m->nominal.line;
     p->dip = m->nominal.plane.dip;
     p->position = m->nominal.point.position;
 }
@@ -216,9 +223,14 @@ static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, siz
     cb = p->cos_beta * cd - p->sin_beta * sd;
     corax_hole_point pt;
     corax_core_frame f;
-    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK ||
-        core_frame_of(pt.tangent, &f) != CORAX_OK)
+    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK)
         return 0;
+    if (core_frame_of(pt.tangent, &f) != CORAX_OK) { /* vertical: no bottom line */
+        if (!isnan(p->beta))
+            return 0;
+        f.r = vec3(1.0, 0.0, 0.0); /* a beta drawn anywhere needs only some frame */
+        f.s = vec_cross(f.t, f.r);
+    }
     *pos = pt.position;
     /* e = cos(b) r + sin(b) s; a plane's normal sin(a) t - cos(a) e, a line
      * cos(a) t + sin(a) e. The raw formula is good for alpha past 0 or 90:
@@ -257,7 +269,7 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
 {
     memset(out, 0, sizeof *out);
     out->has_orientation = 1;
-    out->is_plane = m->nominal.has_plane;
+    out->is_plane = m->nominal.has_plane || (m->nominal.conditions & CORAX_COND_DIP_ONLY);
     out->draws = ac->n;
     double n = (double)ac->n;
     if (ac->n < 2) {
