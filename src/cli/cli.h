@@ -222,6 +222,28 @@ int cli_converted_next(const cli_common *c, cli_converted *t, corax_row *row,
 /* Close; EXIT_DATA (with a summary printed) when there were problems. */
 int cli_converted_close(cli_converted *t);
 
+/* Orientation runs from a runs table (hole, from, to, optional confidence),
+ * sorted by hole and depth. */
+typedef struct cli_runs {
+    corax_table *table;
+    corax_qa_run *run;
+    size_t n;
+} cli_runs;
+
+/* Read a runs table; its rows that cannot be used become findings (and are
+ * left out). 0, or EXIT_DATA with the message printed. */
+int cli_runs_load(const cli_common *c, const char *path, cli_runs *runs, corax_findings *found);
+void cli_runs_free(cli_runs *runs);
+
+/* The run of a hole (name of len bytes) holding a depth (from <= depth < to),
+ * or -1. */
+long cli_runs_find(const cli_runs *runs, const char *hole, size_t len, double depth);
+
+/* Whether a confidence word (len bytes, as the log or runs table gives it)
+ * says the core has no orientation mark: it is `word` (without regard to case
+ * or surrounding blanks). The one place that reads such words. */
+int cli_unoriented_confidence(const char *text, size_t len, const char *word);
+
 /* Commands. */
 int cmd_export(int argc, char **argv);
 int cmd_section(int argc, char **argv);

@@ -39,6 +39,8 @@ static const char check_help[] =
     "  --run-misfit DEG      a run this far from its neighbours disagrees [25]\n"
     "  --hole-turn DEG       a hole fitting the program best turned further [15]\n"
     "  --low-confidence LIST confidence words taken as low [poor,low]\n"
+    "  --unoriented-word WORD  the confidence of runs without an orientation mark,\n"
+    "                        whose betas run from an arbitrary line [unoriented]\n"
     "\n";
 
 enum {
@@ -58,6 +60,7 @@ enum {
     OPT_RUN_MISFIT,
     OPT_HOLE_TURN,
     OPT_LOW_CONFIDENCE,
+    OPT_UNORIENTED_WORD,
 };
 
 typedef struct check_opts {
@@ -66,6 +69,7 @@ typedef struct check_opts {
     corax_qa_options qa;
     cli_files logs;
     const char *runs, *report, *title;
+    const char *unoriented_word; /* the confidence of runs without a mark */
     char *low_words;           /* the --low-confidence list, split in place */
     const char *low_list[17];
 } check_opts;
@@ -120,6 +124,7 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
     case OPT_REPORT: o->report = arg; return 0;
     case OPT_TITLE: o->title = arg; return 0;
     case OPT_LOW_CONFIDENCE: return low_confidence(o, arg, why, wl);
+    case OPT_UNORIENTED_WORD: o->unoriented_word = arg; return 0;
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -146,6 +151,7 @@ static int parse(int argc, char **argv, check_opts *o)
         {"run-misfit", required_argument, NULL, OPT_RUN_MISFIT},
         {"hole-turn", required_argument, NULL, OPT_HOLE_TURN},
         {"low-confidence", required_argument, NULL, OPT_LOW_CONFIDENCE},
+        {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, check_help, 1, check_option, o);
@@ -282,49 +288,19 @@ static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
     return EXIT_OK;
 }
 
-/* The orientation runs table; its faulty rows become findings. */
-static int load_runs(const check_opts *o, corax_table **table, corax_qa_run **runs, size_t *n,
-                     corax_findings *found)
+/* Readings whose betas run from an arbitrary line (their own confidence, or
+ * their run's, is the unoriented word) orient nothing: the checks of fabric
+ * leave them out. */
+static void mark_arbitrary_lines(const check_opts *o, const cli_runs *runs, logs *l)
 {
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_table_load(o->runs, o->c.load.format, table, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
+    for (size_t i = 0; i < l->n; i++) {
+        corax_qa_reading *r = &l->reading[i];
+        long k = cli_runs_find(runs, r->hole, strlen(r->hole), r->reading.depth);
+        const char *word = k >= 0 ? runs->run[k].confidence : "";
+        r->reading.arbitrary_line =
+            cli_unoriented_confidence(r->confidence, strlen(r->confidence), o->unoriented_word) ||
+            cli_unoriented_confidence(word, strlen(word), o->unoriented_word);
     }
-    const corax_table *t = *table;
-    long hole = corax_table_column(t, "hole", o->c.columns);
-    long from = corax_table_column(t, "from", o->c.columns);
-    long to = corax_table_column(t, "to", o->c.columns);
-    long conf = corax_table_column(t, "confidence", o->c.columns);
-    if (hole < 0 || from < 0 || to < 0) {
-        cli_error(o->runs, 1, "no '%s' column in the header",
-                  hole < 0 ? "hole" : from < 0 ? "from" : "to");
-        return EXIT_DATA;
-    }
-    size_t rows = corax_table_rows(t);
-    *runs = malloc((rows ? rows : 1) * sizeof **runs);
-    if (!*runs)
-        return EXIT_DATA;
-    *n = 0;
-    for (size_t r = 0; r < rows; r++) {
-        double a, b;
-        const char *name = corax_table_cell(t, r, hole, NULL);
-        if (corax_table_number(t, r, from, &a) != CORAX_NUMBER_OK ||
-            corax_table_number(t, r, to, &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) || !name[0]) {
-            if (corax_findings_add(found, CORAX_ERROR, "run-row", o->runs, corax_table_line(t, r),
-                                   name, NAN, "the run row is not a hole with from < to (from "
-                                   "'%.20s', to '%.20s'): it is left out",
-                                   corax_table_cell(t, r, from, NULL),
-                                   corax_table_cell(t, r, to, NULL)) != CORAX_OK)
-                return EXIT_DATA;
-            continue;
-        }
-        (*runs)[(*n)++] = (corax_qa_run){name, a, b, corax_table_cell(t, r, conf, NULL), o->runs,
-                                         corax_table_line(t, r)};
-    }
-    return EXIT_OK;
 }
 
 /* ---- output ---- */
@@ -435,13 +411,12 @@ int cmd_check(int argc, char **argv)
     o.convert = corax_convert_options_default();
     o.qa = corax_qa_options_default();
     o.c.load.repair = 1; /* a faulty station becomes a finding, not the end of its hole */
+    o.unoriented_word = "unoriented";
     logs l;
     memset(&l, 0, sizeof l);
     corax_findings found = {0};
     corax_program *prog = NULL;
-    corax_table *run_table = NULL;
-    corax_qa_run *runs = NULL;
-    size_t nruns = 0;
+    cli_runs runs = {0};
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
@@ -455,12 +430,13 @@ int cmd_check(int argc, char **argv)
     }
     rc = load_logs(&o, prog, &l);
     if (rc == EXIT_OK && o.runs)
-        rc = load_runs(&o, &run_table, &runs, &nruns, &found);
+        rc = cli_runs_load(&o.c, o.runs, &runs, &found);
     if (rc != EXIT_OK)
         goto done;
+    mark_arbitrary_lines(&o, &runs, &l);
     st = corax_qa_surveys(prog, o.c.surveys, &o.qa, &found);
     if (st == CORAX_OK && l.n)
-        st = corax_qa_readings(prog, l.reading, l.n, runs, nruns, &o.convert, &o.qa, &found);
+        st = corax_qa_readings(prog, l.reading, l.n, runs.run, runs.n, &o.convert, &o.qa, &found);
     if (st == CORAX_OK)
         st = corax_findings_sort(&found);
     if (st != CORAX_OK) {
@@ -484,8 +460,7 @@ int cmd_check(int argc, char **argv)
 done:
     corax_findings_clear(&found);
     corax_program_free(prog);
-    corax_table_free(run_table);
-    free(runs);
+    cli_runs_free(&runs);
     logs_free(&l);
     cli_files_free(&o.logs);
     free(o.low_words);

@@ -3,6 +3,7 @@
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 
 #include "cli/cli.h"
 #include "cli/convert_rows.h"
@@ -47,6 +48,16 @@ static const char convert_help[] =
     "  --cloud FILE              every draw: hole, depth, draw, dip, dip_direction, x, y, z\n"
     "  A log's own alpha_error, beta_error, line_error, depth_error columns override\n"
     "  the errors row by row.\n"
+    "Runs without an orientation mark (betas from an arbitrary line):\n"
+    "  --runs FILE               orientation runs: hole, from, to, confidence\n"
+    "  --unoriented-word WORD    the confidence of such runs, in the runs table or\n"
+    "                            the log (default unoriented); without --orient-by\n"
+    "                            their readings are unoriented\n"
+    "  --orient-by KIND=DIP/DIPDIR   turn each such run about the core axis to fit\n"
+    "                            its readings of KIND to this plane (may repeat)\n"
+    "  --orient-by KIND=nearby   ... to the mean of the hole's oriented KIND readings\n"
+    "                            near the run\n"
+    "  --nearby-within M         how far from the run nearby readings count (30)\n"
     "One reading (prints a labelled answer):\n"
     "  --hole-azimuth DEG --hole-dip DEG   the hole at the reading\n"
     "  --alpha DEG --beta DEG [--gamma DEG]\n"
@@ -54,9 +65,10 @@ static const char convert_help[] =
     "  --line TREND/PLUNGE       the line_alpha and line_beta this line would show\n"
     "\n"
     "Status: converted; extrapolated; near-parallel; near-perpendicular; collar-only;\n"
-    "beyond-end (these carry an orientation); dip-only (a plane in a hole within the\n"
-    "vertical limit: its dip, 90 - alpha, and no dip direction); unoriented;\n"
-    "no-reference-line; no-survey; unknown-hole; invalid (the note says why).\n"
+    "beyond-end, oriented-by-reference (these carry an orientation); dip-only (a\n"
+    "plane in a hole within the vertical limit: its dip, 90 - alpha, and no dip\n"
+    "direction); unoriented (no beta, or beta from an arbitrary line); no-reference-line;\n"
+    "no-survey; unknown-hole; invalid (the note says why).\n"
     "\n";
 
 enum {
@@ -71,12 +83,18 @@ enum {
     OPT_LINE,
     OPT_CONFIDENCE_ERRORS,
     OPT_CLOUD,
+    OPT_RUNS,
+    OPT_ORIENT_BY,
+    OPT_UNORIENTED_WORD,
+    OPT_NEARBY_WITHIN,
 };
 
 typedef struct convert_opts {
     cli_common c;
     convert_setup setup;
     cli_files logs;
+    const char *runs_file;
+    cli_runs runs;
     /* one reading */
     double hole_azimuth, hole_dip, alpha, beta, gamma;
     double plane[2], line[2];
@@ -120,11 +138,52 @@ static int confidence_map(convert_setup *s, const char *arg, char *why, size_t w
     return 0;
 }
 
+/* "KIND=DIP/DIPDIR" or "KIND=nearby" into the references. */
+static int orient_by(convert_setup *s, const char *arg, char *why, size_t wl)
+{
+    const char *eq = strchr(arg, '=');
+    if (!eq || eq == arg || (size_t)(eq - arg) >= sizeof s->refs[0].kind) {
+        snprintf(why, wl, "'%s' is not KIND=DIP/DIPDIR or KIND=nearby", arg);
+        return -1;
+    }
+    if (s->nrefs == sizeof s->refs / sizeof s->refs[0]) {
+        snprintf(why, wl, "at most %zu references", sizeof s->refs / sizeof s->refs[0]);
+        return -1;
+    }
+    convert_reference *ref = &s->refs[s->nrefs];
+    memset(ref, 0, sizeof *ref);
+    snprintf(ref->kind, sizeof ref->kind, "%.*s", (int)(eq - arg), arg);
+    for (size_t k = 0; k < s->nrefs; k++)
+        if (strcasecmp(s->refs[k].kind, ref->kind) == 0) {
+            snprintf(why, wl, "%s has a reference already", ref->kind);
+            return -1;
+        }
+    if (strcasecmp(eq + 1, "nearby") == 0) {
+        ref->nearby = 1;
+    } else {
+        double dip, dd;
+        if (pair(eq + 1, &dip, &dd, why, wl))
+            return -1;
+        if (!(dip >= 0 && dip <= 90 && dd >= 0 && dd <= 360)) {
+            snprintf(why, wl, "'%s': dip must be in [0, 90] and dip direction in [0, 360]", arg);
+            return -1;
+        }
+        ref->plane = (corax_plane){corax_rad(dip), corax_wrap_azimuth(corax_rad(dd))};
+    }
+    s->nrefs++;
+    return 0;
+}
+
 static int uncertainty_option(convert_opts *o, int opt, const char *arg, char *why, size_t wl)
 {
     switch (opt) {
     case OPT_CONFIDENCE_ERRORS: return confidence_map(&o->setup, arg, why, wl);
     case OPT_CLOUD: o->setup.cloud = arg; return 0;
+    case OPT_RUNS: o->runs_file = arg; return 0;
+    case OPT_ORIENT_BY: return orient_by(&o->setup, arg, why, wl);
+    case OPT_UNORIENTED_WORD: o->setup.unoriented_word = arg; return 0;
+    case OPT_NEARBY_WITHIN:
+        return cli_value_number(arg, 0, 1e5, &o->setup.nearby_within, why, wl);
     }
     int k = cli_uncertainty_option(&o->setup.errors, &o->setup.draws, &o->setup.seed, 2, opt, arg,
                                    why, wl);
@@ -196,6 +255,10 @@ static int parse(int argc, char **argv, convert_opts *o)
         {"gravity-error", required_argument, NULL, OPT_GRAVITY_ERROR},
         {"confidence-errors", required_argument, NULL, OPT_CONFIDENCE_ERRORS},
         {"cloud", required_argument, NULL, OPT_CLOUD},
+        {"runs", required_argument, NULL, OPT_RUNS},
+        {"orient-by", required_argument, NULL, OPT_ORIENT_BY},
+        {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
+        {"nearby-within", required_argument, NULL, OPT_NEARBY_WITHIN},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
@@ -220,6 +283,8 @@ static int parse(int argc, char **argv, convert_opts *o)
             return cli_usage("convert", "--beta and --gamma go with --alpha");
         if (o->logs.n)
             return cli_usage("convert", "one reading takes no STRUCTURES files");
+        if (o->setup.nrefs)
+            return cli_usage("convert", "--orient-by goes with core logs, not one reading");
         return cli_common_finish(&o->c, 0);
     }
     if (o->logs.n == 0)
@@ -238,6 +303,18 @@ static int write_about(const convert_opts *o)
     cli_about_conventions(a, cv);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
+    if (o->runs_file)
+        cli_about_set(a, "runs", "%s", o->runs_file);
+    cli_about_set(a, "unoriented_word", "%s", o->setup.unoriented_word);
+    for (size_t i = 0; i < o->setup.nrefs; i++) {
+        const convert_reference *ref = &o->setup.refs[i];
+        if (ref->nearby)
+            cli_about_set(a, "orient_by", "%s=nearby (the mean of the hole's oriented readings "
+                          "within %g m of the run)", ref->kind, o->setup.nearby_within);
+        else
+            cli_about_set(a, "orient_by", "%s=%g/%g", ref->kind, corax_deg(ref->plane.dip),
+                          corax_deg(ref->plane.dip_direction));
+    }
     if (o->setup.draws) {
         cli_about_uncertainty(a, &o->setup.errors, o->setup.draws, o->setup.seed, 1);
         char map[600] = "";
@@ -265,6 +342,8 @@ int cmd_convert(int argc, char **argv)
     confidence_map(&o.setup, "good=3,fair=8,poor=20", map_why, sizeof map_why);
     o.hole_azimuth = o.hole_dip = o.alpha = o.beta = o.gamma = NAN;
     o.plane[0] = o.line[0] = NAN;
+    o.setup.unoriented_word = "unoriented";
+    o.setup.nearby_within = 30.0;
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
@@ -278,6 +357,18 @@ int cmd_convert(int argc, char **argv)
         rc = EXIT_DATA;
         goto done;
     }
+    if (o.runs_file) {
+        corax_findings found = {0};
+        rc = cli_runs_load(&o.c, o.runs_file, &o.runs, &found);
+        for (size_t i = 0; i < found.count; i++)
+            cli_finding(&found.item[i]);
+        corax_findings_clear(&found);
+        if (rc != EXIT_OK) {
+            corax_program_free(prog);
+            goto done;
+        }
+        o.setup.runs = &o.runs;
+    }
     o.setup.dip_convention = o.c.load.dip_convention;
     o.setup.format = o.c.load.format;
     o.setup.columns = o.c.columns;
@@ -287,6 +378,7 @@ int cmd_convert(int argc, char **argv)
         rc = EXIT_DATA;
     corax_program_free(prog);
 done:
+    cli_runs_free(&o.runs);
     cli_files_free(&o.logs);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;

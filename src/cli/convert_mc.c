@@ -1,6 +1,7 @@
-/* cli: `corax convert --draws N`. Holds the logs in memory, simulates the
- * holes in parallel (each from its own seeded stream), writes the rows in
- * their order, and the optional cloud of every draw hole by hole. */
+/* cli: `corax convert` with every log in memory (--draws N, --orient-by).
+ * Orients the runs without a mark by reference, simulates the holes in
+ * parallel (each from its own seeded stream), writes the rows in their
+ * order, and the optional cloud of every draw hole by hole. */
 #include <omp.h>
 #include <stdlib.h>
 #include <string.h>
@@ -175,16 +176,19 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
     return failed ? EXIT_DATA : EXIT_OK;
 }
 
-int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
-                       const char *const *files, size_t nfiles)
+int convert_in_memory(convert_run *r, convert_lane *lanes, int nlanes, const char *const *files,
+                      size_t nfiles)
 {
     corax_table *all = NULL;
     int rc = load_logs(r, files, nfiles, &all);
     if (rc != EXIT_OK)
         return rc;
-    size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL;
+    size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL, nruns = 0;
     convert_eval *ev = calloc(n ? n : 1, sizeof *ev);
     const char **field = malloc((corax_table_widest(all) + 1) * sizeof *field);
+    convert_group *runs = NULL;
+    member *g = NULL;
+    corax_spread *spread = NULL;
     corax_writer *cloud = NULL;
     corax_error err;
     corax_error_clear(&err);
@@ -194,10 +198,16 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
         corax_table_row(all, i, field, &row);
         convert_evaluate(r, &lanes[0], &row, &ev[i]);
     }
-    member *g = rc == EXIT_OK ? group_rows(ev, n, &count, &groups, &ngroups) : NULL;
-    corax_spread *spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
-    if (rc == EXIT_OK && !spread)
-        rc = EXIT_DATA;
+    if (rc == EXIT_OK && r->s->nrefs) {
+        rc = convert_orient(r, all, ev, n, &runs, &nruns);
+        r->groups = runs;
+    }
+    if (rc == EXIT_OK && r->s->draws) {
+        g = group_rows(ev, n, &count, &groups, &ngroups);
+        spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
+        if (!spread)
+            rc = EXIT_DATA;
+    }
     if (rc == EXIT_OK && r->s->cloud) {
         corax_status st = corax_writer_open(r->s->cloud, &cloud, &err);
         if (st != CORAX_OK) {
@@ -208,7 +218,7 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
             corax_writer_text(cloud, head, sizeof head - 1);
         }
     }
-    if (rc == EXIT_OK)
+    if (rc == EXIT_OK && r->s->draws)
         rc = simulate(r, g, groups, ngroups, ev, spread, cloud, nlanes);
     /* back to row order, and out */
     const corax_spread **by_row = rc == EXIT_OK ? calloc(n ? n : 1, sizeof *by_row) : NULL;
@@ -231,6 +241,8 @@ int convert_with_draws(convert_run *r, convert_lane *lanes, int nlanes,
             rc = EXIT_DATA;
         }
     }
+    r->groups = NULL;
+    free(runs);
     free(by_row);
     free(spread);
     free(groups);

@@ -12,7 +12,7 @@
 
 static const char *const col_names[NCOLS] = {
     "hole", "depth", "alpha", "beta", "gamma", "line_alpha", "line_beta",
-    "alpha_error", "beta_error", "line_error", "depth_error", "confidence"};
+    "alpha_error", "beta_error", "line_error", "depth_error", "confidence", "kind"};
 
 static const char *const out_names[] = {
     "x",          "y",           "z",     "hole_azimuth", "hole_dip", "dip", "dip_direction",
@@ -151,14 +151,19 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
     }
 }
 
-/* This row's reading errors: the run's, a confidence's line error, and the
- * row's own columns. 0 with why filled when one cannot be used. */
-static int row_errors(const convert_run *r, const corax_row *row, corax_error_model *e,
-                      char *why, size_t wl)
+/* This row's reading errors: the run's, the orientation line's (a
+ * confidence's line error; for a line turned onto a reference, the turn's
+ * error and no gravity mark), and the row's own columns. 0 with why filled
+ * when one cannot be used. */
+static int row_errors(const convert_run *r, const corax_row *row, const convert_eval *ev,
+                      corax_error_model *e, char *why, size_t wl)
 {
     const convert_setup *s = r->s;
     *e = s->errors;
-    if (r->col[COL_CONFIDENCE] >= 0) {
+    if (ev->rd.arbitrary_line) {
+        e->line = ev->turn_sigma;
+        e->gravity = 0.0;
+    } else if (r->col[COL_CONFIDENCE] >= 0) {
         size_t n;
         const char *c = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
         if (n) {
@@ -196,29 +201,51 @@ static int row_errors(const convert_run *r, const corax_row *row, corax_error_mo
     return 1;
 }
 
+void convert_uncertainty(const convert_run *r, const corax_row *row, convert_eval *ev)
+{
+    ev->simulate = 0;
+    ev->mc_why[0] = '\0';
+    if (r->s->draws && (ev->res.has_plane || ev->res.has_line ||
+                        (ev->res.conditions & CORAX_COND_DIP_ONLY)))
+        ev->simulate = row_errors(r, row, ev, &ev->errors, ev->mc_why, sizeof ev->mc_why);
+}
+
+/* Whether the row's betas run from an arbitrary line: its own confidence, or
+ * its run's, is the word for a run without an orientation mark. */
+static int arbitrary_line(const convert_run *r, const corax_row *row, long run)
+{
+    const convert_setup *s = r->s;
+    size_t n;
+    const char *own = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
+    if (cli_unoriented_confidence(own, n, s->unoriented_word))
+        return 1;
+    const char *word = run >= 0 ? s->runs->run[run].confidence : "";
+    return cli_unoriented_confidence(word, strlen(word), s->unoriented_word);
+}
+
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
                       convert_eval *ev)
 {
     ev->rd = corax_reading_empty();
-    ev->why[0] = ev->mc_why[0] = '\0';
+    ev->why[0] = '\0';
     int ragged = corax_field_ragged(row, r->width, ev->why, sizeof ev->why) != NULL;
     ev->usable = !ragged && read_numbers(r, row, &ev->rd, ev->why, sizeof ev->why);
     size_t hl;
     const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
     ev->hole = find_hole(r, ln, name, hl);
+    ev->run = r->s->runs ? cli_runs_find(r->s->runs, name, hl, ev->rd.depth) : -1;
+    ev->group = -1;
+    ev->turn_sigma = NAN;
+    ev->rd.arbitrary_line = arbitrary_line(r, row, ev->run);
     if (ev->usable) {
         corax_convert_reading(ev->hole, &ev->rd, &r->s->convert, &ln->hint, &ev->res);
     } else { /* the row's own phrase first, then what is known of its place */
         corax_convert_locate(ev->hole, ragged ? (double)NAN : ev->rd.depth, &ln->hint, &ev->res);
         ev->res.conditions |= CORAX_COND_INVALID;
     }
-    ev->simulate = 0;
-    if (r->s->draws && (ev->res.has_plane || ev->res.has_line ||
-                        (ev->res.conditions & CORAX_COND_DIP_ONLY)))
-        ev->simulate = row_errors(r, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
+    convert_uncertainty(r, row, ev);
 }
 
-/* The spread columns; a dip alone has only its dip's spread and the point's. */
 static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp,
                          int dip_only)
 {
@@ -243,7 +270,7 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
                    const convert_eval *ev, const corax_spread *sp)
 {
     corax_writer *w = ln->w;
-    char note[800];
+    char note[1200];
     size_t nl = 0;
     for (size_t i = 0; i < r->width; i++)
         corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
@@ -259,6 +286,9 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
         if (corax_result_note(&ev->res, &ev->rd, ev->hole, &r->s->convert, more, sizeof more))
             nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", more);
     }
+    if (ev->group >= 0 && r->groups && nl < sizeof note)
+        nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "",
+                               r->groups[ev->group].note);
     if (ev->mc_why[0] && nl < sizeof note)
         nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", ev->mc_why);
     if (row->count > r->width && nl < sizeof note) { /* keep the surplus: nothing lost */
@@ -491,9 +521,10 @@ int convert_files(const corax_program *prog, const convert_setup *s, const char 
         cli_error_record(&err, st);
         rc = EXIT_DATA;
     }
-    if (rc == EXIT_OK && s->draws)
-        rc = convert_with_draws(&r, lanes, nlanes, files, nfiles);
-    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !s->draws; i++)
+    int whole = s->draws || s->nrefs; /* drawing and orienting runs need every row */
+    if (rc == EXIT_OK && whole)
+        rc = convert_in_memory(&r, lanes, nlanes, files, nfiles);
+    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !whole; i++)
         rc = convert_one_file(&r, lanes, nlanes, chunk[0], chunk[1], files[i]);
     free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != EXIT_OK) {
