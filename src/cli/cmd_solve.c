@@ -531,6 +531,75 @@ static int write_residuals(const solve_opts *o, const solve_data *d)
     return EXIT_OK;
 }
 
+/* Whether a set is to be drawn: every set, or those in --draw-sets. */
+static int drawn(const solve_opts *o, const char *name)
+{
+    if (!o->draw_sets)
+        return 1;
+    size_t len = strlen(name);
+    for (const char *p = o->draw_sets; *p;) {
+        const char *end = strchr(p, ',');
+        size_t n = end ? (size_t)(end - p) : strlen(p);
+        if (n == len && strncasecmp(p, name, n) == 0)
+            return 1;
+        p += n + (end != NULL);
+    }
+    return 0;
+}
+
+/* The stereonet: one net per set, its readings' small circles and its solved
+ * poles with their cones. */
+static int write_net(const solve_opts *o, const solve_data *d)
+{
+    static const char *const labels[CORAX_SOLVE_MAX] = {"1", "2", "3", "4", "5", "6", "7", "8"};
+    corax_net_set *sets = calloc(d->nsets + 1, sizeof *sets);
+    corax_net_circle *circles = calloc(d->nrows + 1, sizeof *circles);
+    corax_net_pick *picks = calloc(d->nsets * CORAX_SOLVE_MAX + 1, sizeof *picks);
+    size_t nsets = 0, nc = 0, np = 0;
+    int rc = sets && circles && picks ? EXIT_OK : EXIT_DATA;
+    for (size_t k = 0; rc == EXIT_OK && k < d->nsets; k++) {
+        const solve_set *s = &d->sets[k];
+        if (!drawn(o, s->name))
+            continue;
+        corax_net_set *ns = &sets[nsets++];
+        ns->name = s->name;
+        ns->circles = circles + nc;
+        ns->picks = picks + np;
+        for (size_t i = 0; i < s->result.readings; i++)
+            circles[nc++] = (corax_net_circle){s->cones[i].axis, 0.5 * CORAX_PI - s->cones[i].alpha};
+        ns->ncircles = s->result.readings;
+        for (size_t c = 0; c < s->result.ncandidates; c++)
+            picks[np++] = (corax_net_pick){s->result.candidate[c].normal,
+                                           s->result.candidate[c].cone95, labels[c]};
+        ns->npicks = s->result.ncandidates;
+        ns->skipped = s->left_out;
+    }
+    corax_net_style style = corax_net_style_default();
+    style.contours = 0;
+    style.title = o->title ? o->title : "Planes from alpha alone";
+    corax_svg *svg = NULL;
+    corax_status st = CORAX_OK;
+    if (rc == EXIT_OK && nsets == 0) {
+        cli_error(NULL, 0, "--draw-sets names no set of the readings: no stereonet drawn");
+        rc = EXIT_DATA;
+    }
+    if (rc == EXIT_OK && (st = corax_stereonet_page(sets, nsets, &style, 1, &svg)) != CORAX_OK) {
+        cli_error(NULL, 0, "cannot draw the net: %s", corax_strerror(st));
+        rc = EXIT_DATA;
+    }
+    corax_error err;
+    corax_error_clear(&err);
+    if (rc == EXIT_OK && (st = corax_svg_save(svg, o->svg, &err)) != CORAX_OK) {
+        cli_error_record(&err, st);
+        rc = EXIT_DATA;
+    }
+    corax_svg_free(svg);
+    free(sets);
+    free(circles);
+    free(picks);
+    return rc;
+}
+
 static int write_about(const solve_opts *o)
 {
     cli_about *a = cli_about_new("solve", &o->c);
@@ -595,6 +664,8 @@ int cmd_solve(int argc, char **argv)
         rc = write_sets(&o, &d);
     if (rc == EXIT_OK && o.residuals)
         rc = write_residuals(&o, &d);
+    if (rc == EXIT_OK && o.svg)
+        rc = write_net(&o, &d);
     if (rc == EXIT_OK && write_about(&o) != 0)
         rc = EXIT_DATA;
     if (rc == EXIT_OK)

@@ -597,9 +597,11 @@ static corax_svg *draw(const stereo_opts *o, const groups *gs, char *title)
         return NULL;
     for (size_t i = 0; i < gs->count; i++) {
         const group *g = &gs->item[i];
-        sets[i] = (corax_net_set){g->name, g->poles, o->style.weighted ? g->weight : NULL,
-                                  g->npoles, g->lines, g->nlines, &g->pole_summary,
-                                  &g->line_summary, g->skipped};
+        sets[i] = (corax_net_set){.name = g->name, .poles = g->poles,
+                                  .pole_weight = o->style.weighted ? g->weight : NULL,
+                                  .npoles = g->npoles, .lines = g->lines, .nlines = g->nlines,
+                                  .pole_summary = &g->pole_summary,
+                                  .line_summary = &g->line_summary, .skipped = g->skipped};
     }
     corax_net_style style = o->style;
     style.title = title;
