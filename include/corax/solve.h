@@ -152,9 +152,9 @@ typedef struct corax_turn_reading {
 
 typedef enum corax_turn_status {
     CORAX_TURN_FITTED = 0, /* one turn fits best */
-    CORAX_TURN_AMBIGUOUS,  /* another turn at least 30 degrees away fits within
-                              the tie: the reference lies nearly along the core,
-                              or nearly across it */
+    CORAX_TURN_AMBIGUOUS,  /* turns 30 degrees apart, or two minima, fit as well:
+                              the reference lies nearly along the core axis, or
+                              nearly in a plane holding it */
     CORAX_TURN_NONE        /* no reading to fit */
 } corax_turn_status;
 
@@ -164,7 +164,8 @@ typedef struct corax_turn {
                             the run (a turn clockwise looking down the hole) */
     double misfit;       /* RMS angle between the turned readings' normals and
                             their references */
-    double other_turn;   /* the best turn at least 30 degrees from `turn`... */
+    double other_turn;   /* the turn that fits as well (or the best other minimum
+                            at least 30 degrees away; NaN when none)... */
     double other_misfit; /* ...and its misfit */
     double sigma;        /* one-sigma error of the turn (see corax_turn_fit()) */
     size_t n;            /* readings fitted */
@@ -172,9 +173,13 @@ typedef struct corax_turn {
 
 /* The turn about the core axis that best fits the n readings to their
  * references (least squares on the angles, over every turn: a grid of half a
- * degree, then golden-section search). `tie`: another turn fits as well when
- * its misfit is within this (at least 1e-6). `spread`: the references' own
- * one-sigma angular spread. The turn's error is
+ * degree, then golden-section search). `spread`: the references' own
+ * one-sigma angular spread. The fit is ambiguous when the misfit 30 degrees
+ * either side is within `tie` of the best (the reference lies nearly along
+ * the core axis), or when another least-squares minimum at least 30 degrees
+ * away is within max(tie, 2 spread / sqrt(n)) of it (the references' scatter
+ * blurs an RMS misfit of n readings by about spread / sqrt(n)). The turn's
+ * error is
  *     sigma = sqrt((spread^2 + misfit^2 / n) / 2) / sin(delta)
  * with delta the mean angle between the references and the core axes: an
  * error e across the plane of the axis and a normal moves the normal's place

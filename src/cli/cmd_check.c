@@ -288,18 +288,18 @@ static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
     return EXIT_OK;
 }
 
-/* Readings whose betas run from an arbitrary line (their own confidence, or
- * their run's, is the unoriented word) orient nothing: the checks of fabric
- * leave them out. */
+/* Readings whose betas run from an arbitrary line (their confidence, or
+ * without one their run's, is the unoriented word) orient nothing: the
+ * checks of fabric leave them out. */
 static void mark_arbitrary_lines(const check_opts *o, const cli_runs *runs, logs *l)
 {
     for (size_t i = 0; i < l->n; i++) {
         corax_qa_reading *r = &l->reading[i];
-        long k = cli_runs_find(runs, r->hole, strlen(r->hole), r->reading.depth);
-        const char *word = k >= 0 ? runs->run[k].confidence : "";
-        r->reading.arbitrary_line =
-            cli_unoriented_confidence(r->confidence, strlen(r->confidence), o->unoriented_word) ||
-            cli_unoriented_confidence(word, strlen(word), o->unoriented_word);
+        const char *word = r->confidence;
+        long k = word[0] ? -1 : cli_runs_find(runs, r->hole, strlen(r->hole), r->reading.depth);
+        if (k >= 0)
+            word = runs->run[k].confidence;
+        r->reading.arbitrary_line = cli_unoriented_confidence(word, strlen(word), o->unoriented_word);
     }
 }
 

@@ -251,7 +251,8 @@ static int fit_run(const convert_run *r, const corax_table *rows, convert_eval *
             corax_deg(g->turn.turn), corax_deg(g->turn.other_turn), corax_deg(g->turn.misfit),
             corax_deg(g->turn.other_misfit));
         describe_refs(s, st, g, s->nearby_within);
-        say(g, ": the reference lies nearly along or across the core here; left unoriented");
+        say(g, ": the reference lies nearly across the core, or nearly along it, here; left "
+               "unoriented");
         return 0;
     }
     say(g, " oriented by ");

@@ -210,17 +210,19 @@ void convert_uncertainty(const convert_run *r, const corax_row *row, convert_eva
         ev->simulate = row_errors(r, row, ev, &ev->errors, ev->mc_why, sizeof ev->mc_why);
 }
 
-/* Whether the row's betas run from an arbitrary line: its own confidence, or
- * its run's, is the word for a run without an orientation mark. */
+/* Whether the row's betas run from an arbitrary line: its confidence is the
+ * word for a run without an orientation mark (the row's own word when it has
+ * one, else its run's). */
 static int arbitrary_line(const convert_run *r, const corax_row *row, long run)
 {
     const convert_setup *s = r->s;
     size_t n;
-    const char *own = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
-    if (cli_unoriented_confidence(own, n, s->unoriented_word))
-        return 1;
-    const char *word = run >= 0 ? s->runs->run[run].confidence : "";
-    return cli_unoriented_confidence(word, strlen(word), s->unoriented_word);
+    const char *word = corax_field_text(row, r->col[COL_CONFIDENCE], &n);
+    if (!n && run >= 0) {
+        word = s->runs->run[run].confidence;
+        n = strlen(word);
+    }
+    return cli_unoriented_confidence(word, n, s->unoriented_word);
 }
 
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,

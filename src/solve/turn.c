@@ -89,16 +89,27 @@ corax_status corax_turn_fit(const corax_turn_reading *r, size_t n, double spread
                                          ((double)best + 1.0) * step));
     out->turn = w;
     out->misfit = rms(r, n, w);
-    /* the best turn well away from it: a second fit as good is no fit */
-    double away = corax_rad(30.0);
-    for (size_t k = 0; k < GRID; k++) {
+    /* a fit is no fit when the misfit hardly rises 30 degrees either side (the
+     * reference lies nearly along the core axis), or when another minimum well
+     * away fits as well, the references' scatter allowed for (a reference in
+     * the plane of the core axis fits two turns half a turn apart) */
+    double away = corax_rad(30.0), t = fmax(tie, 1e-6);
+    double left = rms(r, n, w - away), right = rms(r, n, w + away);
+    int flat = fmin(left, right) <= out->misfit + t;
+    if (flat) {
+        out->other_turn = corax_wrap_azimuth(left < right ? w - away : w + away);
+        out->other_misfit = fmin(left, right);
+    }
+    for (size_t k = 0; k < GRID && !flat; k++) {
         double wk = (double)k * step;
-        if (apart(wk, w) >= away && !(f[k] >= out->other_misfit)) {
+        int minimum = f[k] <= f[(k + GRID - 1) % GRID] && f[k] <= f[(k + 1) % GRID];
+        if (minimum && apart(wk, w) >= away && !(f[k] >= out->other_misfit)) {
             out->other_misfit = f[k];
             out->other_turn = wk;
         }
     }
-    out->status = out->other_misfit <= out->misfit + fmax(tie, 1e-6) ? CORAX_TURN_AMBIGUOUS
+    double within = fmax(t, 2.0 * spread / sqrt((double)n));
+    out->status = flat || out->other_misfit <= out->misfit + within ? CORAX_TURN_AMBIGUOUS
                                                                     : CORAX_TURN_FITTED;
     double sin_delta = 0.0;
     for (size_t i = 0; i < n; i++)
