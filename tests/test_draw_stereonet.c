@@ -201,6 +201,35 @@ static void test_groups_and_empty_sets(void **state)
     assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_EARG);
 }
 
+/* The centre and radius of the primitive on a page. */
+static void primitive_of(const char *doc, double *cx, double *cy, double *r)
+{
+    const char *prim = strstr(doc, "class=\"primitive\"");
+    assert_non_null(prim);
+    while (*prim != '<')
+        prim--;
+    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", cx, cy, r), 3);
+}
+
+/* The distances from (cx, cy) of the points of the path whose d="..."
+ * starts at d: the nearest and farthest; returns the number of points. */
+static int path_reach(const char *d, double cx, double cy, double *lo, double *hi)
+{
+    double x, y;
+    int n, points = 0;
+    *lo = 1e9;
+    *hi = 0;
+    while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
+        *lo = fmin(*lo, hypot(x - cx, y - cy));
+        *hi = fmax(*hi, hypot(x - cx, y - cy));
+        d += n;
+        while (*d == ' ')
+            d++;
+        points++;
+    }
+    return points;
+}
+
 /* Great circles stay inside the primitive: a horizontal plane's circle is
  * the primitive itself, a vertical plane's a diameter. */
 static void test_great_circles_inside_primitive(void **state)
@@ -215,22 +244,11 @@ static void test_great_circles_inside_primitive(void **state)
     assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
     const char *doc = corax_svg_finish(svg, NULL);
     double cx, cy, r;
-    const char *prim = strstr(doc, "<circle cx=\"");
-    prim = strstr(prim + 1, "<circle cx=\""); /* the first is the paper disc */
-    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", &cx, &cy, &r), 3);
+    primitive_of(doc, &cx, &cy, &r);
     size_t circles = 0;
     for (const char *g = doc; (g = strstr(g, "class=\"gc k0\" d=\"")); g++, circles++) {
-        const char *d = strchr(g, 'd') + 3;
-        double x, y, lo = 1e9, hi = 0;
-        int n;
-        while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
-            double rr = hypot(x - cx, y - cy);
-            lo = fmin(lo, rr);
-            hi = fmax(hi, rr);
-            d += n;
-            while (*d == ' ')
-                d++;
-        }
+        double lo, hi;
+        path_reach(strchr(g, 'd') + 3, cx, cy, &lo, &hi);
         assert_true(hi <= r + 0.01);
         if (circles == 0)
             assert_close(lo, r, 0, 0.01, "a horizontal plane's great circle is the primitive");
@@ -257,26 +275,15 @@ static void test_small_circles_and_picks(void **state)
     corax_svg *svg;
     assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
     const char *doc = corax_svg_finish(svg, NULL);
-    double cx, cy, r;
-    const char *prim = strstr(doc, "class=\"primitive\"");
-    assert_non_null(prim);
-    while (*prim != '<')
-        prim--;
-    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", &cx, &cy, &r), 3);
+    double cx, cy, r, lo, hi;
+    primitive_of(doc, &cx, &cy, &r);
     const char *g = strstr(doc, "class=\"sc k0\" d=\"");
     assert_non_null(g);
-    const char *d = strchr(g, 'd') + 3;
-    double x, y;
-    int n, points = 0;
-    while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
-        assert_close(hypot(x - cx, y - cy) / r, sqrt(2.0) * sin(corax_rad(30)), 0, 2e-4,
-                     "equal-area radius of the small circle of plunge 30");
-        d += n;
-        while (*d == ' ')
-            d++;
-        points++;
-    }
-    assert_true(points > 30);
+    assert_true(path_reach(strchr(g, 'd') + 3, cx, cy, &lo, &hi) > 30);
+    assert_close(lo / r, sqrt(2.0) * sin(corax_rad(30)), 0, 2e-4,
+                 "equal-area radius of the small circle of plunge 30");
+    assert_close(hi / r, sqrt(2.0) * sin(corax_rad(30)), 0, 2e-4,
+                 "equal-area radius of the small circle of plunge 30");
     assert_int_equal(count(doc, "class=\"pickcone k0\""), 1); /* the second has no cone */
     assert_int_equal(count(doc, " class=\"pick f0\""), 2);
     assert_non_null(strstr(doc, ">1: dip 40.0° toward 030.0°, cone 5.0°</text>"));

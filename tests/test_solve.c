@@ -330,7 +330,7 @@ static void test_turn_ambiguous_and_none(void **state)
 }
 
 /* The turn's error: sqrt((spread^2 + misfit^2/n) / 2) / sin(delta) (derived,
- * include/corax/solve.h): a reference 30 degrees from the core with a spread
+ * docs/check-values.md): a reference 30 degrees from the core with a spread
  * of 10 degrees and exact readings gives 10 / sqrt 2 / sin 30 = 14.14. */
 static void test_turn_sigma(void **state)
 {

@@ -156,7 +156,7 @@ static void test_spread_blows_up_near_vertical(void **state)
 
 /* The orientation line's error from the marking tool's sense of "down",
  * atan(sin g / sin h), h the hole's angle from vertical (derived,
- * include/corax/uncertainty.h): atan(sin g), about g, in a flat hole; 1.99909 at
+ * docs/check-values.md): atan(sin g), about g, in a flat hole; 1.99909 at
  * 30 degrees from vertical with g = 1, and 11.32337 at 5 degrees. In the Monte
  * Carlo it adds to beta like the line error, so the cone of a reading with
  * that error alone is 1.96 cos(alpha) times it (as for a beta error, above):

@@ -155,7 +155,15 @@ int cli_files_add(cli_files *f, const char *path, char *why, size_t whylen);
  * (a project file's files give way to the command line's). 0 or -1. */
 int cli_files_from_args(cli_files *f, int argc, char **argv);
 
+/* EXIT_USAGE (message printed) when standard input (-) is named twice, else 0. */
+int cli_files_stdin_once(const cli_files *f, const char *command);
+
 void cli_files_free(cli_files *f);
+
+/* Load a whole table and keep it in *tables (*n of them); NULL with the
+ * message printed when it cannot be read. */
+corax_table *cli_table_keep(const cli_common *c, const char *path, corax_table ***tables,
+                            size_t *n);
 
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);

@@ -246,21 +246,9 @@ static void read_row(const corax_table *t, size_t row, const long *col, const co
 static int load_logs(const check_opts *o, const corax_program *prog, logs *l)
 {
     for (size_t f = 0; f < o->logs.n; f++) {
-        corax_table *t;
-        corax_error err;
-        corax_error_clear(&err);
-        corax_status st = corax_table_load(o->logs.path[f], o->c.load.format, &t, &err);
-        if (st != CORAX_OK) {
-            cli_error_record(&err, st);
+        corax_table *t = cli_table_keep(&o->c, o->logs.path[f], &l->table, &l->ntables);
+        if (!t)
             return EXIT_DATA;
-        }
-        corax_table **tt = realloc(l->table, (l->ntables + 1) * sizeof *tt);
-        if (!tt) {
-            corax_table_free(t);
-            return EXIT_DATA;
-        }
-        l->table = tt;
-        l->table[l->ntables++] = t;
         long col[NL];
         for (int k = 0; k < NL; k++)
             col[k] = corax_table_column(t, log_names[k], o->c.columns);

@@ -268,11 +268,8 @@ static int parse(int argc, char **argv, convert_opts *o)
         return rc;
     if (cli_files_from_args(&o->logs, argc, argv)) /* they replace the project's */
         return EXIT_DATA;
-    size_t stdin_count = 0;
-    for (size_t i = 0; i < o->logs.n; i++)
-        stdin_count += strcmp(o->logs.path[i], "-") == 0;
-    if (stdin_count > 1)
-        return cli_usage("convert", "standard input (-) can be read only once");
+    if (cli_files_stdin_once(&o->logs, "convert"))
+        return EXIT_USAGE;
     if (o->single) {
         if (isnan(o->hole_azimuth) || isnan(o->hole_dip))
             return cli_usage("convert", "one reading needs --hole-azimuth and --hole-dip");

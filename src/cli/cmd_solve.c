@@ -135,11 +135,8 @@ static int parse(int argc, char **argv, solve_opts *o)
     if (o->inputs.n == 0)
         return cli_usage("solve", "no READINGS table (hole, depth, alpha, set; or - for "
                                   "standard input)");
-    size_t stdin_count = 0;
-    for (size_t i = 0; i < o->inputs.n; i++)
-        stdin_count += strcmp(o->inputs.path[i], "-") == 0;
-    if (stdin_count > 1)
-        return cli_usage("solve", "standard input (-) can be read only once");
+    if (cli_files_stdin_once(&o->inputs, "solve"))
+        return EXIT_USAGE;
     return cli_common_finish(&o->c, 1);
 }
 
@@ -271,21 +268,9 @@ static int same_header(const corax_table *a, const corax_table *b)
 static int load(const solve_opts *o, const corax_program *prog, solve_data *d)
 {
     for (size_t f = 0; f < o->inputs.n; f++) {
-        corax_table *t;
-        corax_error err;
-        corax_error_clear(&err);
-        corax_status st = corax_table_load(o->inputs.path[f], o->c.load.format, &t, &err);
-        if (st != CORAX_OK) {
-            cli_error_record(&err, st);
+        corax_table *t = cli_table_keep(&o->c, o->inputs.path[f], &d->tables, &d->ntables);
+        if (!t)
             return EXIT_DATA;
-        }
-        corax_table **tt = realloc(d->tables, (d->ntables + 1) * sizeof *tt);
-        if (!tt) {
-            corax_table_free(t);
-            return EXIT_DATA;
-        }
-        d->tables = tt;
-        d->tables[d->ntables++] = t;
         long col[NC];
         for (int k = 0; k < NC; k++)
             col[k] = corax_table_column(t, col_names[k], o->c.columns);

@@ -372,6 +372,11 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
     double v[2], w = 1.0;
     int used = 0, bad = 0;
     int r = read_pair(t, row, plane, v, why, sizeof why);
+    size_t dd_len;
+    trimmed(corax_table_cell(t, row, col->dip_direction, &dd_len), &dd_len);
+    if (r == PAIR_BAD && dd_len == 0 && corax_table_number(t, row, col->dip, &v[0]) ==
+                                             CORAX_NUMBER_OK && v[0] >= 0 && v[0] <= 90)
+        r = PAIR_NONE; /* a dip alone (convert's dip-only rows): no plane, nothing wrong */
     if (r == PAIR_OK) {
         corax_vec3 n = corax_plane_normal((corax_plane){corax_rad(v[0]), corax_rad(v[1])});
         if (o->style.weighted && !plane_weight(o, t, row, col, n, &w, why, sizeof why))

@@ -241,3 +241,24 @@ int cli_about_commit(cli_about *a, const cli_common *c)
     free(a);
     return rc;
 }
+
+corax_table *cli_table_keep(const cli_common *c, const char *path, corax_table ***tables, size_t *n)
+{
+    corax_table *t;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_table_load(path, c->load.format, &t, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        return NULL;
+    }
+    corax_table **tt = realloc(*tables, (*n + 1) * sizeof *tt);
+    if (!tt) {
+        corax_table_free(t);
+        cli_error(NULL, 0, "out of memory");
+        return NULL;
+    }
+    *tables = tt;
+    tt[(*n)++] = t;
+    return t;
+}

@@ -392,6 +392,14 @@ int cli_files_from_args(cli_files *f, int argc, char **argv)
     return 0;
 }
 
+int cli_files_stdin_once(const cli_files *f, const char *command)
+{
+    size_t stdin_count = 0;
+    for (size_t i = 0; i < f->n; i++)
+        stdin_count += strcmp(f->path[i], "-") == 0;
+    return stdin_count > 1 ? cli_usage(command, "standard input (-) can be read only once") : 0;
+}
+
 void cli_files_free(cli_files *f)
 {
     free(f->path);

@@ -388,14 +388,14 @@ static void symbol_key(net *n, const plan *p, int has_lines)
     if (poles || has_lines)
         panel_text(n, "small", 0, "%s%s%s", poles ? "filled: poles of planes" : "",
                    poles && has_lines ? "; " : "", has_lines ? "hollow: lines" : "");
-    if (circles)
-        panel_text(n, "small", 0, "thin curve: a reading's small circle (its pole");
-    if (circles)
-        panel_text(n, "small", 0, "lies on it: 90 - alpha from the core axis)");
-    if (picks)
-        panel_text(n, "small", 0, "numbered mark: a solved pole; dashed curve:");
-    if (picks)
-        panel_text(n, "small", 0, "its 95%% cone");
+    static const char *const circle_key[] = {"thin curve: a reading's small circle (its pole",
+                                             "lies on it: 90 - alpha from the core axis)"};
+    static const char *const pick_key[] = {"numbered mark: a solved pole; dashed curve:",
+                                           "its 95% cone"};
+    for (int k = 0; circles && k < 2; k++)
+        panel_text(n, "small", 0, "%s", circle_key[k]);
+    for (int k = 0; picks && k < 2; k++)
+        panel_text(n, "small", 0, "%s", pick_key[k]);
     if (means)
         panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
     if (plane_means)
