@@ -24,6 +24,11 @@ static const char stereonet_help[] =
     "  --contour-step SIGMA  contour interval in standard deviations (default 2)\n"
     "  --terzaghi            weight planes by Terzaghi (1965) against the bias of\n"
     "                        sampling along the hole (needs hole_azimuth, hole_dip)\n"
+    "  --small-circles       draw a reading with alpha but no plane (unoriented, or\n"
+    "                        beta from an arbitrary line) as the small circle its\n"
+    "                        pole lies on, 90 - alpha from the hole (needs alpha,\n"
+    "                        hole_azimuth, hole_dip; drawn only: such rows enter no\n"
+    "                        statistics); --where picks the sets\n"
     "  --terzaghi-min-angle DEG\n"
     "                        planes closer than DEG to parallel with the hole weigh\n"
     "                        as at DEG (default 15)\n"
@@ -53,6 +58,7 @@ enum {
     OPT_NET_PER_GROUP,
     OPT_TITLE,
     OPT_STATS,
+    OPT_SMALL_CIRCLES,
 };
 
 typedef struct where_rule {
@@ -67,6 +73,7 @@ typedef struct stereo_opts {
     size_t nwhere;
     double min_angle; /* degrees */
     int net_per_group;
+    int small_circles;
 } stereo_opts;
 
 typedef struct group {
@@ -74,6 +81,8 @@ typedef struct group {
     corax_vec3 *poles, *lines;
     double *weight;
     size_t npoles, nlines, pole_cap, line_cap;
+    corax_net_circle *circles; /* readings by alpha alone */
+    size_t ncircles, circle_cap;
     size_t skipped;
     corax_axial_summary pole_summary, line_summary;
 } group;
@@ -90,7 +99,7 @@ typedef struct groups {
 
 /* Columns of one input table (-1 when absent). */
 typedef struct columns {
-    long dip, dip_direction, trend, plunge, hole_azimuth, hole_dip, group;
+    long dip, dip_direction, trend, plunge, hole_azimuth, hole_dip, alpha, group;
     long *where;
 } columns;
 
@@ -151,6 +160,7 @@ static int stereonet_option(void *ctx, int opt, const char *arg, char *why, size
     case OPT_NET_PER_GROUP: o->net_per_group = 1; return 0;
     case OPT_TITLE: o->title = arg; return 0;
     case OPT_STATS: o->stats = arg; return 0;
+    case OPT_SMALL_CIRCLES: o->small_circles = 1; return 0;
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -171,6 +181,7 @@ static int parse(int argc, char **argv, stereo_opts *o)
         {"net-per-group", no_argument, NULL, OPT_NET_PER_GROUP},
         {"title", required_argument, NULL, OPT_TITLE},
         {"stats", required_argument, NULL, OPT_STATS},
+        {"small-circles", no_argument, NULL, OPT_SMALL_CIRCLES},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, stereonet_help, 1, stereonet_option, o);
@@ -325,24 +336,56 @@ static int out_of_memory(void)
 }
 
 /* The Terzaghi weight of a plane, from the hole's direction on the row. */
-static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, const columns *col,
-                        corax_vec3 normal, double *w, char *why, size_t whylen)
+/* The hole's direction at a row (hole_azimuth, hole_dip under the dip
+ * convention): PAIR_OK with *t filled, PAIR_NONE, or PAIR_BAD with why. */
+static int hole_direction(const stereo_opts *o, const corax_table *t, size_t row,
+                          const columns *col, corax_vec3 *dir, char *why, size_t whylen)
 {
     const angle_spec spec[2] = {{col->hole_azimuth, "hole_azimuth", 0, 360},
                                 {col->hole_dip, "hole_dip", -180, 180}};
     double v[2], plunge;
     int r = read_pair(t, row, spec, v, why, whylen);
-    if (r == PAIR_NONE)
-        snprintf(why, whylen, "no hole direction for the Terzaghi weight");
     if (r == PAIR_OK && corax_dip_to_plunge(v[1], o->c.load.dip_convention, &plunge) != CORAX_OK) {
         snprintf(why, whylen, "hole_dip %g does not fit the %s convention", v[1],
                  cli_dip_convention_name(o->c.load.dip_convention));
         r = PAIR_BAD;
     }
+    if (r == PAIR_OK)
+        *dir = corax_direction(corax_rad(v[0]), plunge);
+    return r;
+}
+
+static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, const columns *col,
+                        corax_vec3 normal, double *w, char *why, size_t whylen)
+{
+    corax_vec3 hole;
+    int r = hole_direction(o, t, row, col, &hole, why, whylen);
+    if (r == PAIR_NONE)
+        snprintf(why, whylen, "no hole direction for the Terzaghi weight");
     if (r != PAIR_OK)
         return 0;
-    *w = corax_terzaghi_weight(normal, corax_direction(corax_rad(v[0]), plunge),
-                               corax_rad(o->min_angle));
+    *w = corax_terzaghi_weight(normal, hole, corax_rad(o->min_angle));
+    return 1;
+}
+
+/* A row with alpha and the hole's direction but no plane, as the small
+ * circle its pole lies on: 1 drawn, 0 not such a row, -1 out of memory. */
+static int small_circle_of(const stereo_opts *o, group *g, const corax_table *t, size_t row,
+                           const columns *col)
+{
+    double alpha;
+    corax_vec3 hole;
+    char why[200];
+    if (!o->small_circles || corax_table_number(t, row, col->alpha, &alpha) != CORAX_NUMBER_OK ||
+        !(alpha >= 0 && alpha <= 90) || hole_direction(o, t, row, col, &hole, why, sizeof why) !=
+                                            PAIR_OK)
+        return 0;
+    corax_net_circle *grown = corax_grow(g->circles, g->ncircles, &g->circle_cap,
+                                         sizeof *grown, 64);
+    if (!grown)
+        return -1;
+    g->circles = grown;
+    g->circles[g->ncircles++] = (corax_net_circle){hole, corax_rad(90.0 - alpha)};
     return 1;
 }
 
@@ -400,6 +443,8 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         row_warning(o, gs, t, row, why, "line left out");
         bad = 1;
     }
+    if (!used && !bad && (used = small_circle_of(o, g, t, row, col)) < 0)
+        return out_of_memory();
     if (!used) {
         g->skipped++;
         gs->skipped++;
@@ -419,6 +464,7 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
     col->plunge = corax_table_find(t, "plunge");
     col->hole_azimuth = corax_table_find(t, "hole_azimuth");
     col->hole_dip = corax_table_find(t, "hole_dip");
+    col->alpha = corax_table_find(t, "alpha");
     col->group = o->group_by ? corax_table_find(t, o->group_by) : -1;
     if (o->group_by && col->group < 0)
         return cli_usage("stereonet", "--group-by: %s has no column '%s'", path, o->group_by);
@@ -488,6 +534,7 @@ static void groups_free(groups *gs)
         free(gs->item[i].poles);
         free(gs->item[i].weight);
         free(gs->item[i].lines);
+        free(gs->item[i].circles);
     }
     free(gs->item);
 }
@@ -606,7 +653,8 @@ static corax_svg *draw(const stereo_opts *o, const groups *gs, char *title)
                                   .pole_weight = o->style.weighted ? g->weight : NULL,
                                   .npoles = g->npoles, .lines = g->lines, .nlines = g->nlines,
                                   .pole_summary = &g->pole_summary,
-                                  .line_summary = &g->line_summary, .skipped = g->skipped};
+                                  .line_summary = &g->line_summary, .skipped = g->skipped,
+                                  .circles = g->circles, .ncircles = g->ncircles};
     }
     corax_net_style style = o->style;
     style.title = title;
