@@ -506,7 +506,14 @@ static int write_residuals(const solve_opts *o, const solve_data *d)
             text(w, "");
         }
         text(w, rr->status);
-        text(w, rr->why ? rr->why : "");
+        char note[600];
+        size_t used = (size_t)snprintf(note, sizeof note, "%s", rr->why ? rr->why : "");
+        size_t have = corax_table_width(rr->table, rr->row);
+        for (size_t c = width; c < have && used < sizeof note; c++) /* nothing lost */
+            used += (size_t)snprintf(note + used, sizeof note - used, "%s%s",
+                                     c == width ? "; extra fields: " : ",",
+                                     corax_table_cell(rr->table, rr->row, (long)c, NULL));
+        text(w, note);
         corax_writer_end_row(w);
     }
     if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
@@ -612,7 +619,7 @@ static void summary(const solve_opts *o, const solve_data *d)
         left += d->rows[i].why != NULL;
     if (o->c.quiet)
         return;
-    fprintf(stderr, "corax: %zu set%s:", d->nsets, d->nsets == 1 ? "" : "s");
+    fprintf(stderr, "corax: %zu set%s%s", d->nsets, d->nsets == 1 ? "" : "s", d->nsets ? ":" : "");
     int first = 1;
     for (int s = 0; s <= CORAX_SOLVE_NO_READINGS; s++)
         if (count[s]) {

@@ -21,7 +21,9 @@ grep -q '^S1,60,20.67,tuff top,,45.00,-60.00,0.00,used,$' "$T/res.csv" || fail "
 grep -q '^S1,200,95,broken,out of range,45.00,-60.00,,invalid,"alpha 95 is outside \[0, 90\]"$' \
     "$T/res.csv" || fail "an alpha out of range is not named"
 grep -q '^NOPE,.*,unknown-hole,' "$T/res.csv" || fail "an unknown hole is not named"
-[ "$(grep -c '; left out$' "$T/err")" = 4 ] || fail "left-out rows not reported: $(cat "$T/err")"
+grep -q '^S3,75,40,broken,ragged,,,,invalid,the row has 6 fields but the header has 5; extra fields: surplus$' \
+    "$T/res.csv" || fail "a ragged row's surplus field is lost"
+[ "$(grep -c '; left out$' "$T/err")" = 5 ] || fail "left-out rows not reported: $(cat "$T/err")"
 
 # the side file says what was assumed
 grep -q '^parallel_limit = 15$' "$T/sets.csv.about" || fail "about: parallel limit"
