@@ -413,16 +413,38 @@ static void set_note(const solve_opts *o, const solve_set *s, size_t k, char *no
 
 static void text(corax_writer *w, const char *s) { corax_writer_field(w, s, strlen(s)); }
 
-static int write_sets(const solve_opts *o, const solve_data *d)
+/* An output file (or standard output), or NULL with the message printed. */
+static corax_writer *open_output(const char *path)
 {
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->c.output, &w, &err);
+    corax_status st = corax_writer_open(path, &w, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        return NULL;
+    }
+    return w;
+}
+
+/* Put an output in place: EXIT_OK, or EXIT_DATA with the message printed. */
+static int commit_output(corax_writer *w)
+{
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_writer_commit(w, &err);
     if (st != CORAX_OK) {
         cli_error_record(&err, st);
         return EXIT_DATA;
     }
+    return EXIT_OK;
+}
+
+static int write_sets(const solve_opts *o, const solve_data *d)
+{
+    corax_writer *w = open_output(o->c.output);
+    if (!w)
+        return EXIT_DATA;
     static const char head[] =
         "set,candidate,dip,dip_direction,holes,readings,misfit,cone95,status,note\n";
     corax_writer_text(w, head, sizeof head - 1);
@@ -457,24 +479,15 @@ static int write_sets(const solve_opts *o, const solve_data *d)
             corax_writer_end_row(w);
         }
     }
-    if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
-    }
-    return EXIT_OK;
+    return commit_output(w);
 }
 
 /* Every reading in order, with its place and its residual from candidate 1. */
 static int write_residuals(const solve_opts *o, const solve_data *d)
 {
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->residuals, &w, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
+    corax_writer *w = open_output(o->residuals);
+    if (!w)
         return EXIT_DATA;
-    }
     for (size_t c = 0; d->ntables && c < corax_table_columns(d->tables[0]); c++)
         text(w, corax_table_header_name(d->tables[0], c));
     static const char *const more[] = {"hole_azimuth", "hole_dip", "residual", "status", "note"};
@@ -516,11 +529,7 @@ static int write_residuals(const solve_opts *o, const solve_data *d)
         text(w, note);
         corax_writer_end_row(w);
     }
-    if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
-    }
-    return EXIT_OK;
+    return commit_output(w);
 }
 
 /* Whether a set is to be drawn: every set, or those in --draw-sets. */
