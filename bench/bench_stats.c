@@ -58,7 +58,7 @@ int main(void)
     printf("  isolines: 50 levels in %.4f s (%zu points)\n", now() - t0, points);
     corax_isolines_clear(&lines);
 
-    corax_net_set set = {"bench", poles, NULL, POLES, NULL, 0, &s, NULL, 0};
+    corax_net_set set = {.name = "bench", .poles = poles, .npoles = POLES, .pole_summary = &s};
     corax_net_style style = corax_net_style_default();
     corax_svg *svg;
     t0 = now();

@@ -356,18 +356,87 @@ static void test_reading_conditions(void **state)
     assert_false(r.located);
     corax_hole_free(h);
 
-    /* a hole within the vertical limit has no bottom line, but alpha 90 still
-     * gives the plane (the core's cross-section) */
+    /* a hole within the vertical limit has no bottom line: alpha gives the dip
+     * alone (below), and alpha 90 still gives the plane (the core's
+     * cross-section) */
     h = straight_hole(0, -88, 100);
     rd = reading(20, 30, 90);
     corax_convert_reading(h, &rd, &o, NULL, &r);
-    assert_string_equal(corax_condition_status(r.conditions), "no-reference-line");
+    assert_string_equal(corax_condition_status(r.conditions), "dip-only");
     assert_false(r.has_plane);
+    assert_close(corax_deg(r.plane.dip), 60, 0, 1e-9, "dip-only: 90 - alpha");
     rd = reading(20, 90, NAN);
     corax_convert_reading(h, &rd, &o, NULL, &r);
     assert_true(r.has_plane);
     assert_close(corax_deg(r.plane.dip), 2, 0, 1e-9, "alpha 90 in a hole plunging 88: dip 2");
     assert_string_equal(corax_condition_status(r.conditions), "near-perpendicular");
+    corax_hole_free(h);
+}
+
+/* common practice: in a vertical hole the core axis is vertical, so a plane's
+ * dip is the angle between its normal and the axis, 90 - alpha, whatever beta
+ * says; its dip direction cannot be known. Alpha 60 gives dip 30, with or
+ * without beta; the pole's plunge is 90 - dip (docs/check-values.md). */
+static void test_vertical_hole_gives_the_dip(void **state)
+{
+    (void)state;
+    corax_convert_options o = corax_convert_options_default();
+    corax_hole *h = straight_hole(0, -90, 100);
+    char note[400];
+    const double betas[] = {NAN, 0, 135};
+    for (int i = 0; i < 3; i++) {
+        corax_reading rd = reading(40, 60, betas[i]);
+        corax_result r;
+        corax_convert_reading(h, &rd, &o, NULL, &r);
+        assert_string_equal(corax_condition_status(r.conditions), "dip-only");
+        assert_false(r.has_plane);
+        assert_false(r.has_line);
+        assert_true(r.located);
+        assert_close(corax_deg(r.plane.dip), 30, 0, 1e-12, "vertical hole, alpha 60: dip 30");
+        corax_result_note(&r, &rd, h, &o, note, sizeof note);
+        assert_non_null(strstr(note, "nothing gives its direction"));
+    }
+    /* a line measured on its own has nothing to go by */
+    corax_reading rd = corax_reading_empty();
+    rd.depth = 40;
+    rd.line_alpha = corax_rad(30);
+    rd.line_beta = corax_rad(10);
+    corax_result r;
+    corax_convert_reading(h, &rd, &o, NULL, &r);
+    assert_string_equal(corax_condition_status(r.conditions), "no-reference-line");
+    corax_hole_free(h);
+}
+
+/* A reading whose beta runs from an arbitrary line is unoriented until it is
+ * turned; turned, it is the reading whose beta is the turned one, and the
+ * status says how it was oriented. */
+static void test_arbitrary_line_and_turn(void **state)
+{
+    (void)state;
+    corax_convert_options o = corax_convert_options_default();
+    o.conventions.beta_anticlockwise = 1; /* the turn is canonical: conventions apply first */
+    corax_hole *h = straight_hole(120, -55, 200);
+    corax_reading rd = reading(50, 40, 100);
+    rd.gamma = corax_rad(30);
+    rd.arbitrary_line = 1;
+    corax_result r, want;
+    corax_convert_reading(h, &rd, &o, NULL, &r);
+    assert_string_equal(corax_condition_status(r.conditions), "unoriented");
+    assert_false(r.has_plane);
+    char note[400];
+    corax_result_note(&r, &rd, h, &o, note, sizeof note);
+    assert_non_null(strstr(note, "arbitrary line"));
+    rd.turn = corax_rad(25); /* canonical beta 260 + 25 = 285: measured anticlockwise 75 */
+    corax_convert_reading(h, &rd, &o, NULL, &r);
+    assert_string_equal(corax_condition_status(r.conditions), "oriented-by-reference");
+    corax_reading plain = reading(50, 40, 75);
+    plain.gamma = corax_rad(30);
+    corax_convert_reading(h, &plain, &o, NULL, &want);
+    assert_true(r.has_plane && r.has_line);
+    assert_close(r.plane.dip, want.plane.dip, 0, 1e-12, "turned: the plane of the turned beta");
+    assert_close(r.plane.dip_direction, want.plane.dip_direction, 0, 1e-12,
+                 "turned: the plane of the turned beta");
+    assert_close(r.trend, want.trend, 0, 1e-12, "turned: gamma's line turns with its plane");
     corax_hole_free(h);
 }
 
@@ -409,6 +478,8 @@ int main(void)
         cmocka_unit_test(test_line_round_trips),
         cmocka_unit_test(test_convention_switches_equal_their_mappings),
         cmocka_unit_test(test_reading_conditions),
+        cmocka_unit_test(test_vertical_hole_gives_the_dip),
+        cmocka_unit_test(test_arbitrary_line_and_turn),
         cmocka_unit_test(test_reading_lines),
     };
     return cmocka_run_group_tests_name("core", tests, NULL, NULL);

@@ -110,7 +110,8 @@ static void test_page_of_one_set(void **state)
         poles[i] = corax_fisher_draw(pole_of(40, 120), 30, test_uniform(&seed), test_uniform(&seed));
     corax_axial_summary s;
     assert_int_equal(corax_axial_summary_compute(poles, NULL, N, &s), CORAX_OK);
-    corax_net_set set = {"bedding & <co>", poles, NULL, N, NULL, 0, &s, NULL, 2};
+    corax_net_set set = {.name = "bedding & <co>", .poles = poles, .npoles = N,
+                         .pole_summary = &s, .skipped = 2};
     corax_net_style style = corax_net_style_default();
     style.title = "Test net";
     corax_svg *svg;
@@ -157,9 +158,10 @@ static void test_groups_and_empty_sets(void **state)
     corax_axial_summary_compute(a, NULL, 3, &sa);
     corax_axial_summary_compute(l, NULL, 1, &sl);
     corax_axial_summary_compute(NULL, NULL, 0, &none);
-    corax_net_set sets[3] = {{"first", a, NULL, 3, NULL, 0, &sa, NULL, 0},
-                             {"second", NULL, NULL, 0, l, 1, &none, &sl, 0},
-                             {"third", NULL, NULL, 0, NULL, 0, &none, &none, 4}};
+    corax_net_set sets[3] = {
+        {.name = "first", .poles = a, .npoles = 3, .pole_summary = &sa},
+        {.name = "second", .lines = l, .nlines = 1, .pole_summary = &none, .line_summary = &sl},
+        {.name = "third", .pole_summary = &none, .line_summary = &none, .skipped = 4}};
     corax_net_style style = corax_net_style_default();
     corax_svg *svg;
     assert_int_equal(corax_stereonet_page(sets, 3, &style, 0, &svg), CORAX_OK);
@@ -190,7 +192,7 @@ static void test_groups_and_empty_sets(void **state)
     style.id_prefix = "7net";
     assert_int_equal(corax_stereonet_page(sets, 3, &style, 1, &svg), CORAX_EARG);
     style.id_prefix = NULL;
-    corax_net_set empty = {"nothing", NULL, NULL, 0, NULL, 0, NULL, NULL, 0};
+    corax_net_set empty = {.name = "nothing"};
     assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_OK);
     assert_non_null(strstr(corax_svg_finish(svg, NULL), ">no readings</text>"));
     corax_svg_free(svg);
@@ -199,13 +201,42 @@ static void test_groups_and_empty_sets(void **state)
     assert_int_equal(corax_stereonet_page(&empty, 1, &style, 0, &svg), CORAX_EARG);
 }
 
+/* The centre and radius of the primitive on a page. */
+static void primitive_of(const char *doc, double *cx, double *cy, double *r)
+{
+    const char *prim = strstr(doc, "class=\"primitive\"");
+    assert_non_null(prim);
+    while (*prim != '<')
+        prim--;
+    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", cx, cy, r), 3);
+}
+
+/* The distances from (cx, cy) of the points of the path whose d="..."
+ * starts at d: the nearest and farthest; returns the number of points. */
+static int path_reach(const char *d, double cx, double cy, double *lo, double *hi)
+{
+    double x, y;
+    int n, points = 0;
+    *lo = 1e9;
+    *hi = 0;
+    while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
+        *lo = fmin(*lo, hypot(x - cx, y - cy));
+        *hi = fmax(*hi, hypot(x - cx, y - cy));
+        d += n;
+        while (*d == ' ')
+            d++;
+        points++;
+    }
+    return points;
+}
+
 /* Great circles stay inside the primitive: a horizontal plane's circle is
  * the primitive itself, a vertical plane's a diameter. */
 static void test_great_circles_inside_primitive(void **state)
 {
     (void)state;
     corax_vec3 p[2] = {pole_of(0, 0), pole_of(90, 90)};
-    corax_net_set set = {"two", p, NULL, 2, NULL, 0, NULL, NULL, 0};
+    corax_net_set set = {.name = "two", .poles = p, .npoles = 2};
     corax_net_style style = corax_net_style_default();
     style.planes = CORAX_NET_GREAT_CIRCLES;
     style.contours = 0;
@@ -213,22 +244,11 @@ static void test_great_circles_inside_primitive(void **state)
     assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
     const char *doc = corax_svg_finish(svg, NULL);
     double cx, cy, r;
-    const char *prim = strstr(doc, "<circle cx=\"");
-    prim = strstr(prim + 1, "<circle cx=\""); /* the first is the paper disc */
-    assert_int_equal(sscanf(prim, "<circle cx=\"%lf\" cy=\"%lf\" r=\"%lf\"", &cx, &cy, &r), 3);
+    primitive_of(doc, &cx, &cy, &r);
     size_t circles = 0;
     for (const char *g = doc; (g = strstr(g, "class=\"gc k0\" d=\"")); g++, circles++) {
-        const char *d = strchr(g, 'd') + 3;
-        double x, y, lo = 1e9, hi = 0;
-        int n;
-        while (sscanf(d, "%*[ML]%lf,%lf%n", &x, &y, &n) == 2) {
-            double rr = hypot(x - cx, y - cy);
-            lo = fmin(lo, rr);
-            hi = fmax(hi, rr);
-            d += n;
-            while (*d == ' ')
-                d++;
-        }
+        double lo, hi;
+        path_reach(strchr(g, 'd') + 3, cx, cy, &lo, &hi);
         assert_true(hi <= r + 0.01);
         if (circles == 0)
             assert_close(lo, r, 0, 0.01, "a horizontal plane's great circle is the primitive");
@@ -239,6 +259,40 @@ static void test_great_circles_inside_primitive(void **state)
     corax_svg_free(svg);
 }
 
+/* An alpha-only reading in a vertical hole: its pole lies 90 - alpha from
+ * the vertical, on the small circle of plunge alpha, which the equal-area
+ * net draws at radius sqrt(2) sin((90 - alpha) / 2) (docs/check-values.md,
+ * projections): alpha 30 at 0.7071 of the primitive. A solved pole is drawn
+ * with its label and its cone. */
+static void test_small_circles_and_picks(void **state)
+{
+    (void)state;
+    corax_net_circle c = {{0, 0, -1}, corax_rad(60)};
+    corax_net_pick pk[2] = {{pole_of(40, 30), corax_rad(5), "1"}, {pole_of(60, 200), NAN, "2"}};
+    corax_net_set set = {.name = "marker", .circles = &c, .ncircles = 1, .picks = pk, .npicks = 2};
+    corax_net_style style = corax_net_style_default();
+    style.contours = 0;
+    corax_svg *svg;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    const char *doc = corax_svg_finish(svg, NULL);
+    double cx, cy, r, lo, hi;
+    primitive_of(doc, &cx, &cy, &r);
+    const char *g = strstr(doc, "class=\"sc k0\" d=\"");
+    assert_non_null(g);
+    assert_true(path_reach(strchr(g, 'd') + 3, cx, cy, &lo, &hi) > 30);
+    assert_close(lo / r, sqrt(2.0) * sin(corax_rad(30)), 0, 2e-4,
+                 "equal-area radius of the small circle of plunge 30");
+    assert_close(hi / r, sqrt(2.0) * sin(corax_rad(30)), 0, 2e-4,
+                 "equal-area radius of the small circle of plunge 30");
+    assert_int_equal(count(doc, "class=\"pickcone k0\""), 1); /* the second has no cone */
+    assert_int_equal(count(doc, " class=\"pick f0\""), 2);
+    assert_non_null(strstr(doc, ">1: dip 40.0° toward 030.0°, cone 5.0°</text>"));
+    assert_non_null(strstr(doc, ">2: dip 60.0° toward 200.0°</text>"));
+    assert_non_null(strstr(doc, ">1 reading by alpha alone</text>"));
+    assert_null(strstr(doc, ">no readings</text>"));
+    corax_svg_free(svg);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -246,6 +300,7 @@ int main(void)
         cmocka_unit_test(test_page_of_one_set),
         cmocka_unit_test(test_groups_and_empty_sets),
         cmocka_unit_test(test_great_circles_inside_primitive),
+        cmocka_unit_test(test_small_circles_and_picks),
     };
     return cmocka_run_group_tests_name("draw_stereonet", tests, NULL, NULL);
 }

@@ -578,8 +578,8 @@ static void test_too_steep_to_place(void **state)
     f->in.nreadings = f->nreading;
     char *doc = write_page(&f->in, "report-steep.html");
     size_t part = at(doc, "<h3>V1</h3>");
-    at(doc + part, "2 readings could not be placed: the hole is within 5 degrees of vertical "
-                   "there, too steep for an orientation line to be marked.");
+    at(doc + part, "2 readings could not be oriented (a dip at most): the hole is within 5 "
+                   "degrees of vertical there, too steep for an orientation line to be marked.");
     assert_true(strstr(doc + part, "their values make no plane or line") == NULL ||
                 at(doc + part, "their values make no plane or line") > at(doc + part, "</article>"));
     free(doc);

@@ -73,6 +73,12 @@ static void test_rows_read(void **state)
                                           sizeof why), CORAX_OK);
     assert_true(!s.located && !s.oriented);
     assert_int_equal(s.polarity, 1);
+    /* a dip without its direction (convert's dip-only row, a hole near
+     * vertical): located, not oriented, no error */
+    const char *dip_only[] = {"QC6", "40", "bedding", "100", "200", "300", "30", "", "dip-only", ""};
+    assert_int_equal(corax_structure_read(make_row(&t, 10, dip_only, 5), &c, '.', &s, why,
+                                          sizeof why), CORAX_OK);
+    assert_true(s.located && !s.oriented);
     /* present but unusable values are errors that say why */
     static const struct {
         const char *field;
@@ -83,7 +89,7 @@ static void test_rows_read(void **state)
         {"95", 6, "dip 95 is outside [0, 90]"},
         {"-1", 7, "dip_direction -1 is outside [0, 360]"},
         {"", 4, "x, y, z: some given and some empty"},
-        {"", 7, "dip and dip_direction: some given and some empty"},
+        {"", 6, "dip and dip_direction: some given and some empty"},
         {"sideways", 9, "polarity 'sideways' is not one of"},
         {"x", 1, "depth 'x' is not a number"},
     };

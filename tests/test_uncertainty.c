@@ -154,6 +154,68 @@ static void test_spread_blows_up_near_vertical(void **state)
     corax_hole_free(steep);
 }
 
+/* The orientation line's error from the marking tool's sense of "down",
+ * atan(sin g / sin h), h the hole's angle from vertical (derived,
+ * docs/check-values.md): atan(sin g), about g, in a flat hole; 1.99909 at
+ * 30 degrees from vertical with g = 1, and 11.32337 at 5 degrees. In the Monte
+ * Carlo it adds to beta like the line error, so the cone of a reading with
+ * that error alone is 1.96 cos(alpha) times it (as for a beta error, above):
+ * it grows as the hole steepens instead of stopping at a cut-off. */
+static void test_gravity_error_grows_as_the_hole_steepens(void **state)
+{
+    (void)state;
+    double g = corax_rad(1);
+    assert_close(corax_deg(corax_gravity_line_error(g, corax_rad(90))), 0.99985, 0, 1e-5,
+                 "derived: a flat hole takes about the tool's error, atan(sin 1)");
+    assert_close(corax_deg(corax_gravity_line_error(g, corax_rad(30))), 1.99909, 0, 1e-5,
+                 "derived: atan(sin 1 / sin 30)");
+    assert_close(corax_deg(corax_gravity_line_error(g, corax_rad(5))), 11.32337, 0, 1e-5,
+                 "derived: atan(sin 1 / sin 5)");
+    assert_close(corax_deg(corax_gravity_line_error(g, 0)), 90, 0, 1e-9,
+                 "derived: a vertical hole has no line");
+    corax_error_model rd = no_errors();
+    rd.gravity = g;
+    double previous = 0;
+    const double dips[] = {-30, -60, -80, -85};
+    for (int i = 0; i < 4; i++) {
+        corax_hole *h = straight_hole(70, dips[i]);
+        corax_spread sp = simulate(h, 60, 40, 100, rd, no_errors(), 40000, 13);
+        double h_off = corax_rad(90 + dips[i]);
+        double expect = 1.96 * cos(corax_rad(40)) * corax_gravity_line_error(g, h_off);
+        assert_close(sp.cone95, expect, 0.05, 0, "the gravity error's cone, 1.96 cos(alpha) x it");
+        assert_true(sp.cone95 > previous);
+        previous = sp.cone95;
+        corax_hole_free(h);
+    }
+}
+
+/* A dip alone (a hole within the vertical limit) spreads by the alpha error
+ * (dip = 90 - alpha) and by the hole's tilt, which the drawn beta turns any
+ * way: in a vertical hole, by the alpha error alone. */
+static void test_dip_only_spread(void **state)
+{
+    (void)state;
+    corax_convert_options o = corax_convert_options_default();
+    corax_hole *h = straight_hole(0, -90);
+    corax_mc_reading m;
+    m.reading = corax_reading_empty();
+    m.reading.depth = 50;
+    m.reading.alpha = corax_rad(60);
+    m.errors = no_errors();
+    m.errors.alpha = corax_rad(2);
+    m.errors.gravity = corax_rad(1); /* no line: no gravity error either */
+    corax_convert_reading(h, &m.reading, &o, NULL, &m.nominal);
+    assert_true(m.nominal.conditions & CORAX_COND_DIP_ONLY);
+    corax_mc *mc = corax_mc_new();
+    corax_spread sp;
+    corax_error_model sv = no_errors();
+    assert_int_equal(corax_mc_hole(mc, h, &m, 1, &o, &sv, 20000, 3, &sp, NULL, NULL), CORAX_OK);
+    assert_int_equal(sp.draws, 20000);
+    assert_close(sp.dip_sd, corax_rad(2), 0.03, 0, "dip-only in a vertical hole: the alpha error");
+    corax_mc_free(mc);
+    corax_hole_free(h);
+}
+
 /* dip_direction_sd grows without bound as the plane nears horizontal, while
  * dip_sd stays small. */
 static void test_dip_direction_spread_of_flat_planes(void **state)
@@ -340,6 +402,8 @@ int main(void)
         cmocka_unit_test(test_delta_method_agrees_for_small_sigmas),
         cmocka_unit_test(test_beta_error_scales_with_cos_alpha),
         cmocka_unit_test(test_spread_blows_up_near_vertical),
+        cmocka_unit_test(test_gravity_error_grows_as_the_hole_steepens),
+        cmocka_unit_test(test_dip_only_spread),
         cmocka_unit_test(test_dip_direction_spread_of_flat_planes),
         cmocka_unit_test(test_positions_take_the_survey_errors),
         cmocka_unit_test(test_station_errors_replace_the_runs),

@@ -20,6 +20,15 @@ PROJECT=examples/quillon_creek.ini
 summary=$("$CORAX" convert -p "$PROJECT" --section-azimuth 135 --draws 500 --seed 2026 \
     -o "$OUT/structures.csv" 2>&1)
 
+# The runs without an orientation mark (betas from a line drawn on the run),
+# each turned to fit the hole's oriented bedding or foliation nearby.
+oriented=$("$CORAX" convert -p "$PROJECT" --orient-by bedding=nearby --orient-by foliation=nearby \
+    -o "$OUT/structures-oriented.csv" 2>&1)
+# Planes from alpha alone: the marker bed and the vein read in several holes.
+solved=$("$CORAX" solve -p "$PROJECT" examples/markers.csv -o "$OUT/markers.csv" \
+    --residuals "$OUT/markers-residuals.csv" --svg "$OUT/markers.svg" \
+    --title "Quillon Creek: planes from alpha alone" 2>&1)
+
 # Stereonets of the converted structures: all structures, by feature kind on
 # one net, one net per hole, with the statistics of each grouping.
 S="$OUT/structures.csv"
@@ -76,6 +85,10 @@ echo "  traces every 5 m:        $OUT/traces.csv"
 echo "  converted structures:    $OUT/structures.csv"
 echo "      ${summary#corax: }"
 echo "      with dip_sd, dip_direction_sd, cone95, kappa and position_sd from 500 draws each"
+echo "  runs oriented by reference: $OUT/structures-oriented.csv"
+echo "      ${oriented#corax: }"
+echo "  planes from alpha alone: $OUT/markers.csv, markers-residuals.csv, markers.svg"
+echo "      ${solved#corax: }"
 echo "  stereonets:              $OUT/net_all.svg, net_by_kind.svg, net_by_hole.svg"
 echo "  orientation statistics:  $OUT/net_*_stats.csv"
 echo "  traces for 3-D (VTK):    $OUT/traces.vtk, $OUT/traces-binary.vtk"

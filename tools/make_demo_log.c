@@ -1,11 +1,16 @@
 /* Makes the demo core log of the invented Quillon Creek program from an
  * invented structural model, through corax's own inverse: the alpha, beta and
  * gamma each true structure would show in the hole at its depth, with reading
- * noise, orientation runs of about 3 m, unoriented broken ground, and a few
- * deliberate slips for the QA checks to find.
+ * noise, orientation runs of about 3 m, unoriented broken ground (half of it
+ * with betas measured from a line drawn anywhere on the run, confidence
+ * "unoriented"), a few deliberate slips for the QA checks to find, and the
+ * alpha-only readings of two marker planes where the holes cross them.
  *
  *   build/tools/make_demo_log surveys/collars.csv surveys/surveys.csv \
- *       examples/core_log.csv examples/runs.csv
+ *       examples/core_log.csv examples/runs.csv examples/markers.csv
+ *
+ * It prints the invented truth the demo's results are checked against: the
+ * turn that orients each run without a mark, and the marker planes.
  *
  * The holes are desurveyed with the demo's own azimuth corrections (the
  * project file's: the World Magnetic Model, UTM zone 8N, the local grid).
@@ -69,10 +74,97 @@ static int pick_kind(gsl_rng *rng, double depth)
 
 static const char *confidence_of(double u) { return u < 0.7 ? "good" : u < 0.92 ? "fair" : "poor"; }
 
+/* A run's confidence word: broken ground without a line ("none"), a line
+ * drawn anywhere ("unoriented"), or the run's own. */
+static const char *run_word(int unoriented_run, int arbitrary, const char *conf)
+{
+    return !unoriented_run ? conf : arbitrary ? "unoriented" : "none";
+}
+
+/* An invented marker plane: where it lies, and which holes read it. */
+typedef struct marker {
+    const char *name;
+    double dip, dip_direction;   /* degrees */
+    corax_vec3 point;            /* a point on it */
+    double thickness;            /* metres between its two contacts; 0: one plane */
+    size_t max_holes;            /* read in at most this many holes (0: all) */
+} marker;
+
+/* The Quillon tuff, a marker bed whose two contacts were logged by alpha
+ * alone (the contacts break the core), and a late vein recognised in two
+ * holes only. */
+static const marker markers[] = {
+    {"Quillon tuff", 48, 275, {10500, 50400, 330}, 1.6, 0},
+    {"V3 vein", 65, 20, {10500, 50400, 400}, 0, 2},
+};
+
+/* The depth where a hole crosses the plane of unit normal n through p, or -1. */
+static double crossing(const corax_hole *hole, corax_vec3 n, corax_vec3 p)
+{
+    double length = corax_hole_length(hole), prev = NAN, prev_d = 0;
+    for (double d = 0; d <= length; d += 1.0) {
+        corax_hole_point pt;
+        if (corax_hole_at(hole, d, NULL, &pt) != CORAX_OK)
+            return -1;
+        corax_vec3 r = pt.position;
+        double f = n.x * (r.x - p.x) + n.y * (r.y - p.y) + n.z * (r.z - p.z);
+        if (!isnan(prev) && (f > 0) != (prev > 0)) {
+            double lo = prev_d, hi = d, flo = prev;
+            for (int i = 0; i < 60; i++) { /* bisection on the arc */
+                double mid = 0.5 * (lo + hi);
+                corax_hole_at(hole, mid, NULL, &pt);
+                r = pt.position;
+                double fm = n.x * (r.x - p.x) + n.y * (r.y - p.y) + n.z * (r.z - p.z);
+                if ((fm > 0) == (flo > 0)) {
+                    lo = mid;
+                    flo = fm;
+                } else {
+                    hi = mid;
+                }
+            }
+            return 0.5 * (lo + hi);
+        }
+        prev = f;
+        prev_d = d;
+    }
+    return -1;
+}
+
+/* The alpha-only readings of the markers where the holes cross them. */
+static void write_markers(FILE *f, const corax_program *prog, gsl_rng *rng)
+{
+    fprintf(f, "hole,depth,alpha,set,comment\n");
+    for (size_t m = 0; m < sizeof markers / sizeof markers[0]; m++) {
+        const marker *mk = &markers[m];
+        corax_vec3 n = corax_plane_normal((corax_plane){corax_rad(mk->dip),
+                                                        corax_rad(mk->dip_direction)});
+        size_t used = 0;
+        printf("  marker %s: %g/%03g (dip/dip direction)\n", mk->name, mk->dip,
+               mk->dip_direction);
+        for (size_t h = 0; h < corax_program_size(prog); h++) {
+            const corax_hole *hole = corax_program_hole(prog, h);
+            double d = crossing(hole, n, mk->point);
+            if (d < 0 || (mk->max_holes && used == mk->max_holes))
+                continue;
+            used++;
+            for (int contact = 0; contact < (mk->thickness > 0 ? 2 : 1); contact++) {
+                corax_hole_point pt;
+                corax_hole_at(hole, d, NULL, &pt);
+                double c = fabs(n.x * pt.tangent.x + n.y * pt.tangent.y + n.z * pt.tangent.z);
+                double alpha = corax_deg(asin(fmin(1.0, c))) + gsl_ran_gaussian(rng, 2);
+                alpha = fabs(alpha) > 90 ? 180 - fabs(alpha) : fabs(alpha);
+                fprintf(f, "%s,%.2f,%.0f,%s,%s\n", corax_hole_name(hole), d, alpha, mk->name,
+                        mk->thickness > 0 ? (contact ? "base" : "top") : "");
+                d += mk->thickness / (c > 0.05 ? c : 0.05); /* the other contact, down the hole */
+            }
+        }
+    }
+}
+
 int main(int argc, char **argv)
 {
-    if (argc != 5) {
-        fprintf(stderr, "usage: make_demo_log COLLARS SURVEYS CORE_LOG RUNS\n");
+    if (argc != 6) {
+        fprintf(stderr, "usage: make_demo_log COLLARS SURVEYS CORE_LOG RUNS MARKERS\n");
         return 2;
     }
     /* the demo's corrections, as examples/quillon_creek.ini gives them */
@@ -103,13 +195,16 @@ int main(int argc, char **argv)
     }
     corax_crs_free(crs);
     corax_magnetic_model_free(wmm);
-    FILE *log = fopen(argv[3], "w"), *runs = fopen(argv[4], "w");
-    if (!log || !runs) {
+    FILE *log = fopen(argv[3], "w"), *runs = fopen(argv[4], "w"), *marks = fopen(argv[5], "w");
+    if (!log || !runs || !marks) {
         perror("make_demo_log");
         return 1;
     }
-    gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937);
+    gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937), *aux = gsl_rng_alloc(gsl_rng_mt19937);
     gsl_rng_set(rng, 20261201);
+    gsl_rng_set(aux, 20261202); /* its own stream: the rest of the log stays as it was */
+    printf("make_demo_log: the invented truth\n  runs without a mark, and the turn (added to "
+           "beta) that orients each:\n");
     corax_core_conventions conv = {0, 0, 0, 0, 0};
     fprintf(log, "hole,depth,alpha,beta,gamma,kind,confidence,logged_by,comment\n");
     fprintf(runs, "hole,from,to,confidence\n");
@@ -119,20 +214,24 @@ int main(int argc, char **argv)
         const char *name = corax_hole_name(hole);
         const char *logger = loggers[h % 3];
         double length = corax_hole_length(hole);
-        double run_from = 6.0, line_error = 0;
-        int unoriented_run = 0;
+        double run_from = 6.0, line_error = 0, turn = 0;
+        int unoriented_run = 0, arbitrary = 0; /* arbitrary: a line drawn anywhere */
         const char *run_conf = "good";
         size_t hint = 0;
         for (double d = 6.0 + gsl_rng_uniform(rng); d < length - 1; d += 0.2 + gsl_ran_exponential(rng, 0.55)) {
             if (d >= run_from + 3.0 || d == 6.0) { /* a new orientation run */
                 if (d > 6.0)
                     fprintf(runs, "%s,%.2f,%.2f,%s\n", name, run_from, run_from + 3.0,
-                            unoriented_run ? "none" : run_conf);
+                            run_word(unoriented_run, arbitrary, run_conf));
                 while (d >= run_from + 3.0)
                     run_from += 3.0;
                 double u = gsl_rng_uniform(rng);
                 run_conf = confidence_of(u);
                 unoriented_run = gsl_rng_uniform(rng) < 0.06; /* broken ground: no line */
+                arbitrary = unoriented_run && gsl_rng_uniform(aux) < 0.5;
+                turn = arbitrary ? round(3600 * gsl_rng_uniform(aux)) / 10 : 0;
+                if (arbitrary)
+                    printf("    %s %.2f-%.2f m: %.1f\n", name, run_from, run_from + 3.0, turn);
                 line_error = gsl_ran_gaussian(rng, strcmp(run_conf, "good") == 0 ? 3
                                                    : strcmp(run_conf, "fair") == 0 ? 8 : 20);
             }
@@ -177,7 +276,11 @@ int main(int argc, char **argv)
             }
             snprintf(alpha_text, sizeof alpha_text, "%.0f", alpha);
             snprintf(beta_text, sizeof beta_text, "%.0f", fmod(round(beta), 360));
-            if (unoriented_run) {
+            if (arbitrary) { /* measured from the line drawn: the true beta less the turn */
+                snprintf(beta_text, sizeof beta_text, "%.0f",
+                         fmod(fmod(round(beta - turn), 360) + 360, 360));
+                comment = "no orientation mark; beta from a line drawn on the run";
+            } else if (unoriented_run) {
                 beta_text[0] = gamma[0] = '\0';
                 comment = "broken; no orientation line";
             }
@@ -187,7 +290,7 @@ int main(int argc, char **argv)
                 snprintf(alpha_text, sizeof alpha_text, "95");
                 comment = "check";
             }
-            if (!slip_beta && strcmp(name, "QC005") == 0 && d > 61.3 && beta_text[0]) {
+            if (!slip_beta && strcmp(name, "QC005") == 0 && d > 61.3 && !unoriented_run) {
                 slip_beta = 1;
                 snprintf(beta_text, sizeof beta_text, "365");
             }
@@ -196,18 +299,23 @@ int main(int argc, char **argv)
                 snprintf(alpha_text, sizeof alpha_text, "n/a");
                 comment = "core lost";
             }
+            const char *word = run_word(unoriented_run, arbitrary, run_conf);
             fprintf(log, "%s,%.2f,%s,%s,%s,%s,%s,%s,%s\n", name, d, alpha_text, beta_text, gamma,
-                    kind, unoriented_run ? "none" : run_conf, logger, comment);
+                    kind, word, logger, comment);
             if (!slip_twice && strcmp(name, "QC004") == 0 && d > 88.4) { /* typed twice */
                 slip_twice = 1;
                 fprintf(log, "%s,%.2f,%s,%s,%s,%s,%s,%s,%s\n", name, d, alpha_text, beta_text,
-                        gamma, kind, run_conf, logger, "");
+                        gamma, kind, arbitrary ? word : run_conf, logger, "");
             }
         }
         fprintf(runs, "%s,%.2f,%.2f,%s\n", name, run_from, run_from + 3.0,
-                unoriented_run ? "none" : run_conf);
+                run_word(unoriented_run, arbitrary, run_conf));
     }
+    gsl_rng_set(aux, 20261203); /* the markers: a stream of their own */
+    write_markers(marks, prog, aux);
     gsl_rng_free(rng);
+    gsl_rng_free(aux);
+    fclose(marks);
     fclose(log);
     fclose(runs);
     corax_program_free(prog);

@@ -29,9 +29,16 @@ typedef struct corax_reading {
     double depth;                 /* metres down the hole */
     double alpha, beta, gamma;    /* a plane, and optionally a line on it */
     double line_alpha, line_beta; /* a line measured on its own */
+    int arbitrary_line;           /* beta and line_beta run from a line drawn anywhere
+                                     on the piece (a run without an orientation mark):
+                                     unoriented unless turned */
+    double turn;                  /* radians, NaN when none: the turn about the core
+                                     axis that orients an arbitrary line (added to
+                                     the canonical beta; see corax_turn_fit()) */
 } corax_reading;
 
-/* A reading with every angle absent (NaN) at depth 0. */
+/* A reading with every angle absent (NaN) at depth 0, its line not
+ * arbitrary and no turn. */
 corax_reading corax_reading_empty(void);
 
 /* Conditions met by a conversion, as bits; the status of a row is the most
@@ -40,14 +47,20 @@ enum {
     CORAX_COND_INVALID = 1u << 0,            /* "invalid": a value cannot be used */
     CORAX_COND_UNKNOWN_HOLE = 1u << 1,       /* "unknown-hole": not in the collars */
     CORAX_COND_NO_SURVEY = 1u << 2,          /* "no-survey": no stations, no collar direction */
-    CORAX_COND_NO_REFERENCE = 1u << 3,       /* "no-reference-line": hole near vertical */
-    CORAX_COND_UNORIENTED = 1u << 4,         /* "unoriented": alpha without beta */
-    CORAX_COND_BEYOND_END = 1u << 5,         /* "beyond-end": deeper than the hole */
-    CORAX_COND_COLLAR_ONLY = 1u << 6,        /* "collar-only": no downhole survey */
-    CORAX_COND_EXTRAPOLATED = 1u << 7,       /* "extrapolated": below the last station */
-    CORAX_COND_NEAR_PARALLEL = 1u << 8,      /* "near-parallel": low alpha */
-    CORAX_COND_NEAR_PERPENDICULAR = 1u << 9, /* "near-perpendicular": high alpha */
-    CORAX_COND_COUNT = 10
+    CORAX_COND_NO_REFERENCE = 1u << 3,       /* "no-reference-line": a line in a hole
+                                                near vertical */
+    CORAX_COND_UNORIENTED = 1u << 4,         /* "unoriented": alpha without beta, or beta
+                                                from an arbitrary line not turned */
+    CORAX_COND_DIP_ONLY = 1u << 5,           /* "dip-only": a plane in a hole near vertical:
+                                                alpha gives the dip, nothing its direction */
+    CORAX_COND_BY_REFERENCE = 1u << 6,       /* "oriented-by-reference": an arbitrary line
+                                                turned to fit a reference */
+    CORAX_COND_BEYOND_END = 1u << 7,         /* "beyond-end": deeper than the hole */
+    CORAX_COND_COLLAR_ONLY = 1u << 8,        /* "collar-only": no downhole survey */
+    CORAX_COND_EXTRAPOLATED = 1u << 9,       /* "extrapolated": below the last station */
+    CORAX_COND_NEAR_PARALLEL = 1u << 10,     /* "near-parallel": low alpha */
+    CORAX_COND_NEAR_PERPENDICULAR = 1u << 11, /* "near-perpendicular": high alpha */
+    CORAX_COND_COUNT = 12
 };
 
 /* The status word of a set of conditions. */
@@ -63,7 +76,8 @@ typedef struct corax_result {
     corax_hole_point point;
     int has_plane;
     corax_vec3 normal;       /* upward unit normal */
-    corax_plane plane;
+    corax_plane plane;       /* with CORAX_COND_DIP_ONLY (has_plane 0): plane.dip alone,
+                                90 - alpha */
     int has_line;
     corax_vec3 line;         /* unit, lower hemisphere */
     double trend, plunge;

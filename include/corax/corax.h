@@ -25,6 +25,7 @@
 #include "corax/report.h"
 #include "corax/section.h"
 #include "corax/section_drawing.h"
+#include "corax/solve.h"
 #include "corax/stats.h"
 #include "corax/status.h"
 #include "corax/stereonet.h"

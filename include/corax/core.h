@@ -33,6 +33,12 @@ typedef struct corax_core_conventions {
 double corax_core_beta_canonical(double beta, const corax_core_conventions *c);
 double corax_core_beta_measured(double beta, const corax_core_conventions *c);
 
+/* The canonical line_beta (bottom line, clockwise) of a line measured on its
+ * own under conventions c (only the reference line and the sense apply: it
+ * runs to the line's down-hole end), and back. Results in [0, 2 pi). */
+double corax_core_line_beta_canonical(double line_beta, const corax_core_conventions *c);
+double corax_core_line_beta_measured(double line_beta, const corax_core_conventions *c);
+
 /* The canonical gamma (from the down-hole end, clockwise from up-hole) of a
  * gamma measured under c, and back. Results in [0, 2 pi). */
 double corax_core_gamma_canonical(double gamma, const corax_core_conventions *c);

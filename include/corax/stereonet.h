@@ -1,5 +1,6 @@
 /* corax: stereonets drawn as SVG. Lower hemisphere, equal-area or
- * equal-angle; planes as poles or great circles, lines as points; density
+ * equal-angle; planes as poles or great circles, lines as points, planes
+ * known by alpha alone as small circles, solved poles with their cones; density
  * shaded and contoured in multiples of sigma; each set's mean with its 95%
  * cone and, on a net of one set, the principal axes. */
 #ifndef CORAX_STEREONET_H
@@ -16,8 +17,23 @@
 extern "C" {
 #endif
 
+/* A plane known by alpha alone: its pole lies on the small circle of
+ * half-angle `angle` (radians; 90 - alpha) about the core axis. */
+typedef struct corax_net_circle {
+    corax_vec3 axis; /* unit */
+    double angle;
+} corax_net_circle;
+
+/* A pole found by solving (corax_solve_cones()), with its cone. */
+typedef struct corax_net_pick {
+    corax_vec3 pole;   /* unit, either sense */
+    double cone;       /* half-angle of its 95% cone, radians; NaN: none */
+    const char *label; /* short, drawn beside it (e.g. the candidate's rank) */
+} corax_net_pick;
+
 /* One set of readings (a group): planes by their unit normals (either
- * sense) with optional weights, and lines (axial unit vectors). Borrowed. */
+ * sense) with optional weights, and lines (axial unit vectors); planes known
+ * by alpha alone as small circles, and solved poles. Borrowed. */
 typedef struct corax_net_set {
     const char *name;                        /* legend label */
     const corax_vec3 *poles;
@@ -28,6 +44,10 @@ typedef struct corax_net_set {
     const corax_axial_summary *pole_summary; /* NULL: no mean, cone or axes */
     const corax_axial_summary *line_summary;
     size_t skipped;                          /* rows left out, for the note */
+    const corax_net_circle *circles;         /* may be NULL */
+    size_t ncircles;
+    const corax_net_pick *picks;             /* may be NULL */
+    size_t npicks;
 } corax_net_set;
 
 /* How planes are shown (bits). */

@@ -32,12 +32,28 @@ typedef struct corax_error_model {
     double dip;           /* survey dip, random per station */
     double azimuth_hole;  /* survey azimuth, systematic per hole */
     double dip_hole;      /* survey dip, systematic per hole */
+    double gravity;       /* the marking tool's sense of "down": a gravity-marked
+                             orientation line takes a further error of
+                             atan(sin(gravity) / sin(h)), h the hole's angle from
+                             vertical (see corax_gravity_line_error()) */
 } corax_error_model;
 
 /* The defaults: alpha 2, beta 5, orientation line 5, depth 0.05 m, survey
- * azimuth 1 and dip 0.5 per station (common practice, from memory), and per
- * hole azimuth 0.5 and dip 0.25 (from memory). */
+ * azimuth 1 and dip 0.5 per station (common practice, from memory), per
+ * hole azimuth 0.5 and dip 0.25 (from memory), and gravity 1 (from
+ * memory). */
 corax_error_model corax_error_model_default(void);
+
+/* The error a gravity-marked orientation line takes from the marking tool's
+ * error in sensing "down" (gravity, radians) in a hole at off_vertical
+ * (radians) from vertical: the bottom of the hole is where gravity, projected
+ * onto the core's cross-section, points; that projection has length sin h
+ * (in units of g), so a sideways error of sin(gravity) turns it by
+ *     atan(sin(gravity) / sin(h))
+ * (derived): about the tool's own error in a flat hole, twice it at 30
+ * degrees from vertical, 11.3 times at 5 degrees, and a quarter turn at
+ * vertical. */
+double corax_gravity_line_error(double gravity, double off_vertical);
 
 /* The spread of one reading's results over the draws. */
 typedef struct corax_spread {

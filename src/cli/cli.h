@@ -151,6 +151,18 @@ enum {
     OPT_INTERVAL_DEPTH,
     OPT_KIND_CODES,
     OPT_CONFIDENCE_CODES,
+    /* the uncertainty, for the commands that draw */
+    OPT_DRAWS = 1070,
+    OPT_SEED,
+    OPT_ALPHA_ERROR,
+    OPT_BETA_ERROR,
+    OPT_LINE_ERROR,
+    OPT_DEPTH_ERROR,
+    OPT_AZIMUTH_ERROR,
+    OPT_DIP_ERROR,
+    OPT_AZIMUTH_ERROR_HOLE,
+    OPT_DIP_ERROR_HOLE,
+    OPT_GRAVITY_ERROR,
     OPT_COMMAND_BASE = 1100 /* commands number their own options from here */
 };
 
@@ -197,6 +209,27 @@ int cli_convention_option(corax_convert_options *cv, int opt, const char *arg, c
 
 /* Record the conventions and thresholds in a .about file. */
 void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
+
+/* Long options for the uncertainty of a reading's place and alpha, and of the
+ * surveys (the core line's own: --beta-error, --line-error, --gravity-error). */
+#define CLI_UNCERTAINTY_OPTIONS                                                   \
+    {"draws", required_argument, NULL, OPT_DRAWS},                                \
+        {"seed", required_argument, NULL, OPT_SEED},                              \
+        {"alpha-error", required_argument, NULL, OPT_ALPHA_ERROR},                \
+        {"depth-error", required_argument, NULL, OPT_DEPTH_ERROR},                \
+        {"azimuth-error", required_argument, NULL, OPT_AZIMUTH_ERROR},            \
+        {"dip-error", required_argument, NULL, OPT_DIP_ERROR},                    \
+        {"azimuth-error-per-hole", required_argument, NULL, OPT_AZIMUTH_ERROR_HOLE}, \
+        {"dip-error-per-hole", required_argument, NULL, OPT_DIP_ERROR_HOLE}
+
+/* Apply an uncertainty option: 1 applied, 0 not one, -1 with why filled.
+ * --draws takes whole numbers from min_draws. */
+int cli_uncertainty_option(corax_error_model *e, size_t *draws, uint64_t *seed, double min_draws,
+                           int opt, const char *arg, char *why, size_t whylen);
+
+/* Record the errors in a .about file (the core line's when core_line). */
+void cli_about_uncertainty(cli_about *a, const corax_error_model *e, size_t draws, uint64_t seed,
+                           int core_line);
 
 /* Long options for the shared set; commands put them first in their table. */
 #define CLI_COMMON_OPTIONS                                                   \
@@ -269,7 +302,28 @@ int cli_files_add(cli_files *f, const cli_common *c, const char *path, char *why
  * line's files and replace the project file's. 0 or -1. */
 int cli_files_from_args(cli_files *f, const cli_common *c, int argc, char **argv);
 
+/* EXIT_USAGE (message printed) when standard input (-) is named twice, else 0. */
+int cli_files_stdin_once(const cli_files *f, const char *command);
+
 void cli_files_free(cli_files *f);
+
+/* Load a whole table (read with table id's settings, its progress shown and
+ * its reading noted) and keep it in *tables (*n of them); NULL with the
+ * message printed when it cannot be read. */
+corax_table *cli_table_keep(const cli_common *c, cli_table_id id, const char *path,
+                            corax_table ***tables, size_t *n);
+
+/* The columns of logical names in a whole table, by the table's header names
+ * (ts): 0, or -1 with "no 'X' column ... which the column names give for Y"
+ * printed for a mapped name the table lacks. */
+int cli_table_columns(const corax_table *t, const corax_table_settings *ts,
+                      const char *const *names, size_t n, long *col);
+
+/* A kind or confidence value as its word: through the codes when there are
+ * any (an unknown code is counted in `unknown`, may be NULL, and kept as
+ * written). */
+const char *cli_code_word(const corax_codes *codes, const char *text, size_t len,
+                          corax_tally *unknown, const char *file, size_t file_index, long line);
 
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);
@@ -475,6 +529,32 @@ void cli_main_help(FILE *f);
 int cli_command_help(const char *name);
 void cli_project_help(FILE *f);
 
+/* Orientation runs from a runs table (hole, from, to, optional confidence),
+ * sorted by hole and depth. */
+typedef struct cli_runs {
+    corax_table *table;
+    corax_qa_run *run;
+    size_t n;
+} cli_runs;
+
+/* Read a runs table (with the runs table's settings; its confidence words
+ * through the codes, an unknown code counted in `unknown` with the table as
+ * file number file_index); its rows that cannot be used become findings (and
+ * are left out). 0, or EXIT_DATA with the message printed. */
+int cli_runs_load(const cli_common *c, const char *path, const corax_codes *codes,
+                  corax_tally *unknown, size_t file_index, cli_runs *runs,
+                  corax_findings *found);
+void cli_runs_free(cli_runs *runs);
+
+/* The run of a hole (name of len bytes) holding a depth (from <= depth < to),
+ * or -1. */
+long cli_runs_find(const cli_runs *runs, const char *hole, size_t len, double depth);
+
+/* Whether a confidence word (len bytes, as the log or runs table gives it)
+ * says the core has no orientation mark: it is `word` (without regard to case
+ * or surrounding blanks). The one place that reads such words. */
+int cli_unoriented_confidence(const char *text, size_t len, const char *word);
+
 /* Commands. */
 int cmd_export(int argc, char **argv);
 int cmd_section(int argc, char **argv);
@@ -484,5 +564,6 @@ int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
 int cmd_help(int argc, char **argv);
 int cmd_plan(int argc, char **argv);
+int cmd_solve(int argc, char **argv);
 
 #endif

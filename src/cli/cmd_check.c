@@ -46,6 +46,8 @@ static const char check_help[] =
     "                        (the surveys' total_field and field_dip columns) departs\n"
     "                        further from the magnetic model's (--declination model)\n"
     "                        [300, 0.45: common practice for field acceptance]\n"
+    "  --unoriented-word WORD  the confidence of runs without an orientation mark,\n"
+    "                        whose betas run from an arbitrary line [unoriented]\n"
     "\n";
 
 enum {
@@ -67,6 +69,7 @@ enum {
     OPT_LOW_CONFIDENCE,
     OPT_TOTAL_FIELD,
     OPT_FIELD_DIP,
+    OPT_UNORIENTED_WORD,
 };
 
 typedef struct check_opts {
@@ -76,6 +79,7 @@ typedef struct check_opts {
     corax_qa_options qa;
     cli_files logs;
     const char *runs, *report, *title;
+    const char *unoriented_word; /* the confidence of runs without a mark */
     char *low_words;           /* the --low-confidence list, split in place */
     const char *low_list[17];
 } check_opts;
@@ -134,6 +138,7 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
     case OPT_REPORT: o->report = arg; return 0;
     case OPT_TITLE: o->title = arg; return 0;
     case OPT_LOW_CONFIDENCE: return low_confidence(o, arg, why, wl);
+    case OPT_UNORIENTED_WORD: o->unoriented_word = arg; return 0;
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -162,6 +167,7 @@ static int parse(int argc, char **argv, check_opts *o)
         {"low-confidence", required_argument, NULL, OPT_LOW_CONFIDENCE},
         {"total-field", required_argument, NULL, OPT_TOTAL_FIELD},
         {"field-dip", required_argument, NULL, OPT_FIELD_DIP},
+        {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, check_help, 1, check_option, o);
@@ -230,19 +236,6 @@ typedef struct log_setup {
 
 /* A kind or confidence value as its word; an unknown code is tallied and
  * kept as written. */
-static const char *word_of(const corax_codes *codes, const char *text, size_t len,
-                           corax_tally *unknown, const char *file, size_t findex, long line)
-{
-    size_t wl;
-    if (!codes || !len)
-        return text;
-    const char *w = corax_codes_word(codes, text, len, &wl);
-    if (w)
-        return w;
-    corax_tally_add(unknown, text, len, file, findex, line);
-    return text;
-}
-
 /* One row to a reading; a phrase for the first value that cannot be read. */
 static void read_row(const corax_table *t, size_t findex, size_t row, const long *col,
                      const log_setup *ls, const corax_program *prog, const char **field,
@@ -257,8 +250,8 @@ static void read_row(const corax_table *t, size_t findex, size_t row, const long
     size_t kl, cl;
     const char *kind = corax_table_cell(t, row, col[L_KIND], &kl);
     const char *conf = corax_table_cell(t, row, col[L_CONF], &cl);
-    r->kind = word_of(ls->codes->kind_codes, kind, kl, l->unknown_kind, r->file, findex, r->line);
-    r->confidence = word_of(ls->codes->confidence_codes, conf, cl, l->unknown_confidence,
+    r->kind = cli_code_word(ls->codes->kind_codes, kind, kl, l->unknown_kind, r->file, findex, r->line);
+    r->confidence = cli_code_word(ls->codes->confidence_codes, conf, cl, l->unknown_confidence,
                             r->file, findex, r->line);
     r->problem = NULL;
     r->reading = corax_reading_empty();
@@ -285,22 +278,6 @@ static void read_row(const corax_table *t, size_t findex, size_t row, const long
     }
 }
 
-/* The column of a logical name in a whole table, or an error printed. */
-static int table_columns(const corax_table *t, const corax_table_settings *ts,
-                         const char *const *names, size_t n, long *col)
-{
-    for (size_t k = 0; k < n; k++) {
-        col[k] = corax_table_column(t, names[k], ts->columns);
-        if (col[k] == CORAX_COLUMN_MAPPED_MISSING) {
-            cli_error(corax_table_path(t), 1, "no '%s' column in the header, which the column "
-                      "names give for %s", corax_column_mapped(ts->columns, names[k]),
-                      names[k]);
-            return -1;
-        }
-    }
-    return 0;
-}
-
 static int load_logs(check_opts *o, const corax_program *prog, logs *l)
 {
     log_setup ls = {cli_table_settings(&o->c, CLI_STRUCTURES), (int)cli_interval_depth(&o->c),
@@ -310,28 +287,14 @@ static int load_logs(check_opts *o, const corax_program *prog, logs *l)
     l->unknown_confidence = corax_tally_new();
     int rc = l->unknown_kind && l->unknown_confidence ? EXIT_OK : EXIT_DATA;
     for (size_t f = 0; f < o->logs.n && rc == EXIT_OK; f++) {
-        corax_table *t;
-        corax_error err;
-        corax_error_clear(&err);
-        corax_status st = cli_table_load(&o->c, o->logs.path[f], ls.table.format, &t, &err);
-        if (st != CORAX_OK) {
-            cli_error_record(&err, st);
+        corax_table *t =
+            cli_table_keep(&o->c, CLI_STRUCTURES, o->logs.path[f], &l->table, &l->ntables);
+        if (!t) {
             rc = EXIT_DATA;
             break;
         }
-        corax_table **tt = realloc(l->table, (l->ntables + 1) * sizeof *tt);
-        if (!tt) {
-            corax_table_free(t);
-            rc = EXIT_DATA;
-            break;
-        }
-        l->table = tt;
-        l->table[l->ntables++] = t;
-        corax_table_info info;
-        corax_table_read_info(t, &info);
-        cli_table_done(&o->c, CLI_STRUCTURES, o->logs.path[f], &info);
         long col[NL];
-        if (table_columns(t, &ls.table, log_names, NL, col)) {
+        if (cli_table_columns(t, &ls.table, log_names, NL, col)) {
             rc = EXIT_DATA;
             break;
         }
@@ -371,58 +334,19 @@ static int load_logs(check_opts *o, const corax_program *prog, logs *l)
     return rc;
 }
 
-/* The orientation runs table; its faulty rows become findings. */
-static int load_runs(check_opts *o, logs *l, corax_table **table, corax_qa_run **runs,
-                     size_t *n, corax_findings *found)
+/* Readings whose betas run from an arbitrary line (their confidence, or
+ * without one their run's, is the unoriented word) orient nothing: the
+ * checks of fabric leave them out. */
+static void mark_arbitrary_lines(const check_opts *o, const cli_runs *runs, logs *l)
 {
-    static const char *const names[] = {"hole", "from", "to", "confidence"};
-    corax_table_settings ts = cli_table_settings(&o->c, CLI_RUNS);
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = cli_table_load(&o->c, o->runs, ts.format, table, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
+    for (size_t i = 0; i < l->n; i++) {
+        corax_qa_reading *r = &l->reading[i];
+        const char *word = r->confidence;
+        long k = word[0] ? -1 : cli_runs_find(runs, r->hole, strlen(r->hole), r->reading.depth);
+        if (k >= 0)
+            word = runs->run[k].confidence;
+        r->reading.arbitrary_line = cli_unoriented_confidence(word, strlen(word), o->unoriented_word);
     }
-    const corax_table *t = *table;
-    corax_table_info info;
-    corax_table_read_info(t, &info);
-    cli_table_done(&o->c, CLI_RUNS, o->runs, &info);
-    long col[4];
-    if (table_columns(t, &ts, names, 4, col))
-        return EXIT_DATA;
-    if (col[0] < 0 || col[1] < 0 || col[2] < 0) {
-        cli_error(o->runs, 1, "no '%s' column in the header",
-                  col[0] < 0 ? "hole" : col[1] < 0 ? "from" : "to");
-        return EXIT_DATA;
-    }
-    size_t rows = corax_table_rows(t);
-    *runs = malloc((rows ? rows : 1) * sizeof **runs);
-    if (!*runs)
-        return EXIT_DATA;
-    *n = 0;
-    for (size_t r = 0; r < rows; r++) {
-        double a, b;
-        const char *name = corax_table_cell(t, r, col[0], NULL);
-        size_t cl;
-        const char *conf = corax_table_cell(t, r, col[3], &cl);
-        if (corax_table_number(t, r, col[1], &a) != CORAX_NUMBER_OK ||
-            corax_table_number(t, r, col[2], &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) ||
-            b * ts.unit > CORAX_MAX_DEPTH || !name[0]) {
-            if (corax_findings_add(found, CORAX_ERROR, "run-row", o->runs, corax_table_line(t, r),
-                                   name, NAN, "the run row is not a hole with from < to (from "
-                                   "'%.20s', to '%.20s'): it is left out",
-                                   corax_table_cell(t, r, col[1], NULL),
-                                   corax_table_cell(t, r, col[2], NULL)) != CORAX_OK)
-                return EXIT_DATA;
-            continue;
-        }
-        const char *word = word_of(o->log.confidence_codes, conf, cl, l->unknown_confidence,
-                                   o->runs, o->logs.n, corax_table_line(t, r));
-        (*runs)[(*n)++] = (corax_qa_run){name, a * ts.unit, b * ts.unit, word, o->runs,
-                                         corax_table_line(t, r)};
-    }
-    return EXIT_OK;
 }
 
 /* ---- output ---- */
@@ -538,13 +462,12 @@ int cmd_check(int argc, char **argv)
     o.convert = corax_convert_options_default();
     o.qa = corax_qa_options_default();
     o.c.load.repair = 1; /* a faulty station becomes a finding, not the end of its hole */
+    o.unoriented_word = "unoriented";
     logs l;
     memset(&l, 0, sizeof l);
     corax_findings found = {0};
     corax_program *prog = NULL;
-    corax_table *run_table = NULL;
-    corax_qa_run *runs = NULL;
-    size_t nruns = 0;
+    cli_runs runs = {0};
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
@@ -553,9 +476,11 @@ int cmd_check(int argc, char **argv)
     if (rc == EXIT_OK)
         rc = load_logs(&o, prog, &l);
     if (rc == EXIT_OK && o.runs)
-        rc = load_runs(&o, &l, &run_table, &runs, &nruns, &found);
+        rc = cli_runs_load(&o.c, o.runs, o.log.confidence_codes, l.unknown_confidence,
+                           o.logs.n, &runs, &found);
     if (rc != EXIT_OK)
         goto done;
+    mark_arbitrary_lines(&o, &runs, &l);
     cli_tally_warn(&o.c, "kind code", "has no mapping", l.unknown_kind,
                    "these rows keep it as their kind");
     cli_tally_warn(&o.c, "confidence code", "has no mapping", l.unknown_confidence,
@@ -565,7 +490,7 @@ int cmd_check(int argc, char **argv)
     if (st == CORAX_OK)
         st = corax_qa_field(&o.c.corr.record, o.c.surveys, &o.qa, &found);
     if (st == CORAX_OK && l.n)
-        st = corax_qa_readings(prog, l.reading, l.n, runs, nruns, &o.convert, &o.qa, &found);
+        st = corax_qa_readings(prog, l.reading, l.n, runs.run, runs.n, &o.convert, &o.qa, &found);
     if (st == CORAX_OK)
         st = corax_findings_sort(&found);
     if (st != CORAX_OK) {
@@ -591,8 +516,7 @@ int cmd_check(int argc, char **argv)
 done:
     corax_findings_clear(&found);
     corax_program_free(prog);
-    corax_table_free(run_table);
-    free(runs);
+    cli_runs_free(&runs);
     logs_free(&l);
     cli_files_free(&o.logs);
     cli_log_options_free(&o.log);

@@ -3,6 +3,7 @@
 #include <math.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 
 #include "cli/cli.h"
 #include "cli/convert_rows.h"
@@ -19,7 +20,7 @@ static const char convert_help[] =
     "and alpha with beta (planes), gamma (a line on the plane), or line_alpha with\n"
     "line_beta (a line measured on its own). Every other column is carried through.\n"
     "One output row per input row, in order: the input's columns, then x, y, z,\n"
-    "hole_azimuth, hole_dip, dip, dip_direction, strike, pole_trend, pole_plunge,\n"
+    "hole_azimuth, hole_plunge, dip, dip_direction, strike, pole_trend, pole_plunge,\n"
     "nx, ny, nz (the upward unit normal), trend, plunge (when the log has lines),\n"
     "apparent_dip, apparent_dip_toward (with --section-azimuth), status, note.\n"
     "\n"
@@ -34,6 +35,9 @@ static const char convert_help[] =
     "  --alpha-error DEG         alpha reading (default 2)\n"
     "  --beta-error DEG          beta reading (default 5)\n"
     "  --line-error DEG          the orientation line itself (default 5)\n"
+    "  --gravity-error DEG       the marking tool's sense of down (default 1): the\n"
+    "                            line's error grows as atan(sin DEG / sin h), h the\n"
+    "                            hole's angle from vertical\n"
     "  --depth-error M           depth of a reading (default 0.05)\n"
     "  --azimuth-error DEG       survey azimuth, each station (default 1)\n"
     "  --dip-error DEG           survey dip, each station (default 0.5)\n"
@@ -44,6 +48,16 @@ static const char convert_help[] =
     "  --cloud FILE              every draw: hole, depth, draw, dip, dip_direction, x, y, z\n"
     "  A log's own alpha_error, beta_error, line_error, depth_error columns override\n"
     "  the errors row by row.\n"
+    "Runs without an orientation mark (betas from an arbitrary line):\n"
+    "  --runs FILE               orientation runs: hole, from, to, confidence\n"
+    "  --unoriented-word WORD    the confidence of such runs, in the runs table or\n"
+    "                            the log (default unoriented); without --orient-by\n"
+    "                            their readings are unoriented\n"
+    "  --orient-by KIND=DIP/DIPDIR   turn each such run about the core axis to fit\n"
+    "                            its readings of KIND to this plane (may repeat)\n"
+    "  --orient-by KIND=nearby   ... to the mean of the hole's oriented KIND readings\n"
+    "                            near the run\n"
+    "  --nearby-within M         how far from the run nearby readings count (30)\n"
     "One reading (prints a labelled answer):\n"
     "  --hole-azimuth DEG --hole-dip DEG   the hole at the reading\n"
     "  --alpha DEG --beta DEG [--gamma DEG]\n"
@@ -51,7 +65,9 @@ static const char convert_help[] =
     "  --line TREND/PLUNGE       the line_alpha and line_beta this line would show\n"
     "\n"
     "Status: converted; extrapolated; near-parallel; near-perpendicular; collar-only;\n"
-    "beyond-end (these carry an orientation); unoriented; no-reference-line;\n"
+    "beyond-end, oriented-by-reference (these carry an orientation); dip-only (a\n"
+    "plane in a hole within the vertical limit: its dip, 90 - alpha, and no dip\n"
+    "direction); unoriented (no beta, or beta from an arbitrary line); no-reference-line;\n"
     "no-survey; unknown-hole; invalid (the note says why).\n"
     "\n";
 
@@ -65,18 +81,12 @@ enum {
     OPT_GAMMA,
     OPT_PLANE,
     OPT_LINE,
-    OPT_DRAWS,
-    OPT_SEED,
-    OPT_ALPHA_ERROR,
-    OPT_BETA_ERROR,
-    OPT_LINE_ERROR,
-    OPT_DEPTH_ERROR,
-    OPT_AZIMUTH_ERROR,
-    OPT_DIP_ERROR,
-    OPT_AZIMUTH_ERROR_HOLE,
-    OPT_DIP_ERROR_HOLE,
     OPT_CONFIDENCE_ERRORS,
     OPT_CLOUD,
+    OPT_RUNS,
+    OPT_ORIENT_BY,
+    OPT_UNORIENTED_WORD,
+    OPT_NEARBY_WITHIN,
 };
 
 typedef struct convert_opts {
@@ -84,6 +94,8 @@ typedef struct convert_opts {
     cli_log_options log;
     convert_setup setup;
     cli_files logs;
+    const char *runs_file;
+    cli_runs runs;
     /* one reading */
     double hole_azimuth, hole_dip, alpha, beta, gamma;
     double plane[2], line[2];
@@ -127,47 +139,58 @@ static int confidence_map(convert_setup *s, const char *arg, char *why, size_t w
     return 0;
 }
 
+/* "KIND=DIP/DIPDIR" or "KIND=nearby" into the references. */
+static int orient_by(convert_setup *s, const char *arg, char *why, size_t wl)
+{
+    const char *eq = strchr(arg, '=');
+    if (!eq || eq == arg || (size_t)(eq - arg) >= sizeof s->refs[0].kind) {
+        snprintf(why, wl, "'%s' is not KIND=DIP/DIPDIR or KIND=nearby", arg);
+        return -1;
+    }
+    if (s->nrefs == sizeof s->refs / sizeof s->refs[0]) {
+        snprintf(why, wl, "at most %zu references", sizeof s->refs / sizeof s->refs[0]);
+        return -1;
+    }
+    convert_reference *ref = &s->refs[s->nrefs];
+    memset(ref, 0, sizeof *ref);
+    snprintf(ref->kind, sizeof ref->kind, "%.*s", (int)(eq - arg), arg);
+    for (size_t k = 0; k < s->nrefs; k++)
+        if (strcasecmp(s->refs[k].kind, ref->kind) == 0) {
+            snprintf(why, wl, "%s has a reference already", ref->kind);
+            return -1;
+        }
+    if (strcasecmp(eq + 1, "nearby") == 0) {
+        ref->nearby = 1;
+    } else {
+        double dip, dd;
+        if (pair(eq + 1, &dip, &dd, why, wl))
+            return -1;
+        if (!(dip >= 0 && dip <= 90 && dd >= 0 && dd <= 360)) {
+            snprintf(why, wl, "'%s': dip must be in [0, 90] and dip direction in [0, 360]", arg);
+            return -1;
+        }
+        ref->plane = (corax_plane){corax_rad(dip), corax_wrap_azimuth(corax_rad(dd))};
+    }
+    s->nrefs++;
+    return 0;
+}
+
 static int uncertainty_option(convert_opts *o, int opt, const char *arg, char *why, size_t wl)
 {
-    corax_error_model *e = &o->setup.errors;
-    double v;
     switch (opt) {
-    case OPT_DRAWS:
-        if (cli_value_number(arg, 2, 1e6, &v, why, wl))
-            return -1;
-        if (v != floor(v)) {
-            snprintf(why, wl, "'%s' is not a whole number", arg);
-            return -1;
-        }
-        o->setup.draws = (size_t)v;
-        return 0;
-    case OPT_SEED:
-        if (cli_value_number(arg, 0, 4294967295.0, &v, why, wl))
-            return -1;
-        o->setup.seed = (uint64_t)v;
-        return 0;
     case OPT_CONFIDENCE_ERRORS: return confidence_map(&o->setup, arg, why, wl);
     case OPT_CLOUD: o->setup.cloud = arg; return 0;
+    case OPT_RUNS: o->runs_file = arg; return 0;
+    case OPT_ORIENT_BY: return orient_by(&o->setup, arg, why, wl);
+    case OPT_UNORIENTED_WORD: o->setup.unoriented_word = arg; return 0;
+    case OPT_NEARBY_WITHIN:
+        return cli_value_number(arg, 0, 1e5, &o->setup.nearby_within, why, wl);
     }
-    static const struct {
-        int opt;
-        double max;
-        int metres;
-    } sigma[] = {{OPT_ALPHA_ERROR, 45, 0},       {OPT_BETA_ERROR, 180, 0},
-                 {OPT_LINE_ERROR, 180, 0},       {OPT_DEPTH_ERROR, 100, 1},
-                 {OPT_AZIMUTH_ERROR, 45, 0},     {OPT_DIP_ERROR, 45, 0},
-                 {OPT_AZIMUTH_ERROR_HOLE, 45, 0}, {OPT_DIP_ERROR_HOLE, 45, 0}};
-    double *slot[] = {&e->alpha,   &e->beta, &e->line,         &e->depth,
-                      &e->azimuth, &e->dip,  &e->azimuth_hole, &e->dip_hole};
-    for (int i = 0; i < 8; i++)
-        if (sigma[i].opt == opt) {
-            if (cli_value_number(arg, 0, sigma[i].max, &v, why, wl))
-                return -1;
-            *slot[i] = sigma[i].metres ? v : corax_rad(v);
-            return 0;
-        }
-    snprintf(why, wl, "not an option of this command");
-    return -1;
+    int k = cli_uncertainty_option(&o->setup.errors, &o->setup.draws, &o->setup.seed, 2, opt, arg,
+                                   why, wl);
+    if (k == 0)
+        snprintf(why, wl, "not an option of this command");
+    return k < 0 || k == 0 ? -1 : 0;
 }
 
 static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
@@ -229,18 +252,16 @@ static int parse(int argc, char **argv, convert_opts *o)
         {"gamma", required_argument, NULL, OPT_GAMMA},
         {"plane", required_argument, NULL, OPT_PLANE},
         {"line", required_argument, NULL, OPT_LINE},
-        {"draws", required_argument, NULL, OPT_DRAWS},
-        {"seed", required_argument, NULL, OPT_SEED},
-        {"alpha-error", required_argument, NULL, OPT_ALPHA_ERROR},
+        CLI_UNCERTAINTY_OPTIONS,
         {"beta-error", required_argument, NULL, OPT_BETA_ERROR},
         {"line-error", required_argument, NULL, OPT_LINE_ERROR},
-        {"depth-error", required_argument, NULL, OPT_DEPTH_ERROR},
-        {"azimuth-error", required_argument, NULL, OPT_AZIMUTH_ERROR},
-        {"dip-error", required_argument, NULL, OPT_DIP_ERROR},
-        {"azimuth-error-per-hole", required_argument, NULL, OPT_AZIMUTH_ERROR_HOLE},
-        {"dip-error-per-hole", required_argument, NULL, OPT_DIP_ERROR_HOLE},
+        {"gravity-error", required_argument, NULL, OPT_GRAVITY_ERROR},
         {"confidence-errors", required_argument, NULL, OPT_CONFIDENCE_ERRORS},
         {"cloud", required_argument, NULL, OPT_CLOUD},
+        {"runs", required_argument, NULL, OPT_RUNS},
+        {"orient-by", required_argument, NULL, OPT_ORIENT_BY},
+        {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
+        {"nearby-within", required_argument, NULL, OPT_NEARBY_WITHIN},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
@@ -250,11 +271,8 @@ static int parse(int argc, char **argv, convert_opts *o)
         return rc;
     if (cli_files_from_args(&o->logs, &o->c, argc, argv)) /* they replace the project's */
         return EXIT_DATA;
-    size_t stdin_count = 0;
-    for (size_t i = 0; i < o->logs.n; i++)
-        stdin_count += strcmp(o->logs.path[i], "-") == 0;
-    if (stdin_count > 1)
-        return cli_usage("convert", "standard input (-) can be read only once");
+    if (cli_files_stdin_once(&o->logs, "convert"))
+        return EXIT_USAGE;
     if (o->single) {
         if (isnan(o->hole_azimuth) || isnan(o->hole_dip))
             return cli_usage("convert", "one reading needs --hole-azimuth and --hole-dip");
@@ -265,6 +283,8 @@ static int parse(int argc, char **argv, convert_opts *o)
             return cli_usage("convert", "--beta and --gamma go with --alpha");
         if (o->logs.n)
             return cli_usage("convert", "one reading takes no STRUCTURES files");
+        if (o->setup.nrefs)
+            return cli_usage("convert", "--orient-by goes with core logs, not one reading");
         return cli_common_finish(&o->c, 0);
     }
     if (o->logs.n == 0)
@@ -287,22 +307,20 @@ static int write_about(const convert_opts *o)
     cli_about_codes(a, &o->log);
     if (o->setup.has_section)
         cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
+    if (o->runs_file)
+        cli_about_set(a, "runs", "%s", o->runs_file);
+    cli_about_set(a, "unoriented_word", "%s", o->setup.unoriented_word);
+    for (size_t i = 0; i < o->setup.nrefs; i++) {
+        const convert_reference *ref = &o->setup.refs[i];
+        if (ref->nearby)
+            cli_about_set(a, "orient_by", "%s=nearby (the mean of the hole's oriented readings "
+                          "within %g m of the run)", ref->kind, o->setup.nearby_within);
+        else
+            cli_about_set(a, "orient_by", "%s=%g/%g", ref->kind, corax_deg(ref->plane.dip),
+                          corax_deg(ref->plane.dip_direction));
+    }
     if (o->setup.draws) {
-        const corax_error_model *e = &o->setup.errors;
-        cli_about_section(a, "uncertainty");
-        cli_about_set(a, "draws", "%zu", o->setup.draws);
-        cli_about_set(a, "seed", "%llu", (unsigned long long)o->setup.seed);
-        cli_about_set(a, "generator", "GSL taus2, Gaussians by the ziggurat method (Marsaglia and "
-                      "Tsang 2000) on its 32-bit output; one "
-                      "stream per hole, seeded from the seed and the hole's name");
-        cli_about_set(a, "alpha_error", "%g", corax_deg(e->alpha));
-        cli_about_set(a, "beta_error", "%g", corax_deg(e->beta));
-        cli_about_set(a, "line_error", "%g", corax_deg(e->line));
-        cli_about_set(a, "depth_error", "%g", e->depth);
-        cli_about_set(a, "azimuth_error", "%g", corax_deg(e->azimuth));
-        cli_about_set(a, "dip_error", "%g", corax_deg(e->dip));
-        cli_about_set(a, "azimuth_error_per_hole", "%g", corax_deg(e->azimuth_hole));
-        cli_about_set(a, "dip_error_per_hole", "%g", corax_deg(e->dip_hole));
+        cli_about_uncertainty(a, &o->setup.errors, o->setup.draws, o->setup.seed, 1);
         char map[600] = "";
         size_t used = 0;
         for (size_t i = 0; i < o->setup.nconfidence && used < sizeof map; i++)
@@ -328,6 +346,8 @@ int cmd_convert(int argc, char **argv)
     confidence_map(&o.setup, "good=3,fair=8,poor=20", map_why, sizeof map_why);
     o.hole_azimuth = o.hole_dip = o.alpha = o.beta = o.gamma = NAN;
     o.plane[0] = o.line[0] = NAN;
+    o.setup.unoriented_word = "unoriented";
+    o.setup.nearby_within = 30.0;
     int rc = parse(argc, argv, &o);
     if (rc != 0)
         goto done;
@@ -346,12 +366,25 @@ int cmd_convert(int argc, char **argv)
     o.setup.kind_codes = o.log.kind_codes;
     o.setup.confidence_codes = o.log.confidence_codes;
     o.setup.output = o.c.output_format;
+    if (o.runs_file) {
+        corax_findings found = {0};
+        rc = cli_runs_load(&o.c, o.runs_file, o.log.confidence_codes, NULL, 0, &o.runs, &found);
+        for (size_t i = 0; i < found.count; i++)
+            cli_finding(&found.item[i]);
+        corax_findings_clear(&found);
+        if (rc != EXIT_OK) {
+            corax_program_free(prog);
+            goto done;
+        }
+        o.setup.runs = &o.runs;
+    }
     o.setup.quiet = o.c.quiet;
     rc = convert_files(&o.c, prog, &o.setup, o.logs.path, o.logs.n, o.c.output);
     if (rc == EXIT_OK && write_about(&o) != 0)
         rc = EXIT_DATA;
     corax_program_free(prog);
 done:
+    cli_runs_free(&o.runs);
     cli_files_free(&o.logs);
     cli_log_options_free(&o.log);
     rc = cli_run_end(&o.c, rc);

@@ -24,6 +24,11 @@ static const char stereonet_help[] =
     "  --contour-step SIGMA  contour interval in standard deviations (default 2)\n"
     "  --terzaghi            weight planes by Terzaghi (1965) against the bias of\n"
     "                        sampling along the hole (needs hole_azimuth, hole_plunge)\n"
+    "  --small-circles       draw a reading with alpha but no plane (unoriented, or\n"
+    "                        beta from an arbitrary line) as the small circle its\n"
+    "                        pole lies on, 90 - alpha from the hole (needs alpha,\n"
+    "                        hole_azimuth, hole_plunge; drawn only: such rows enter no\n"
+    "                        statistics); --where picks the sets\n"
     "  --terzaghi-min-angle DEG\n"
     "                        planes closer than DEG to parallel with the hole weigh\n"
     "                        as at DEG (default 15)\n"
@@ -54,6 +59,7 @@ enum {
     OPT_NET_PER_GROUP,
     OPT_TITLE,
     OPT_STATS,
+    OPT_SMALL_CIRCLES,
 };
 
 typedef struct where_rule {
@@ -68,6 +74,7 @@ typedef struct stereo_opts {
     size_t nwhere;
     double min_angle; /* degrees */
     int net_per_group;
+    int small_circles;
 } stereo_opts;
 
 typedef struct group {
@@ -75,6 +82,8 @@ typedef struct group {
     corax_vec3 *poles, *lines;
     double *weight;
     size_t npoles, nlines, pole_cap, line_cap;
+    corax_net_circle *circles; /* readings by alpha alone */
+    size_t ncircles, circle_cap;
     size_t skipped;
     corax_axial_summary pole_summary, line_summary;
 } group;
@@ -92,7 +101,7 @@ typedef struct groups {
 
 /* Columns of one input table (-1 when absent). */
 typedef struct columns {
-    long dip, dip_direction, trend, plunge, hole_azimuth, hole_plunge, group;
+    long dip, dip_direction, trend, plunge, hole_azimuth, hole_plunge, alpha, group;
     long *where;
 } columns;
 
@@ -153,6 +162,7 @@ static int stereonet_option(void *ctx, int opt, const char *arg, char *why, size
     case OPT_NET_PER_GROUP: o->net_per_group = 1; return 0;
     case OPT_TITLE: o->title = arg; return 0;
     case OPT_STATS: o->stats = arg; return 0;
+    case OPT_SMALL_CIRCLES: o->small_circles = 1; return 0;
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -173,6 +183,7 @@ static int parse(int argc, char **argv, stereo_opts *o)
         {"net-per-group", no_argument, NULL, OPT_NET_PER_GROUP},
         {"title", required_argument, NULL, OPT_TITLE},
         {"stats", required_argument, NULL, OPT_STATS},
+        {"small-circles", no_argument, NULL, OPT_SMALL_CIRCLES},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, stereonet_help, 1, stereonet_option, o);
@@ -327,20 +338,52 @@ static int out_of_memory(void)
     return EXIT_DATA;
 }
 
-/* The Terzaghi weight of a plane, from the hole's direction on the row. */
-static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, const columns *col,
-                        corax_vec3 normal, double *w, char *why, size_t whylen)
+/* The hole's direction at a row (hole_azimuth, hole_plunge): PAIR_OK with
+ * *dir filled, PAIR_NONE, or PAIR_BAD with why. */
+static int hole_direction(const corax_table *t, size_t row,
+                          const columns *col, corax_vec3 *dir, char *why, size_t whylen)
 {
     const angle_spec spec[2] = {{col->hole_azimuth, "hole_azimuth", 0, 360},
                                 {col->hole_plunge, "hole_plunge", -90, 90}};
     double v[2];
     int r = read_pair(t, row, spec, v, why, whylen);
+    if (r == PAIR_OK)
+        *dir = corax_direction(corax_rad(v[0]), corax_rad(v[1]));
+    return r;
+}
+
+/* The Terzaghi weight of a plane, from the hole's direction on the row. */
+static int plane_weight(const stereo_opts *o, const corax_table *t, size_t row, const columns *col,
+                        corax_vec3 normal, double *w, char *why, size_t whylen)
+{
+    corax_vec3 hole;
+    int r = hole_direction(t, row, col, &hole, why, whylen);
     if (r == PAIR_NONE)
         snprintf(why, whylen, "no hole direction for the Terzaghi weight");
     if (r != PAIR_OK)
         return 0;
-    *w = corax_terzaghi_weight(normal, corax_direction(corax_rad(v[0]), corax_rad(v[1])),
-                               corax_rad(o->min_angle));
+    *w = corax_terzaghi_weight(normal, hole, corax_rad(o->min_angle));
+    return 1;
+}
+
+/* A row with alpha and the hole's direction but no plane, as the small
+ * circle its pole lies on: 1 drawn, 0 not such a row, -1 out of memory. */
+static int small_circle_of(const stereo_opts *o, group *g, const corax_table *t, size_t row,
+                           const columns *col)
+{
+    double alpha;
+    corax_vec3 hole;
+    char why[200];
+    if (!o->small_circles || corax_table_number(t, row, col->alpha, &alpha) != CORAX_NUMBER_OK ||
+        !(alpha >= 0 && alpha <= 90) || hole_direction(t, row, col, &hole, why, sizeof why) !=
+                                            PAIR_OK)
+        return 0;
+    corax_net_circle *grown = corax_grow(g->circles, g->ncircles, &g->circle_cap,
+                                         sizeof *grown, 64);
+    if (!grown)
+        return -1;
+    g->circles = grown;
+    g->circles[g->ncircles++] = (corax_net_circle){hole, corax_rad(90.0 - alpha)};
     return 1;
 }
 
@@ -376,6 +419,11 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         return 0;
     }
     int r = read_pair(t, row, plane, v, why, sizeof why);
+    size_t dd_len;
+    trimmed(corax_table_cell(t, row, col->dip_direction, &dd_len), &dd_len);
+    if (r == PAIR_BAD && dd_len == 0 && corax_table_number(t, row, col->dip, &v[0]) ==
+                                             CORAX_NUMBER_OK && v[0] >= 0 && v[0] <= 90)
+        r = PAIR_NONE; /* a dip alone (convert's dip-only rows): no plane, nothing wrong */
     if (r == PAIR_OK) {
         corax_vec3 n = corax_plane_normal((corax_plane){corax_rad(v[0]), corax_rad(v[1])});
         if (o->style.weighted && !plane_weight(o, t, row, col, n, &w, why, sizeof why))
@@ -385,7 +433,8 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         else
             used = 1;
     }
-    if (r == PAIR_BAD)
+    int bad = r == PAIR_BAD;
+    if (bad)
         row_fault(gs, t, row, why);
     r = read_pair(t, row, line, v, why, sizeof why);
     if (r == PAIR_OK) {
@@ -395,7 +444,10 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
         used = 1;
     } else if (r == PAIR_BAD) {
         row_fault(gs, t, row, why);
+        bad = 1;
     }
+    if (!used && !bad && (used = small_circle_of(o, g, t, row, col)) < 0)
+        return out_of_memory();
     if (!used) {
         g->skipped++;
         gs->skipped++;
@@ -414,6 +466,7 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
     col->plunge = corax_table_find(t, "plunge");
     col->hole_azimuth = corax_table_find(t, "hole_azimuth");
     col->hole_plunge = corax_table_find(t, "hole_plunge");
+    col->alpha = corax_table_find(t, "alpha");
     col->group = o->group_by ? corax_table_find(t, o->group_by) : -1;
     if (o->group_by && col->group < 0)
         return cli_usage("stereonet", "--group-by: %s has no column '%s'", path, o->group_by);
@@ -488,6 +541,7 @@ static void groups_free(groups *gs)
         free(gs->item[i].poles);
         free(gs->item[i].weight);
         free(gs->item[i].lines);
+        free(gs->item[i].circles);
     }
     free(gs->item);
 }
@@ -602,9 +656,12 @@ static corax_svg *draw(const stereo_opts *o, const groups *gs, char *title)
         return NULL;
     for (size_t i = 0; i < gs->count; i++) {
         const group *g = &gs->item[i];
-        sets[i] = (corax_net_set){g->name, g->poles, o->style.weighted ? g->weight : NULL,
-                                  g->npoles, g->lines, g->nlines, &g->pole_summary,
-                                  &g->line_summary, g->skipped};
+        sets[i] = (corax_net_set){.name = g->name, .poles = g->poles,
+                                  .pole_weight = o->style.weighted ? g->weight : NULL,
+                                  .npoles = g->npoles, .lines = g->lines, .nlines = g->nlines,
+                                  .pole_summary = &g->pole_summary,
+                                  .line_summary = &g->line_summary, .skipped = g->skipped,
+                                  .circles = g->circles, .ncircles = g->ncircles};
     }
     corax_net_style style = o->style;
     style.title = title;

@@ -325,3 +325,28 @@ int cli_about_commit(cli_about *a, const cli_common *c)
     free(a);
     return rc;
 }
+
+corax_table *cli_table_keep(const cli_common *c, cli_table_id id, const char *path,
+                            corax_table ***tables, size_t *n)
+{
+    corax_table *t;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = cli_table_load(c, path, cli_table_settings(c, id).format, &t, &err);
+    if (st != CORAX_OK) {
+        cli_error_record(&err, st);
+        return NULL;
+    }
+    corax_table **tt = realloc(*tables, (*n + 1) * sizeof *tt);
+    if (!tt) {
+        corax_table_free(t);
+        cli_error(NULL, 0, "out of memory");
+        return NULL;
+    }
+    *tables = tt;
+    tt[(*n)++] = t;
+    corax_table_info info;
+    corax_table_read_info(t, &info);
+    cli_table_done(c, id, path, &info);
+    return t;
+}

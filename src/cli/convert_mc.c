@@ -1,6 +1,7 @@
-/* cli: `corax convert --draws N`. Holds the logs in memory, simulates the
- * holes in parallel (each from its own seeded stream), writes the rows in
- * their order, and the optional cloud of every draw hole by hole. */
+/* cli: `corax convert` with every log in memory (--draws N, --orient-by).
+ * Orients the runs without a mark by reference, simulates the holes in
+ * parallel (each from its own seeded stream), writes the rows in their
+ * order, and the optional cloud of every draw hole by hole. */
 #include <omp.h>
 #include <stdlib.h>
 #include <string.h>
@@ -200,8 +201,8 @@ static void lane_at_row(convert_lane *ln, const char *const *files, const size_t
     ln->decimal = decimal[f];
 }
 
-int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
-                       const char *const *files, size_t nfiles)
+int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
+                      const char *const *files, size_t nfiles)
 {
     corax_table *all = NULL;
     size_t *end = calloc(nfiles + 1, sizeof *end);
@@ -212,9 +213,12 @@ int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int n
         free(decimal);
         return rc;
     }
-    size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL;
+    size_t n = corax_table_rows(all), count = 0, ngroups = 0, *groups = NULL, nruns = 0;
     convert_eval *ev = calloc(n ? n : 1, sizeof *ev);
     const char **field = malloc((corax_table_widest(all) + 1) * sizeof *field);
+    convert_group *runs = NULL;
+    member *g = NULL;
+    corax_spread *spread = NULL;
     corax_writer *cloud = NULL;
     corax_error err;
     corax_error_clear(&err);
@@ -225,10 +229,22 @@ int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int n
         lane_at_row(&lanes[0], files, end, decimal, i);
         convert_evaluate(r, &lanes[0], &row, &ev[i]);
     }
-    member *g = rc == EXIT_OK ? group_rows(ev, n, &count, &groups, &ngroups) : NULL;
-    corax_spread *spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
-    if (rc == EXIT_OK && !spread)
-        rc = EXIT_DATA;
+    if (rc == EXIT_OK && r->s->nrefs) {
+        rc = convert_orient(r, all, ev, n, &runs, &nruns);
+        r->groups = runs;
+    }
+    for (size_t i = 0; rc == EXIT_OK && i < n && r->s->draws; i++) { /* after the turns */
+        corax_row row;
+        corax_table_row(all, i, field, &row);
+        lane_at_row(&lanes[0], files, end, decimal, i);
+        convert_uncertainty(r, &lanes[0], &row, &ev[i]);
+    }
+    if (rc == EXIT_OK && r->s->draws) {
+        g = group_rows(ev, n, &count, &groups, &ngroups);
+        spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
+        if (!spread)
+            rc = EXIT_DATA;
+    }
     if (rc == EXIT_OK && r->s->cloud) {
         corax_status st = corax_writer_open_in(r->c->outputs, r->s->cloud, &cloud, &err);
         if (st != CORAX_OK) {
@@ -243,7 +259,7 @@ int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int n
             corax_writer_end_row(cloud);
         }
     }
-    if (rc == EXIT_OK)
+    if (rc == EXIT_OK && r->s->draws)
         rc = simulate(r, g, groups, ngroups, ev, spread, cloud, nlanes);
     /* back to row order, and out */
     const corax_spread **by_row = rc == EXIT_OK ? calloc(n ? n : 1, sizeof *by_row) : NULL;
@@ -267,6 +283,8 @@ int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int n
             rc = EXIT_DATA;
         }
     }
+    r->groups = NULL;
+    free(runs);
     free(by_row);
     free(spread);
     free(groups);

@@ -161,6 +161,11 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
         corax_writer_number(w, res->normal.x, 5);
         corax_writer_number(w, res->normal.y, 5);
         corax_writer_number(w, res->normal.z, 5);
+    } else if (res->conditions & CORAX_COND_DIP_ONLY) { /* the dip, and so the pole's plunge */
+        corax_writer_number(w, corax_deg(res->plane.dip), 2);
+        write_blanks(w, 3);
+        corax_writer_number(w, 90.0 - corax_deg(res->plane.dip), 2);
+        write_blanks(w, 3);
     } else {
         write_blanks(w, 8);
     }
@@ -187,14 +192,20 @@ static void write_result(const convert_run *r, corax_writer *w, const corax_resu
     }
 }
 
-/* This row's reading errors: the run's, a confidence's line error, and the
- * row's own columns. 0 with why filled when one cannot be used. */
+/* This row's reading errors: the run's, the orientation line's (a
+ * confidence's line error; for a line turned onto a reference, the turn's
+ * error and no gravity mark), and the row's own columns. 0 with why filled
+ * when one cannot be used. */
 static int row_errors(const convert_run *r, convert_lane *ln, const corax_row *row,
+                      const convert_eval *ev,
                       corax_error_model *e, char *why, size_t wl)
 {
     const convert_setup *s = r->s;
     *e = s->errors;
-    if (r->col[COL_CONFIDENCE] >= 0) {
+    if (ev->rd.arbitrary_line) {
+        e->line = ev->turn_sigma;
+        e->gravity = 0.0;
+    } else if (r->col[COL_CONFIDENCE] >= 0) {
         size_t n, len;
         const char *text = corax_field_text(row, r->col[COL_CONFIDENCE], &len);
         const char *c = word_of(ln, s->confidence_codes, text, len, &n, NULL, 0);
@@ -236,28 +247,58 @@ static int row_errors(const convert_run *r, convert_lane *ln, const corax_row *r
     return 1;
 }
 
+void convert_uncertainty(const convert_run *r, convert_lane *ln, const corax_row *row,
+                         convert_eval *ev)
+{
+    ev->simulate = 0;
+    ev->mc_why[0] = '\0';
+    if (r->s->draws && (ev->res.has_plane || ev->res.has_line ||
+                        (ev->res.conditions & CORAX_COND_DIP_ONLY)))
+        ev->simulate = row_errors(r, ln, row, ev, &ev->errors, ev->mc_why, sizeof ev->mc_why);
+}
+
+/* Whether the row's betas run from an arbitrary line: its confidence is the
+ * word for a run without an orientation mark (the row's own word when it has
+ * one, else its run's). */
+static int arbitrary_line(const convert_run *r, const convert_lane *ln, const corax_row *row,
+                          long run)
+{
+    const convert_setup *s = r->s;
+    size_t n, len;
+    const char *text = corax_field_text(row, r->col[COL_CONFIDENCE], &len);
+    const char *word = word_of(ln, s->confidence_codes, text, len, &n, NULL, 0);
+    if (!n && run >= 0) {
+        word = s->runs->run[run].confidence;
+        n = strlen(word);
+    }
+    return cli_unoriented_confidence(word, n, s->unoriented_word);
+}
+
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
                       convert_eval *ev)
 {
     ev->rd = corax_reading_empty();
     ev->why[0] = ev->mc_why[0] = '\0';
+    ev->simulate = 0;
     int ragged = corax_field_ragged(row, r->width, ev->why, sizeof ev->why) != NULL;
     ev->usable = !ragged && read_numbers(r, ln, row, &ev->rd, ev->why, sizeof ev->why);
     size_t hl;
     const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
     ev->hole = find_hole(r, ln, name, hl);
+    ev->run = r->s->runs ? cli_runs_find(r->s->runs, name, hl, ev->rd.depth) : -1;
+    ev->group = -1;
+    ev->turn_sigma = NAN;
+    ev->rd.arbitrary_line = arbitrary_line(r, ln, row, ev->run);
     if (ev->usable) {
         corax_convert_reading(ev->hole, &ev->rd, &r->s->convert, &ln->hint, &ev->res);
     } else { /* the row's own phrase first, then what is known of its place */
         corax_convert_locate(ev->hole, ragged ? (double)NAN : ev->rd.depth, &ln->hint, &ev->res);
         ev->res.conditions |= CORAX_COND_INVALID;
     }
-    ev->simulate = 0;
-    if (r->s->draws && (ev->res.has_plane || ev->res.has_line))
-        ev->simulate = row_errors(r, ln, row, &ev->errors, ev->mc_why, sizeof ev->mc_why);
 }
 
-static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp)
+static void write_spread(const convert_run *r, corax_writer *w, const corax_spread *sp,
+                         int dip_only)
 {
     if (!r->s->draws)
         return;
@@ -266,9 +307,13 @@ static void write_spread(const convert_run *r, corax_writer *w, const corax_spre
         return;
     }
     corax_writer_number(w, corax_deg(sp->dip_sd), 2);
-    corax_writer_number(w, corax_deg(sp->dip_direction_sd), 2);
-    corax_writer_number(w, corax_deg(sp->cone95), 2);
-    corax_writer_number(w, isfinite(sp->kappa) ? sp->kappa : (double)NAN, 1);
+    if (dip_only) {
+        write_blanks(w, 3);
+    } else {
+        corax_writer_number(w, corax_deg(sp->dip_direction_sd), 2);
+        corax_writer_number(w, corax_deg(sp->cone95), 2);
+        corax_writer_number(w, isfinite(sp->kappa) ? sp->kappa : (double)NAN, 1);
+    }
     corax_writer_number(w, sp->position_sd, 3);
 }
 
@@ -305,13 +350,13 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
                    const convert_eval *ev, const corax_spread *sp)
 {
     corax_writer *w = ln->w;
-    char note[800];
+    char note[1200];
     size_t nl = 0;
     for (size_t i = 0; i < r->width; i++)
         corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
     write_own(r, ln, row, ev);
     write_result(r, w, &ev->res);
-    write_spread(r, w, sp);
+    write_spread(r, w, sp, (ev->res.conditions & CORAX_COND_DIP_ONLY) != 0);
     unsigned c = ev->res.conditions;
     const char *status = corax_condition_status(c);
     corax_writer_field(w, status, strlen(status));
@@ -322,6 +367,9 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
         if (corax_result_note(&ev->res, &ev->rd, ev->hole, &r->s->convert, more, sizeof more))
             nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", more);
     }
+    if (ev->group >= 0 && r->groups && nl < sizeof note)
+        nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "",
+                               r->groups[ev->group].note);
     if (ev->mc_why[0] && nl < sizeof note)
         nl += (size_t)snprintf(note + nl, sizeof note - nl, "%s%s", nl ? "; " : "", ev->mc_why);
     if (row->count > r->width && nl < sizeof note) { /* keep the surplus: nothing lost */
@@ -639,9 +687,10 @@ int convert_files(cli_common *c, const corax_program *prog, const convert_setup 
     } else {
         corax_writer_format(r.w, s->output);
     }
-    if (rc == EXIT_OK && s->draws)
-        rc = convert_with_draws(c, &r, lanes, nlanes, files, nfiles);
-    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !s->draws; i++)
+    int whole = s->draws || s->nrefs; /* drawing and orienting runs need every row */
+    if (rc == EXIT_OK && whole)
+        rc = convert_in_memory(c, &r, lanes, nlanes, files, nfiles);
+    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !whole; i++)
         rc = convert_one_file(c, &r, lanes, nlanes, chunk[0], chunk[1], files[i], i);
     free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != EXIT_OK) {
@@ -779,6 +828,8 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
         printf("strike       %.2f (dip to the right)\n", corax_wrap_degrees(dd - 90, 2));
         printf("pole         trend %.2f, plunge %.2f\n", corax_wrap_degrees(dd + 180, 2), 90 - dip);
     }
+    if (res.conditions & CORAX_COND_DIP_ONLY)
+        printf("plane        dip %.2f, dip direction unknown\n", corax_deg(res.plane.dip));
     if (res.has_line)
         printf("line         trend %.2f, plunge %.2f\n",
                corax_wrap_degrees(corax_deg(res.trend), 2), corax_deg(res.plunge));
@@ -787,5 +838,6 @@ int convert_one_reading(const cli_common *cc, const convert_setup *s, double hol
     if (corax_result_note(&res, &rd, h, o, note, sizeof note))
         printf("note         %s\n", note);
     corax_hole_free(h);
-    return res.has_plane || res.has_line ? EXIT_OK : EXIT_DATA;
+    return res.has_plane || res.has_line || (res.conditions & CORAX_COND_DIP_ONLY) ? EXIT_OK
+                                                                                   : EXIT_DATA;
 }

@@ -12,6 +12,14 @@ typedef struct convert_confidence {
     double sigma; /* radians */
 } convert_confidence;
 
+/* A reference that orients runs without a mark: a feature kind and either
+ * its known plane or the mean of its oriented readings nearby. */
+typedef struct convert_reference {
+    char kind[64];
+    int nearby;
+    corax_plane plane; /* when not nearby */
+} convert_reference;
+
 typedef struct convert_setup {
     corax_convert_options convert;
     corax_table_settings log;  /* how the core logs are read */
@@ -28,6 +36,12 @@ typedef struct convert_setup {
     convert_confidence confidence[16];
     size_t nconfidence;
     const char *cloud; /* every draw, or NULL */
+    /* runs without an orientation mark */
+    const cli_runs *runs;        /* NULL: none given */
+    const char *unoriented_word; /* the confidence word of such runs */
+    convert_reference refs[8];   /* --orient-by */
+    size_t nrefs;
+    double nearby_within;        /* metres: how far a nearby reference reaches */
 } convert_setup;
 
 /* Logical columns of a core log (depth, from and to in this order). */
@@ -42,6 +56,8 @@ enum {
  * units, an interval for a depth, code words). */
 enum { OWN_HOLE, OWN_DEPTH, OWN_KIND, OWN_CONFIDENCE, NOWN };
 
+typedef struct convert_group convert_group;
+
 /* What every row of a run shares; read-only while rows are converted. */
 typedef struct convert_run {
     const cli_common *c;
@@ -54,6 +70,7 @@ typedef struct convert_run {
     long col[NCOLS];
     char **first;    /* the first log's header names: later logs must match */
     size_t nfirst;
+    const convert_group *groups; /* the runs oriented by reference, or NULL */
 } convert_run;
 
 /* One thread's state: where its rows go and what it has seen. */
@@ -85,11 +102,37 @@ typedef struct convert_eval {
     int simulate;          /* uncertainty is wanted and can be drawn */
     corax_error_model errors; /* the row's reading errors */
     char mc_why[200];      /* why the row gets no uncertainty, else "" */
+    long run;              /* its run in the runs table, or -1 */
+    long group;            /* its run without a mark (convert_orient()), or -1 */
+    double turn_sigma;     /* the error of its run's turn, radians (NaN: none) */
 } convert_eval;
 
-/* Read a row into ev (the plain conversion; with draws, its errors too). */
+/* Read a row into ev (the plain conversion; its uncertainty comes with
+ * convert_uncertainty()). */
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
                       convert_eval *ev);
+
+/* The row's uncertainty: whether it can be drawn, and its reading errors. */
+void convert_uncertainty(const convert_run *r, convert_lane *ln, const corax_row *row,
+                         convert_eval *ev);
+
+/* A run of readings whose betas run from an arbitrary line, and how it was
+ * oriented (or why not). */
+struct convert_group {
+    const corax_hole *hole;
+    long run;             /* in the runs table, or -1 (consecutive rows of a hole) */
+    size_t first, last;   /* its rows lie between these */
+    double from, to;      /* metres: the run's stretch */
+    corax_turn turn;
+    int fitted;
+    char note[400];
+};
+
+/* Orient every run without a mark by the references of the setup: fit each
+ * run's turn (corax_turn_fit) and convert its rows again. rows holds the logs;
+ * *groups (free() it) gets the runs. An exit status (messages printed). */
+int convert_orient(const convert_run *r, const corax_table *rows, convert_eval *ev, size_t n,
+                   convert_group **groups, size_t *ngroups);
 
 /* Write a row: its fields, the conversion, the spread (sp NULL: none), the
  * status and the note; and count it. */
@@ -106,10 +149,11 @@ corax_status convert_open_log(convert_run *r, const char *path, corax_reader **r
 void convert_lane_file(convert_lane *ln, const char *path, size_t index,
                        const corax_reader *reader);
 
-/* The uncertainty run: every log in memory, holes simulated in parallel,
- * rows written in order. An exit status (messages printed). */
-int convert_with_draws(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
-                       const char *const *files, size_t nfiles);
+/* Every log in memory: runs oriented by reference (--orient-by), then the
+ * uncertainty (holes simulated in parallel, when there are draws), rows
+ * written in order. An exit status (messages printed). */
+int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
+                      const char *const *files, size_t nfiles);
 
 /* Stream every structures file through the conversion into one output.
  * Returns an exit status (messages printed); each log read is noted in c. */

@@ -16,6 +16,7 @@ static const command commands[] = {
     {"trace", cmd_trace, "desurvey holes: position and direction down each hole"},
     {"convert", cmd_convert, "core readings to true orientations at real coordinates"},
     {"check", cmd_check, "QA of a drill program: survey and orientation findings, with a report"},
+    {"solve", cmd_solve, "planes from alpha-only readings of one feature in several holes"},
     {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
     {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
     {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},

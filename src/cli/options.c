@@ -269,6 +269,10 @@ static const struct {
     {"uncertainty", "confidence_errors", "confidence-errors", 0},
     {"uncertainty", "cloud", "cloud", 1},
     {"check", "runs", "runs", 1},
+    {"orient", "by", "orient-by", 0},
+    {"orient", "unoriented_word", "unoriented-word", 0},
+    {"orient", "nearby_within", "nearby-within", 0},
+    {"uncertainty", "gravity_error", "gravity-error", 0},
     {"check", "report", "report", 1},
     {"check", "title", "title", 0},
     {"check", "gap", "gap", 0},
@@ -623,6 +627,14 @@ int cli_files_from_args(cli_files *f, const cli_common *c, int argc, char **argv
         if (cli_files_add(f, c, argv[i], why, sizeof why))
             return -1;
     return 0;
+}
+
+int cli_files_stdin_once(const cli_files *f, const char *command)
+{
+    size_t stdin_count = 0;
+    for (size_t i = 0; i < f->n; i++)
+        stdin_count += strcmp(f->path[i], "-") == 0;
+    return stdin_count > 1 ? cli_usage(command, "standard input (-) can be read only once") : 0;
 }
 
 void cli_files_free(cli_files *f)

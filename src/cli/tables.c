@@ -237,3 +237,32 @@ void cli_tally_warn(const cli_common *c, const char *what, const char *problem,
         fprintf(stderr, "corax: warning: %s '%s' (%zu row%s, first %s:%ld) %s: %s\n", what,
                 value, count, count == 1 ? "" : "s", file, line, problem, consequence);
 }
+
+int cli_table_columns(const corax_table *t, const corax_table_settings *ts,
+                      const char *const *names, size_t n, long *col)
+{
+    for (size_t k = 0; k < n; k++) {
+        col[k] = corax_table_column(t, names[k], ts->columns);
+        if (col[k] == CORAX_COLUMN_MAPPED_MISSING) {
+            cli_error(corax_table_path(t), 1, "no '%s' column in the header, which the column "
+                      "names give for %s", corax_column_mapped(ts->columns, names[k]),
+                      names[k]);
+            return -1;
+        }
+    }
+    return 0;
+}
+
+const char *cli_code_word(const corax_codes *codes, const char *text, size_t len,
+                          corax_tally *unknown, const char *file, size_t file_index, long line)
+{
+    size_t wl;
+    if (!codes || !len)
+        return text;
+    const char *w = corax_codes_word(codes, text, len, &wl);
+    if (w)
+        return w;
+    if (unknown)
+        corax_tally_add(unknown, text, len, file, file_index, line);
+    return text;
+}

@@ -35,13 +35,13 @@ double corax_core_gamma_measured(double gamma, const corax_core_conventions *c)
 
 /* Angle around the core of a line's own beta: like a plane's beta, but always
  * to the line's down-hole end. */
-static double line_beta_canonical(double beta, const corax_core_conventions *c)
+double corax_core_line_beta_canonical(double beta, const corax_core_conventions *c)
 {
     double b = c->beta_anticlockwise ? -beta : beta;
     return corax_wrap_azimuth(c->top_reference ? b + PI : b);
 }
 
-static double line_beta_measured(double beta, const corax_core_conventions *c)
+double corax_core_line_beta_measured(double beta, const corax_core_conventions *c)
 {
     double b = c->top_reference ? beta - PI : beta;
     return corax_wrap_azimuth(c->beta_anticlockwise ? -b : b);
@@ -83,7 +83,7 @@ corax_vec3 corax_core_line_on_plane(const corax_core_frame *f, double alpha, dou
 corax_vec3 corax_core_line(const corax_core_frame *f, double line_alpha, double line_beta,
                            const corax_core_conventions *c)
 {
-    corax_vec3 e = around(f, line_beta_canonical(line_beta, c));
+    corax_vec3 e = around(f, corax_core_line_beta_canonical(line_beta, c));
     return vec_comb(f->t, cos(line_alpha), e, sin(line_alpha));
 }
 
@@ -153,5 +153,5 @@ void corax_core_line_angles(const corax_core_frame *f, corax_vec3 line,
         across = vec_neg(across);
     }
     *line_alpha = atan2(len, along);
-    *line_beta = len > 1e-15 ? line_beta_measured(angle_around(f, across), c) : (double)NAN;
+    *line_beta = len > 1e-15 ? corax_core_line_beta_measured(angle_around(f, across), c) : (double)NAN;
 }

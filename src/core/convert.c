@@ -9,8 +9,9 @@
 #include "corax/convert.h"
 
 static const char *const status_word[CORAX_COND_COUNT] = {
-    "invalid",   "unknown-hole", "no-survey",    "no-reference-line", "unoriented",
-    "beyond-end", "collar-only", "extrapolated", "near-parallel",     "near-perpendicular",
+    "invalid",    "unknown-hole", "no-survey",    "no-reference-line", "unoriented",
+    "dip-only",   "oriented-by-reference",        "beyond-end",        "collar-only",
+    "extrapolated", "near-parallel", "near-perpendicular",
 };
 
 corax_convert_options corax_convert_options_default(void)
@@ -25,7 +26,7 @@ corax_convert_options corax_convert_options_default(void)
 
 corax_reading corax_reading_empty(void)
 {
-    corax_reading r = {0.0, NAN, NAN, NAN, NAN, NAN};
+    corax_reading r = {0.0, NAN, NAN, NAN, NAN, NAN, 0, NAN};
     return r;
 }
 
@@ -144,29 +145,46 @@ void corax_convert_reading(const corax_hole *hole, const corax_reading *rd,
         out->has_plane = 1;
         out->plane = corax_plane_from_normal(t, &out->normal);
     }
+    corax_core_frame f;
+    int no_line = corax_core_off_vertical(t) < o->vertical_limit ||
+                  corax_core_frame_of(t, &f) != CORAX_OK;
+    if (plane && !circle && no_line) { /* the core axis near vertical: 90 - alpha */
+        out->conditions |= CORAX_COND_DIP_ONLY;
+        out->plane.dip = 0.5 * CORAX_PI - rd->alpha;
+        out->plane.dip_direction = NAN;
+        return;
+    }
     int oriented = plane ? given(rd->beta) : (given(rd->line_beta) || rd->line_alpha == 0.0);
+    if (oriented && rd->arbitrary_line && !given(rd->turn))
+        oriented = circle && !given(rd->gamma); /* a circle needs no line at all */
     if (!oriented) {
-        if (!circle)
+        if (!circle || given(rd->gamma))
             out->conditions |= CORAX_COND_UNORIENTED;
         return;
     }
-    corax_core_frame f;
-    if (corax_core_off_vertical(t) < o->vertical_limit || corax_core_frame_of(t, &f) != CORAX_OK) {
+    if (no_line) {
         if (!circle || given(rd->gamma)) /* a circle needs no bottom line; its line does */
             out->conditions |= CORAX_COND_NO_REFERENCE;
         return;
     }
     const corax_core_conventions *c = &o->conventions;
+    double beta = rd->beta, line_beta = given(rd->line_beta) ? rd->line_beta : 0.0;
+    if (rd->arbitrary_line && given(rd->turn)) { /* the line turned onto the reference */
+        out->conditions |= CORAX_COND_BY_REFERENCE;
+        if (given(beta))
+            beta = corax_core_beta_measured(corax_core_beta_canonical(beta, c) + rd->turn, c);
+        line_beta = corax_core_line_beta_measured(
+            corax_core_line_beta_canonical(line_beta, c) + rd->turn, c);
+    }
     if (plane && !circle) {
-        corax_vec3 n = corax_core_plane_normal(&f, rd->alpha, rd->beta, c);
+        corax_vec3 n = corax_core_plane_normal(&f, rd->alpha, beta, c);
         out->has_plane = 1;
         out->plane = corax_plane_from_normal(n, &out->normal);
     }
     if (plane && given(rd->gamma))
-        set_line(out, corax_core_line_on_plane(&f, rd->alpha, rd->beta, rd->gamma, c));
+        set_line(out, corax_core_line_on_plane(&f, rd->alpha, beta, rd->gamma, c));
     else if (!plane)
-        set_line(out, corax_core_line(&f, rd->line_alpha,
-                                      given(rd->line_beta) ? rd->line_beta : 0.0, c));
+        set_line(out, corax_core_line(&f, rd->line_alpha, line_beta, c));
 }
 
 size_t corax_result_note(const corax_result *r, const corax_reading *rd, const corax_hole *hole,
@@ -189,8 +207,22 @@ size_t corax_result_note(const corax_result *r, const corax_reading *rd, const c
             "the hole is within %.3g degrees of vertical: no bottom-of-hole line to measure "
             "beta from",
             corax_deg(o->vertical_limit));
-    if (c & CORAX_COND_UNORIENTED)
+    if ((c & CORAX_COND_UNORIENTED) && rd->arbitrary_line)
+        corax_note_add(buf, size, &used, "beta runs from an arbitrary line (a run without an orientation "
+            "mark): alpha alone does not orient it");
+    else if (c & CORAX_COND_UNORIENTED)
         corax_note_add(buf, size, &used, "no beta: alpha alone does not orient it");
+    if ((c & CORAX_COND_DIP_ONLY) && r->located)
+        corax_note_add(buf, size, &used,
+            "the hole is %.1f degrees from vertical, within the vertical limit of %.3g: "
+            "alpha gives the dip (90 - alpha, good to those %.1f degrees) but nothing gives "
+            "its direction%s",
+            corax_deg(corax_core_off_vertical(r->point.tangent)), corax_deg(o->vertical_limit),
+            corax_deg(corax_core_off_vertical(r->point.tangent)),
+            given(rd->gamma) ? "; the line on it cannot be oriented" : "");
+    if (c & CORAX_COND_BY_REFERENCE)
+        corax_note_add(buf, size, &used, "beta from an arbitrary line, turned %.1f degrees to fit a reference",
+            corax_deg(corax_wrap_azimuth(rd->turn)));
     if ((c & CORAX_COND_BEYOND_END) && hole)
         corax_note_add(buf, size, &used, "depth %.2f is beyond the hole's length %.2f", rd->depth,
             corax_hole_length(hole));

@@ -642,9 +642,9 @@ static void net_caption(page *p, const report_hole *h, const report_net_counts *
         corax_writer_printf(p->w, " %zu reading%s an alpha but no beta, so no plane.",
                             c->no_beta, c->no_beta == 1 ? " has" : "s have");
     if (c->too_steep)
-        corax_writer_printf(p->w, " %zu reading%s could not be placed: the hole is within "
-                                  "%.0f degrees of vertical there, too steep for an orientation "
-                                  "line to be marked.",
+        corax_writer_printf(p->w, " %zu reading%s could not be oriented (a dip at most): the "
+                                  "hole is within %.0f degrees of vertical there, too steep for "
+                                  "an orientation line to be marked.",
                             c->too_steep, c->too_steep == 1 ? "" : "s",
                             corax_deg(p->m->convert.vertical_limit));
     size_t other = c->unplaced - c->no_beta - c->too_steep;

@@ -384,7 +384,8 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         counts->placed += keep[j];
         counts->unplaced += !keep[j];
         counts->no_beta += !keep[j] && h->traced && isfinite(r->alpha) && !isfinite(r->beta);
-        counts->too_steep += !keep[j] && (res[j].conditions & CORAX_COND_NO_REFERENCE) &&
+        counts->too_steep += !keep[j] &&
+                             (res[j].conditions & (CORAX_COND_NO_REFERENCE | CORAX_COND_DIP_ONLY)) &&
                              isfinite(r->beta);
         counts->flagged += keep[j] && m->flagged[i];
         rest += keep[j] && !m->flagged[i];

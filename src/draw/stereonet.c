@@ -50,6 +50,12 @@ static void great_circle(const net *n, corax_vec3 normal, const char *cls)
     corax_disc_great_circle(&d, normal, cls);
 }
 
+static void small_circle(const net *n, corax_vec3 axis, double angle, const char *cls)
+{
+    corax_disc d = disc_of(n);
+    corax_disc_small_circle(&d, axis, angle, cls);
+}
+
 /* ---- density ---- */
 
 /* Where a point of the equal-area density grid falls on this net: the same
@@ -232,8 +238,22 @@ static void legend_entry(net *n, const corax_net_set *set, size_t index, int one
     n->px += 18;
     panel_text(n, "label", 0, "%s", set->name);
     n->px -= 18;
-    panel_text(n, "small", 18, "%zu pole%s, %zu line%s", set->npoles, set->npoles == 1 ? "" : "s",
-               set->nlines, set->nlines == 1 ? "" : "s");
+    if (set->npoles || set->nlines || !set->ncircles)
+        panel_text(n, "small", 18, "%zu pole%s, %zu line%s", set->npoles,
+                   set->npoles == 1 ? "" : "s", set->nlines, set->nlines == 1 ? "" : "s");
+    if (set->ncircles)
+        panel_text(n, "small", 18, "%zu reading%s by alpha alone", set->ncircles,
+                   set->ncircles == 1 ? "" : "s");
+    for (size_t k = 0; k < set->npicks; k++) {
+        const corax_net_pick *pk = &set->picks[k];
+        corax_plane p = corax_plane_from_normal(pk->pole, NULL);
+        if (isnan(pk->cone))
+            panel_text(n, "small", 18, "%s: dip %.1f° toward %05.1f°", pk->label,
+                       corax_deg(p.dip), azimuth_deg(p.dip_direction));
+        else
+            panel_text(n, "small", 18, "%s: dip %.1f° toward %05.1f°, cone %.1f°", pk->label,
+                       corax_deg(p.dip), azimuth_deg(p.dip_direction), corax_deg(pk->cone));
+    }
     if (n->style->weighted && set->pole_summary && set->npoles)
         panel_text(n, "small", 18, "weighted count %.1f (Terzaghi)", set->pole_summary->weight_sum);
     if (set->skipped)
@@ -276,14 +296,27 @@ static void density_legend(net *n, double step, size_t levels, size_t count, int
  * with the sets' summaries. */
 static void symbol_key(net *n, const plan *p, int has_lines)
 {
-    int means = 0, plane_means = 0;
+    int means = 0, plane_means = 0, poles = 0, circles = 0, picks = 0;
     for (size_t i = 0; i < p->nsets; i++) {
         const corax_net_set *set = &p->sets[i];
         plane_means |= set->pole_summary && set->npoles;
         means |= (set->pole_summary && set->npoles) || (set->line_summary && set->nlines);
+        poles |= set->npoles > 0;
+        circles |= set->ncircles > 0;
+        picks |= set->npicks > 0;
     }
     panel_text(n, "label", 0, "Key");
-    panel_text(n, "small", 0, "filled: poles of planes%s", has_lines ? "; hollow: lines" : "");
+    if (poles || has_lines)
+        panel_text(n, "small", 0, "%s%s%s", poles ? "filled: poles of planes" : "",
+                   poles && has_lines ? "; " : "", has_lines ? "hollow: lines" : "");
+    static const char *const circle_key[] = {"thin curve: a reading's small circle (its pole",
+                                             "lies on it: 90 - alpha from the core axis)"};
+    static const char *const pick_key[] = {"numbered mark: a solved pole; dashed curve:",
+                                           "its 95% cone"};
+    for (int k = 0; circles && k < 2; k++)
+        panel_text(n, "small", 0, "%s", circle_key[k]);
+    for (int k = 0; picks && k < 2; k++)
+        panel_text(n, "small", 0, "%s", pick_key[k]);
     if (means)
         panel_text(n, "small", 0, "ring: mean; closed curve: 95%% cone");
     if (plane_means)
@@ -307,8 +340,7 @@ static void draw_mean(const net *n, const corax_axial_summary *s, size_t index, 
     if (s->n >= CORAX_FISHER_MIN_READINGS && s->fisher.alpha95 > 0.0 &&
         s->fisher.alpha95 < 0.5 * CORAX_PI) {
         snprintf(cls, sizeof cls, "cone %s", stroke);
-        corax_disc d = disc_of(n);
-        corax_disc_small_circle(&d, s->fisher.mean, s->fisher.alpha95, cls);
+        small_circle(n, s->fisher.mean, s->fisher.alpha95, cls);
     }
     double x, y;
     place(n, s->fisher.mean, &x, &y);
@@ -331,6 +363,27 @@ static void draw_axes(const net *n, const corax_axial_summary *s)
     }
 }
 
+/* The solved poles of a set: each cone dashed, the pole a large mark of the
+ * set's shape with its label beside it. */
+static void draw_picks(const net *n, const corax_net_set *set, size_t index)
+{
+    char fill[16], stroke[16], cls[32];
+    set_classes(index, fill, stroke, sizeof fill);
+    for (size_t i = 0; i < set->npicks; i++) {
+        const corax_net_pick *pk = &set->picks[i];
+        if (pk->cone > 0.0 && pk->cone < 0.5 * CORAX_PI) {
+            snprintf(cls, sizeof cls, "pickcone %s", stroke);
+            small_circle(n, pk->pole, pk->cone, cls);
+        }
+        double x, y;
+        place(n, pk->pole.z > 0.0 ? vec_neg(pk->pole) : pk->pole, &x, &y);
+        snprintf(cls, sizeof cls, "pick f%zu", corax_palette_colour_of(index));
+        corax_palette_symbol(n->svg, corax_palette_shape_of(index), x, y, 15, cls);
+        if (pk->label)
+            corax_svg_text(n->svg, x + 11, y - 9, "picklabel", "start", pk->label);
+    }
+}
+
 static void draw_set(const net *n, const corax_net_set *set, size_t index)
 {
     char fill[16], stroke[16], cls[32];
@@ -341,6 +394,9 @@ static void draw_set(const net *n, const corax_net_set *set, size_t index)
         for (size_t i = 0; i < set->npoles; i++)
             great_circle(n, set->poles[i], cls);
     }
+    snprintf(cls, sizeof cls, "sc %s", stroke);
+    for (size_t i = 0; i < set->ncircles; i++)
+        small_circle(n, set->circles[i].axis, set->circles[i].angle, cls);
     double x, y;
     if (n->style->planes & CORAX_NET_POLES)
         for (size_t i = 0; i < set->npoles; i++) {
@@ -389,7 +445,7 @@ static size_t readings(const plan *p, int *has_lines)
     size_t total = 0;
     *has_lines = 0;
     for (size_t i = 0; i < p->nsets; i++) {
-        total += p->sets[i].npoles + p->sets[i].nlines;
+        total += p->sets[i].npoles + p->sets[i].nlines + p->sets[i].ncircles;
         *has_lines |= p->sets[i].nlines > 0;
     }
     return total;
@@ -432,6 +488,8 @@ static corax_status draw_net(net *n, const plan *p)
         if (set->line_summary && set->nlines)
             draw_mean(n, set->line_summary, p->index0 + i, 0);
     }
+    for (size_t i = 0; i < p->nsets; i++)
+        draw_picks(n, &p->sets[i], p->index0 + i);
     corax_disc d = disc_of(n);
     corax_disc_frame(&d);
     if (readings(p, &has_lines) == 0)
@@ -450,7 +508,12 @@ static void page_style(corax_svg *svg)
         ".cone { fill: none; stroke-width: 1.8; }\n"
         ".meanring { fill: #ffffff; fill-opacity: 0.6; stroke-width: 2.6; }\n"
         ".axisbox { fill: #ffffff; stroke: #1a1a1a; stroke-width: 1.2; }\n"
-        ".axislabel { font-size: 10px; font-weight: bold; }\n");
+        ".axislabel { font-size: 10px; font-weight: bold; }\n"
+        ".sc { fill: none; stroke-width: 0.9; stroke-opacity: 0.7; }\n"
+        ".pickcone { fill: none; stroke-width: 2; stroke-dasharray: 5 3; }\n"
+        ".pick { stroke: #1a1a1a; stroke-width: 1.6; }\n"
+        ".picklabel { font-size: 14px; font-weight: bold; paint-order: stroke; stroke: #ffffff; "
+        "stroke-width: 3px; }\n");
 }
 
 static void page_heading(corax_svg *svg, const corax_net_style *s)

@@ -54,7 +54,7 @@ static const struct {
     {{"status", NULL}, "corax's status of a row"},
     {{"polarity", "younging", NULL}, "younging: upright, overturned or unknown"},
     {{"use", NULL}, "a survey station to use (yes) or reject (no)"},
-    {{"set", NULL}, "a planned program's structure set (corax plan)"},
+    {{"set", NULL}, "a set of structures (corax plan) or a marker read in several holes (corax solve)"},
     {{"target", NULL}, "a planned program's target plane (corax plan)"},
     {{"lift", NULL}, "a planned hole's expected lift, degrees per 30 m (corax plan)"},
     {{"drift", NULL}, "a planned hole's expected drift, degrees per 30 m (corax plan)"},

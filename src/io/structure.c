@@ -214,6 +214,18 @@ static int read_polarity(const char *t, size_t n, int *polarity)
     return 0;
 }
 
+/* A dip in [0, 90] with an empty dip direction (convert's dip-only rows). */
+static int dip_alone(const corax_row *row, const corax_structure_columns *c, char decimal)
+{
+    double dip, dd;
+    char why[80];
+    return corax_field_number(row, c->dip, decimal, "dip", &dip, why, sizeof why) ==
+               CORAX_NUMBER_OK &&
+           dip >= 0.0 && dip <= 90.0 &&
+           corax_field_number(row, c->dip_direction, decimal, "dip_direction", &dd, why,
+                              sizeof why) == CORAX_NUMBER_EMPTY;
+}
+
 corax_status corax_structure_read(const corax_row *row, const corax_structure_columns *c,
                                   char decimal, corax_structure *s, char *why, size_t whylen)
 {
@@ -236,6 +248,8 @@ corax_status corax_structure_read(const corax_row *row, const corax_structure_co
     double p[3], d[2];
     int located = read_group(row, pc, pos_name, 3, decimal, p, why, whylen);
     int oriented = located < 0 ? -1 : read_group(row, dc, dip_name, 2, decimal, d, why, whylen);
+    if (located >= 0 && oriented < 0 && dip_alone(row, c, decimal))
+        oriented = 0; /* a dip without its direction (a hole near vertical): not oriented */
     if (located < 0 || oriented < 0)
         return CORAX_EVALUE;
     for (int k = 0; located && k < 3; k++)

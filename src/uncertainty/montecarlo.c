@@ -12,6 +12,7 @@
 #include "core/frame.h"
 #include "survey/hole_int.h"
 #include "uncertainty/gauss.h"
+#include "uncertainty/mc_int.h"
 
 /* Readings simulated together (so many that the stored draws stay under
  * DRAWN_MAX vectors; a hole's readings are one block when they fit): they
@@ -29,7 +30,13 @@ corax_error_model corax_error_model_default(void)
     e.dip = corax_rad(0.5);
     e.azimuth_hole = corax_rad(0.5);
     e.dip_hole = corax_rad(0.25);
+    e.gravity = corax_rad(1.0);
     return e;
+}
+
+double corax_gravity_line_error(double gravity, double off_vertical)
+{
+    return atan2(sin(gravity), sin(fabs(off_vertical)));
 }
 
 /* Running sums of one reading's draws. */
@@ -131,24 +138,30 @@ static int reserve(void *pp, size_t *cap, size_t count, size_t size)
     return 1;
 }
 
-/* Every draw's survey errors for every node: random per node, plus one
- * systematic error per draw shared by all nodes. */
+void mc_survey_errors(const corax_ziggurat *z, gsl_rng *rng, const corax_hole *hole,
+                      const corax_error_model *e, double *d_azimuth, double *d_plunge)
+{
+    size_t nodes = corax_hole_node_count(hole);
+    double sys_az = corax_gauss(z, rng, e->azimuth_hole);
+    double sys_dip = corax_gauss(z, rng, e->dip_hole);
+    for (size_t i = 0; i < nodes; i++) {
+        double sa, sd; /* a station's own errors, from its survey row */
+        corax_hole_node_errors(hole, i, &sa, &sd);
+        sa = isnan(sa) ? e->azimuth : sa;
+        sd = isnan(sd) ? e->dip : sd;
+        d_azimuth[i] = sys_az + corax_gauss(z, rng, sa);
+        d_plunge[i] = sys_dip + corax_gauss(z, rng, sd);
+    }
+}
+
+/* Every draw's survey errors for every node. */
 static void draw_survey(corax_mc *mc, const corax_hole *hole, size_t draws,
                         const corax_error_model *e)
 {
     size_t nodes = corax_hole_node_count(hole);
-    for (size_t d = 0; d < draws; d++) {
-        double sys_az = corax_gauss(&mc->zig, mc->rng, e->azimuth_hole);
-        double sys_dip = corax_gauss(&mc->zig, mc->rng, e->dip_hole);
-        for (size_t i = 0; i < nodes; i++) {
-            double sa, sd; /* a station's own errors, from its survey row */
-            corax_hole_node_errors(hole, i, &sa, &sd);
-            sa = isnan(sa) ? e->azimuth : sa;
-            sd = isnan(sd) ? e->dip : sd;
-            mc->d_azimuth[d * nodes + i] = sys_az + corax_gauss(&mc->zig, mc->rng, sa);
-            mc->d_plunge[d * nodes + i] = sys_dip + corax_gauss(&mc->zig, mc->rng, sd);
-        }
-    }
+    for (size_t d = 0; d < draws; d++)
+        mc_survey_errors(&mc->zig, mc->rng, hole, e, mc->d_azimuth + d * nodes,
+                         mc->d_plunge + d * nodes);
 }
 
 static void prepare(const corax_mc_reading *m, const corax_convert_options *o, prepared *p)
@@ -156,27 +169,34 @@ static void prepare(const corax_mc_reading *m, const corax_convert_options *o, p
     const corax_error_model *e = &m->errors;
     const corax_reading *r = &m->reading;
     const corax_core_conventions *c = &o->conventions;
-    p->plane = m->nominal.has_plane;
+    int dip_only = (m->nominal.conditions & CORAX_COND_DIP_ONLY) != 0;
+    p->plane = m->nominal.has_plane || dip_only;
     p->depth = r->depth;
     p->depth_sigma = e->depth;
     p->alpha = p->plane ? r->alpha : r->line_alpha;
     p->alpha_sigma = e->alpha;
     double b = p->plane ? r->beta : r->line_beta;
     /* a line's own beta runs to its down-hole end: only the reference line and
-     * the sense apply; a plane's also to the end of the ellipse */
-    if (isnan(b))
+     * the sense apply; a plane's also to the end of the ellipse. A dip alone
+     * (a hole near vertical) has its beta drawn anywhere. */
+    if (isnan(b) || dip_only)
         p->beta = NAN;
-    else if (p->plane)
-        p->beta = corax_core_beta_canonical(b, c);
     else
-        p->beta = corax_wrap_azimuth((c->beta_anticlockwise ? -b : b) +
-                                     (c->top_reference ? CORAX_PI : 0.0));
-    p->beta_sigma = sqrt(e->beta * e->beta + e->line * e->line);
+        p->beta = corax_wrap_azimuth((p->plane ? corax_core_beta_canonical(b, c)
+                                               : corax_core_line_beta_canonical(b, c)) +
+                                     (isnan(r->turn) ? 0.0 : r->turn));
+    /* a gravity-marked line errs more as the hole steepens; a line turned to
+     * fit a reference has no mark, its error is the fit's (in e->line) */
+    double g = isnan(r->turn) && !dip_only && m->nominal.located
+                   ? corax_gravity_line_error(e->gravity,
+                                              corax_core_off_vertical(m->nominal.point.tangent))
+                   : 0.0;
+    p->beta_sigma = sqrt(e->beta * e->beta + e->line * e->line + g * g);
     p->sin_alpha = sin(p->alpha);
     p->cos_alpha = cos(p->alpha);
     p->sin_beta = isnan(p->beta) ? 0.0 : sin(p->beta);
     p->cos_beta = isnan(p->beta) ? 1.0 : cos(p->beta);
-    p->reference = p->plane ? m->nominal.normal : m->nominal.line;
+    p->reference = dip_only ? vec3(0.0, 0.0, 1.0) : p->plane ? m->nominal.normal : m->nominal.line;
     p->dip = m->nominal.plane.dip;
     p->position = m->nominal.point.position;
 }
@@ -203,9 +223,14 @@ static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, siz
     cb = p->cos_beta * cd - p->sin_beta * sd;
     corax_hole_point pt;
     corax_core_frame f;
-    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK ||
-        core_frame_of(pt.tangent, &f) != CORAX_OK)
+    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK)
         return 0;
+    if (core_frame_of(pt.tangent, &f) != CORAX_OK) { /* vertical: no bottom line */
+        if (!isnan(p->beta))
+            return 0;
+        f.r = vec3(1.0, 0.0, 0.0); /* a beta drawn anywhere needs only some frame */
+        f.s = vec_cross(f.t, f.r);
+    }
     *pos = pt.position;
     /* e = cos(b) r + sin(b) s; a plane's normal sin(a) t - cos(a) e, a line
      * cos(a) t + sin(a) e. The raw formula is good for alpha past 0 or 90:
@@ -244,7 +269,7 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
 {
     memset(out, 0, sizeof *out);
     out->has_orientation = 1;
-    out->is_plane = m->nominal.has_plane;
+    out->is_plane = m->nominal.has_plane || (m->nominal.conditions & CORAX_COND_DIP_ONLY);
     out->draws = ac->n;
     double n = (double)ac->n;
     if (ac->n < 2) {
@@ -266,18 +291,26 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
         if (v.x != 0.0 || v.y != 0.0 || v.z != 0.0)
             mc->one[k++] = v;
     }
-    corax_fisher f; /* Fisher (1953): the mean, and kappa = (n - 1) / (n - R) */
-    if (corax_fisher_mean(mc->one, NULL, k, &f) != CORAX_OK) {
+    corax_vec3 mean;
+    if (!mc_cone95(mc->one, k, mc->dots, &mean, &out->kappa, &out->cone95))
         out->cone95 = out->kappa = NAN;
-        return;
-    }
-    out->kappa = f.kappa;
+}
+
+int mc_cone95(const corax_vec3 *v, size_t k, double *dots, corax_vec3 *mean, double *kappa,
+              double *cone95)
+{
+    corax_fisher f; /* Fisher (1953): the mean, and kappa = (n - 1) / (n - R) */
+    if (k == 0 || corax_fisher_mean(v, NULL, k, &f) != CORAX_OK || vec_norm(f.mean) == 0.0)
+        return 0;
+    *mean = f.mean;
+    *kappa = f.kappa;
     for (size_t d = 0; d < k; d++)
-        mc->dots[d] = vec_dot(mc->one[d], f.mean);
+        dots[d] = vec_dot(v[d], f.mean);
     /* the cone holding 95% of the draws: the ceil(0.95 n)-th closest */
     size_t q = (size_t)ceil(0.95 * (double)k);
-    double c = gsl_stats_select(mc->dots, 1, k, k - (q ? q : 1)); /* the q-th largest */
-    out->cone95 = acos(fmax(-1.0, fmin(1.0, c)));
+    double c = gsl_stats_select(dots, 1, k, k - (q ? q : 1)); /* the q-th largest */
+    *cone95 = acos(fmax(-1.0, fmin(1.0, c)));
+    return 1;
 }
 
 corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_reading *readings,

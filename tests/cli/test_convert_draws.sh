@@ -25,7 +25,7 @@ OMP_NUM_THREADS=2 "$CORAX" convert -q $D --draws 64 --seed 100 -o "$T/other.csv"
 cmp -s "$T/two.csv" "$T/other.csv" && fail "the seed changes nothing"
 
 # zero errors: zero spread, and the same conversion as without draws
-Z="--alpha-error 0 --beta-error 0 --line-error 0 --depth-error 0 --azimuth-error 0 --dip-error 0 --azimuth-error-per-hole 0 --dip-error-per-hole 0 --confidence-errors good=0,poor=0"
+Z="--alpha-error 0 --beta-error 0 --line-error 0 --gravity-error 0 --depth-error 0 --azimuth-error 0 --dip-error 0 --azimuth-error-per-hole 0 --dip-error-per-hole 0 --confidence-errors good=0,poor=0"
 "$CORAX" convert -q $D --draws 20 $Z -o "$T/zero.csv" "$T/log.csv"
 "$CORAX" convert -q $D -o "$T/plain.csv" "$T/log.csv"
 cut -d, -f1-18 "$T/zero.csv" > "$T/zero_cols.csv"

@@ -27,7 +27,7 @@ def rows(p):
 ds = ogr.Open(f"{out}/quillon_creek.gpkg")
 names = [ds.GetLayer(i).GetName() for i in range(ds.GetLayerCount())]
 check(names == ["structures", "traces", "collars", "findings", "lithology", "contacts"], f"layers {names}")
-structures = [r for r in rows(f"{out}/structures.csv") if r["x"] and (r["dip"] or r["trend"])]
+structures = [r for r in rows(f"{out}/structures.csv") if r["x"] and ((r["dip"] and r["dip_direction"]) or r["trend"])]
 traces = {r["hole"] for r in rows(f"{out}/traces.csv") if r["status"] != "no-survey"}
 want = {"structures": len(structures), "traces": len(traces),
         "collars": len(rows("../../surveys/collars.csv")), "findings": len(rows(f"{out}/findings.csv")),

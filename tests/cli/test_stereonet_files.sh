@@ -97,4 +97,18 @@ xml_ok "$T/big.svg"
 rows=$(awk -F, 'NR > 1 { n += $3; s = $5 } END { print n + s }' "$T/big_stats.csv")
 [ "$rows" = 200000 ] || fail "readings lost in a large table: $rows of 200000"
 rm -f "$T/big.csv"
+
+# --small-circles: readings with alpha and no plane (here the dip-only rows of
+# a vertical hole) are drawn as small circles about their holes, one each;
+# without the option they are only skipped
+"$CORAX" convert -q --collars data/vertical_collars.csv --surveys data/vertical_surveys.csv \
+    data/log_vertical.csv -o "$T/vertical.csv"
+"$CORAX" stereonet -q "$T/vertical.csv" --small-circles -o "$T/circles.svg" --stats "$T/circles.csv"
+xml_ok "$T/circles.svg"
+[ "$(grep -c 'class="sc k0"' "$T/circles.svg")" = 4 ] || fail "not one small circle per reading"
+grep -q '>4 readings by alpha alone</text>' "$T/circles.svg" || fail "the legend lacks the circles"
+grep -q '^all,planes,1,1.000,0,' "$T/circles.csv" || fail "drawn circles are not skipped rows"
+"$CORAX" stereonet -q "$T/vertical.csv" -o "$T/plain.svg" --stats "$T/plain.csv"
+grep -q 'class="sc ' "$T/plain.svg" && fail "small circles drawn unasked"
+grep -q '^all,planes,1,1.000,4,' "$T/plain.csv" || fail "the rows without planes are not skipped"
 echo ok
