@@ -3,6 +3,11 @@
 
 CC      ?= cc
 PREFIX  ?= /usr/local
+LIBDIR  ?= $(PREFIX)/lib
+MANDIR  ?= $(PREFIX)/share/man
+# where `make install` puts the Python module (Debian's python3 looks in
+# /usr/lib/python3/dist-packages; for another PREFIX, set PYTHONPATH)
+PYTHONDIR ?= $(PREFIX)/lib/python3/dist-packages
 BUILD   ?= build
 PKGS    := gsl inih gdal proj
 TESTPKG := cmocka
@@ -47,15 +52,26 @@ TOOLS     := $(TOOL_SRC:tools/%.c=$(BUILD)/tools/%)
 
 LIB := $(BUILD)/libcorax.a
 BIN := $(BUILD)/corax
+# The shared library: libcorax.so -> libcorax.so.0 (the soname) ->
+# libcorax.so.0.1.0, exporting only the functions of include/corax/*.h
+# (tools/export_map.sh writes the version script).
+VERSION   := $(shell sed -n 's/^\#define CORAX_VERSION "\(.*\)"/\1/p' include/corax/corax.h)
+SOVERSION := 0
+SONAME    := libcorax.so.$(SOVERSION)
+SO        := $(BUILD)/libcorax.so.$(VERSION)
+SO_LINKS  := $(BUILD)/$(SONAME) $(BUILD)/libcorax.so
+SO_MAP    := $(BUILD)/libcorax.map
+# The library's objects serve the shared library too.
+$(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 
 .SECONDARY:
 .PHONY: all deps check unit cli-tests sanitize demo demo-run bench install clean
 
-all: $(LIB) $(BIN)
+all: $(LIB) $(BIN) $(SO_LINKS)
 
 $(BUILD)/obj/%.o: %.c
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) $(if $(filter tests/%,$<),$(TEST_CFLAGS)) -c $< -o $@
+	$(CC) $(CFLAGS_ALL) $(PIC) $(if $(filter tests/%,$<),$(TEST_CFLAGS)) -c $< -o $@
 
 $(COF_SRC): $(COF_DATA) tools/cof_to_c.sh
 	@mkdir -p $(dir $@)
@@ -63,12 +79,23 @@ $(COF_SRC): $(COF_DATA) tools/cof_to_c.sh
 
 $(BUILD)/obj/gen/magnetic_cof.o: $(COF_SRC)
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) -c $< -o $@
+	$(CC) $(CFLAGS_ALL) $(PIC) -c $< -o $@
 
 $(LIB): $(LIB_OBJ)
 	@mkdir -p $(dir $@)
 	rm -f $@
 	ar rcs $@ $^
+
+$(SO_MAP): $(LIB_OBJ) $(wildcard include/corax/*.h) tools/export_map.sh
+	sh tools/export_map.sh $(LIB_OBJ) > $@.tmp && mv $@.tmp $@
+
+$(SO): $(LIB_OBJ) $(SO_MAP)
+	$(CC) $(LDFLAGS_ALL) -shared -Wl,-soname,$(SONAME) -Wl,--version-script=$(SO_MAP) \
+	    -Wl,--no-undefined -o $@ $(LIB_OBJ) $(PKG_LIBS)
+
+$(SO_LINKS): $(SO)
+	ln -sf $(notdir $(SO)) $(BUILD)/$(SONAME)
+	ln -sf $(SONAME) $(BUILD)/libcorax.so
 
 $(BIN): $(CLI_OBJ) $(LIB)
 	$(CC) $(LDFLAGS_ALL) -o $@ $(CLI_OBJ) $(LIB) $(PKG_LIBS)
