@@ -52,6 +52,7 @@ TOOLS     := $(TOOL_SRC:tools/%.c=$(BUILD)/tools/%)
 
 LIB := $(BUILD)/libcorax.a
 BIN := $(BUILD)/corax
+STAGE := $(BUILD)/stage
 # The shared library: libcorax.so -> libcorax.so.0 (the soname) ->
 # libcorax.so.0.1.0, exporting only the functions of include/corax/*.h
 # (tools/export_map.sh writes the version script).
@@ -65,7 +66,7 @@ SO_MAP    := $(BUILD)/libcorax.map
 $(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 
 .SECONDARY:
-.PHONY: all deps check unit cli-tests sanitize demo demo-run bench install clean
+.PHONY: all deps check unit cli-tests sanitize demo demo-run bench install stage clean
 
 all: $(LIB) $(BIN) $(SO_LINKS)
 
@@ -123,8 +124,11 @@ check: deps
 unit: $(TESTS)
 	@set -e; for t in $(TESTS); do echo "== $$t"; $$t; done
 
-cli-tests: $(BIN) $(TOOLS)
-	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) tests/cli/run.sh
+# The shell tests also get the staged install (STAGE, under /usr/local) and
+# the compiler and sanitizer flags to build the example with.
+cli-tests: $(BIN) $(TOOLS) stage
+	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) STAGE=$(abspath $(STAGE)) \
+	    CC="$(CC)" TEST_SANITIZE="$(SANITIZE)" tests/cli/run.sh
 
 # The same suite built with AddressSanitizer and UndefinedBehaviorSanitizer.
 sanitize: deps
@@ -143,14 +147,30 @@ bench: all $(BENCHES)
 	@set -e; for b in $(BENCHES); do echo "== $$b"; CORAX=$(abspath $(BIN)) $$b; done
 
 install: all
-	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/lib \
-	    $(DESTDIR)$(PREFIX)/include/corax $(DESTDIR)$(PREFIX)/share/man/man1
+	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(LIBDIR)/pkgconfig \
+	    $(DESTDIR)$(PREFIX)/include/corax $(DESTDIR)$(MANDIR)/man1 $(DESTDIR)$(MANDIR)/man3 \
+	    $(DESTDIR)$(PYTHONDIR)/corax
 	install -m 755 $(BIN) $(DESTDIR)$(PREFIX)/bin/corax
-	install -m 644 $(LIB) $(DESTDIR)$(PREFIX)/lib/libcorax.a
+	install -m 644 $(LIB) $(DESTDIR)$(LIBDIR)/libcorax.a
+	install -m 755 $(SO) $(DESTDIR)$(LIBDIR)/
+	ln -sf $(notdir $(SO)) $(DESTDIR)$(LIBDIR)/$(SONAME)
+	ln -sf $(SONAME) $(DESTDIR)$(LIBDIR)/libcorax.so
+	sed -e 's|@PREFIX@|$(PREFIX)|' -e 's|@LIBDIR@|$(LIBDIR)|' -e 's|@VERSION@|$(VERSION)|' \
+	    corax.pc.in > $(DESTDIR)$(LIBDIR)/pkgconfig/corax.pc
 	install -m 644 include/corax/*.h $(DESTDIR)$(PREFIX)/include/corax/
-	install -m 644 man/corax.1 $(DESTDIR)$(PREFIX)/share/man/man1/corax.1
+	install -m 644 man/corax.1 $(DESTDIR)$(MANDIR)/man1/corax.1
+	install -m 644 man/corax.3 $(DESTDIR)$(MANDIR)/man3/corax.3
+	install -m 644 python/corax/*.py $(DESTDIR)$(PYTHONDIR)/corax/
 	install -d $(DESTDIR)$(PREFIX)/share/corax/magnetic
 	install -m 644 $(COF_DATA) data/magnetic/README.md $(DESTDIR)$(PREFIX)/share/corax/magnetic/
+
+# An install into a scratch folder, for the tests of what is installed (the
+# example built through pkg-config).
+stage: all
+	@rm -rf $(STAGE)
+	@$(MAKE) --no-print-directory install DESTDIR=$(abspath $(STAGE)) PREFIX=/usr/local \
+	    LIBDIR=/usr/local/lib MANDIR=/usr/local/share/man \
+	    PYTHONDIR=/usr/local/lib/python3/dist-packages > /dev/null
 
 clean:
 	rm -rf build build-sanitize demo-output
