@@ -133,6 +133,9 @@ static void test_convert_matches_derived_table(void **state)
     char note[300];
     assert_true(corax_arrays_note(a, s, "A", readings, note, sizeof note) > 0);
     assert_non_null(strstr(note, "collar"));
+    readings[CORAX_READING_DEPTH] = NAN; /* absent, as an empty field of a log */
+    corax_arrays_note(a, s, "A", readings, note, sizeof note);
+    assert_string_equal(note, "depth is empty");
     corax_arrays_free(a);
     corax_setup_free(s);
 }

@@ -2,10 +2,11 @@
  * Python module in python/ calls it through ctypes) and for C programs that
  * hold their readings in arrays.
  *
- * Nothing here asks a caller to mirror a struct: options are the project
- * file's words (corax_setup), a loaded program is an opaque handle
- * (corax_arrays), and depths, readings and results are rows of doubles in the
- * column order below, whose names corax_arrays_column() gives. Angles are
+ * Nothing here asks a caller to mirror a struct but corax_error: options
+ * are the project file's words (corax_setup), a loaded program is an opaque
+ * handle (corax_arrays), and depths, readings and results are rows of
+ * doubles in the column order below, whose names corax_arrays_column()
+ * gives. Angles are
  * degrees and lengths metres at this edge, as on the command line; an absent
  * value is NaN. Every input row gives an output row, in order. */
 #ifndef CORAX_ARRAYS_H
