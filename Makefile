@@ -3,6 +3,11 @@
 
 CC      ?= cc
 PREFIX  ?= /usr/local
+LIBDIR  ?= $(PREFIX)/lib
+MANDIR  ?= $(PREFIX)/share/man
+# where `make install` puts the Python module (Debian's python3 looks in
+# /usr/lib/python3/dist-packages; for another PREFIX, set PYTHONPATH)
+PYTHONDIR ?= $(PREFIX)/lib/python3/dist-packages
 BUILD   ?= build
 PKGS    := gsl inih gdal proj
 TESTPKG := cmocka
@@ -47,15 +52,27 @@ TOOLS     := $(TOOL_SRC:tools/%.c=$(BUILD)/tools/%)
 
 LIB := $(BUILD)/libcorax.a
 BIN := $(BUILD)/corax
+STAGE := $(BUILD)/stage
+# The shared library: libcorax.so -> libcorax.so.0 (the soname) ->
+# libcorax.so.0.1.0, exporting only the functions of include/corax/*.h
+# (tools/export_map.sh writes the version script).
+VERSION   := $(shell sed -n 's/^\#define CORAX_VERSION "\(.*\)"/\1/p' include/corax/corax.h)
+SOVERSION := 0
+SONAME    := libcorax.so.$(SOVERSION)
+SO        := $(BUILD)/libcorax.so.$(VERSION)
+SO_LINKS  := $(BUILD)/$(SONAME) $(BUILD)/libcorax.so
+SO_MAP    := $(BUILD)/libcorax.map
+# The library's objects serve the shared library too.
+$(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 
 .SECONDARY:
-.PHONY: all deps check unit cli-tests sanitize demo demo-run bench install clean
+.PHONY: all deps check unit cli-tests sanitize demo demo-run bench install stage clean
 
-all: $(LIB) $(BIN)
+all: $(LIB) $(BIN) $(SO_LINKS)
 
 $(BUILD)/obj/%.o: %.c
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) $(if $(filter tests/%,$<),$(TEST_CFLAGS)) -c $< -o $@
+	$(CC) $(CFLAGS_ALL) $(PIC) $(if $(filter tests/%,$<),$(TEST_CFLAGS)) -c $< -o $@
 
 $(COF_SRC): $(COF_DATA) tools/cof_to_c.sh
 	@mkdir -p $(dir $@)
@@ -63,12 +80,23 @@ $(COF_SRC): $(COF_DATA) tools/cof_to_c.sh
 
 $(BUILD)/obj/gen/magnetic_cof.o: $(COF_SRC)
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) -c $< -o $@
+	$(CC) $(CFLAGS_ALL) $(PIC) -c $< -o $@
 
 $(LIB): $(LIB_OBJ)
 	@mkdir -p $(dir $@)
 	rm -f $@
 	ar rcs $@ $^
+
+$(SO_MAP): $(LIB_OBJ) $(wildcard include/corax/*.h) tools/export_map.sh
+	sh tools/export_map.sh $(LIB_OBJ) > $@.tmp && mv $@.tmp $@
+
+$(SO): $(LIB_OBJ) $(SO_MAP)
+	$(CC) $(LDFLAGS_ALL) -shared -Wl,-soname,$(SONAME) -Wl,--version-script=$(SO_MAP) \
+	    -Wl,--no-undefined -o $@ $(LIB_OBJ) $(PKG_LIBS)
+
+$(SO_LINKS): $(SO)
+	ln -sf $(notdir $(SO)) $(BUILD)/$(SONAME)
+	ln -sf $(SONAME) $(BUILD)/libcorax.so
 
 $(BIN): $(CLI_OBJ) $(LIB)
 	$(CC) $(LDFLAGS_ALL) -o $@ $(CLI_OBJ) $(LIB) $(PKG_LIBS)
@@ -96,8 +124,11 @@ check: deps
 unit: $(TESTS)
 	@set -e; for t in $(TESTS); do echo "== $$t"; $$t; done
 
-cli-tests: $(BIN) $(TOOLS)
-	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) tests/cli/run.sh
+# The shell tests also get the staged install (STAGE, under /usr/local) and
+# the compiler and sanitizer flags to build the example with.
+cli-tests: $(BIN) $(TOOLS) stage
+	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) STAGE=$(abspath $(STAGE)) \
+	    CC="$(CC)" TEST_SANITIZE="$(SANITIZE)" tests/cli/run.sh
 
 # The same suite built with AddressSanitizer and UndefinedBehaviorSanitizer.
 sanitize: deps
@@ -116,14 +147,30 @@ bench: all $(BENCHES)
 	@set -e; for b in $(BENCHES); do echo "== $$b"; CORAX=$(abspath $(BIN)) $$b; done
 
 install: all
-	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/lib \
-	    $(DESTDIR)$(PREFIX)/include/corax $(DESTDIR)$(PREFIX)/share/man/man1
+	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(LIBDIR)/pkgconfig \
+	    $(DESTDIR)$(PREFIX)/include/corax $(DESTDIR)$(MANDIR)/man1 $(DESTDIR)$(MANDIR)/man3 \
+	    $(DESTDIR)$(PYTHONDIR)/corax
 	install -m 755 $(BIN) $(DESTDIR)$(PREFIX)/bin/corax
-	install -m 644 $(LIB) $(DESTDIR)$(PREFIX)/lib/libcorax.a
+	install -m 644 $(LIB) $(DESTDIR)$(LIBDIR)/libcorax.a
+	install -m 755 $(SO) $(DESTDIR)$(LIBDIR)/
+	ln -sf $(notdir $(SO)) $(DESTDIR)$(LIBDIR)/$(SONAME)
+	ln -sf $(SONAME) $(DESTDIR)$(LIBDIR)/libcorax.so
+	sed -e 's|@PREFIX@|$(PREFIX)|' -e 's|@LIBDIR@|$(LIBDIR)|' -e 's|@VERSION@|$(VERSION)|' \
+	    corax.pc.in > $(DESTDIR)$(LIBDIR)/pkgconfig/corax.pc
 	install -m 644 include/corax/*.h $(DESTDIR)$(PREFIX)/include/corax/
-	install -m 644 man/corax.1 $(DESTDIR)$(PREFIX)/share/man/man1/corax.1
+	install -m 644 man/corax.1 $(DESTDIR)$(MANDIR)/man1/corax.1
+	install -m 644 man/corax.3 $(DESTDIR)$(MANDIR)/man3/corax.3
+	install -m 644 python/corax/*.py $(DESTDIR)$(PYTHONDIR)/corax/
 	install -d $(DESTDIR)$(PREFIX)/share/corax/magnetic
 	install -m 644 $(COF_DATA) data/magnetic/README.md $(DESTDIR)$(PREFIX)/share/corax/magnetic/
+
+# An install into a scratch folder, for the tests of what is installed (the
+# example built through pkg-config).
+stage: all
+	@rm -rf $(STAGE)
+	@$(MAKE) --no-print-directory install DESTDIR=$(abspath $(STAGE)) PREFIX=/usr/local \
+	    LIBDIR=/usr/local/lib MANDIR=/usr/local/share/man \
+	    PYTHONDIR=/usr/local/lib/python3/dist-packages > /dev/null
 
 clean:
 	rm -rf build build-sanitize demo-output

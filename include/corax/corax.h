@@ -4,6 +4,7 @@
 
 #define CORAX_VERSION "0.1.0"
 
+#include "corax/arrays.h"
 #include "corax/codes.h"
 #include "corax/contour.h"
 #include "corax/convert.h"

@@ -62,6 +62,8 @@ static const char *check_values(const corax_reading *rd, double *value)
         {rd->line_beta, 360, "line_beta %g is outside [0, 360)"},
     };
     *value = NAN;
+    if (isnan(rd->depth))
+        return "depth is empty"; /* absent, as a table's empty field */
     if (!(rd->depth >= 0.0)) {
         *value = rd->depth;
         return "depth %g is negative";
