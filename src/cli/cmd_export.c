@@ -333,7 +333,7 @@ int export_each_structure(const export_opts *o, export_visit *v, void *ctx)
         while (cli_converted_next(&t[k], &row, &s)) {
             if (corax_export_extra_read(&row, &x[k], t[k].decimal, &e, why, sizeof why) !=
                 CORAX_OK) {
-                cli_problem(&t[k].problems, t[k].path, row.line, "%s", why);
+                job_problem(t[k].job, &t[k].problems, t[k].path, row.line, "%s", why);
                 continue;
             }
             if (!corax_export_usable(&s, &e)) {
@@ -470,42 +470,42 @@ static void about_export(cli_about *a, const export_opts *o, const corax_program
                          const corax_kinds *kinds)
 {
     for (int i = 0; i < o->ninputs; i++)
-        cli_about_set(a, "converted", "%s", o->inputs[i]);
-    cli_about_set(a, "polarity", "1 upright, -1 overturned, from a polarity or younging column "
+        corax_record_set(a, "converted", "%s", o->inputs[i]);
+    corax_record_set(a, "polarity", "1 upright, -1 overturned, from a polarity or younging column "
                                  "(1, +1, upright, -1, overturned); empty when not known");
     if (o->format == FORMAT_CSV) {
-        cli_about_set(a, "normal", "nx, ny, nz: the upward unit normal (x east, y north, z up)");
-        cli_about_set(a, "line", "lx, ly, lz: the lineation's unit vector, down-plunge");
+        corax_record_set(a, "normal", "nx, ny, nz: the upward unit normal (x east, y north, z up)");
+        corax_record_set(a, "line", "lx, ly, lz: the lineation's unit vector, down-plunge");
         return;
     }
     const corax_export_options *v = &o->vtk;
-    cli_about_set(a, "encoding", "%s", v->encoding == CORAX_VTK_BINARY ? "binary (big-endian)"
+    corax_record_set(a, "encoding", "%s", v->encoding == CORAX_VTK_BINARY ? "binary (big-endian)"
                                                                       : "ascii");
-    cli_about_set(a, "shape", "%s", v->shape == CORAX_EXPORT_DISCS ? "discs" : "points");
+    corax_record_set(a, "shape", "%s", v->shape == CORAX_EXPORT_DISCS ? "discs" : "points");
     if (v->shape == CORAX_EXPORT_DISCS)
-        cli_about_set(a, "disc_radius", "%g (%d corners)", v->disc_radius, v->disc_sides);
-    cli_about_set(a, "traces", "%s", v->traces ? "yes" : "no");
-    cli_about_set(a, "trace_step", "%g (plus every station)", v->step);
+        corax_record_set(a, "disc_radius", "%g (%d corners)", v->disc_radius, v->disc_sides);
+    corax_record_set(a, "traces", "%s", v->traces ? "yes" : "no");
+    corax_record_set(a, "trace_step", "%g (plus every station)", v->step);
     if (v->arrow > 0.0)
-        cli_about_set(a, "arrows", "%g m from each structure along its lineation, down-plunge",
+        corax_record_set(a, "arrows", "%g m from each structure along its lineation, down-plunge",
                       v->arrow);
-    cli_about_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN): dip and dip_direction of "
+    corax_record_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN): dip and dip_direction of "
                                     "hole traces, depth when not known, kind of hole traces");
-    cli_about_section(a, "kinds");
+    corax_record_section(a, "kinds");
     for (size_t i = 0; i < corax_kinds_count(kinds); i++) {
         const char *name;
         int code = corax_kinds_at(kinds, i, &name);
         char key[16];
         snprintf(key, sizeof key, "%d", code);
-        cli_about_set(a, key, "%s", name);
+        corax_record_set(a, key, "%s", name);
     }
     if (!prog)
         return;
-    cli_about_section(a, "holes");
+    corax_record_section(a, "holes");
     for (size_t i = 0; i < corax_program_size(prog); i++) {
         char key[24];
         snprintf(key, sizeof key, "%zu", i + 1);
-        cli_about_set(a, key, "%s", corax_hole_name(corax_program_hole(prog, i)));
+        corax_record_set(a, key, "%s", corax_hole_name(corax_program_hole(prog, i)));
     }
 }
 
@@ -556,8 +556,8 @@ static int export_csv_table(const export_opts *o, const corax_program *prog, cli
              : o->contacts ? export_contacts(o, prog, &sink, a)
                            : export_csv(o, w, written, left_out);
     if (o->nintervals || o->contacts) {
-        cli_about_section(a, "results");
-        cli_about_set(a, o->nintervals ? "intervals" : "contacts", "%zu", sink.written);
+        corax_record_section(a, "results");
+        corax_record_set(a, o->nintervals ? "intervals" : "contacts", "%zu", sink.written);
     }
     if (rc != EXIT_OK) {
         corax_writer_discard(w);
@@ -584,9 +584,9 @@ static int run(const export_opts *o, const corax_program *prog)
     }
     int structures = o->format != FORMAT_GIS && !o->nintervals && !o->contacts;
     int vtk_intervals = o->format == FORMAT_VTK && o->nintervals;
-    cli_about_section(a, "export");
-    cli_about_set(a, "format", "%s", o->format_name);
-    cli_about_set(a, "crs", "%s", o->c.corr.crs_text ? o->c.corr.crs_text : "none given");
+    corax_record_section(a, "export");
+    corax_record_set(a, "format", "%s", o->format_name);
+    corax_record_set(a, "crs", "%s", o->c.corr.crs_text ? o->c.corr.crs_text : "none given");
     if (o->format == FORMAT_GIS)
         rc = export_gis(o, prog, a);
     else if (o->format == FORMAT_CSV)
@@ -602,9 +602,9 @@ static int run(const export_opts *o, const corax_program *prog)
         if (o->ninputs && written == 0)
             cli_note(&o->c, "no located, oriented structures to export");
         about_export(a, o, prog, kinds);
-        cli_about_section(a, "results");
-        cli_about_set(a, "structures", "%zu", written);
-        cli_about_set(a, "left_out", "%zu (no position or no orientation)", left_out);
+        corax_record_section(a, "results");
+        corax_record_set(a, "structures", "%zu", written);
+        corax_record_set(a, "left_out", "%zu (no position or no orientation)", left_out);
     }
     if (rc == EXIT_OK)
         rc = cli_about_commit(a, &o->c) != 0 ? EXIT_DATA : EXIT_OK;

@@ -148,7 +148,7 @@ static int expand_sweep(plan_opts *o)
     for (int i = 0; i < 2; i++)
         if (corax_dip_to_plunge(dip[i], conv, i ? &to : &from) != CORAX_OK)
             return cli_usage("plan", "--sweep: dip %g is outside the range of %s", dip[i],
-                             cli_dip_convention_name(conv));
+                             corax_dip_convention_name(conv));
     o->azimuth = (corax_plan_range){corax_rad(az[0]), corax_rad(az[1]), corax_rad(az[2])};
     o->plunge = (corax_plan_range){from, to, corax_rad(dip[2])};
     corax_error err;
@@ -450,27 +450,27 @@ static int write_about(const plan_run *r)
 {
     const plan_opts *o = r->o;
     cli_about *a = cli_about_new("plan", &o->c);
-    cli_about_section(a, "plan");
-    cli_about_set(a, "holes", "%s", o->holes);
-    cli_about_set(a, "sets", "%s", o->sets);
+    corax_record_section(a, "plan");
+    corax_record_set(a, "holes", "%s", o->holes);
+    corax_record_set(a, "sets", "%s", o->sets);
     if (o->targets)
-        cli_about_set(a, "targets", "%s", o->targets);
-    cli_about_set(a, "curved_plans", "a station every %g m turned by the lift and drift, "
+        corax_record_set(a, "targets", "%s", o->targets);
+    corax_record_set(a, "curved_plans", "a station every %g m turned by the lift and drift, "
                   "desurveyed by minimum curvature", CORAX_PLAN_STATION_STEP);
-    cli_about_set(a, "sampling", "along the whole hole, every metre; each plane of a set's "
+    corax_record_set(a, "sampling", "along the whole hole, every metre; each plane of a set's "
                   "Fisher spread counted as often as the hole crosses it (Terzaghi 1965)");
-    cli_about_conventions(a, &o->cv);
+    corax_record_conventions(a, &o->cv);
     if (o->pierce)
-        cli_about_set(a, "pierce", "%s", o->pierce);
+        corax_record_set(a, "pierce", "%s", o->pierce);
     if (o->sweep) {
-        cli_about_section(a, "sweep");
-        cli_about_set(a, "directions", "%s (%zu directions)", o->sweep, o->ndirections);
-        cli_about_set(a, "score", "share of (hole, target) pairs reached x the weighted "
+        corax_record_section(a, "sweep");
+        corax_record_set(a, "directions", "%s (%zu directions)", o->sweep, o->ndirections);
+        corax_record_set(a, "score", "share of (hole, target) pairs reached x the weighted "
                       "geometric mean of the sets' Terzaghi factors over the program");
         if (o->best)
-            cli_about_set(a, "best", "%s", o->best);
+            corax_record_set(a, "best", "%s", o->best);
         if (o->svg)
-            cli_about_set(a, "picture", "%s", o->svg);
+            corax_record_set(a, "picture", "%s", o->svg);
     }
     return cli_about_commit(a, &o->c);
 }

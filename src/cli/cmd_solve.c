@@ -277,12 +277,12 @@ static int load(const solve_opts *o, const corax_program *prog, solve_data *d)
 {
     for (size_t f = 0; f < o->inputs.n; f++) {
         corax_table *t =
-            cli_table_keep(&o->c, CLI_STRUCTURES, o->inputs.path[f], &d->tables, &d->ntables);
+            cli_table_keep((cli_common *)&o->c, CLI_STRUCTURES, o->inputs.path[f], &d->tables, &d->ntables);
         if (!t)
             return EXIT_DATA;
         long col[NC];
         corax_table_settings ts = cli_table_settings(&o->c, CLI_STRUCTURES);
-        if (cli_table_columns(t, &ts, col_names, NC, col))
+        if (cli_table_columns(&o->c, t, &ts, col_names, NC, col))
             return EXIT_DATA;
         for (int k = 0; k <= C_SET; k++)
             if (col[k] < 0) {
@@ -614,18 +614,18 @@ static int write_net(const solve_opts *o, const solve_data *d)
 static int write_about(const solve_opts *o)
 {
     cli_about *a = cli_about_new("solve", &o->c);
-    cli_about_section(a, "solve");
+    corax_record_section(a, "solve");
     for (size_t i = 0; i < o->inputs.n; i++)
-        cli_about_set(a, "readings", "%s", o->inputs.path[i]);
-    cli_about_set(a, "parallel_limit", "%g", corax_deg(o->solve.parallel_limit));
-    cli_about_set(a, "ties", "planes whose sum of squared misfits exceeds the best's by less "
+        corax_record_set(a, "readings", "%s", o->inputs.path[i]);
+    corax_record_set(a, "parallel_limit", "%g", corax_deg(o->solve.parallel_limit));
+    corax_record_set(a, "ties", "planes whose sum of squared misfits exceeds the best's by less "
                   "than 5.99 alpha_error^2 (chi-square, two degrees of freedom, 95%%)");
     if (o->residuals)
-        cli_about_set(a, "residuals", "%s", o->residuals);
+        corax_record_set(a, "residuals", "%s", o->residuals);
     if (o->svg)
-        cli_about_set(a, "svg", "%s", o->svg);
+        corax_record_set(a, "svg", "%s", o->svg);
     if (o->draws)
-        cli_about_uncertainty(a, &o->errors, o->draws, o->seed, 0);
+        corax_record_uncertainty(a, &o->errors, o->draws, o->seed, 0);
     return cli_about_commit(a, &o->c);
 }
 

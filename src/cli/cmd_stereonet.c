@@ -691,41 +691,41 @@ static void default_title(const stereo_opts *o, int nfiles, char **files, char *
 static int write_about(const stereo_opts *o, int nfiles, char **files, const groups *gs)
 {
     cli_about *a = cli_about_new("stereonet", &o->c);
-    cli_about_section(a, "stereonet");
+    corax_record_section(a, "stereonet");
     for (int i = 0; i < nfiles; i++)
-        cli_about_set(a, "input", "%s", files[i]);
-    cli_about_set(a, "hemisphere", "lower");
-    cli_about_set(a, "projection", "%s", corax_projection_name(o->style.projection));
-    cli_about_set(a, "planes", "%s", o->style.planes == 1 ? "poles" : o->style.planes == 2
+        corax_record_set(a, "input", "%s", files[i]);
+    corax_record_set(a, "hemisphere", "lower");
+    corax_record_set(a, "projection", "%s", corax_projection_name(o->style.projection));
+    corax_record_set(a, "planes", "%s", o->style.planes == 1 ? "poles" : o->style.planes == 2
                                                                        ? "great circles"
                                                                        : "poles and great circles");
     if (o->style.contours)
-        cli_about_set(a, "contours", "%s, interval %g sigma; %s",
+        corax_record_set(a, "contours", "%s, interval %g sigma; %s",
                       o->style.density == CORAX_DENSITY_SMOOTH
                           ? "modified Kamb, exponential smoothing (Vollmer 1995), k = 2 (1 + n/9)"
                           : "Kamb (1959) counting, cap of area 9/(n + 9) of the hemisphere",
                       o->style.contour_step, "a uniform sample reads 3 sigma");
     else
-        cli_about_set(a, "contours", "none");
-    cli_about_set(a, "group_by", "%s", o->group_by ? o->group_by : "(one group: all)");
+        corax_record_set(a, "contours", "none");
+    corax_record_set(a, "group_by", "%s", o->group_by ? o->group_by : "(one group: all)");
     for (size_t i = 0; i < o->nwhere; i++)
-        cli_about_set(a, "where", "%s = %s (without regard to case)", o->where[i].column,
+        corax_record_set(a, "where", "%s = %s (without regard to case)", o->where[i].column,
                       o->where[i].value);
     if (o->style.weighted)
-        cli_about_set(a, "weighting", "Terzaghi (1965), 1/|cos| of the angle between the pole "
+        corax_record_set(a, "weighting", "Terzaghi (1965), 1/|cos| of the angle between the pole "
                       "and the hole, capped at a minimum angle of %g degrees between hole and "
                       "plane; planes only, lines unweighted; weights rescaled to sum to n for "
                       "the mean, cone, tensor and density; n_weighted is their sum as given",
                       o->min_angle);
     else
-        cli_about_set(a, "weighting", "none");
-    cli_about_set(a, "statistics", "Fisher (1953) mean, kappa and alpha95 of the readings "
+        corax_record_set(a, "weighting", "none");
+    corax_record_set(a, "statistics", "Fisher (1953) mean, kappa and alpha95 of the readings "
                   "turned to the side of principal axis 1 (axial data); none below %d readings; "
                   "orientation tensor eigenvalues normalised to sum to 1; Woodcock (1977) "
                   "K = ln(S1/S2)/ln(S2/S3), C = ln(S1/S3)", CORAX_FISHER_MIN_READINGS);
     if (o->stats)
-        cli_about_set(a, "stats", "%s", o->stats);
-    cli_about_set(a, "rows_skipped", "%zu (no usable angles)", gs->skipped);
+        corax_record_set(a, "stats", "%s", o->stats);
+    corax_record_set(a, "rows_skipped", "%zu (no usable angles)", gs->skipped);
     return cli_about_commit(a, &o->c);
 }
 

@@ -354,14 +354,14 @@ int cmd_trace(int argc, char **argv)
     }
     if (rc == EXIT_OK) {
         cli_about *a = cli_about_new("trace", &o.c);
-        cli_about_section(a, "trace");
+        corax_record_section(a, "trace");
         if (o.at)
-            cli_about_set(a, "at", "%s", o.at);
+            corax_record_set(a, "at", "%s", o.at);
         else
-            cli_about_set(a, "step", "%g", o.step);
-        cli_about_set(a, "dip", "%s, as the surveys give it", cli_dip_convention_name(o.dip));
+            corax_record_set(a, "step", "%g", o.step);
+        corax_record_set(a, "dip", "%s, as the surveys give it", corax_dip_convention_name(o.dip));
         if (o.corrections)
-            cli_about_set(a, "corrections", "%s", o.corrections);
+            corax_record_set(a, "corrections", "%s", o.corrections);
         if (cli_about_commit(a, &o.c) != 0)
             rc = EXIT_DATA;
     }

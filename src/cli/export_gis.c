@@ -194,7 +194,7 @@ static int gis_structures_layer(const export_opts *o, corax_gis *g, cli_about *a
     if (v.left_out)
         cli_note(&o->c, "%zu row%s without a position or orientation left out", v.left_out,
                  v.left_out == 1 ? "" : "s");
-    cli_about_set(a, LAYER_STRUCTURES, "%zu (%zu rows without a position or orientation left "
+    corax_record_set(a, LAYER_STRUCTURES, "%zu (%zu rows without a position or orientation left "
                   "out)", r.written, v.left_out);
     return rc;
 }
@@ -218,14 +218,14 @@ static int program_layers(const export_opts *o, const corax_program *prog, corax
     corax_status st = CORAX_OK;
     if (planned(p, LAYER_TRACES)) {
         st = corax_export_gis_traces(g, prog, o->vtk.step, LAYER_TRACES, &n, &err);
-        cli_about_set(a, LAYER_TRACES, "%zu (every %g m plus stations; depth %s)", n,
+        corax_record_set(a, LAYER_TRACES, "%zu (every %g m plus stations; depth %s)", n,
                       o->vtk.step, corax_gis_measured(g) ? "as the measure (M) of each vertex"
                                                          : "from and to as fields");
     }
     if (st == CORAX_OK && planned(p, LAYER_COLLARS)) {
         st = corax_export_gis_collars(g, prog, cli_table_dip(&o->c, CLI_COLLARS), LAYER_COLLARS, &n,
                                       &err);
-        cli_about_set(a, LAYER_COLLARS, "%zu", n);
+        corax_record_set(a, LAYER_COLLARS, "%zu", n);
     }
     return layer_status(st, &err);
 }
@@ -237,20 +237,20 @@ static int table_layers(const export_opts *o, const corax_program *prog, corax_g
     if (planned(p, LAYER_FINDINGS)) {
         export_sink sink = {NULL, g, LAYER_FINDINGS, 0};
         rc = export_findings(o, prog, &sink);
-        cli_about_set(a, LAYER_FINDINGS, "%zu (from %s)", sink.written, o->findings);
+        corax_record_set(a, LAYER_FINDINGS, "%zu (from %s)", sink.written, o->findings);
     }
     for (int i = 0; rc == EXIT_OK && i < o->nintervals; i++) {
         if (!planned(p, o->intervals[i].layer))
             continue;
         export_sink sink = {NULL, g, o->intervals[i].layer, 0};
         rc = export_intervals(o, prog, &o->intervals[i], &sink);
-        cli_about_set(a, o->intervals[i].layer, "%zu intervals (from %s)", sink.written,
+        corax_record_set(a, o->intervals[i].layer, "%zu intervals (from %s)", sink.written,
                       o->intervals[i].path);
     }
     if (rc == EXIT_OK && planned(p, LAYER_CONTACTS)) {
         export_sink sink = {NULL, g, LAYER_CONTACTS, 0};
         rc = export_contacts(o, prog, &sink, a);
-        cli_about_set(a, LAYER_CONTACTS, "%zu (from %s)", sink.written, o->contacts);
+        corax_record_set(a, LAYER_CONTACTS, "%zu (from %s)", sink.written, o->contacts);
     }
     return rc;
 }
@@ -268,8 +268,8 @@ int export_gis(const export_opts *o, const corax_program *prog, cli_about *a)
     }
     plan p;
     int rc = make_plan(o, prog, corax_gis_cad(g), &p);
-    cli_about_set(a, "driver", "%s (GDAL %s)", corax_gis_driver_name(g), corax_gis_gdal_version());
-    cli_about_section(a, "layers");
+    corax_record_set(a, "driver", "%s (GDAL %s)", corax_gis_driver_name(g), corax_gis_gdal_version());
+    corax_record_section(a, "layers");
     if (rc == EXIT_OK && planned(&p, LAYER_STRUCTURES))
         rc = gis_structures_layer(o, g, a);
     if (rc == EXIT_OK)

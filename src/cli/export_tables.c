@@ -675,7 +675,7 @@ static int *age_ranks(contact_data *d, cli_about *a)
                      item);
     }
     if (d->o->youngest_first)
-        cli_about_set(a, "youngest_first", "%s", d->o->youngest_first);
+        corax_record_set(a, "youngest_first", "%s", d->o->youngest_first);
     return rank;
 }
 
@@ -799,9 +799,9 @@ int export_contacts(const export_opts *o, const corax_program *prog, export_sink
         cli_note(&o->c, "%s: %zu interval%s of holes not in the collar table left out",
                  o->contacts, d.unknown_holes, d.unknown_holes == 1 ? "" : "s");
     if (rc == EXIT_OK) {
-        cli_about_set(a, "contact_column", "%s", o->contact_column ? o->contact_column : "unit");
-        cli_about_set(a, "contact_kinds", "%s", o->contact_kinds ? o->contact_kinds : "contact");
-        cli_about_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
+        corax_record_set(a, "contact_column", "%s", o->contact_column ? o->contact_column : "unit");
+        corax_record_set(a, "contact_kinds", "%s", o->contact_kinds ? o->contact_kinds : "contact");
+        corax_record_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
                       "(axial), with count and kappa", o->contact_window);
         rc = write_contacts(&d, k, rank, &err);
     }
@@ -989,18 +989,18 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
 
 static void about_codes(const vtk_intervals *vi, cli_about *a)
 {
-    cli_about_section(a, "codes");
+    corax_record_section(a, "codes");
     for (size_t i = 0; i < vi->s->width; i++) {
         if (own_column(vi->s, i) || vi->s->numeric[i])
             continue;
         if (!vi->coded[i]) {
-            cli_about_set(a, vi->s->name[i], "left out: more than %d values", MAX_CODES);
+            corax_record_set(a, vi->s->name[i], "left out: more than %d values", MAX_CODES);
             continue;
         }
         for (size_t k = 0; k < vi->ncode[i]; k++) {
             char key[160];
             snprintf(key, sizeof key, "%s.%zu", vi->s->name[i], k);
-            cli_about_set(a, key, "%s", vi->code[i][k]);
+            corax_record_set(a, key, "%s", vi->code[i][k]);
         }
     }
 }
@@ -1041,9 +1041,9 @@ int export_intervals_vtk(const export_opts *o, const corax_program *prog, cli_ab
             corax_vtk_discard(vi.v);
     }
     if (rc == EXIT_OK) {
-        cli_about_section(a, "results");
-        cli_about_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
-        cli_about_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");
+        corax_record_section(a, "results");
+        corax_record_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
+        corax_record_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");
         about_codes(&vi, a);
     }
     for (size_t i = 0; i < 64; i++) {

@@ -92,3 +92,29 @@ void cli_phase(const cli_common *c, const char *fmt, ...)
     va_end(ap);
     fputc('\n', stderr);
 }
+
+void cli_on_stage(void *user, corax_stage *s)
+{
+    const cli_common *c = user;
+    cli_progress *p = s->display;
+    switch (s->state) {
+    case CORAX_STAGE_BEGIN:
+        if ((p = malloc(sizeof *p)) != NULL)
+            cli_progress_start(p, c, s->what, s->unit, s->total);
+        s->display = p;
+        break;
+    case CORAX_STAGE_STEP:
+        if (p)
+            cli_progress_set(p, s->done);
+        break;
+    case CORAX_STAGE_END:
+        if (p)
+            cli_progress_end(p);
+        free(p);
+        s->display = NULL;
+        break;
+    case CORAX_STAGE_PHASE:
+        cli_phase(c, "%s", s->what);
+        break;
+    }
+}
