@@ -18,6 +18,7 @@
 #include "corax/job.h"
 #include "corax/job_check.h"
 #include "corax/job_convert.h"
+#include "corax/job_export.h"
 #include "corax/job_section.h"
 #include "corax/load.h"
 #include "corax/magnetic.h"

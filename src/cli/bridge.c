@@ -38,15 +38,3 @@ int cli_runs_load(const cli_common *c, const char *path, const corax_codes *code
                ? EXIT_OK
                : EXIT_DATA;
 }
-
-int cli_converted_open(const cli_common *c, const char *path, cli_converted *t)
-{
-    corax_table_settings ts = cli_table_settings(c, CLI_CONVERTED);
-    return job_converted_open(&((cli_common *)c)->job, &ts, path, t) == CORAX_OK ? EXIT_OK
-                                                                                 : EXIT_DATA;
-}
-
-int cli_converted_close(cli_converted *t)
-{
-    return job_converted_close(t) == CORAX_OK ? EXIT_OK : EXIT_DATA;
-}

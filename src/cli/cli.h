@@ -6,7 +6,6 @@
 #include <stdio.h>
 
 #include "corax/corax.h"
-#include "job/converted.h"
 
 /* Exit statuses. */
 enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
@@ -488,10 +487,6 @@ int cli_runs_load(const cli_common *c, const char *path, const corax_codes *code
 #define cli_runs_free corax_runs_free
 #define cli_runs_find corax_runs_find
 #define cli_unoriented_confidence corax_unoriented_confidence
-typedef job_converted cli_converted;
-int cli_converted_open(const cli_common *c, const char *path, cli_converted *t);
-#define cli_converted_next job_converted_next
-int cli_converted_close(cli_converted *t);
 
 /* One reading at the core shed (cli/convert_one.c): a labelled answer on
  * standard output. Angles in degrees; NaN for what was not given. */
