@@ -20,6 +20,7 @@
 #include "corax/job_convert.h"
 #include "corax/job_export.h"
 #include "corax/job_section.h"
+#include "corax/job_solve.h"
 #include "corax/load.h"
 #include "corax/magnetic.h"
 #include "corax/output.h"

@@ -97,20 +97,6 @@ static void read_row(const corax_table *t, size_t findex, size_t row, const long
     }
 }
 
-/* Keep a table in the list; CORAX_ENOMEM (the table freed) when there is no
- * room. */
-static corax_status keep_table(logs *l, corax_table *t)
-{
-    corax_table **tt = realloc(l->table, (l->ntables + 1) * sizeof *tt);
-    if (!tt) {
-        corax_table_free(t);
-        return CORAX_ENOMEM;
-    }
-    l->table = tt;
-    tt[l->ntables++] = t;
-    return CORAX_OK;
-}
-
 static corax_status load_logs(corax_job *job, const corax_check_job_options *o,
                               const corax_program *prog, logs *l)
 {
@@ -119,12 +105,12 @@ static corax_status load_logs(corax_job *job, const corax_check_job_options *o,
     l->unknown_confidence = corax_tally_new();
     corax_status rc = l->unknown_kind && l->unknown_confidence ? CORAX_OK : CORAX_ENOMEM;
     for (size_t f = 0; f < o->nlogs && rc == CORAX_OK; f++) {
-        corax_table *t;
-        rc = job_table_load(job, CORAX_ROLE_STRUCTURES, o->logs[f], &o->log, &t);
-        if (rc == CORAX_OK && (rc = keep_table(l, t)) != CORAX_OK)
-            job_error(job, NULL, 0, "out of memory");
-        if (rc != CORAX_OK)
+        corax_table *t = job_table_keep(job, CORAX_ROLE_STRUCTURES, o->logs[f], &o->log,
+                                        &l->table, &l->ntables);
+        if (!t) {
+            rc = CORAX_EFORMAT;
             break;
+        }
         long col[NL];
         if ((rc = job_table_columns(job, t, &o->log, log_names, NL, col)) != CORAX_OK)
             break;

@@ -272,6 +272,24 @@ corax_status job_table_load(corax_job *job, corax_table_role role, const char *p
     return CORAX_OK;
 }
 
+corax_table *job_table_keep(corax_job *job, corax_table_role role, const char *path,
+                            const corax_table_settings *settings, corax_table ***tables,
+                            size_t *n)
+{
+    corax_table *t;
+    if (job_table_load(job, role, path, settings, &t) != CORAX_OK)
+        return NULL;
+    corax_table **tt = realloc(*tables, (*n + 1) * sizeof *tt);
+    if (!tt) {
+        corax_table_free(t);
+        job_error(job, NULL, 0, "out of memory");
+        return NULL;
+    }
+    *tables = tt;
+    tt[(*n)++] = t;
+    return t;
+}
+
 corax_status job_table_columns(corax_job *job, const corax_table *t,
                                const corax_table_settings *settings, const char *const *names,
                                size_t n, long *col)

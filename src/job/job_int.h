@@ -65,6 +65,12 @@ void job_table_read(corax_job *job, corax_table_role role, const char *path, dou
 corax_status job_table_load(corax_job *job, corax_table_role role, const char *path,
                             const corax_table_settings *settings, corax_table **out);
 
+/* job_table_load(), the table kept in *tables (*n of them); NULL, the
+ * message given, when it cannot be read or kept. */
+corax_table *job_table_keep(corax_job *job, corax_table_role role, const char *path,
+                            const corax_table_settings *settings, corax_table ***tables,
+                            size_t *n);
+
 /* The columns of logical names in a whole table, by its header names: OK,
  * or CORAX_EFORMAT with "no 'X' column in the header, which the column
  * names give for Y" said for a mapped name the table lacks. */

@@ -1,5 +1,5 @@
-/* cli: `corax solve`, planes from alpha-only readings of one feature in
- * several holes: the set's candidates ranked, with their misfit and, by
+/* job: the solve job, planes from alpha-only readings of one feature in
+ * several holes: each set's candidates ranked, with their misfit and, by
  * Monte Carlo, their cones; every reading's place and residual on request. */
 #include <math.h>
 #include <stdarg.h>
@@ -8,60 +8,19 @@
 #include <string.h>
 #include <strings.h>
 
-#include "cli/cli.h"
+#include "corax/corax.h"
 #include "io/fields.h"
+#include "job/job_int.h"
 
-static const char solve_help[] =
-    "usage: corax solve --collars FILE --surveys FILE [options] [-o FILE] READINGS...\n"
-    "\n"
-    "Solve planes from alpha alone. READINGS are tables (CSV, or - for standard\n"
-    "input) with hole, depth, alpha and set columns (optional alpha_error,\n"
-    "depth_error); the readings of one set are taken to be parallel planes (a\n"
-    "marker bed, a vein set). Each reading puts the plane's normal on a cone\n"
-    "about its hole (90 - alpha from the core axis); the plane is where the\n"
-    "cones of two or more holes meet.\n"
-    "\n"
-    "Output, one row per set and candidate, best first: set, candidate, dip,\n"
-    "dip_direction, holes, readings, misfit (RMS angle of the readings' cones\n"
-    "from the plane's normal), cone95 (half-angle holding 95% of the Monte\n"
-    "Carlo solutions), status, note.\n"
-    "\n"
-    "  --parallel-limit DEG      holes whose axes all lie within this of one another\n"
-    "                            are too near parallel to solve (default 15)\n"
-    "  --residuals FILE          every reading, in order: its columns, hole_azimuth,\n"
-    "                            hole_plunge, residual (from candidate 1), status, note\n"
-    "  --svg FILE                a stereonet: every reading's small circle and the\n"
-    "                            solved poles with their cones\n"
-    "  --draw-sets LIST          only these sets on the stereonet (comma-separated)\n"
-    "  --title TEXT              the stereonet's title\n"
-    "Uncertainty (Monte Carlo; 1-sigma errors in degrees, depth in metres):\n"
-    "  --draws N                 draws per set (default 1000; 0: no cone95)\n"
-    "  --seed S                  the generator's seed (default 1)\n"
-    "  --alpha-error DEG         alpha reading (default 2); candidates whose fit is\n"
-    "                            as good within this error are all given\n"
-    "  --depth-error M           depth of a reading (default 0.05)\n"
-    "  --azimuth-error DEG, --dip-error DEG   survey, each station (1, 0.5)\n"
-    "  --azimuth-error-per-hole DEG, --dip-error-per-hole DEG   shared by a hole\n"
-    "                            (0.5, 0.25)\n"
-    "\n"
-    "Status: solved; ambiguous (several planes fit as well: each is a row);\n"
-    "parallel-holes; one-hole; one-reading; no-readings (the note says why).\n"
-    "A reading that cannot be used is named on standard error and left out.\n"
-    "\n";
-
-enum { OPT_PARALLEL_LIMIT = OPT_COMMAND_BASE, OPT_RESIDUALS, OPT_SVG, OPT_DRAW_SETS, OPT_TITLE };
-
+/* One solve: its job, options, inputs and output. */
 typedef struct solve_opts {
-    cli_common c;
-    corax_error_model errors;
-    size_t draws;
-    uint64_t seed;
-    corax_solve_options solve;
-    const char *residuals, *svg, *title, *draw_sets;
-    cli_files inputs;
+    corax_job *job;
+    const corax_solve_job_options *p;
+    const char *const *inputs;
+    size_t ninputs;
+    const char *output;
 } solve_opts;
 
-/* One row of a readings table, read. */
 typedef struct reading_row {
     const corax_table *table;
     size_t row;
@@ -92,57 +51,6 @@ typedef struct solve_data {
 enum { C_HOLE, C_DEPTH, C_ALPHA, C_SET, C_ALPHA_ERROR, C_DEPTH_ERROR, NC };
 static const char *const col_names[NC] = {"hole", "depth", "alpha", "set", "alpha_error",
                                           "depth_error"};
-
-static int solve_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
-{
-    solve_opts *o = ctx;
-    int k = cli_uncertainty_option(&o->errors, &o->draws, &o->seed, 0, opt, arg, why, wl);
-    if (k)
-        return k < 0 ? -1 : 0;
-    double v;
-    switch (opt) {
-    case OPT_PARALLEL_LIMIT:
-        if (cli_value_number(arg, 0, 90, &v, why, wl))
-            return -1;
-        o->solve.parallel_limit = corax_rad(v);
-        return 0;
-    case OPT_RESIDUALS: o->residuals = arg; return 0;
-    case OPT_SVG: o->svg = arg; return 0;
-    case OPT_DRAW_SETS: o->draw_sets = arg; return 0;
-    case OPT_TITLE: o->title = arg; return 0;
-    }
-    snprintf(why, wl, "not an option of this command");
-    return -1;
-}
-
-static int parse(int argc, char **argv, solve_opts *o)
-{
-    static const struct option longopts[] = {
-        CLI_COMMON_OPTIONS,
-        CLI_UNCERTAINTY_OPTIONS,
-        {"parallel-limit", required_argument, NULL, OPT_PARALLEL_LIMIT},
-        {"residuals", required_argument, NULL, OPT_RESIDUALS},
-        {"svg", required_argument, NULL, OPT_SVG},
-        {"draw-sets", required_argument, NULL, OPT_DRAW_SETS},
-        {"title", required_argument, NULL, OPT_TITLE},
-        {NULL, 0, NULL, 0},
-    };
-    int rc = cli_parse(argc, argv, &o->c, longopts, solve_help, 1, solve_option, o);
-    if (rc != 0)
-        return rc;
-    if (cli_files_from_args(&o->inputs, &o->c, argc, argv))
-        return EXIT_DATA;
-    if (o->inputs.n == 0)
-        return cli_usage("solve", "no READINGS table (hole, depth, alpha, set; or - for "
-                                  "standard input)");
-    if (cli_files_stdin_once(&o->inputs, "solve"))
-        return EXIT_USAGE;
-    for (size_t i = 0; i < o->inputs.n; i++)
-        cli_input(&o->c, "a readings table", o->inputs.path[i]);
-    cli_output(&o->c, "--residuals", o->residuals);
-    cli_output(&o->c, "--svg", o->svg);
-    return cli_common_finish(&o->c, 1);
-}
 
 /* ---- the readings ---- */
 
@@ -200,7 +108,7 @@ static int own_error(const corax_row *row, long col, char decimal, const char *n
 }
 
 /* Read one row: its set, its values and its place down the hole. */
-static int read_row(const solve_opts *o, const corax_program *prog, solve_data *d,
+static corax_status read_row(const solve_opts *o, const corax_program *prog, solve_data *d,
                     const corax_table *t, size_t i, const long *col, const char **field)
 {
     reading_row *rr = &d->rows[d->nrows++];
@@ -215,7 +123,7 @@ static int read_row(const solve_opts *o, const corax_program *prog, solve_data *
     corax_table_info info;
     corax_table_read_info(t, &info);
     char decimal = info.format.decimal;
-    double unit = cli_table_settings(&o->c, CLI_STRUCTURES).unit;
+    double unit = o->p->readings.unit;
     size_t sl, hl;
     const char *set = corax_field_text(&row, col[C_SET], &sl);
     while (sl && (*set == ' ' || *set == '\t')) {
@@ -225,11 +133,11 @@ static int read_row(const solve_opts *o, const corax_program *prog, solve_data *
     while (sl && (set[sl - 1] == ' ' || set[sl - 1] == '\t'))
         sl--;
     if (sl && (rr->set = set_of(d, set, sl)) < 0)
-        return EXIT_DATA;
+        return CORAX_EFORMAT;
     const char *name = corax_field_text(&row, col[C_HOLE], &hl);
     double depth = NAN, alpha = NAN;
-    rr->r.alpha_error = o->errors.alpha;
-    rr->r.depth_error = o->errors.depth;
+    rr->r.alpha_error = o->p->errors.alpha;
+    rr->r.depth_error = o->p->errors.depth;
     if (corax_field_ragged(&row, corax_table_columns(t), why, sizeof why) ||
         corax_field_number(&row, col[C_DEPTH], decimal, "depth", &depth, why, sizeof why) ||
         !corax_field_nonnegative(depth, "depth", why, sizeof why) ||
@@ -258,8 +166,8 @@ static int read_row(const solve_opts *o, const corax_program *prog, solve_data *
     else if (rr->set >= 0 && rr->place.conditions)
         d->sets[rr->set].assumed++;
     if (rr->why)
-        cli_error(corax_table_path(t), corax_table_line(t, i), "%s; left out", rr->why);
-    return EXIT_OK;
+        job_error(o->job, corax_table_path(t), corax_table_line(t, i), "%s; left out", rr->why);
+    return CORAX_OK;
 }
 
 /* Same header names, in the same order (without regard to case). */
@@ -273,26 +181,25 @@ static int same_header(const corax_table *a, const corax_table *b)
     return 1;
 }
 
-static int load(const solve_opts *o, const corax_program *prog, solve_data *d)
+static corax_status load(const solve_opts *o, const corax_program *prog, solve_data *d)
 {
-    for (size_t f = 0; f < o->inputs.n; f++) {
-        corax_table *t =
-            cli_table_keep((cli_common *)&o->c, CLI_STRUCTURES, o->inputs.path[f], &d->tables, &d->ntables);
+    for (size_t f = 0; f < o->ninputs; f++) {
+        corax_table *t = job_table_keep(o->job, CORAX_ROLE_STRUCTURES, o->inputs[f],
+                                        &o->p->readings, &d->tables, &d->ntables);
         if (!t)
-            return EXIT_DATA;
+            return CORAX_EFORMAT;
         long col[NC];
-        corax_table_settings ts = cli_table_settings(&o->c, CLI_STRUCTURES);
-        if (cli_table_columns(&o->c, t, &ts, col_names, NC, col))
-            return EXIT_DATA;
+        if (job_table_columns(o->job, t, &o->p->readings, col_names, NC, col) != CORAX_OK)
+            return CORAX_EFORMAT;
         for (int k = 0; k <= C_SET; k++)
             if (col[k] < 0) {
-                cli_error(o->inputs.path[f], 1, "no '%s' column in the header", col_names[k]);
-                return EXIT_DATA;
+                job_error(o->job, o->inputs[f], 1, "no '%s' column in the header", col_names[k]);
+                return CORAX_EFORMAT;
             }
         if (f > 0 && !same_header(t, d->tables[0])) {
-            cli_error(o->inputs.path[f], 1, "the header differs from the first table's; solve "
+            job_error(o->job, o->inputs[f], 1, "the header differs from the first table's; solve "
                       "them separately or give them the same columns");
-            return EXIT_DATA;
+            return CORAX_EFORMAT;
         }
         size_t rows = corax_table_rows(t);
         reading_row *p = realloc(d->rows, (d->nrows + rows + 1) * sizeof *p);
@@ -301,26 +208,26 @@ static int load(const solve_opts *o, const corax_program *prog, solve_data *d)
             free(field);
             if (p)
                 d->rows = p;
-            return EXIT_DATA;
+            return CORAX_EFORMAT;
         }
         d->rows = p;
-        int rc = EXIT_OK;
-        for (size_t r = 0; r < rows && rc == EXIT_OK; r++)
+        corax_status rc = CORAX_OK;
+        for (size_t r = 0; r < rows && rc == CORAX_OK; r++)
             rc = read_row(o, prog, d, t, r, col, field);
         free(field);
-        if (rc != EXIT_OK)
+        if (rc != CORAX_OK)
             return rc;
     }
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
 /* ---- solving ---- */
 
-static int solve_sets(const solve_opts *o, solve_data *d)
+static corax_status solve_sets(const solve_opts *o, solve_data *d)
 {
     corax_solve_reading *r = malloc((d->nrows + 1) * sizeof *r);
     if (!r)
-        return EXIT_DATA;
+        return CORAX_EFORMAT;
     corax_status st = CORAX_OK;
     for (size_t k = 0; k < d->nsets && st == CORAX_OK; k++) {
         solve_set *s = &d->sets[k];
@@ -332,20 +239,20 @@ static int solve_sets(const solve_opts *o, solve_data *d)
             st = CORAX_ENOMEM;
         if (st == CORAX_OK)
             st = corax_solve_place(r, n, s->cones, NULL);
-        corax_solve_options so = o->solve;
-        so.alpha_error = o->errors.alpha;
+        corax_solve_options so = o->p->solve;
+        so.alpha_error = o->p->errors.alpha;
         if (st == CORAX_OK)
             st = corax_solve_cones(s->cones, n, &so, &s->result);
-        if (st == CORAX_OK && o->draws && s->result.ncandidates)
-            st = corax_solve_draws(r, n, &o->errors, o->draws,
-                                   corax_mc_hole_seed(o->seed, s->name, 0), &s->result);
+        if (st == CORAX_OK && o->p->draws && s->result.ncandidates)
+            st = corax_solve_draws(r, n, &o->p->errors, o->p->draws,
+                                   corax_mc_hole_seed(o->p->seed, s->name, 0), &s->result);
     }
     free(r);
     if (st != CORAX_OK) {
-        cli_error(NULL, 0, "cannot solve: %s", corax_strerror(st));
-        return EXIT_DATA;
+        job_error(o->job, NULL, 0, "cannot solve: %s", corax_strerror(st));
+        return CORAX_EFORMAT;
     }
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
 /* ---- output ---- */
@@ -371,7 +278,7 @@ static void note_add(char *buf, size_t size, const char *fmt, ...)
 static void set_note(const solve_opts *o, const solve_set *s, size_t k, char *note, size_t size)
 {
     const corax_solve_result *r = &s->result;
-    double limit = corax_deg(o->solve.parallel_limit);
+    double limit = corax_deg(o->p->solve.parallel_limit);
     note[0] = '\0';
     switch (r->status) {
     case CORAX_SOLVE_NO_READINGS:
@@ -410,7 +317,7 @@ static void set_note(const solve_opts *o, const solve_set *s, size_t k, char *no
     case CORAX_SOLVE_SOLVED:
         break;
     }
-    if (r->ncandidates && r->candidate[k].misfit > 3.0 * o->errors.alpha && o->errors.alpha > 0)
+    if (r->ncandidates && r->candidate[k].misfit > 3.0 * o->p->errors.alpha && o->p->errors.alpha > 0)
         note_add(note, size, "the misfit is over three times the alpha error: are these "
                  "readings one set of parallel planes, and their alphas right?");
     if (s->assumed)
@@ -429,32 +336,32 @@ static corax_writer *open_output(const solve_opts *o, const char *path)
     corax_writer *w;
     corax_error err;
     corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(o->c.outputs, path, &w, &err);
+    corax_status st = corax_writer_open_in(o->job->outputs, path, &w, &err);
     if (st != CORAX_OK) {
-        cli_error_record(&err, st);
+        job_error_record(o->job, &err, st);
         return NULL;
     }
     return w;
 }
 
-/* Put an output in place: EXIT_OK, or EXIT_DATA with the message printed. */
-static int commit_output(corax_writer *w)
+/* Put an output in place: CORAX_OK, or its status with the message given. */
+static corax_status commit_output(const solve_opts *o, corax_writer *w)
 {
     corax_error err;
     corax_error_clear(&err);
     corax_status st = corax_writer_commit(w, &err);
     if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
+        job_error_record(o->job, &err, st);
+        return job_failed(st);
     }
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
-static int write_sets(const solve_opts *o, const solve_data *d)
+static corax_status write_sets(const solve_opts *o, const solve_data *d)
 {
-    corax_writer *w = open_output(o, o->c.output);
+    corax_writer *w = open_output(o, o->output);
     if (!w)
-        return EXIT_DATA;
+        return CORAX_EFORMAT;
     static const char head[] =
         "set,candidate,dip,dip_direction,holes,readings,misfit,cone95,status,note\n";
     corax_writer_text(w, head, sizeof head - 1);
@@ -489,15 +396,15 @@ static int write_sets(const solve_opts *o, const solve_data *d)
             corax_writer_end_row(w);
         }
     }
-    return commit_output(w);
+    return commit_output(o, w);
 }
 
 /* Every reading in order, with its place and its residual from candidate 1. */
-static int write_residuals(const solve_opts *o, const solve_data *d)
+static corax_status write_residuals(const solve_opts *o, const solve_data *d)
 {
-    corax_writer *w = open_output(o, o->residuals);
+    corax_writer *w = open_output(o, o->p->residuals);
     if (!w)
-        return EXIT_DATA;
+        return CORAX_EFORMAT;
     for (size_t c = 0; d->ntables && c < corax_table_columns(d->tables[0]); c++)
         text(w, corax_table_header_name(d->tables[0], c));
     static const char *const more[] = {"hole_azimuth", "hole_plunge", "residual", "status", "note"};
@@ -539,16 +446,16 @@ static int write_residuals(const solve_opts *o, const solve_data *d)
         text(w, note);
         corax_writer_end_row(w);
     }
-    return commit_output(w);
+    return commit_output(o, w);
 }
 
 /* Whether a set is to be drawn: every set, or those in --draw-sets. */
 static int drawn(const solve_opts *o, const char *name)
 {
-    if (!o->draw_sets)
+    if (!o->p->draw_sets)
         return 1;
     size_t len = strlen(name);
-    for (const char *p = o->draw_sets; *p;) {
+    for (const char *p = o->p->draw_sets; *p;) {
         const char *end = strchr(p, ',');
         size_t n = end ? (size_t)(end - p) : strlen(p);
         if (n == len && strncasecmp(p, name, n) == 0)
@@ -560,15 +467,15 @@ static int drawn(const solve_opts *o, const char *name)
 
 /* The stereonet: one net per set, its readings' small circles and its solved
  * poles with their cones. */
-static int write_net(const solve_opts *o, const solve_data *d)
+static corax_status write_net(const solve_opts *o, const solve_data *d)
 {
     static const char *const labels[CORAX_SOLVE_MAX] = {"1", "2", "3", "4", "5", "6", "7", "8"};
     corax_net_set *sets = calloc(d->nsets + 1, sizeof *sets);
     corax_net_circle *circles = calloc(d->nrows + 1, sizeof *circles);
     corax_net_pick *picks = calloc(d->nsets * CORAX_SOLVE_MAX + 1, sizeof *picks);
     size_t nsets = 0, nc = 0, np = 0;
-    int rc = sets && circles && picks ? EXIT_OK : EXIT_DATA;
-    for (size_t k = 0; rc == EXIT_OK && k < d->nsets; k++) {
+    corax_status rc = sets && circles && picks ? CORAX_OK : CORAX_EFORMAT;
+    for (size_t k = 0; rc == CORAX_OK && k < d->nsets; k++) {
         const solve_set *s = &d->sets[k];
         if (!drawn(o, s->name))
             continue;
@@ -587,22 +494,22 @@ static int write_net(const solve_opts *o, const solve_data *d)
     }
     corax_net_style style = corax_net_style_default();
     style.contours = 0;
-    style.title = o->title ? o->title : "Planes from alpha alone";
+    style.title = o->p->title ? o->p->title : "Planes from alpha alone";
     corax_svg *svg = NULL;
     corax_status st = CORAX_OK;
-    if (rc == EXIT_OK && nsets == 0) {
-        cli_error(NULL, 0, "--draw-sets names no set of the readings: no stereonet drawn");
-        rc = EXIT_DATA;
+    if (rc == CORAX_OK && nsets == 0) {
+        job_error(o->job, NULL, 0, "--draw-sets names no set of the readings: no stereonet drawn");
+        rc = CORAX_EFORMAT;
     }
-    if (rc == EXIT_OK && (st = corax_stereonet_page(sets, nsets, &style, 1, &svg)) != CORAX_OK) {
-        cli_error(NULL, 0, "cannot draw the net: %s", corax_strerror(st));
-        rc = EXIT_DATA;
+    if (rc == CORAX_OK && (st = corax_stereonet_page(sets, nsets, &style, 1, &svg)) != CORAX_OK) {
+        job_error(o->job, NULL, 0, "cannot draw the net: %s", corax_strerror(st));
+        rc = CORAX_EFORMAT;
     }
     corax_error err;
     corax_error_clear(&err);
-    if (rc == EXIT_OK && (st = corax_svg_save(svg, o->c.outputs, o->svg, &err)) != CORAX_OK) {
-        cli_error_record(&err, st);
-        rc = EXIT_DATA;
+    if (rc == CORAX_OK && (st = corax_svg_save(svg, o->job->outputs, o->p->svg, &err)) != CORAX_OK) {
+        job_error_record(o->job, &err, st);
+        rc = job_failed(st);
     }
     corax_svg_free(svg);
     free(sets);
@@ -611,80 +518,66 @@ static int write_net(const solve_opts *o, const solve_data *d)
     return rc;
 }
 
-static int write_about(const solve_opts *o)
+static void record(corax_record *a, const solve_opts *o)
 {
-    cli_about *a = cli_about_new("solve", &o->c);
     corax_record_section(a, "solve");
-    for (size_t i = 0; i < o->inputs.n; i++)
-        corax_record_set(a, "readings", "%s", o->inputs.path[i]);
-    corax_record_set(a, "parallel_limit", "%g", corax_deg(o->solve.parallel_limit));
-    corax_record_set(a, "ties", "planes whose sum of squared misfits exceeds the best's by less "
-                  "than 5.99 alpha_error^2 (chi-square, two degrees of freedom, 95%%)");
-    if (o->residuals)
-        corax_record_set(a, "residuals", "%s", o->residuals);
-    if (o->svg)
-        corax_record_set(a, "svg", "%s", o->svg);
-    if (o->draws)
-        corax_record_uncertainty(a, &o->errors, o->draws, o->seed, 0);
-    return cli_about_commit(a, &o->c);
+    for (size_t i = 0; i < o->ninputs; i++)
+        corax_record_set(a, "readings", "%s", o->inputs[i]);
+    corax_record_set(a, "parallel_limit", "%g", corax_deg(o->p->solve.parallel_limit));
+    corax_record_set(a, "ties", "planes whose sum of squared misfits exceeds the best's by "
+                     "less than 5.99 alpha_error^2 (chi-square, two degrees of freedom, 95%%)");
+    if (o->p->residuals)
+        corax_record_set(a, "residuals", "%s", o->p->residuals);
+    if (o->p->svg)
+        corax_record_set(a, "svg", "%s", o->p->svg);
+    if (o->p->draws)
+        corax_record_uncertainty(a, &o->p->errors, o->p->draws, o->p->seed, 0);
 }
 
-static void summary(const solve_opts *o, const solve_data *d)
+static void summarise(const solve_data *d, corax_solve_job_summary *sum)
 {
-    size_t count[CORAX_SOLVE_NO_READINGS + 1] = {0}, left = 0;
+    sum->sets = d->nsets;
     for (size_t k = 0; k < d->nsets; k++)
-        count[d->sets[k].result.status]++;
+        sum->count[d->sets[k].result.status]++;
+    sum->readings = d->nrows;
     for (size_t i = 0; i < d->nrows; i++)
-        left += d->rows[i].why != NULL;
-    if (o->c.quiet)
-        return;
-    fprintf(stderr, "corax: %zu set%s%s", d->nsets, d->nsets == 1 ? "" : "s", d->nsets ? ":" : "");
-    int first = 1;
-    for (int s = 0; s <= CORAX_SOLVE_NO_READINGS; s++)
-        if (count[s]) {
-            fprintf(stderr, "%s %zu %s", first ? "" : ",", count[s],
-                    corax_solve_status_name((corax_solve_status)s));
-            first = 0;
-        }
-    if (left)
-        fprintf(stderr, "; %zu of %zu readings left out", left, d->nrows);
-    fputc('\n', stderr);
+        sum->left_out += d->rows[i].why != NULL;
 }
 
-int cmd_solve(int argc, char **argv)
+corax_solve_job_options corax_solve_job_options_default(void)
 {
-    solve_opts o;
+    corax_solve_job_options o;
     memset(&o, 0, sizeof o);
-    cli_common_init(&o.c, "solve");
+    o.solve = corax_solve_options_default();
     o.errors = corax_error_model_default();
     o.draws = 1000;
     o.seed = 1;
-    o.solve = corax_solve_options_default();
-    int rc;
-    corax_program *prog;
+    o.readings = corax_table_settings_default();
+    return o;
+}
+
+corax_status corax_solve_job_run(corax_job *job, const corax_program *prog,
+                                 const corax_solve_job_options *options,
+                                 const char *const *inputs, size_t ninputs, const char *output,
+                                 corax_solve_job_summary *sum)
+{
+    solve_opts o = {job, options, inputs, ninputs, output};
     solve_data d;
     memset(&d, 0, sizeof d);
-    if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc)) {
-        cli_files_free(&o.inputs);
-        return rc;
-    }
-    rc = load(&o, prog, &d);
-    if (rc == EXIT_OK)
+    memset(sum, 0, sizeof *sum);
+    corax_status rc = load(&o, prog, &d);
+    if (rc == CORAX_OK)
         rc = solve_sets(&o, &d);
-    if (rc == EXIT_OK)
+    if (rc == CORAX_OK)
         rc = write_sets(&o, &d);
-    if (rc == EXIT_OK && o.residuals)
+    if (rc == CORAX_OK && options->residuals)
         rc = write_residuals(&o, &d);
-    if (rc == EXIT_OK && o.svg)
+    if (rc == CORAX_OK && options->svg)
         rc = write_net(&o, &d);
-    if (rc == EXIT_OK && write_about(&o) != 0)
-        rc = EXIT_DATA;
-    if (rc == EXIT_OK)
-        summary(&o, &d);
+    if (rc == CORAX_OK) {
+        record(job->record, &o);
+        summarise(&d, sum);
+    }
     data_free(&d);
-    corax_program_free(prog);
-    cli_files_free(&o.inputs);
-    rc = cli_run_end(&o.c, rc);
-    cli_common_free(&o.c);
     return rc;
 }
