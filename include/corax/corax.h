@@ -22,6 +22,7 @@
 #include "corax/job_plan.h"
 #include "corax/job_section.h"
 #include "corax/job_solve.h"
+#include "corax/job_stereonet.h"
 #include "corax/job_trace.h"
 #include "corax/load.h"
 #include "corax/magnetic.h"

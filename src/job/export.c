@@ -69,7 +69,7 @@ static int export_csv(const export_opts *o, corax_writer *w, size_t *written, si
     csv_run r = {o->job, w, corax_carry_new(drop, 12), 0, 0};
     if (!r.carry) {
         job_error(o->job, NULL, 0, "out of memory");
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     export_visit v = {csv_header, csv_begin, csv_row, 0};
     int rc = export_each_structure(o, &v, &r);
@@ -175,7 +175,7 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
     export_visit visit = {NULL, NULL, vtk_row, 0};
     int rc = export_each_structure(o, &visit, &v);
     *left_out = visit.left_out + v.no_plane;
-    if (rc == EXPORT_OK) {
+    if (rc == JOB_OK) {
         char title[200];
         snprintf(title, sizeof title, "corax %s export: hole traces and structures; metres, x "
                  "east, y north, z up", CORAX_VERSION);
@@ -188,7 +188,7 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
             corax_export_vtk(o->job->outputs, o->output, prog, v.item, v.n, &opt, &counts, &err);
         if (st != CORAX_OK) {
             job_error_record(o->job, &err, st);
-            rc = EXPORT_FAILED;
+            rc = JOB_FAILED;
         } else {
             *written = counts.structures;
             if (o->p->vtk.traces && counts.traces == 0)
@@ -209,7 +209,7 @@ static int export_csv_table(const export_opts *o, const corax_program *prog, cor
     corax_status st = corax_writer_open_in(o->job->outputs, o->output, &w, &err);
     if (st != CORAX_OK) {
         job_error_record(o->job, &err, st);
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     export_sink sink = {w, NULL, NULL, 0};
     int rc = o->p->nintervals ? export_intervals(o, prog, &o->p->intervals[0], &sink)
@@ -219,15 +219,15 @@ static int export_csv_table(const export_opts *o, const corax_program *prog, cor
         corax_record_section(a, "results");
         corax_record_set(a, o->p->nintervals ? "intervals" : "contacts", "%zu", sink.written);
     }
-    if (rc != EXPORT_OK) {
+    if (rc != JOB_OK) {
         corax_writer_discard(w);
         return rc;
     }
     if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
         job_error_record(o->job, &err, st);
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
-    return EXPORT_OK;
+    return JOB_OK;
 }
 
 static int run(const export_opts *o, const corax_program *prog, corax_record *a,
@@ -238,7 +238,7 @@ static int run(const export_opts *o, const corax_program *prog, corax_record *a,
     corax_kinds *kinds = corax_kinds_new();
     if (!kinds) {
         job_error(o->job, NULL, 0, "out of memory");
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     int structures =
         o->p->format != CORAX_EXPORT_JOB_GIS && !o->p->nintervals && !o->p->contacts;
@@ -254,7 +254,7 @@ static int run(const export_opts *o, const corax_program *prog, corax_record *a,
         rc = export_intervals_vtk(o, prog, a);
     else
         rc = export_vtk(o, prog, kinds, &written, &left_out);
-    if (rc == EXPORT_OK && structures) {
+    if (rc == JOB_OK && structures) {
         if (left_out)
             job_note(o->job, "%zu row%s without a position or orientation left out", left_out,
                      left_out == 1 ? "" : "s");
@@ -294,8 +294,8 @@ corax_status corax_export_job_run(corax_job *job, const corax_program *prog,
     memset(sum, 0, sizeof *sum);
     corax_record *a = job->record ? corax_record_new() : NULL; /* kept when the job is done */
     int rc = run(&o, prog, a, sum);
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         corax_record_append(job->record, a);
     corax_record_free(a);
-    return rc == EXPORT_OK ? CORAX_OK : rc == EXPORT_USAGE ? CORAX_EARG : CORAX_EFORMAT;
+    return job_status(rc);
 }

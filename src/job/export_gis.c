@@ -31,7 +31,7 @@ static int planned(const plan *p, const char *name)
     return 0;
 }
 
-/* Every layer this export can write, in order; 0, or EXPORT_USAGE (the
+/* Every layer this export can write, in order; 0, or JOB_USAGE (the
  * message given) for a layer name given twice or layers naming none of
  * them. */
 static int make_plan(const export_opts *o, const corax_program *prog, int cad, plan *p)
@@ -60,7 +60,7 @@ static int make_plan(const export_opts *o, const corax_program *prog, int cad, p
             if (strcasecmp(all[i], all[j]) == 0) {
                 job_usage(o->job, "two layers named '%s': name the interval table's layer "
                           "otherwise with --intervals LAYER=FILE", all[i]);
-                return EXPORT_USAGE;
+                return JOB_USAGE;
             }
     if (p->n == 0) {
         char list[600] = "";
@@ -70,7 +70,7 @@ static int make_plan(const export_opts *o, const corax_program *prog, int cad, p
                                      all[i]);
         job_usage(o->job, "--layers names none of this export's layers (%s)",
                   nall ? list : "none");
-        return EXPORT_USAGE;
+        return JOB_USAGE;
     }
     return 0;
 }
@@ -190,7 +190,7 @@ static int gis_structures_layer(const export_opts *o, corax_gis *g, corax_record
     corax_error_clear(&r.err);
     if (!(r.carry = corax_carry_new(drop, 4))) {
         job_error(o->job, NULL, 0, "out of memory");
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     export_visit v = {gis_header, gis_begin, gis_row, 0};
     int rc = export_each_structure(o, &v, &r);
@@ -208,9 +208,9 @@ static int gis_structures_layer(const export_opts *o, corax_gis *g, corax_record
 static int layer_status(corax_job *job, corax_status st, const corax_error *err)
 {
     if (st == CORAX_OK)
-        return EXPORT_OK;
+        return JOB_OK;
     job_error_record(job, err, st);
-    return EXPORT_FAILED;
+    return JOB_FAILED;
 }
 
 static int program_layers(const export_opts *o, const corax_program *prog, corax_gis *g,
@@ -237,13 +237,13 @@ static int program_layers(const export_opts *o, const corax_program *prog, corax
 static int table_layers(const export_opts *o, const corax_program *prog, corax_gis *g,
                         const plan *p, corax_record *a)
 {
-    int rc = EXPORT_OK;
+    int rc = JOB_OK;
     if (planned(p, LAYER_FINDINGS)) {
         export_sink sink = {NULL, g, LAYER_FINDINGS, 0};
         rc = export_findings(o, prog, &sink);
         corax_record_set(a, LAYER_FINDINGS, "%zu (from %s)", sink.written, o->p->findings);
     }
-    for (int i = 0; rc == EXPORT_OK && i < o->p->nintervals; i++) {
+    for (int i = 0; rc == JOB_OK && i < o->p->nintervals; i++) {
         if (!planned(p, o->p->intervals[i].layer))
             continue;
         export_sink sink = {NULL, g, o->p->intervals[i].layer, 0};
@@ -251,7 +251,7 @@ static int table_layers(const export_opts *o, const corax_program *prog, corax_g
         corax_record_set(a, o->p->intervals[i].layer, "%zu intervals (from %s)", sink.written,
                       o->p->intervals[i].path);
     }
-    if (rc == EXPORT_OK && planned(p, LAYER_CONTACTS)) {
+    if (rc == JOB_OK && planned(p, LAYER_CONTACTS)) {
         export_sink sink = {NULL, g, LAYER_CONTACTS, 0};
         rc = export_contacts(o, prog, &sink, a);
         corax_record_set(a, LAYER_CONTACTS, "%zu (from %s)", sink.written, o->p->contacts);
@@ -268,19 +268,19 @@ int export_gis(const export_opts *o, const corax_program *prog, corax_record *a)
                                       o->p->crs, &g, &err);
     if (st != CORAX_OK) {
         job_error_record(o->job, &err, st);
-        return st == CORAX_EIO ? EXPORT_FAILED : EXPORT_USAGE;
+        return st == CORAX_EIO ? JOB_FAILED : JOB_USAGE;
     }
     plan p;
     int rc = make_plan(o, prog, corax_gis_cad(g), &p);
     corax_record_set(a, "driver", "%s (GDAL %s)", corax_gis_driver_name(g), corax_gis_gdal_version());
     corax_record_section(a, "layers");
-    if (rc == EXPORT_OK && planned(&p, LAYER_STRUCTURES))
+    if (rc == JOB_OK && planned(&p, LAYER_STRUCTURES))
         rc = gis_structures_layer(o, g, a);
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = program_layers(o, prog, g, &p, a);
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = table_layers(o, prog, g, &p, a);
-    if (rc != EXPORT_OK) {
+    if (rc != JOB_OK) {
         corax_gis_discard(g);
         return rc;
     }

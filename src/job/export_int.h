@@ -13,10 +13,6 @@
 #include "io/carry.h"
 #include "job/job_int.h"
 
-/* How a step of the export ended: done, failed (its messages said why), or
- * asked for what cannot be done as asked. */
-enum { EXPORT_OK = 0, EXPORT_FAILED = 1, EXPORT_USAGE = 2 };
-
 typedef corax_export_table export_table;
 
 /* One export: its job, options, inputs and output. */
@@ -57,7 +53,7 @@ typedef struct export_visit {
     size_t left_out;             /* rows without a position or orientation */
 } export_visit;
 
-/* Go over the converted tables. EXPORT_OK, or EXPORT_FAILED with the
+/* Go over the converted tables. JOB_OK, or JOB_FAILED with the
  * messages given (faulty rows are all reported, and fail the run). */
 int export_each_structure(const export_opts *o, export_visit *v, void *ctx);
 

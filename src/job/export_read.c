@@ -38,27 +38,27 @@ int export_wants(const export_opts *o, const char *layer)
 
 int export_each_structure(const export_opts *o, export_visit *v, void *ctx)
 {
-    int n = o->ninputs, rc = EXPORT_OK, opened = 0;
+    int n = o->ninputs, rc = JOB_OK, opened = 0;
     job_converted *t = calloc(n ? (size_t)n : 1, sizeof *t);
     corax_export_columns *x = calloc(n ? (size_t)n : 1, sizeof *x);
     if (!t || !x) {
         job_error(o->job, NULL, 0, "out of memory");
-        rc = EXPORT_FAILED;
+        rc = JOB_FAILED;
     }
     /* every header first: the output's columns are the union of theirs */
-    for (int k = 0; rc == EXPORT_OK && k < n; k++) {
+    for (int k = 0; rc == JOB_OK && k < n; k++) {
         if (job_converted_open(o->job, &o->p->converted, o->inputs[k], &t[k]) != CORAX_OK) {
-            rc = EXPORT_FAILED;
+            rc = JOB_FAILED;
             break;
         }
         opened = k + 1;
         corax_export_columns_find(&t[k].header, o->p->converted.columns, &x[k]);
         if (v->header && v->header(ctx, k, &t[k].header, &t[k].columns, &x[k]) != 0)
-            rc = EXPORT_FAILED;
+            rc = JOB_FAILED;
     }
-    if (rc == EXPORT_OK && v->begin && v->begin(ctx) != 0)
-        rc = EXPORT_FAILED;
-    for (int k = 0; rc == EXPORT_OK && k < n; k++) {
+    if (rc == JOB_OK && v->begin && v->begin(ctx) != 0)
+        rc = JOB_FAILED;
+    for (int k = 0; rc == JOB_OK && k < n; k++) {
         corax_row row;
         corax_structure s;
         corax_export_extra e;
@@ -74,14 +74,14 @@ int export_each_structure(const export_opts *o, export_visit *v, void *ctx)
                 continue;
             }
             if (v->row(ctx, k, &row, &s, &e) != 0) {
-                rc = EXPORT_FAILED;
+                rc = JOB_FAILED;
                 break;
             }
         }
     }
     for (int k = 0; k < opened; k++)
         if (job_converted_close(&t[k]) != CORAX_OK)
-            rc = EXPORT_FAILED;
+            rc = JOB_FAILED;
     free(t);
     free(x);
     return rc;

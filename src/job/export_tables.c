@@ -66,10 +66,10 @@ static int open_table(const export_opts *o, const char *path, const char *const 
         job_error_record(o->job, &err, st);
         corax_reader_close(*r);
         *r = NULL;
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     memcpy(s->col, col, sizeof col);
-    return EXPORT_OK;
+    return JOB_OK;
 }
 
 static int is_ours(const char *name, const char *const *ours, size_t nours)
@@ -130,12 +130,12 @@ static int scan_table(const export_opts *o, const corax_program *prog, const cha
     memset(s, 0, sizeof *s);
     s->path = path;
     int rc = open_table(o, path, names, nrequired, &r, s, &row);
-    if (rc != EXPORT_OK)
+    if (rc != JOB_OK)
         return rc;
     if (remember_header(s, &row, ours, nours) != 0) {
         corax_reader_close(r);
         job_error(o->job, NULL, 0, "out of memory");
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     corax_error err;
     corax_error_clear(&err);
@@ -168,15 +168,15 @@ static int scan_table(const export_opts *o, const corax_program *prog, const cha
     corax_reader_close(r);
     if (st != CORAX_END) {
         job_error_record(o->job, &err, st);
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     if (!s->iv)
-        return EXPORT_OK;
+        return JOB_OK;
     corax_findings found = {0};
     if (corax_intervals_check(s->iv, s->n, path, hole_label, (void *)prog, &found) != CORAX_OK) {
         corax_findings_clear(&found);
         job_error(o->job, NULL, 0, "out of memory");
-        return EXPORT_FAILED;
+        return JOB_FAILED;
     }
     for (size_t i = 0; i < found.count; i++)
         if (i < MAX_SHOWN)
@@ -184,7 +184,7 @@ static int scan_table(const export_opts *o, const corax_program *prog, const cha
         else if (i == MAX_SHOWN)
             job_warning(o->job, path, 0, "... and %zu more interval problems", found.count - i);
     corax_findings_clear(&found);
-    return EXPORT_OK;
+    return JOB_OK;
 }
 
 static int by_line(const void *a, const void *b)
@@ -303,12 +303,12 @@ static corax_status end_row(export_sink *k, corax_error *err)
 static int sink_status(corax_job *job, corax_status st, const corax_error *err)
 {
     if (st == CORAX_OK)
-        return EXPORT_OK;
+        return JOB_OK;
     if (st == CORAX_ENOMEM)
         job_error(job, NULL, 0, "out of memory");
     else
         job_error_record(job, err, st);
-    return EXPORT_FAILED;
+    return JOB_FAILED;
 }
 
 /* ---- intervals ---- */
@@ -415,7 +415,7 @@ int export_intervals(const export_opts *o, const corax_program *prog, const expo
         ours[i] = interval_fields[i].name;
     scan s;
     int rc = scan_table(o, prog, t->path, interval_names, 3, ours, NI, &s);
-    if (rc != EXPORT_OK) {
+    if (rc != JOB_OK) {
         scan_free(&s);
         return rc;
     }
@@ -428,13 +428,13 @@ int export_intervals(const export_opts *o, const corax_program *prog, const expo
     int layer = -1;
     rc = open_table(o, t->path, interval_names, 3, &r, &s, &row);
     corax_status st = CORAX_OK;
-    if (rc == EXPORT_OK && k->w)
+    if (rc == JOB_OK && k->w)
         csv_header(k, &s, interval_fields, NI);
-    else if (rc == EXPORT_OK)
+    else if (rc == JOB_OK)
         st = make_layer(k, &s, CORAX_GIS_LINES, interval_fields, NI, &layer, &err);
-    while (rc == EXPORT_OK && st == CORAX_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK)
+    while (rc == JOB_OK && st == CORAX_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK)
         st = interval_row(prog, &s, k, layer, &row, &err);
-    if (rc == EXPORT_OK && st != CORAX_END)
+    if (rc == JOB_OK && st != CORAX_END)
         rc = sink_status(o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
@@ -454,11 +454,11 @@ int export_findings(const export_opts *o, const corax_program *prog, export_sink
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = open_table(o, o->p->findings, names, 1, &r, &s, &row);
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         st = make_layer(k, &s, CORAX_GIS_POINTS, NULL, 0, &layer, &err);
-    while (rc == EXPORT_OK && st == CORAX_OK &&
+    while (rc == JOB_OK && st == CORAX_OK &&
            (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         size_t hl;
         const char *name = corax_field_text(&row, s.col[T_HOLE], &hl);
@@ -476,7 +476,7 @@ int export_findings(const export_opts *o, const corax_program *prog, export_sink
             corax_gis_point(k->g, corax_hole_collar(hole)->position);
         st = end_row(k, &err);
     }
-    if (rc == EXPORT_OK && st != CORAX_END)
+    if (rc == JOB_OK && st != CORAX_END)
         rc = sink_status(o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
@@ -560,19 +560,19 @@ static int read_units(contact_data *d)
     scan s;
     const char *none[1] = {NULL};
     int rc = scan_table(d->o, d->prog, d->o->p->contacts, names, 3, none, 0, &s);
-    if (rc == EXPORT_OK && s.col[T_UNIT] < 0) {
+    if (rc == JOB_OK && s.col[T_UNIT] < 0) {
         job_error(d->o->job, d->o->p->contacts, 1, "no '%s' column: name the unit's column with "
                   "--contact-column", column);
-        rc = EXPORT_FAILED;
+        rc = JOB_FAILED;
     }
     corax_reader *r = NULL;
     corax_row row;
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = open_table(d->o, d->o->p->contacts, names, 3, &r, &s, &row);
-    while (rc == EXPORT_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
+    while (rc == JOB_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         size_t hl, ul;
         const char *hole = corax_field_text(&row, s.col[T_HOLE], &hl);
         const char *unit = corax_field_text(&row, s.col[T_UNIT], &ul);
@@ -595,11 +595,11 @@ static int read_units(contact_data *d)
         d->iv = p;
         d->iv[d->niv++] = (hole_interval){h, {from, to, id, row.line}};
     }
-    if (rc == EXPORT_OK && st != CORAX_END)
+    if (rc == JOB_OK && st != CORAX_END)
         rc = sink_status(d->o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
-    if (rc == EXPORT_OK && d->niv > 1)
+    if (rc == JOB_OK && d->niv > 1)
         qsort(d->iv, d->niv, sizeof *d->iv, by_hole_from);
     return rc;
 }
@@ -648,11 +648,11 @@ static int contact_kinds(contact_data *d)
             d->wanted = w;
         if (!w || code < 0) {
             job_error(d->o->job, NULL, 0, "out of memory");
-            return EXPORT_FAILED;
+            return JOB_FAILED;
         }
         d->wanted[d->nwanted++] = code;
     }
-    return EXPORT_OK;
+    return JOB_OK;
 }
 
 /* rank[unit] from --youngest-first (-1 when not listed). */
@@ -785,22 +785,22 @@ int export_contacts(const export_opts *o, const corax_program *prog, export_sink
     corax_error err;
     corax_error_clear(&err);
     int *rank = NULL;
-    int rc = (d.kinds = corax_kinds_new()) ? contact_kinds(&d) : EXPORT_FAILED;
-    if (rc == EXPORT_OK)
+    int rc = (d.kinds = corax_kinds_new()) ? contact_kinds(&d) : JOB_FAILED;
+    if (rc == JOB_OK)
         rc = read_units(&d);
     export_visit v = {NULL, NULL, contact_reading, 0};
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = export_each_structure(o, &v, &d);
-    if (rc == EXPORT_OK && d.nrd > 1)
+    if (rc == JOB_OK && d.nrd > 1)
         qsort(d.rd, d.nrd, sizeof *d.rd, by_hole);
-    if (rc == EXPORT_OK && !(rank = age_ranks(&d, a))) {
+    if (rc == JOB_OK && !(rank = age_ranks(&d, a))) {
         job_error(o->job, NULL, 0, "out of memory");
-        rc = EXPORT_FAILED;
+        rc = JOB_FAILED;
     }
-    if (rc == EXPORT_OK && d.unknown_holes)
+    if (rc == JOB_OK && d.unknown_holes)
         job_note(o->job, "%s: %zu interval%s of holes not in the collar table left out",
                  o->p->contacts, d.unknown_holes, d.unknown_holes == 1 ? "" : "s");
-    if (rc == EXPORT_OK) {
+    if (rc == JOB_OK) {
         corax_record_set(a, "contact_column", "%s", o->p->contact_column ? o->p->contact_column : "unit");
         corax_record_set(a, "contact_kinds", "%s", o->p->contact_kinds ? o->p->contact_kinds : "contact");
         corax_record_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
@@ -849,14 +849,14 @@ static int each_placed(vtk_intervals *vi, placed_fn fn)
     corax_error_clear(&err);
     int rc = open_table(vi->o, vi->s->path, interval_names, 3, &r, vi->s, &row);
     corax_status st = CORAX_OK;
-    while (rc == EXPORT_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
+    while (rc == JOB_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         corax_interval_points pts;
         const char *status;
         char note[160];
         if (place_interval(vi->prog, vi->s, &row, &pts, &status, note, sizeof note))
             fn(vi, &row, &pts);
     }
-    if (rc == EXPORT_OK && st != CORAX_END)
+    if (rc == JOB_OK && st != CORAX_END)
         rc = sink_status(vi->o->job, st, &err);
     corax_reader_close(r);
     return rc;
@@ -954,7 +954,7 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
     size_t n = vi->placed;
     int rc;
     corax_vtk_points(v, 3 * n);
-    if ((rc = each_placed(vi, put_points)) != EXPORT_OK)
+    if ((rc = each_placed(vi, put_points)) != JOB_OK)
         return rc;
     corax_vtk_cells(v, "LINES", n, 3 * n);
     for (size_t i = 0; i < n; i++) {
@@ -964,17 +964,17 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
     }
     corax_vtk_point_data(v, 3 * n);
     corax_vtk_scalars(v, "depth", CORAX_VTK_DOUBLE);
-    if ((rc = each_placed(vi, put_depths)) != EXPORT_OK)
+    if ((rc = each_placed(vi, put_depths)) != JOB_OK)
         return rc;
     corax_vtk_cell_data(v, n);
     corax_vtk_scalars(v, "hole", CORAX_VTK_INT);
-    if ((rc = each_placed(vi, put_hole)) != EXPORT_OK)
+    if ((rc = each_placed(vi, put_hole)) != JOB_OK)
         return rc;
     corax_vtk_field(v, "attributes", narrays);
     static const char *const direction[] = {"mid_azimuth", "mid_plunge"};
     for (vi->column = 0; vi->column < 2; vi->column++) {
         corax_vtk_array(v, direction[vi->column], 1, CORAX_VTK_DOUBLE);
-        if ((rc = each_placed(vi, put_direction)) != EXPORT_OK)
+        if ((rc = each_placed(vi, put_direction)) != JOB_OK)
             return rc;
     }
     for (size_t i = 0; i < vi->s->width; i++) {
@@ -983,10 +983,10 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
         vi->column = (long)i;
         corax_vtk_array(v, vi->s->name[i], 1,
                         vi->s->numeric[i] ? CORAX_VTK_DOUBLE : CORAX_VTK_INT);
-        if ((rc = each_placed(vi, put_column)) != EXPORT_OK)
+        if ((rc = each_placed(vi, put_column)) != JOB_OK)
             return rc;
     }
-    return EXPORT_OK;
+    return JOB_OK;
 }
 
 static void about_codes(const vtk_intervals *vi, corax_record *a)
@@ -1017,32 +1017,32 @@ int export_intervals_vtk(const export_opts *o, const corax_program *prog, corax_
     vi.prog = prog;
     vi.s = &s;
     int rc = scan_table(o, prog, o->p->intervals[0].path, interval_names, 3, NULL, 0, &s);
-    if (rc == EXPORT_OK && s.n > 1)
+    if (rc == JOB_OK && s.n > 1)
         qsort(s.iv, s.n, sizeof *s.iv, by_line);
-    if (rc == EXPORT_OK)
+    if (rc == JOB_OK)
         rc = each_placed(&vi, count_placed);
     size_t narrays = 2;
-    for (size_t i = 0; rc == EXPORT_OK && i < s.width; i++)
+    for (size_t i = 0; rc == JOB_OK && i < s.width; i++)
         narrays += !own_column(&s, i) && (s.numeric[i] || vi.coded[i]);
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXPORT_OK) {
+    if (rc == JOB_OK) {
         char title[200];
         snprintf(title, sizeof title, "corax %s export: intervals of %s desurveyed; metres, x "
                  "east, y north, z up", CORAX_VERSION, o->p->intervals[0].path);
         st = corax_vtk_open(o->job->outputs, o->output, o->p->vtk.encoding, title, &vi.v, &err);
-        rc = st == CORAX_OK ? EXPORT_OK : sink_status(o->job, st, &err);
+        rc = st == CORAX_OK ? JOB_OK : sink_status(o->job, st, &err);
     }
-    if (rc == EXPORT_OK) {
+    if (rc == JOB_OK) {
         corax_vtk_decimals(vi.v, 6);
         rc = vtk_interval_blocks(&vi, narrays);
-        if (rc == EXPORT_OK)
+        if (rc == JOB_OK)
             rc = sink_status(o->job, corax_vtk_commit(vi.v, &err), &err);
         else
             corax_vtk_discard(vi.v);
     }
-    if (rc == EXPORT_OK) {
+    if (rc == JOB_OK) {
         corax_record_section(a, "results");
         corax_record_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
         corax_record_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");

@@ -158,6 +158,11 @@ void corax_job_tally_warn(corax_job *job, const char *what, const char *problem,
 
 corax_status job_failed(corax_status st) { return st == CORAX_EARG ? CORAX_EVALUE : st; }
 
+corax_status job_status(int outcome)
+{
+    return outcome == JOB_OK ? CORAX_OK : outcome == JOB_USAGE ? CORAX_EARG : CORAX_EFORMAT;
+}
+
 /* ---- progress ---- */
 
 void job_stage_begin(corax_job *job, corax_stage *s, const char *what, const char *unit,
@@ -251,17 +256,23 @@ static void on_progress(void *user, double done)
     job_stage_step(c->job, c->stage, done);
 }
 
+corax_status job_table_progress(corax_job *job, const char *path, corax_table_format format,
+                                corax_table **out, corax_error *err)
+{
+    corax_stage stage;
+    job_stage_begin(job, &stage, path, "bytes", job_file_size(path));
+    stage_ctx ctx = {job, &stage};
+    corax_status st = corax_table_load_progress(path, format, on_progress, &ctx, out, err);
+    job_stage_end(job, &stage);
+    return st;
+}
+
 corax_status job_table_load(corax_job *job, corax_table_role role, const char *path,
                             const corax_table_settings *settings, corax_table **out)
 {
     corax_error err;
     corax_error_clear(&err);
-    corax_stage stage;
-    job_stage_begin(job, &stage, path, "bytes", job_file_size(path));
-    stage_ctx ctx = {job, &stage};
-    corax_status st =
-        corax_table_load_progress(path, settings->format, on_progress, &ctx, out, &err);
-    job_stage_end(job, &stage);
+    corax_status st = job_table_progress(job, path, settings->format, out, &err);
     if (st != CORAX_OK) {
         job_error_record(job, &err, st);
         return st;

@@ -60,6 +60,10 @@ double job_file_size(const char *path);
 void job_table_read(corax_job *job, corax_table_role role, const char *path, double unit,
                     const corax_table_info *info);
 
+/* corax_table_load() with its progress shown: no message, not noted. */
+corax_status job_table_progress(corax_job *job, const char *path, corax_table_format format,
+                                corax_table **out, corax_error *err);
+
 /* Load a whole table with its progress shown, and note it as read; an error
  * message and the status when it cannot be read. */
 corax_status job_table_load(corax_job *job, corax_table_role role, const char *path,
@@ -83,6 +87,12 @@ corax_status job_table_columns(corax_job *job, const corax_table *t,
  * written). */
 const char *job_code_word(const corax_codes *codes, const char *text, size_t len,
                           corax_tally *unknown, const char *file, size_t file_index, long line);
+
+/* How a step of a job ended where a status would say no more: done, failed
+ * (its messages said why), or asked for what cannot be done as asked (a
+ * usage message said why); job_status() makes it the job's status. */
+enum { JOB_OK = 0, JOB_FAILED = 1, JOB_USAGE = 2 };
+corax_status job_status(int outcome);
 
 /* The status a failed step gives its job: its own, but never CORAX_EARG,
  * which a job keeps for what it was asked to do. */
