@@ -282,12 +282,6 @@ int cli_files_stdin_once(const cli_files *f, const char *command);
 
 void cli_files_free(cli_files *f);
 
-/* Load a whole table (read with table id's settings, its progress shown and
- * its reading noted) and keep it in *tables (*n of them); NULL with the
- * message printed when it cannot be read. */
-corax_table *cli_table_keep(cli_common *c, cli_table_id id, const char *path,
-                            corax_table ***tables, size_t *n);
-
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);
 
@@ -373,21 +367,6 @@ void cli_error(const char *file, long line, const char *fmt, ...)
 void cli_error_record(const corax_error *err, corax_status st);
 void cli_finding(const corax_finding *f);
 
-/* Faults in a table's rows: the first CLI_SHOWN are printed as `corax:
- * FILE:LINE: message`, the rest counted. Every command that reads a table
- * refuses it when it has any (one policy for all). */
-enum { CLI_SHOWN = 50 };
-typedef struct cli_problems {
-    size_t n;
-} cli_problems;
-
-void cli_problem(cli_problems *p, const char *file, long line, const char *fmt, ...)
-    __attribute__((format(printf, 4, 5)));
-
-/* After the last row: EXIT_OK when there were none; else how many were not
- * shown, and "N problems in WHAT; nothing written", and EXIT_DATA. */
-int cli_problems_end(const cli_problems *p, const char *what);
-
 /* A library job's message, as corax_message says (notes and warnings left
  * out when quiet); cli_on_message is the job's callback (user: the
  * cli_common). */
@@ -426,23 +405,13 @@ void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
 void cli_progress_set(cli_progress *p, double done);
 void cli_progress_end(cli_progress *p);
 
-/* The size of a regular file in bytes, 0 for standard input or others. */
-double cli_file_size(const char *path);
-
 /* A step of a long run, "corax: COMMAND: ...", on a terminal only (as
  * progress). */
 void cli_phase(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
-/* A corax_progress_fn for a cli_progress. */
-void cli_progress_fn(void *user, double done);
-
 /* The progress callback of a job (user: the cli_common): each stage shown
  * as cli_progress shows it, a phase as cli_phase. */
 void cli_on_stage(void *user, corax_stage *stage);
-
-/* corax_table_load() with its progress shown. */
-corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
-                            corax_table **out, corax_error *err);
 
 /* ---- the run's files ---- */
 
@@ -470,23 +439,6 @@ void cli_files_watch(corax_outputs *set);
 void cli_main_help(FILE *f);
 int cli_command_help(const char *name);
 void cli_project_help(FILE *f);
-
-/* Stand-ins (cli/bridge.c) for what has moved into the library. */
-void cli_table_done(const cli_common *c, cli_table_id id, const char *path,
-                    const corax_table_info *info);
-void cli_tally_warn(const cli_common *c, const char *what, const char *problem,
-                    const corax_tally *t, const char *consequence);
-int cli_table_columns(const cli_common *c, const corax_table *t, const corax_table_settings *ts,
-                      const char *const *names, size_t n, long *col);
-const char *cli_code_word(const corax_codes *codes, const char *text, size_t len,
-                          corax_tally *unknown, const char *file, size_t file_index, long line);
-typedef corax_runs cli_runs;
-int cli_runs_load(const cli_common *c, const char *path, const corax_codes *codes,
-                  corax_tally *unknown, size_t file_index, corax_runs *runs,
-                  corax_findings *found);
-#define cli_runs_free corax_runs_free
-#define cli_runs_find corax_runs_find
-#define cli_unoriented_confidence corax_unoriented_confidence
 
 /* One reading at the core shed (cli/convert_one.c): a labelled answer on
  * standard output. Angles in degrees; NaN for what was not given. */

@@ -31,28 +31,6 @@ void cli_finding(const corax_finding *f)
               f->message);
 }
 
-void cli_problem(cli_problems *p, const char *file, long line, const char *fmt, ...)
-{
-    if (p->n++ >= CLI_SHOWN)
-        return;
-    char text[600];
-    va_list ap;
-    va_start(ap, fmt);
-    vsnprintf(text, sizeof text, fmt, ap);
-    va_end(ap);
-    cli_error(file, line, "%s", text);
-}
-
-int cli_problems_end(const cli_problems *p, const char *what)
-{
-    if (!p->n)
-        return EXIT_OK;
-    if (p->n > CLI_SHOWN)
-        cli_error(NULL, 0, "... and %zu more not shown; fix these first", p->n - CLI_SHOWN);
-    cli_error(NULL, 0, "%zu problem%s in %s; nothing written", p->n, p->n == 1 ? "" : "s", what);
-    return EXIT_DATA;
-}
-
 void cli_note(const cli_common *c, const char *fmt, ...)
 {
     va_list ap;

@@ -33,14 +33,6 @@ void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
     p->after = after ? atof(after) : 1.0;
 }
 
-double cli_file_size(const char *path)
-{
-    struct stat st;
-    if (strcmp(path, "-") == 0 || stat(path, &st) != 0 || !S_ISREG(st.st_mode))
-        return 0.0;
-    return (double)st.st_size;
-}
-
 void cli_progress_set(cli_progress *p, double done)
 {
     if (!p->on)
@@ -67,18 +59,6 @@ void cli_progress_end(cli_progress *p)
     if (p->on && p->shown)
         fprintf(stderr, "\rcorax: %s: done in %.0f s%40s\n", p->what, now() - p->start, "");
     p->on = 0;
-}
-
-void cli_progress_fn(void *user, double done) { cli_progress_set(user, done); }
-
-corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
-                            corax_table **out, corax_error *err)
-{
-    cli_progress p;
-    cli_progress_start(&p, c, path, "bytes", cli_file_size(path));
-    corax_status st = corax_table_load_progress(path, format, cli_progress_fn, &p, out, err);
-    cli_progress_end(&p);
-    return st;
 }
 
 void cli_phase(const cli_common *c, const char *fmt, ...)
