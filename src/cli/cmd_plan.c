@@ -62,12 +62,8 @@ enum {
 
 typedef struct plan_opts {
     cli_common c;
-    corax_convert_options cv;
-    const char *holes, *sets, *targets, *pierce, *sweep, *best, *svg, *title;
+    corax_plan_job_options j;
     double range[2][3]; /* azimuth and dip: from, to, step, degrees */
-    corax_plan_direction *directions;
-    size_t ndirections;
-    corax_plan_range azimuth, plunge; /* the sweep in radians, plunges */
 } plan_opts;
 
 /* The dip convention of the planned holes and the swept dips, and how the
@@ -116,25 +112,25 @@ static int sweep_spec(plan_opts *o, const char *arg, char *why, size_t wl)
         snprintf(why, wl, "'%s' needs both azimuth=FROM:TO:STEP and dip=FROM:TO:STEP", arg);
         return -1;
     }
-    o->sweep = arg;
+    o->j.sweep = arg;
     return 0;
 }
 
 static int plan_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
 {
     plan_opts *o = ctx;
-    int k = cli_convention_option(&o->cv, opt, arg, why, wl);
+    int k = cli_convention_option(&o->j.convert, opt, arg, why, wl);
     if (k)
         return k < 0 ? -1 : 0;
     switch (opt) {
-    case OPT_HOLES: o->holes = arg; return 0;
-    case OPT_SETS: o->sets = arg; return 0;
-    case OPT_TARGETS: o->targets = arg; return 0;
-    case OPT_PIERCE: o->pierce = arg; return 0;
+    case OPT_HOLES: o->j.holes = arg; return 0;
+    case OPT_SETS: o->j.sets = arg; return 0;
+    case OPT_TARGETS: o->j.targets = arg; return 0;
+    case OPT_PIERCE: o->j.pierce = arg; return 0;
     case OPT_SWEEP: return sweep_spec(o, arg, why, wl);
-    case OPT_BEST: o->best = arg; return 0;
-    case OPT_SVG: o->svg = arg; return 0;
-    case OPT_TITLE: o->title = arg; return 0;
+    case OPT_BEST: o->j.best = arg; return 0;
+    case OPT_SVG: o->j.svg = arg; return 0;
+    case OPT_TITLE: o->j.title = arg; return 0;
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -149,12 +145,12 @@ static int expand_sweep(plan_opts *o)
         if (corax_dip_to_plunge(dip[i], conv, i ? &to : &from) != CORAX_OK)
             return cli_usage("plan", "--sweep: dip %g is outside the range of %s", dip[i],
                              corax_dip_convention_name(conv));
-    o->azimuth = (corax_plan_range){corax_rad(az[0]), corax_rad(az[1]), corax_rad(az[2])};
-    o->plunge = (corax_plan_range){from, to, corax_rad(dip[2])};
+    o->j.azimuth = (corax_plan_range){corax_rad(az[0]), corax_rad(az[1]), corax_rad(az[2])};
+    o->j.plunge = (corax_plan_range){from, to, corax_rad(dip[2])};
     corax_error err;
     corax_error_clear(&err);
-    if (corax_plan_directions(o->azimuth, o->plunge, &o->directions, &o->ndirections, &err) !=
-        CORAX_OK)
+    if (corax_plan_directions(o->j.azimuth, o->j.plunge, &o->j.directions, &o->j.ndirections,
+                              &err) != CORAX_OK)
         return cli_usage("plan", "--sweep: %s", err.message);
     return 0;
 }
@@ -182,34 +178,34 @@ static int parse(int argc, char **argv, plan_opts *o)
     if (optind < argc)
         return cli_usage("plan", "'%s': plan reads its tables from --holes, --sets and "
                                  "--targets", argv[optind]);
-    if (!o->holes || !o->sets)
+    if (!o->j.holes || !o->j.sets)
         return cli_usage("plan", "--holes and --sets are both needed");
     if (!o->c.project && (o->c.collars || o->c.surveys || o->c.load.declination != 0.0 ||
                           o->c.load.convergence != 0.0))
         return cli_usage("plan", "--collars, --surveys, --declination and --convergence do "
                                  "not apply: planned holes are given in the grid, as planned");
-    if (o->pierce && !o->targets)
+    if (o->j.pierce && !o->j.targets)
         return cli_usage("plan", "--pierce needs --targets");
-    if (o->targets && !o->pierce && !o->sweep)
+    if (o->j.targets && !o->j.pierce && !o->j.sweep)
         return cli_usage("plan", "--targets is used by --pierce and --sweep: give either");
-    if (o->sweep && !o->best && !o->svg)
+    if (o->j.sweep && !o->j.best && !o->j.svg)
         return cli_usage("plan", "--sweep needs --best or --svg (or both) to write to");
-    if ((o->best || o->svg) && !o->sweep)
+    if ((o->j.best || o->j.svg) && !o->j.sweep)
         return cli_usage("plan", "--best and --svg show a --sweep: give one");
-    const char *outputs[] = {o->c.output, o->pierce, o->best, o->svg};
+    const char *outputs[] = {o->c.output, o->j.pierce, o->j.best, o->j.svg};
     int to_stdout = 0;
     for (int i = 0; i < 4; i++)
         to_stdout += outputs[i] && strcmp(outputs[i], "-") == 0;
     if (to_stdout > 1)
         return cli_usage("plan", "only one output can go to standard output");
-    if (o->sweep && (rc = expand_sweep(o)) != 0)
+    if (o->j.sweep && (rc = expand_sweep(o)) != 0)
         return rc;
-    cli_input(&o->c, "--holes", o->holes);
-    cli_input(&o->c, "--sets", o->sets);
-    cli_input(&o->c, "--targets", o->targets);
-    cli_output(&o->c, "--pierce", o->pierce);
-    cli_output(&o->c, "--best", o->best);
-    cli_output(&o->c, "--svg", o->svg);
+    cli_input(&o->c, "--holes", o->j.holes);
+    cli_input(&o->c, "--sets", o->j.sets);
+    cli_input(&o->c, "--targets", o->j.targets);
+    cli_output(&o->c, "--pierce", o->j.pierce);
+    cli_output(&o->c, "--best", o->j.best);
+    cli_output(&o->c, "--svg", o->j.svg);
     return cli_common_finish(&o->c, 0);
 }
 
@@ -245,8 +241,8 @@ static void report_program(const plan_opts *o, const corax_plan_job_summary *sum
                                "program samples it badly (best %s, expected alpha %.1f)",
                      sum->set[i].name, sum->set[i].best_hole,
                      corax_deg(sum->set[i].best_alpha));
-    if (o->ndirections) {
-        const corax_plan_direction *d = &o->directions[0];
+    if (o->j.ndirections) {
+        const corax_plan_direction *d = &o->j.directions[0];
         cli_note(c, "best direction of the sweep: azimuth %.1f, dip %.1f, score %.3f (worst "
                     "sampled %s, expected alpha %.1f)",
                  corax_wrap_degrees(corax_deg(d->azimuth), 1),
@@ -257,25 +253,11 @@ static void report_program(const plan_opts *o, const corax_plan_job_summary *sum
 
 static int run(plan_opts *o)
 {
-    corax_plan_job_options j = corax_plan_job_options_default();
-    j.convert = o->cv;
-    j.tables = plan_tables(&o->c);
-    j.holes = o->holes;
-    j.sets = o->sets;
-    j.targets = o->targets;
-    j.pierce = o->pierce;
-    j.directions = o->directions;
-    j.ndirections = o->ndirections;
-    j.azimuth = o->azimuth;
-    j.plunge = o->plunge;
-    j.sweep = o->sweep;
-    j.best = o->best;
-    j.svg = o->svg;
-    j.title = o->title;
+    o->j.tables = plan_tables(&o->c);
     corax_plan_job_summary sum;
     corax_record *record = corax_record_new();
     o->c.job.record = record;
-    int rc = cli_status(corax_plan_job_run(&o->c.job, &j, o->c.output, &sum));
+    int rc = cli_status(corax_plan_job_run(&o->c.job, &o->j, o->c.output, &sum));
     o->c.job.record = NULL;
     if (rc == EXIT_OK && cli_about_job("plan", &o->c, record) != 0)
         rc = EXIT_DATA;
@@ -291,11 +273,11 @@ int cmd_plan(int argc, char **argv)
     plan_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "plan");
-    o.cv = corax_convert_options_default();
+    o.j = corax_plan_job_options_default();
     int rc = parse(argc, argv, &o);
     if (rc == 0)
         rc = run(&o);
-    free(o.directions);
+    free(o.j.directions);
     rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);
     return rc < 0 ? EXIT_OK : rc;

@@ -43,10 +43,8 @@ static const char section_help[] =
 
 typedef struct section_opts {
     cli_common c;
-    double x, y, azimuth, width, from, to, step, scale;
-    int has_origin, has_azimuth, has_width, has_from, has_to;
-    const char *svg;
-    const char *kinds; /* --kinds, as given */
+    corax_section_job_options j;
+    int has_origin, has_azimuth, has_width;
     const char *input;
 } section_opts;
 
@@ -65,8 +63,9 @@ enum {
 static int parse_origin(section_opts *o, const char *arg, char *why, size_t wl)
 {
     const char *comma = strchr(arg, ',');
-    if (comma && corax_parse_number(arg, (size_t)(comma - arg), '.', &o->x) == CORAX_NUMBER_OK &&
-        corax_parse_number(comma + 1, strlen(comma + 1), '.', &o->y) == CORAX_NUMBER_OK) {
+    if (comma &&
+        corax_parse_number(arg, (size_t)(comma - arg), '.', &o->j.x) == CORAX_NUMBER_OK &&
+        corax_parse_number(comma + 1, strlen(comma + 1), '.', &o->j.y) == CORAX_NUMBER_OK) {
         o->has_origin = 1;
         return 0;
     }
@@ -81,30 +80,30 @@ static int section_option(void *ctx, int opt, const char *arg, char *why, size_t
     case OPT_ORIGIN: return parse_origin(o, arg, why, wl);
     case OPT_AZIMUTH:
         o->has_azimuth = 1;
-        return cli_value_number(arg, 0, 360, &o->azimuth, why, wl);
+        return cli_value_number(arg, 0, 360, &o->j.azimuth, why, wl);
     case OPT_WIDTH:
         o->has_width = 1;
-        if (cli_value_number(arg, -HUGE_VAL, HUGE_VAL, &o->width, why, wl))
+        if (cli_value_number(arg, -HUGE_VAL, HUGE_VAL, &o->j.width, why, wl))
             return -1;
-        if (o->width > 0.0)
+        if (o->j.width > 0.0)
             return 0;
         snprintf(why, wl, "the slab must be wider than 0 m (got %s)", arg);
         return -1;
     case OPT_FROM:
-        o->has_from = 1;
-        return cli_value_number(arg, -1e9, 1e9, &o->from, why, wl);
+        o->j.has_from = 1;
+        return cli_value_number(arg, -1e9, 1e9, &o->j.from, why, wl);
     case OPT_TO:
-        o->has_to = 1;
-        return cli_value_number(arg, -1e9, 1e9, &o->to, why, wl);
-    case OPT_SVG: o->svg = arg; return 0;
-    case OPT_SCALE: return cli_value_number(arg, 1, 1e7, &o->scale, why, wl);
+        o->j.has_to = 1;
+        return cli_value_number(arg, -1e9, 1e9, &o->j.to, why, wl);
+    case OPT_SVG: o->j.svg = arg; return 0;
+    case OPT_SCALE: return cli_value_number(arg, 1, 1e7, &o->j.scale, why, wl);
     case OPT_KINDS:
-        o->kinds = arg;
+        o->j.kinds = arg;
         if (strspn(arg, ", \t") != strlen(arg))
             return 0;
         snprintf(why, wl, "no kind named in '%s'", arg);
         return -1;
-    case OPT_STEP: return cli_value_number(arg, 1e-3, 1e5, &o->step, why, wl);
+    case OPT_STEP: return cli_value_number(arg, 1e-3, 1e5, &o->j.step, why, wl);
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -136,12 +135,12 @@ static int parse(int argc, char **argv, section_opts *o)
         return cli_usage("section", "one converted table only ('%s' is one too many)",
                          argv[optind + 1]);
     o->input = argv[optind];
-    if (o->has_from && o->has_to && !(o->from < o->to))
+    if (o->j.has_from && o->j.has_to && !(o->j.from < o->j.to))
         return cli_usage("section", "--from must be less than --to");
-    if (o->svg && strcmp(o->svg, "-") == 0 && strcmp(o->c.output, "-") == 0)
+    if (o->j.svg && strcmp(o->j.svg, "-") == 0 && strcmp(o->c.output, "-") == 0)
         return cli_usage("section", "the table and the drawing cannot both go to standard output");
     cli_input(&o->c, "the converted table", o->input);
-    cli_output(&o->c, "--svg", o->svg);
+    cli_output(&o->c, "--svg", o->j.svg);
     return cli_common_finish(&o->c, 1);
 }
 
@@ -149,30 +148,17 @@ int cmd_section(int argc, char **argv)
 {
     section_opts o;
     memset(&o, 0, sizeof o);
-    o.step = 5.0;
+    o.j = corax_section_job_options_default();
     cli_common_init(&o.c, "section");
     int rc;
     corax_program *prog;
     if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))
         return rc;
-    corax_section_job_options j = corax_section_job_options_default();
-    j.x = o.x;
-    j.y = o.y;
-    j.azimuth = o.azimuth;
-    j.width = o.width;
-    j.has_from = o.has_from;
-    j.has_to = o.has_to;
-    j.from = o.from;
-    j.to = o.to;
-    j.step = o.step;
-    j.scale = o.scale;
-    j.svg = o.svg;
-    j.kinds = o.kinds;
-    j.converted = cli_table_settings(&o.c, CLI_CONVERTED);
+    o.j.converted = cli_table_settings(&o.c, CLI_CONVERTED);
     corax_section_job_summary sum;
     corax_record *record = corax_record_new();
     o.c.job.record = record;
-    rc = cli_status(corax_section_job_run(&o.c.job, prog, &j, o.input, o.c.output, &sum));
+    rc = cli_status(corax_section_job_run(&o.c.job, prog, &o.j, o.input, o.c.output, &sum));
     o.c.job.record = NULL;
     if (rc == EXIT_OK && cli_about_job("section", &o.c, record) != 0)
         rc = EXIT_DATA;

@@ -171,14 +171,10 @@ static void mark_arbitrary_lines(const corax_check_job_options *o, const corax_r
 
 static corax_status write_findings(corax_job *job, const char *output, const corax_findings *f)
 {
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(job->outputs, output, &w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(job, &err, st);
-        return job_failed(st);
-    }
+    corax_status st;
+    corax_writer *w = job_output(job, output, &st);
+    if (!w)
+        return st;
     static const char head[] = "hole,depth,depth_to,severity,check,message,file,line\n";
     corax_writer_text(w, head, sizeof head - 1);
     for (size_t i = 0; i < f->count; i++) {
@@ -197,12 +193,7 @@ static corax_status write_findings(corax_job *job, const char *output, const cor
             corax_writer_field(w, "", 0);
         corax_writer_end_row(w);
     }
-    st = corax_writer_commit(w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(job, &err, st);
-        return job_failed(st);
-    }
-    return CORAX_OK;
+    return job_commit(job, w);
 }
 
 static corax_status write_report(corax_job *job, const corax_check_job_options *o,
@@ -258,9 +249,9 @@ static void record(corax_record *a, const corax_check_job_options *o)
     corax_record_set(a, "run_misfit", "%g", corax_deg(q->run_misfit));
     corax_record_set(a, "hole_turn", "%g", corax_deg(q->hole_turn));
     corax_record_set(a, "total_field", "%g (nT, measured against the magnetic model)",
-                  q->total_field);
+                     q->total_field);
     corax_record_set(a, "field_dip", "%g (degrees, measured against the magnetic model)",
-                  corax_deg(q->field_dip));
+                     corax_deg(q->field_dip));
     corax_record_conventions(a, &o->convert);
     corax_record_codes(a, o->kind_codes, o->confidence_codes);
 }

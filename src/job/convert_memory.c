@@ -127,8 +127,9 @@ static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p, cons
 
 /* Simulate every group; spread[k] for member k. The cloud (may be NULL) gets
  * the holes in group order. */
-static corax_status simulate(const convert_run *r, const member *g, const size_t *groups, size_t ngroups,
-                    const convert_eval *ev, corax_spread *spread, corax_writer *cloud, int nlanes)
+static corax_status simulate(const convert_run *r, const member *g, const size_t *groups,
+                             size_t ngroups, const convert_eval *ev, corax_spread *spread,
+                             corax_writer *cloud, int nlanes)
 {
     const convert_setup *s = r->s;
     size_t count = groups[ngroups];

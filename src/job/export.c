@@ -131,7 +131,7 @@ static void about_export(corax_record *a, const export_opts *o, const corax_prog
     for (int i = 0; i < o->ninputs; i++)
         corax_record_set(a, "converted", "%s", o->inputs[i]);
     corax_record_set(a, "polarity", "1 upright, -1 overturned, from a polarity or younging column "
-                                 "(1, +1, upright, -1, overturned); empty when not known");
+                     "(1, +1, upright, -1, overturned); empty when not known");
     if (o->p->format == CORAX_EXPORT_JOB_CSV) {
         corax_record_set(a, "normal", "nx, ny, nz: the upward unit normal (x east, y north, z up)");
         corax_record_set(a, "line", "lx, ly, lz: the lineation's unit vector, down-plunge");
@@ -147,9 +147,9 @@ static void about_export(corax_record *a, const export_opts *o, const corax_prog
     corax_record_set(a, "trace_step", "%g (plus every station)", v->step);
     if (v->arrow > 0.0)
         corax_record_set(a, "arrows", "%g m from each structure along its lineation, down-plunge",
-                      v->arrow);
+                         v->arrow);
     corax_record_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN): dip and dip_direction of "
-                                    "hole traces, depth when not known, kind of hole traces");
+                     "hole traces, depth when not known, kind of hole traces");
     corax_record_section(a, "kinds");
     for (size_t i = 0; i < corax_kinds_count(kinds); i++) {
         const char *name;
@@ -203,14 +203,9 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
 static int export_csv_table(const export_opts *o, const corax_program *prog, corax_record *a,
                             size_t *written, size_t *left_out)
 {
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(o->job->outputs, o->output, &w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(o->job, &err, st);
+    corax_writer *w = job_output(o->job, o->output, NULL);
+    if (!w)
         return JOB_FAILED;
-    }
     export_sink sink = {w, NULL, NULL, 0};
     int rc = o->p->nintervals ? export_intervals(o, prog, &o->p->intervals[0], &sink)
              : o->p->contacts ? export_contacts(o, prog, &sink, a)
@@ -223,11 +218,7 @@ static int export_csv_table(const export_opts *o, const corax_program *prog, cor
         corax_writer_discard(w);
         return rc;
     }
-    if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
-        job_error_record(o->job, &err, st);
-        return JOB_FAILED;
-    }
-    return JOB_OK;
+    return job_commit(o->job, w) == CORAX_OK ? JOB_OK : JOB_FAILED;
 }
 
 static int run(const export_opts *o, const corax_program *prog, corax_record *a,

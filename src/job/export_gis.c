@@ -199,7 +199,7 @@ static int gis_structures_layer(const export_opts *o, corax_gis *g, corax_record
         job_note(o->job, "%zu row%s without a position or orientation left out", v.left_out,
                  v.left_out == 1 ? "" : "s");
     corax_record_set(a, LAYER_STRUCTURES, "%zu (%zu rows without a position or orientation left "
-                  "out)", r.written, v.left_out);
+                     "out)", r.written, v.left_out);
     return rc;
 }
 
@@ -223,7 +223,7 @@ static int program_layers(const export_opts *o, const corax_program *prog, corax
     if (planned(p, LAYER_TRACES)) {
         st = corax_export_gis_traces(g, prog, o->p->vtk.step, LAYER_TRACES, &n, &err);
         corax_record_set(a, LAYER_TRACES, "%zu (every %g m plus stations; depth %s)", n,
-                      o->p->vtk.step, corax_gis_measured(g) ? "as the measure (M) of each vertex"
+                         o->p->vtk.step, corax_gis_measured(g) ? "as the measure (M) of each vertex"
                                                          : "from and to as fields");
     }
     if (st == CORAX_OK && planned(p, LAYER_COLLARS)) {
@@ -249,7 +249,7 @@ static int table_layers(const export_opts *o, const corax_program *prog, corax_g
         export_sink sink = {NULL, g, o->p->intervals[i].layer, 0};
         rc = export_intervals(o, prog, &o->p->intervals[i], &sink);
         corax_record_set(a, o->p->intervals[i].layer, "%zu intervals (from %s)", sink.written,
-                      o->p->intervals[i].path);
+                         o->p->intervals[i].path);
     }
     if (rc == JOB_OK && planned(p, LAYER_CONTACTS)) {
         export_sink sink = {NULL, g, LAYER_CONTACTS, 0};
@@ -272,7 +272,8 @@ int export_gis(const export_opts *o, const corax_program *prog, corax_record *a)
     }
     plan p;
     int rc = make_plan(o, prog, corax_gis_cad(g), &p);
-    corax_record_set(a, "driver", "%s (GDAL %s)", corax_gis_driver_name(g), corax_gis_gdal_version());
+    corax_record_set(a, "driver", "%s (GDAL %s)", corax_gis_driver_name(g),
+                     corax_gis_gdal_version());
     corax_record_section(a, "layers");
     if (rc == JOB_OK && planned(&p, LAYER_STRUCTURES))
         rc = gis_structures_layer(o, g, a);

@@ -801,10 +801,12 @@ int export_contacts(const export_opts *o, const corax_program *prog, export_sink
         job_note(o->job, "%s: %zu interval%s of holes not in the collar table left out",
                  o->p->contacts, d.unknown_holes, d.unknown_holes == 1 ? "" : "s");
     if (rc == JOB_OK) {
-        corax_record_set(a, "contact_column", "%s", o->p->contact_column ? o->p->contact_column : "unit");
-        corax_record_set(a, "contact_kinds", "%s", o->p->contact_kinds ? o->p->contact_kinds : "contact");
+        corax_record_set(a, "contact_column", "%s",
+                         o->p->contact_column ? o->p->contact_column : "unit");
+        corax_record_set(a, "contact_kinds", "%s",
+                         o->p->contact_kinds ? o->p->contact_kinds : "contact");
         corax_record_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
-                      "(axial), with count and kappa", o->p->contact_window);
+                         "(axial), with count and kappa", o->p->contact_window);
         rc = write_contacts(&d, k, rank, &err);
     }
     free(rank);

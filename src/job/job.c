@@ -163,6 +163,32 @@ corax_status job_status(int outcome)
     return outcome == JOB_OK ? CORAX_OK : outcome == JOB_USAGE ? CORAX_EARG : CORAX_EFORMAT;
 }
 
+/* ---- outputs ---- */
+
+corax_writer *job_output(corax_job *job, const char *path, corax_status *status)
+{
+    corax_writer *w;
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_writer_open_in(job->outputs, path, &w, &err);
+    if (status)
+        *status = job_failed(st);
+    if (st == CORAX_OK)
+        return w;
+    job_error_record(job, &err, st);
+    return NULL;
+}
+
+corax_status job_commit(corax_job *job, corax_writer *w)
+{
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_writer_commit(w, &err);
+    if (st != CORAX_OK)
+        job_error_record(job, &err, st);
+    return job_failed(st);
+}
+
 /* ---- progress ---- */
 
 void job_stage_begin(corax_job *job, corax_stage *s, const char *what, const char *unit,

@@ -43,6 +43,13 @@ void job_problem(corax_job *job, job_problems *p, const char *file, long line, c
  * shown, and "N problems in WHAT; nothing written", and CORAX_EVALUE. */
 corax_status job_problems_end(corax_job *job, const job_problems *p, const char *what);
 
+/* An output held in the job's set (see corax_writer_open_in()): the writer,
+ * or NULL with the error said and *st (may be NULL) its status. */
+corax_writer *job_output(corax_job *job, const char *path, corax_status *st);
+
+/* Commit an output: CORAX_OK, or the error said and its status. */
+corax_status job_commit(corax_job *job, corax_writer *w);
+
 /* Progress of a long step (see corax_stage). */
 void job_stage_begin(corax_job *job, corax_stage *s, const char *what, const char *unit,
                      double total);

@@ -167,17 +167,11 @@ static void write_best(const plan_run *r, corax_writer *w)
 static int write_table(const plan_run *r, const char *path,
                        void (*fill)(const plan_run *, corax_writer *))
 {
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(r->job->outputs, path, &w, &err);
-    if (st == CORAX_OK) {
-        fill(r, w);
-        st = corax_writer_commit(w, &err);
-    }
-    if (st != CORAX_OK)
-        job_error_record(r->job, &err, st);
-    return st == CORAX_OK ? 0 : -1;
+    corax_writer *w = job_output(r->job, path, NULL);
+    if (!w)
+        return -1;
+    fill(r, w);
+    return job_commit(r->job, w) == CORAX_OK ? 0 : -1;
 }
 
 static int write_picture(const plan_run *r)
@@ -208,9 +202,9 @@ static void record(corax_record *a, const corax_plan_job_options *o)
     if (o->targets)
         corax_record_set(a, "targets", "%s", o->targets);
     corax_record_set(a, "curved_plans", "a station every %g m turned by the lift and drift, "
-                        "desurveyed by minimum curvature", CORAX_PLAN_STATION_STEP);
+                     "desurveyed by minimum curvature", CORAX_PLAN_STATION_STEP);
     corax_record_set(a, "sampling", "along the whole hole, every metre; each plane of a set's "
-                        "Fisher spread counted as often as the hole crosses it (Terzaghi 1965)");
+                     "Fisher spread counted as often as the hole crosses it (Terzaghi 1965)");
     corax_record_conventions(a, &o->convert);
     if (o->pierce)
         corax_record_set(a, "pierce", "%s", o->pierce);

@@ -235,7 +235,7 @@ static void record(corax_record *a, const corax_section_job_options *o, const sl
     corax_record_set(a, "origin", "%.10g,%.10g", o->x, o->y);
     corax_record_set(a, "azimuth", "%g (distance along grows this way)", o->azimuth);
     corax_record_set(a, "width", "%g (the slab reaches %g either side of the line)", o->width,
-                  o->width / 2);
+                     o->width / 2);
     if (o->has_from)
         corax_record_set(a, "from", "%g", o->from);
     if (o->has_to)
@@ -295,13 +295,9 @@ corax_status corax_section_job_run(corax_job *job, const corax_program *prog,
         r.section.from = o->from;
     if (o->has_to)
         r.section.to = o->to;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(job->outputs, output, &r.w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(job, &err, st);
-        return job_failed(st);
-    }
+    corax_status st;
+    if (!(r.w = job_output(job, output, &st)))
+        return st;
     corax_status rc = CORAX_ENOMEM;
     size_t holes = 0;
     corax_svg *svg = NULL;

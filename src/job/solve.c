@@ -109,7 +109,8 @@ static int own_error(const corax_row *row, long col, char decimal, const char *n
 
 /* Read one row: its set, its values and its place down the hole. */
 static corax_status read_row(const solve_opts *o, const corax_program *prog, solve_data *d,
-                    const corax_table *t, size_t i, const long *col, const char **field)
+                             const corax_table *t, size_t i, const long *col,
+                             const char **field)
 {
     reading_row *rr = &d->rows[d->nrows++];
     memset(rr, 0, sizeof *rr);
@@ -317,7 +318,8 @@ static void set_note(const solve_opts *o, const solve_set *s, size_t k, char *no
     case CORAX_SOLVE_SOLVED:
         break;
     }
-    if (r->ncandidates && r->candidate[k].misfit > 3.0 * o->p->errors.alpha && o->p->errors.alpha > 0)
+    if (r->ncandidates && r->candidate[k].misfit > 3.0 * o->p->errors.alpha &&
+        o->p->errors.alpha > 0)
         note_add(note, size, "the misfit is over three times the alpha error: are these "
                  "readings one set of parallel planes, and their alphas right?");
     if (s->assumed)
@@ -330,36 +332,9 @@ static void set_note(const solve_opts *o, const solve_set *s, size_t k, char *no
 
 static void text(corax_writer *w, const char *s) { corax_writer_field(w, s, strlen(s)); }
 
-/* An output file (or standard output), or NULL with the message printed. */
-static corax_writer *open_output(const solve_opts *o, const char *path)
-{
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(o->job->outputs, path, &w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(o->job, &err, st);
-        return NULL;
-    }
-    return w;
-}
-
-/* Put an output in place: CORAX_OK, or its status with the message given. */
-static corax_status commit_output(const solve_opts *o, corax_writer *w)
-{
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_commit(w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(o->job, &err, st);
-        return job_failed(st);
-    }
-    return CORAX_OK;
-}
-
 static corax_status write_sets(const solve_opts *o, const solve_data *d)
 {
-    corax_writer *w = open_output(o, o->output);
+    corax_writer *w = job_output(o->job, o->output, NULL);
     if (!w)
         return CORAX_EFORMAT;
     static const char head[] =
@@ -396,13 +371,13 @@ static corax_status write_sets(const solve_opts *o, const solve_data *d)
             corax_writer_end_row(w);
         }
     }
-    return commit_output(o, w);
+    return job_commit(o->job, w);
 }
 
 /* Every reading in order, with its place and its residual from candidate 1. */
 static corax_status write_residuals(const solve_opts *o, const solve_data *d)
 {
-    corax_writer *w = open_output(o, o->p->residuals);
+    corax_writer *w = job_output(o->job, o->p->residuals, NULL);
     if (!w)
         return CORAX_EFORMAT;
     for (size_t c = 0; d->ntables && c < corax_table_columns(d->tables[0]); c++)
@@ -446,7 +421,7 @@ static corax_status write_residuals(const solve_opts *o, const solve_data *d)
         text(w, note);
         corax_writer_end_row(w);
     }
-    return commit_output(o, w);
+    return job_commit(o->job, w);
 }
 
 /* Whether a set is to be drawn: every set, or those in --draw-sets. */
@@ -507,7 +482,8 @@ static corax_status write_net(const solve_opts *o, const solve_data *d)
     }
     corax_error err;
     corax_error_clear(&err);
-    if (rc == CORAX_OK && (st = corax_svg_save(svg, o->job->outputs, o->p->svg, &err)) != CORAX_OK) {
+    if (rc == CORAX_OK &&
+        (st = corax_svg_save(svg, o->job->outputs, o->p->svg, &err)) != CORAX_OK) {
         job_error_record(o->job, &err, st);
         rc = job_failed(st);
     }

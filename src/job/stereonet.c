@@ -242,7 +242,8 @@ static int read_row(const stereo_opts *o, groups *gs, const corax_table *t, size
     }
     group *g = find_group(gs, name, len);
     if (!g && gs->full)
-        job_error(gs->job, corax_table_path(t), corax_table_line(t, row), "more than %d groups by %s: "
+        job_error(gs->job, corax_table_path(t), corax_table_line(t, row),
+                  "more than %d groups by %s: "
                   "filter with --where or group by another column", MAX_GROUPS, o->p->group_by);
     else if (!g)
         job_error(gs->job, NULL, 0, "out of memory");
@@ -321,8 +322,9 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
     int planes = col->dip >= 0 && col->dip_direction >= 0;
     int lines = col->trend >= 0 && col->plunge >= 0;
     if (!planes && !lines) {
-        job_error(o->job, path, 1, "no dip and dip_direction columns, nor trend and plunge (is this "
-                           "corax convert output?)");
+        job_error(o->job, path, 1,
+                  "no dip and dip_direction columns, nor trend and plunge (is this "
+                  "corax convert output?)");
         return JOB_FAILED;
     }
     if (!planes)
@@ -333,7 +335,7 @@ static int find_columns(const stereo_opts *o, const corax_table *t, columns *col
         job_error(o->job, path, 1, "--terzaghi needs the hole_azimuth and hole_plunge columns%s",
                   corax_table_find(t, "hole_dip") >= 0
                       ? " (this table gives hole_dip, whose dip convention it does not state: "
-                        "convert it again with this corax)"
+                  "convert it again with this corax)"
                       : "");
         return JOB_FAILED;
     }
@@ -403,7 +405,8 @@ static int summarise(const stereo_opts *o, groups *gs)
     qsort(gs->item, gs->count, sizeof *gs->item, group_cmp);
     for (size_t i = 0; i < gs->count; i++) {
         group *g = &gs->item[i];
-        if (corax_axial_summary_compute(g->poles, o->p->style.weighted ? g->weight : NULL, g->npoles,
+        if (corax_axial_summary_compute(g->poles, o->p->style.weighted ? g->weight : NULL,
+                                        g->npoles,
                                         &g->pole_summary) != CORAX_OK ||
             corax_axial_summary_compute(g->lines, NULL, g->nlines, &g->line_summary) != CORAX_OK) {
             job_error(o->job, NULL, 0, "group %s: the statistics failed (out of memory?)", g->name);
@@ -471,14 +474,9 @@ static void write_stats_row(corax_writer *w, const group *g, const corax_axial_s
 
 static corax_writer *stats_table(const stereo_opts *o, const groups *gs)
 {
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(o->job->outputs, o->p->stats, &w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(o->job, &err, st);
+    corax_writer *w = job_output(o->job, o->p->stats, NULL);
+    if (!w)
         return NULL;
-    }
     corax_writer_text(w, stats_header, sizeof stats_header - 1);
     for (size_t i = 0; i < gs->count; i++) {
         const group *g = &gs->item[i];
@@ -546,28 +544,28 @@ static void record(corax_record *a, const stereo_opts *o, int nfiles, const char
                                                                        : "poles and great circles");
     if (o->p->style.contours)
         corax_record_set(a, "contours", "%s, interval %g sigma; %s",
-                      o->p->style.density == CORAX_DENSITY_SMOOTH
+                         o->p->style.density == CORAX_DENSITY_SMOOTH
                           ? "modified Kamb, exponential smoothing (Vollmer 1995), k = 2 (1 + n/9)"
                           : "Kamb (1959) counting, cap of area 9/(n + 9) of the hemisphere",
-                      o->p->style.contour_step, "a uniform sample reads 3 sigma");
+                         o->p->style.contour_step, "a uniform sample reads 3 sigma");
     else
         corax_record_set(a, "contours", "none");
     corax_record_set(a, "group_by", "%s", o->p->group_by ? o->p->group_by : "(one group: all)");
     for (size_t i = 0; i < o->p->nwhere; i++)
         corax_record_set(a, "where", "%s = %s (without regard to case)", o->p->where[i].column,
-                      o->p->where[i].value);
+                         o->p->where[i].value);
     if (o->p->style.weighted)
         corax_record_set(a, "weighting", "Terzaghi (1965), 1/|cos| of the angle between the pole "
-                      "and the hole, capped at a minimum angle of %g degrees between hole and "
-                      "plane; planes only, lines unweighted; weights rescaled to sum to n for "
-                      "the mean, cone, tensor and density; n_weighted is their sum as given",
-                      o->p->min_angle);
+                         "and the hole, capped at a minimum angle of %g degrees between hole and "
+                         "plane; planes only, lines unweighted; weights rescaled to sum to n for "
+                         "the mean, cone, tensor and density; n_weighted is their sum as given",
+                         o->p->min_angle);
     else
         corax_record_set(a, "weighting", "none");
     corax_record_set(a, "statistics", "Fisher (1953) mean, kappa and alpha95 of the readings "
-                  "turned to the side of principal axis 1 (axial data); none below %d readings; "
-                  "orientation tensor eigenvalues normalised to sum to 1; Woodcock (1977) "
-                  "K = ln(S1/S2)/ln(S2/S3), C = ln(S1/S3)", CORAX_FISHER_MIN_READINGS);
+                     "turned to the side of principal axis 1 (axial data); none below %d readings; "
+                     "orientation tensor eigenvalues normalised to sum to 1; Woodcock (1977) "
+                     "K = ln(S1/S2)/ln(S2/S3), C = ln(S1/S3)", CORAX_FISHER_MIN_READINGS);
     if (o->p->stats)
         corax_record_set(a, "stats", "%s", o->p->stats);
     corax_record_set(a, "rows_skipped", "%zu (no usable angles)", gs->skipped);

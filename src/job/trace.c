@@ -276,14 +276,10 @@ corax_status corax_trace_job_run(corax_job *job, const corax_program *prog,
     if (!own.record)
         own.record = &none;
     trace_run o = {job, &own, 0, 1.0};
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(job->outputs, output, &w, &err);
-    if (st != CORAX_OK) {
-        job_error_record(job, &err, st);
-        return job_failed(st);
-    }
+    corax_status st;
+    corax_writer *w = job_output(job, output, &st);
+    if (!w)
+        return st;
     corax_writer_format(w, p->output);
     corax_status rc = p->at ? trace_at(&o, prog, w) : trace_all(&o, prog, w);
     if (rc == CORAX_OK && p->corrections)
@@ -292,10 +288,8 @@ corax_status corax_trace_job_run(corax_job *job, const corax_program *prog,
         corax_writer_discard(w);
         return rc;
     }
-    if ((st = corax_writer_commit(w, &err)) != CORAX_OK) {
-        job_error_record(job, &err, st);
-        return job_failed(st);
-    }
+    if ((st = job_commit(job, w)) != CORAX_OK)
+        return st;
     corax_record *a = job->record;
     corax_record_section(a, "trace");
     if (p->at)
