@@ -11,8 +11,9 @@
  * caller makes them public together, or drops them all.
  *
  * A job returns CORAX_OK, CORAX_EARG when it was asked for something it
- * cannot do as asked (a message with `usage` set says what), or another
- * status when its data or files fail it (its messages say why). */
+ * cannot do as asked (its message says what; `usage` is set on it when the
+ * fault is in how the options go together), or another status when its data
+ * or files fail it (its messages say why). */
 #ifndef CORAX_JOB_H
 #define CORAX_JOB_H
 
