@@ -66,7 +66,7 @@ SO_MAP    := $(BUILD)/libcorax.map
 $(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 
 .SECONDARY:
-.PHONY: all deps check unit cli-tests sanitize demo demo-run bench install stage clean
+.PHONY: all deps check unit cli-tests cycles sanitize demo demo-run bench install stage clean
 
 all: $(LIB) $(BIN) $(SO_LINKS)
 
@@ -105,6 +105,13 @@ $(BUILD)/tests/%: $(BUILD)/obj/tests/%.o $(TEST_AUX_OBJ) $(LIB)
 	@mkdir -p $(dir $@)
 	$(CC) $(LDFLAGS_ALL) -o $@ $< $(TEST_AUX_OBJ) $(LIB) $(TEST_LIBS) $(PKG_LIBS)
 
+# The jobs' test uses the public API alone: no internal headers, no test
+# helpers, only the library.
+$(BUILD)/obj/tests/test_jobs.o: CFLAGS_ALL := $(filter-out -Isrc,$(CFLAGS_ALL))
+$(BUILD)/tests/test_jobs: $(BUILD)/obj/tests/test_jobs.o $(LIB)
+	@mkdir -p $(dir $@)
+	$(CC) $(LDFLAGS_ALL) -o $@ $< $(LIB) $(TEST_LIBS) $(PKG_LIBS)
+
 $(BUILD)/bench/%: $(BUILD)/obj/bench/%.o $(LIB)
 	@mkdir -p $(dir $@)
 	$(CC) $(LDFLAGS_ALL) -o $@ $< $(LIB) $(PKG_LIBS)
@@ -117,9 +124,10 @@ $(BUILD)/tools/%: $(BUILD)/obj/tools/%.o $(LIB)
 deps:
 	@.ci/deps
 
-# The whole suite: unit tests (cmocka) and command-line cases.
+# The whole suite: unit tests (cmocka), command-line cases, and no circles in
+# the code's dependencies.
 check: deps
-	@$(MAKE) --no-print-directory unit cli-tests
+	@$(MAKE) --no-print-directory unit cli-tests cycles
 
 unit: $(TESTS)
 	@set -e; for t in $(TESTS); do echo "== $$t"; $$t; done
@@ -129,6 +137,10 @@ unit: $(TESTS)
 cli-tests: $(BIN) $(TOOLS) stage
 	@CORAX=$(abspath $(BIN)) BUILD=$(abspath $(BUILD)) STAGE=$(abspath $(STAGE)) \
 	    CC="$(CC)" TEST_SANITIZE="$(SANITIZE)" tests/cli/run.sh
+
+# Files, folders and headers that depend on each other in a circle.
+cycles: $(LIB_OBJ) $(CLI_OBJ)
+	@sh tools/check_cycles.sh $(LIB_OBJ) $(CLI_OBJ)
 
 # The same suite built with AddressSanitizer and UndefinedBehaviorSanitizer.
 sanitize: deps

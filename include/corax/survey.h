@@ -31,6 +31,10 @@ corax_status corax_dip_to_plunge(double dip_degrees, corax_dip_convention conven
 /* The dip in degrees, under a convention, of a plunge in radians. */
 double corax_plunge_to_dip(double plunge, corax_dip_convention convention);
 
+/* A convention's name as the options spell it: "negative-down",
+ * "positive-down", "from-vertical" ("unknown" for no convention). */
+const char *corax_dip_convention_name(corax_dip_convention convention);
+
 /* The collar: where the hole starts and, optionally, which way it was set up. */
 typedef struct corax_collar {
     corax_vec3 position;   /* x east, y north, z up, metres */

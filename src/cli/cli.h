@@ -10,23 +10,25 @@
 /* Exit statuses. */
 enum { EXIT_OK = 0, EXIT_DATA = 1, EXIT_USAGE = 2 };
 
-typedef struct cli_about cli_about;
+/* The record of what a run assumed, written next to its output. */
+typedef corax_record cli_about;
 
 /* The tables a run may read; each may have settings of its own (a project
  * file's [collars], [surveys], [structures], [runs] and [converted]). */
 typedef enum cli_table_id {
-    CLI_COLLARS,
-    CLI_SURVEYS,
-    CLI_STRUCTURES, /* core logs */
-    CLI_RUNS,       /* orientation runs */
-    CLI_CONVERTED,  /* corax's converted tables, read back */
-    CLI_DEPTHS,     /* any other table of holes and depths (trace --at): no
-                       section of its own, the defaults only */
-    CLI_NTABLES
+    CLI_COLLARS = CORAX_ROLE_COLLARS,
+    CLI_SURVEYS = CORAX_ROLE_SURVEYS,
+    CLI_STRUCTURES = CORAX_ROLE_STRUCTURES, /* core logs */
+    CLI_RUNS = CORAX_ROLE_RUNS,             /* orientation runs */
+    CLI_CONVERTED = CORAX_ROLE_CONVERTED,   /* corax's converted tables, read back */
+    CLI_DEPTHS = CORAX_ROLE_DEPTHS, /* any other table of holes and depths (trace --at): no
+                                       section of its own, the defaults only */
+    CLI_NTABLES = CORAX_ROLE_COUNT
 } cli_table_id;
 
 /* Where a reading's depth sits in a from/to interval. */
-typedef enum cli_interval { CLI_INTERVAL_MID, CLI_INTERVAL_FROM, CLI_INTERVAL_TO } cli_interval;
+typedef corax_reading_place cli_interval;
+enum { CLI_INTERVAL_MID = CORAX_PLACE_MID };
 
 enum { CLI_UNSET = -1 };
 
@@ -36,22 +38,10 @@ typedef struct cli_table {
     int delimiter, decimal;     /* 0 to find it from the table, or the character */
     int units;                  /* 0 metres, 1 feet */
     int dip;                    /* a corax_dip_convention (collars, surveys) */
-    int interval_depth;         /* a cli_interval (structures) */
+    int interval_depth;         /* a corax_reading_place (structures) */
     corax_column_map *columns;  /* its own header names, or NULL */
     corax_column_map *merged;   /* the defaults' names under its own (cli_common_finish) */
 } cli_table;
-
-/* A table as it was read: for the notes on standard error and the record. */
-typedef struct cli_table_read {
-    const char *path;
-    cli_table_id id;
-    corax_table_info info;
-} cli_table_read;
-
-typedef struct cli_reads {
-    cli_table_read *item;
-    size_t n;
-} cli_reads;
 
 /* A file a run reads or writes, and the option that named it. */
 typedef struct cli_path {
@@ -95,9 +85,9 @@ typedef struct cli_common {
     corax_load_options load; /* made from the tables' settings by cli_common_finish */
     corax_station_ref *reject;
     size_t nreject;
-    struct cli_reads *reads; /* tables read so far: a record kept beside the
-                                options, so that commands holding them const
-                                still note what they read */
+    corax_job job;           /* what the library's jobs report through: its
+                                messages printed as they come, its progress
+                                shown, the tables read so far */
     corax_outputs *outputs;  /* the run's files, made public together */
     cli_paths *inputs, *outputs_named; /* for the same-file check */
     const char *about_path;  /* where the record goes, or NULL */
@@ -195,20 +185,9 @@ int cli_log_option(cli_common *c, cli_log_options *l, int opt, const char *arg, 
                    size_t whylen);
 void cli_log_options_free(cli_log_options *l);
 
-/* Record the code words in a .about file. */
-void cli_about_codes(cli_about *a, const cli_log_options *l);
-
-/* Say once per value, on standard error (unless quiet): "corax: warning: WHAT
- * 'VALUE' (N rows, first FILE:LINE) PROBLEM: CONSEQUENCE". */
-void cli_tally_warn(const cli_common *c, const char *what, const char *problem,
-                    const corax_tally *t, const char *consequence);
-
 /* Apply a convention option: 1 applied, 0 not one, -1 with why filled. */
 int cli_convention_option(corax_convert_options *cv, int opt, const char *arg, char *why,
                           size_t whylen);
-
-/* Record the conventions and thresholds in a .about file. */
-void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
 
 /* Long options for the uncertainty of a reading's place and alpha, and of the
  * surveys (the core line's own: --beta-error, --line-error, --gravity-error). */
@@ -226,10 +205,6 @@ void cli_about_conventions(cli_about *a, const corax_convert_options *cv);
  * --draws takes whole numbers from min_draws. */
 int cli_uncertainty_option(corax_error_model *e, size_t *draws, uint64_t *seed, double min_draws,
                            int opt, const char *arg, char *why, size_t whylen);
-
-/* Record the errors in a .about file (the core line's when core_line). */
-void cli_about_uncertainty(cli_about *a, const corax_error_model *e, size_t draws, uint64_t seed,
-                           int core_line);
 
 /* Long options for the shared set; commands put them first in their table. */
 #define CLI_COMMON_OPTIONS                                                   \
@@ -307,24 +282,6 @@ int cli_files_stdin_once(const cli_files *f, const char *command);
 
 void cli_files_free(cli_files *f);
 
-/* Load a whole table (read with table id's settings, its progress shown and
- * its reading noted) and keep it in *tables (*n of them); NULL with the
- * message printed when it cannot be read. */
-corax_table *cli_table_keep(const cli_common *c, cli_table_id id, const char *path,
-                            corax_table ***tables, size_t *n);
-
-/* The columns of logical names in a whole table, by the table's header names
- * (ts): 0, or -1 with "no 'X' column ... which the column names give for Y"
- * printed for a mapped name the table lacks. */
-int cli_table_columns(const corax_table *t, const corax_table_settings *ts,
-                      const char *const *names, size_t n, long *col);
-
-/* A kind or confidence value as its word: through the codes when there are
- * any (an unknown code is counted in `unknown`, may be NULL, and kept as
- * written). */
-const char *cli_code_word(const corax_codes *codes, const char *text, size_t len,
-                          corax_tally *unknown, const char *file, size_t file_index, long line);
-
 /* Check the options after parsing (decimal comma needs ';', ...). 0 ok. */
 int cli_common_finish(cli_common *c, int need_program);
 
@@ -357,11 +314,6 @@ int cli_table_key(cli_common *c, cli_table_id id, const char *key, const char *v
 
 /* The table id of a project section's name, or -1. */
 int cli_table_section(const char *section);
-
-/* Note a table as read: its comment lines and blank rows on standard error
- * (unless quiet) and, with the format found, in the record. */
-void cli_table_done(const cli_common *c, cli_table_id id, const char *path,
-                    const corax_table_info *info);
 
 /* Table settings by name, for options and project keys alike: 0 with
  * *value set, -1 with why filled. Delimiter: comma, semicolon, tab, auto
@@ -405,26 +357,21 @@ int cli_load_program_findings(cli_common *c, corax_program **prog, corax_finding
  * or a data error when the program cannot be loaded) and c freed. */
 int cli_begin(cli_common *c, int parsed, int want_program, corax_program **prog, int *status);
 
+/* The exit status of a job's status: 0 for CORAX_OK, EXIT_USAGE for what it
+ * could not do as asked (CORAX_EARG), else EXIT_DATA. */
+int cli_status(corax_status st);
+
 /* Messages on stderr: `corax: FILE:LINE: message` or `corax: message`. */
 void cli_error(const char *file, long line, const char *fmt, ...)
     __attribute__((format(printf, 3, 4)));
 void cli_error_record(const corax_error *err, corax_status st);
 void cli_finding(const corax_finding *f);
 
-/* Faults in a table's rows: the first CLI_SHOWN are printed as `corax:
- * FILE:LINE: message`, the rest counted. Every command that reads a table
- * refuses it when it has any (one policy for all). */
-enum { CLI_SHOWN = 50 };
-typedef struct cli_problems {
-    size_t n;
-} cli_problems;
-
-void cli_problem(cli_problems *p, const char *file, long line, const char *fmt, ...)
-    __attribute__((format(printf, 4, 5)));
-
-/* After the last row: EXIT_OK when there were none; else how many were not
- * shown, and "N problems in WHAT; nothing written", and EXIT_DATA. */
-int cli_problems_end(const cli_problems *p, const char *what);
+/* A library job's message, as corax_message says (notes and warnings left
+ * out when quiet); cli_on_message is the job's callback (user: the
+ * cli_common). */
+void cli_message(const cli_common *c, const corax_message *m);
+void cli_on_message(void *user, const corax_message *m);
 
 /* A note on stderr, `corax: note: message`, unless --quiet. */
 void cli_note(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
@@ -432,18 +379,15 @@ void cli_note(const cli_common *c, const char *fmt, ...) __attribute__((format(p
 /* A usage error: prints the message and a pointer to --help; returns EXIT_USAGE. */
 int cli_usage(const char *command, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
-/* The name of a dip convention as the options spell it. */
-const char *cli_dip_convention_name(corax_dip_convention c);
-
-/* The record of what a run assumed, written next to its output. */
+/* The record of what a run assumed: the run, the tables read so far and the
+ * survey's settings; the command's own sections follow. */
 cli_about *cli_about_new(const char *command, const cli_common *c);
-void cli_about_section(cli_about *a, const char *section);
-void cli_about_set(cli_about *a, const char *key, const char *fmt, ...)
-    __attribute__((format(printf, 3, 4)));
 /* Write it (when there is somewhere to write) and free it; 0 ok. */
 int cli_about_commit(cli_about *a, const cli_common *c);
 /* Free it unwritten (a failed run); NULL allowed. */
 void cli_about_discard(cli_about *a);
+/* A new record with a job's record after it, committed. */
+int cli_about_job(const char *command, const cli_common *c, const corax_record *job);
 
 /* Progress of a long run on standard error, with the time left: shown only
  * when standard error is a terminal and the run is not quiet, not before a
@@ -461,46 +405,13 @@ void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
 void cli_progress_set(cli_progress *p, double done);
 void cli_progress_end(cli_progress *p);
 
-/* The size of a regular file in bytes, 0 for standard input or others. */
-double cli_file_size(const char *path);
-
-/* A converted table (one structure a row) being read. */
-typedef struct cli_converted {
-    const char *path;
-    const cli_common *c; /* the run, for the record of what was read */
-    char decimal;      /* as read */
-    double unit;       /* metres per unit of its lengths */
-    corax_reader *reader;
-    cli_progress progress;
-    size_t rows;       /* read so far */
-    corax_structure_columns columns;
-    size_t width;      /* fields in its header */
-    corax_row header;  /* valid until the first row is read */
-    cli_problems problems; /* faulty rows met so far */
-} cli_converted;
-
-/* Open a converted table and find its columns; 0, or EXIT_DATA with the
- * message printed. */
-int cli_converted_open(const cli_common *c, const char *path, cli_converted *t);
-
-/* The next structure: 1 with *row and *s filled, 0 at the end. Faulty rows
- * (ragged, unusable values) are printed as `corax: FILE:LINE: why`, counted
- * and skipped, so that a run reports all of them. */
-int cli_converted_next(cli_converted *t, corax_row *row, corax_structure *s);
-
-/* Close; EXIT_DATA (with a summary printed) when there were problems. */
-int cli_converted_close(cli_converted *t);
-
 /* A step of a long run, "corax: COMMAND: ...", on a terminal only (as
  * progress). */
 void cli_phase(const cli_common *c, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
-/* A corax_progress_fn for a cli_progress. */
-void cli_progress_fn(void *user, double done);
-
-/* corax_table_load() with its progress shown. */
-corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
-                            corax_table **out, corax_error *err);
+/* The progress callback of a job (user: the cli_common): each stage shown
+ * as cli_progress shows it, a phase as cli_phase. */
+void cli_on_stage(void *user, corax_stage *stage);
 
 /* ---- the run's files ---- */
 
@@ -529,31 +440,11 @@ void cli_main_help(FILE *f);
 int cli_command_help(const char *name);
 void cli_project_help(FILE *f);
 
-/* Orientation runs from a runs table (hole, from, to, optional confidence),
- * sorted by hole and depth. */
-typedef struct cli_runs {
-    corax_table *table;
-    corax_qa_run *run;
-    size_t n;
-} cli_runs;
-
-/* Read a runs table (with the runs table's settings; its confidence words
- * through the codes, an unknown code counted in `unknown` with the table as
- * file number file_index); its rows that cannot be used become findings (and
- * are left out). 0, or EXIT_DATA with the message printed. */
-int cli_runs_load(const cli_common *c, const char *path, const corax_codes *codes,
-                  corax_tally *unknown, size_t file_index, cli_runs *runs,
-                  corax_findings *found);
-void cli_runs_free(cli_runs *runs);
-
-/* The run of a hole (name of len bytes) holding a depth (from <= depth < to),
- * or -1. */
-long cli_runs_find(const cli_runs *runs, const char *hole, size_t len, double depth);
-
-/* Whether a confidence word (len bytes, as the log or runs table gives it)
- * says the core has no orientation mark: it is `word` (without regard to case
- * or surrounding blanks). The one place that reads such words. */
-int cli_unoriented_confidence(const char *text, size_t len, const char *word);
+/* One reading at the core shed (cli/convert_one.c): a labelled answer on
+ * standard output. Angles in degrees; NaN for what was not given. */
+int convert_one_reading(const cli_common *c, const corax_convert_options *o, double hole_azimuth,
+                        double hole_dip, double alpha, double beta, double gamma,
+                        const double plane[2], const double line[2]);
 
 /* Commands. */
 int cmd_export(int argc, char **argv);

@@ -6,8 +6,6 @@
 #include <strings.h>
 
 #include "cli/cli.h"
-#include "cli/convert_rows.h"
-#include "io/fields.h"
 
 static const char convert_help[] =
     "usage: corax convert --collars FILE --surveys FILE [options] [-o FILE] STRUCTURES...\n"
@@ -92,10 +90,10 @@ enum {
 typedef struct convert_opts {
     cli_common c;
     cli_log_options log;
-    convert_setup setup;
+    corax_convert_job_options setup;
     cli_files logs;
     const char *runs_file;
-    cli_runs runs;
+    corax_runs runs;
     /* one reading */
     double hole_azimuth, hole_dip, alpha, beta, gamma;
     double plane[2], line[2];
@@ -115,7 +113,7 @@ static int pair(const char *arg, double *a, double *b, char *why, size_t wl)
 }
 
 /* "good=3,fair=8,poor=20" into the confidence table. */
-static int confidence_map(convert_setup *s, const char *arg, char *why, size_t wl)
+static int confidence_map(corax_convert_job_options *s, const char *arg, char *why, size_t wl)
 {
     s->nconfidence = 0;
     for (const char *p = arg; *p;) {
@@ -131,7 +129,7 @@ static int confidence_map(convert_setup *s, const char *arg, char *why, size_t w
                      (int)(end - p), p);
             return -1;
         }
-        convert_confidence *c = &s->confidence[s->nconfidence++];
+        corax_convert_confidence *c = &s->confidence[s->nconfidence++];
         snprintf(c->name, sizeof c->name, "%.*s", (int)(eq - p), p);
         c->sigma = corax_rad(v);
         p = *end ? end + 1 : end;
@@ -140,7 +138,7 @@ static int confidence_map(convert_setup *s, const char *arg, char *why, size_t w
 }
 
 /* "KIND=DIP/DIPDIR" or "KIND=nearby" into the references. */
-static int orient_by(convert_setup *s, const char *arg, char *why, size_t wl)
+static int orient_by(corax_convert_job_options *s, const char *arg, char *why, size_t wl)
 {
     const char *eq = strchr(arg, '=');
     if (!eq || eq == arg || (size_t)(eq - arg) >= sizeof s->refs[0].kind) {
@@ -151,7 +149,7 @@ static int orient_by(convert_setup *s, const char *arg, char *why, size_t wl)
         snprintf(why, wl, "at most %zu references", sizeof s->refs / sizeof s->refs[0]);
         return -1;
     }
-    convert_reference *ref = &s->refs[s->nrefs];
+    corax_convert_reference *ref = &s->refs[s->nrefs];
     memset(ref, 0, sizeof *ref);
     snprintf(ref->kind, sizeof ref->kind, "%.*s", (int)(eq - arg), arg);
     for (size_t k = 0; k < s->nrefs; k++)
@@ -295,43 +293,66 @@ static int parse(int argc, char **argv, convert_opts *o)
     return cli_common_finish(&o->c, 1);
 }
 
-/* Record what the run assumed. */
-static int write_about(const convert_opts *o)
+/* The rows by status, on standard error: "corax: 12 rows: 10 converted, 2
+ * near-parallel". */
+static void summary(const corax_convert_job_summary *sum)
 {
-    const corax_convert_options *cv = &o->setup.convert;
-    cli_about *a = cli_about_new("convert", &o->c);
-    cli_about_section(a, "convert");
-    for (size_t i = 0; i < o->logs.n; i++)
-        cli_about_set(a, "structures", "%s", o->logs.path[i]);
-    cli_about_conventions(a, cv);
-    cli_about_codes(a, &o->log);
-    if (o->setup.has_section)
-        cli_about_set(a, "section_azimuth", "%g", corax_deg(o->setup.section_azimuth));
-    if (o->runs_file)
-        cli_about_set(a, "runs", "%s", o->runs_file);
-    cli_about_set(a, "unoriented_word", "%s", o->setup.unoriented_word);
-    for (size_t i = 0; i < o->setup.nrefs; i++) {
-        const convert_reference *ref = &o->setup.refs[i];
-        if (ref->nearby)
-            cli_about_set(a, "orient_by", "%s=nearby (the mean of the hole's oriented readings "
-                          "within %g m of the run)", ref->kind, o->setup.nearby_within);
-        else
-            cli_about_set(a, "orient_by", "%s=%g/%g", ref->kind, corax_deg(ref->plane.dip),
-                          corax_deg(ref->plane.dip_direction));
+    fprintf(stderr, "corax: %zu row%s:", sum->rows, sum->rows == 1 ? "" : "s");
+    int first = 1;
+    if (sum->count[CORAX_COND_COUNT]) {
+        fprintf(stderr, " %zu converted", sum->count[CORAX_COND_COUNT]);
+        first = 0;
     }
-    if (o->setup.draws) {
-        cli_about_uncertainty(a, &o->setup.errors, o->setup.draws, o->setup.seed, 1);
-        char map[600] = "";
-        size_t used = 0;
-        for (size_t i = 0; i < o->setup.nconfidence && used < sizeof map; i++)
-            used += (size_t)snprintf(map + used, sizeof map - used, "%s%s=%g", i ? "," : "",
-                                     o->setup.confidence[i].name,
-                                     corax_deg(o->setup.confidence[i].sigma));
-        cli_about_set(a, "confidence_errors", "%s", map);
-        if (o->setup.cloud)
-            cli_about_set(a, "cloud", "%s", o->setup.cloud);
+    for (unsigned k = 0; k < CORAX_COND_COUNT; k++)
+        if (sum->count[k]) {
+            fprintf(stderr, "%s %zu %s", first ? "" : ",", sum->count[k],
+                    corax_condition_name(k));
+            first = 0;
+        }
+    fputc('\n', stderr);
+}
+
+static int convert_logs(convert_opts *o)
+{
+    corax_program *prog = cli_load_program(&o->c);
+    if (!prog)
+        return EXIT_DATA;
+    corax_convert_job_options *s = &o->setup;
+    s->log = cli_table_settings(&o->c, CLI_STRUCTURES);
+    s->place = cli_interval_depth(&o->c);
+    s->kind_codes = o->log.kind_codes;
+    s->confidence_codes = o->log.confidence_codes;
+    s->output = o->c.output_format;
+    int rc = EXIT_OK;
+    if (o->runs_file) {
+        corax_findings found = {0};
+        corax_table_settings ts = cli_table_settings(&o->c, CLI_RUNS);
+        corax_status st = corax_runs_load(&o->c.job, o->runs_file, &ts, o->log.confidence_codes,
+                                          NULL, 0, &o->runs, &found);
+        for (size_t i = 0; i < found.count; i++)
+            cli_finding(&found.item[i]);
+        corax_findings_clear(&found);
+        rc = cli_status(st);
+        s->runs = &o->runs;
     }
-    return cli_about_commit(a, &o->c);
+    corax_convert_job_summary sum;
+    memset(&sum, 0, sizeof sum);
+    corax_record *record = corax_record_new();
+    o->c.job.record = record;
+    if (rc == EXIT_OK)
+        rc = cli_status(corax_convert_job_run(&o->c.job, prog, s, o->logs.path, o->logs.n,
+                                              o->c.output, &sum));
+    o->c.job.record = NULL;
+    if (rc == EXIT_OK && !o->c.quiet)
+        summary(&sum);
+    if (rc == EXIT_OK)
+        corax_convert_job_warn(&o->c.job, s, &sum);
+    if (rc == EXIT_OK && cli_about_job("convert", &o->c, record) != 0)
+        rc = EXIT_DATA;
+    corax_record_free(record);
+    corax_convert_job_summary_clear(&sum);
+    corax_program_free(prog);
+    return rc;
 }
 
 int cmd_convert(int argc, char **argv)
@@ -339,52 +360,15 @@ int cmd_convert(int argc, char **argv)
     convert_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "convert");
-    o.setup.convert = corax_convert_options_default();
-    o.setup.errors = corax_error_model_default();
-    o.setup.seed = 1;
-    char map_why[200];
-    confidence_map(&o.setup, "good=3,fair=8,poor=20", map_why, sizeof map_why);
+    o.setup = corax_convert_job_options_default();
     o.hole_azimuth = o.hole_dip = o.alpha = o.beta = o.gamma = NAN;
     o.plane[0] = o.line[0] = NAN;
-    o.setup.unoriented_word = "unoriented";
-    o.setup.nearby_within = 30.0;
     int rc = parse(argc, argv, &o);
-    if (rc != 0)
-        goto done;
-    if (o.single) {
-        rc = convert_one_reading(&o.c, &o.setup, o.hole_azimuth, o.hole_dip, o.alpha, o.beta,
-                                 o.gamma, o.plane, o.line);
-        goto done;
-    }
-    corax_program *prog = cli_load_program(&o.c);
-    if (!prog) {
-        rc = EXIT_DATA;
-        goto done;
-    }
-    o.setup.log = cli_table_settings(&o.c, CLI_STRUCTURES);
-    o.setup.interval = (int)cli_interval_depth(&o.c);
-    o.setup.kind_codes = o.log.kind_codes;
-    o.setup.confidence_codes = o.log.confidence_codes;
-    o.setup.output = o.c.output_format;
-    if (o.runs_file) {
-        corax_findings found = {0};
-        rc = cli_runs_load(&o.c, o.runs_file, o.log.confidence_codes, NULL, 0, &o.runs, &found);
-        for (size_t i = 0; i < found.count; i++)
-            cli_finding(&found.item[i]);
-        corax_findings_clear(&found);
-        if (rc != EXIT_OK) {
-            corax_program_free(prog);
-            goto done;
-        }
-        o.setup.runs = &o.runs;
-    }
-    o.setup.quiet = o.c.quiet;
-    rc = convert_files(&o.c, prog, &o.setup, o.logs.path, o.logs.n, o.c.output);
-    if (rc == EXIT_OK && write_about(&o) != 0)
-        rc = EXIT_DATA;
-    corax_program_free(prog);
-done:
-    cli_runs_free(&o.runs);
+    if (rc == 0)
+        rc = o.single ? convert_one_reading(&o.c, &o.setup.convert, o.hole_azimuth, o.hole_dip,
+                                            o.alpha, o.beta, o.gamma, o.plane, o.line)
+                      : convert_logs(&o);
+    corax_runs_free(&o.runs);
     cli_files_free(&o.logs);
     cli_log_options_free(&o.log);
     rc = cli_run_end(&o.c, rc);

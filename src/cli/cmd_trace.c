@@ -1,11 +1,8 @@
 /* cli: `corax trace`, the desurveyed holes: positions and directions at the
  * depths asked for, or down every hole at a step. */
-#include <math.h>
-#include <stdlib.h>
 #include <string.h>
 
 #include "cli/cli.h"
-#include "io/fields.h"
 
 static const char trace_help[] =
     "usage: corax trace --collars FILE --surveys FILE [--at FILE | --step METRES]\n"
@@ -36,255 +33,10 @@ typedef struct trace_opts {
     cli_common c;
     const char *at;
     double step;
-    char decimal; /* the --at table's decimal mark, as read */
-    double unit;  /* metres per unit of its depths */
-    corax_dip_convention dip; /* of the dips written: the surveys' */
     const char *corrections; /* the companion table, or NULL */
 } trace_opts;
 
 enum { OPT_AT = OPT_COMMAND_BASE, OPT_STEP, OPT_CORRECTIONS };
-
-static void write_point(corax_writer *w, const corax_hole_point *pt,
-                        corax_dip_convention conv)
-{
-    double az, plunge;
-    corax_direction_angles(pt->tangent, &az, &plunge);
-    corax_writer_number(w, pt->position.x, 3);
-    corax_writer_number(w, pt->position.y, 3);
-    corax_writer_number(w, pt->position.z, 3);
-    corax_writer_azimuth(w, corax_deg(az), 3);
-    corax_writer_number(w, corax_plunge_to_dip(plunge, conv), 3);
-}
-
-static void write_blank_point(corax_writer *w)
-{
-    for (int i = 0; i < 5; i++)
-        corax_writer_field(w, "", 0);
-}
-
-static void write_text(corax_writer *w, const char *s) { corax_writer_field(w, s, strlen(s)); }
-
-/* One --at row: its own fields, then the answer. */
-static void trace_row(const trace_opts *o, const corax_program *prog, const corax_row *row,
-                      const long *col, size_t width, corax_writer *w)
-{
-    char note[240] = "";
-    for (size_t i = 0; i < width; i++)
-        corax_writer_field(w, i < row->count ? row->field[i] : "", i < row->count ? row->length[i] : 0);
-    if (row->count > width) { /* keep the surplus fields: nothing is lost */
-        size_t used = (size_t)snprintf(note, sizeof note, "extra fields: ");
-        for (size_t i = width; i < row->count && used < sizeof note; i++)
-            used += (size_t)snprintf(note + used, sizeof note - used, "%s%s",
-                                     i > width ? "," : "", row->field[i]);
-    }
-    size_t hl;
-    const char *hole_name = corax_field_text(row, col[0], &hl);
-    const corax_hole *hole = corax_program_find(prog, hole_name, hl);
-    double depth;
-    char why[200];
-    corax_number_status ds = corax_field_number(row, col[1], o->decimal, "depth", &depth, why,
-                                                sizeof why);
-    depth *= o->unit;
-    const char *status;
-    corax_hole_point pt;
-    if (!hole) {
-        status = "unknown-hole";
-        write_blank_point(w);
-    } else if (ds != CORAX_NUMBER_OK || depth < 0.0) {
-        status = "bad-depth";
-        if (ds == CORAX_NUMBER_OK)
-            snprintf(why, sizeof why, "depth %g is negative", depth);
-        snprintf(note + strlen(note), sizeof note - strlen(note), "%s%s", note[0] ? "; " : "", why);
-        write_blank_point(w);
-    } else if (corax_hole_at(hole, depth, NULL, &pt) == CORAX_ENOTFOUND) {
-        status = "no-survey";
-        write_blank_point(w);
-    } else {
-        status = corax_where_name(pt.where);
-        write_point(w, &pt, o->dip);
-    }
-    write_text(w, status);
-    write_text(w, note);
-    corax_writer_end_row(w);
-}
-
-static int trace_at(trace_opts *o, const corax_program *prog, corax_writer *w)
-{
-    static const char *const names[] = {"hole", "depth"};
-    static const char *const out[] = {"x", "y", "z", "azimuth", "dip", "status", "note"};
-    corax_table_settings ts = cli_table_settings(&o->c, CLI_DEPTHS);
-    long col[2];
-    size_t width;
-    corax_row row;
-    corax_reader *r;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_reader_open(o->at, ts.format, &r, &err);
-    if (st == CORAX_OK)
-        st = corax_table_header(r, names, 2, 2, ts.columns, col, &width, &row, &err);
-    if (st == CORAX_OK) {
-        corax_table_info info;
-        corax_reader_info(r, &info);
-        o->decimal = info.format.decimal;
-        o->unit = ts.unit;
-        for (size_t i = 0; i < row.count; i++) {
-            char name[512];
-            size_t len = corax_carried_name(row.field[i], out, 7, name, sizeof name);
-            corax_writer_field(w, name, len);
-        }
-        for (size_t i = 0; i < 7; i++)
-            write_text(w, out[i]);
-        corax_writer_end_row(w);
-        while ((st = corax_reader_next(r, &row, &err)) == CORAX_OK)
-            trace_row(o, prog, &row, col, width, w);
-    }
-    if (r) {
-        corax_table_info info;
-        corax_reader_info(r, &info);
-        cli_table_done(&o->c, CLI_DEPTHS, o->at, &info);
-    }
-    corax_reader_close(r);
-    if (st != CORAX_END) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
-    }
-    return EXIT_OK;
-}
-
-/* The words for corax_depth_kind, in its order. */
-static const char *const point_name[] = {"step", "collar", "end", "station"};
-
-/* Points down one hole: collar, steps, stations and end, in depth order. */
-static int trace_hole(const trace_opts *o, const corax_hole *h, corax_writer *w)
-{
-    corax_hole_depth *p;
-    size_t n;
-    corax_status st = corax_hole_depths(h, o->step, &p, &n);
-    if (st == CORAX_EARG) {
-        cli_error(NULL, 0, "hole %s is %.10g m long: a point every %g m makes more than %d "
-                  "points; take a longer step", corax_hole_name(h), corax_hole_length(h),
-                  o->step, CORAX_MAX_HOLE_POINTS);
-        return -1;
-    }
-    if (st != CORAX_OK) {
-        cli_error(NULL, 0, "out of memory");
-        return -1;
-    }
-    const char *name = corax_hole_name(h);
-    size_t hint = 0;
-    for (size_t k = 0; k < n; k++) {
-        double dls = NAN;
-        if (p[k].kind == CORAX_DEPTH_STATION)
-            corax_hole_station(h, p[k].station, NULL, NULL, &dls);
-        corax_hole_point pt;
-        corax_writer_field(w, name, strlen(name));
-        corax_writer_number(w, p[k].depth, 3);
-        const char *status;
-        if (corax_hole_at(h, p[k].depth, &hint, &pt) == CORAX_ENOTFOUND) {
-            if (p[k].depth == 0.0) { /* the collar is all we know */
-                corax_writer_number(w, pt.position.x, 3);
-                corax_writer_number(w, pt.position.y, 3);
-                corax_writer_number(w, pt.position.z, 3);
-                corax_writer_field(w, "", 0);
-                corax_writer_field(w, "", 0);
-            } else {
-                write_blank_point(w);
-            }
-            status = "no-survey";
-        } else {
-            write_point(w, &pt, o->dip);
-            status = corax_where_name(pt.where);
-        }
-        corax_writer_number(w, corax_deg(dls), 3);
-        write_text(w, point_name[p[k].kind]);
-        write_text(w, status);
-        corax_writer_end_row(w);
-    }
-    free(p);
-    return 0;
-}
-
-static int trace_all(trace_opts *o, const corax_program *prog, corax_writer *w)
-{
-    static const char *const header[] = {"hole",    "depth",           "x",     "y",
-                                         "z",       "azimuth",         "dip",   "dogleg_severity",
-                                         "point",   "status"};
-    for (size_t i = 0; i < sizeof header / sizeof *header; i++)
-        write_text(w, header[i]);
-    corax_writer_end_row(w);
-    for (size_t i = 0; i < corax_program_size(prog); i++)
-        if (trace_hole(o, corax_program_hole(prog, i), w) != 0)
-            return EXIT_DATA;
-    return EXIT_OK;
-}
-
-/* A decimal year as its date, or an empty field. */
-static void write_date(corax_writer *w, double year)
-{
-    char text[16] = "";
-    if (!isnan(year))
-        corax_date_text(year, text, sizeof text);
-    write_text(w, text);
-}
-
-/* One row per station of every hole, in depth order: what its azimuth got. */
-static void write_corrections(const trace_opts *o, const corax_program *prog, corax_writer *w)
-{
-    static const char header[] =
-        "hole,depth,date,reference,surveyed_azimuth,declination,convergence,rotation,"
-        "correction,azimuth,latitude,longitude,model,model_total_field,model_field_dip,"
-        "total_field,field_dip\n";
-    corax_writer_text(w, header, sizeof header - 1);
-    for (size_t i = 0; i < corax_program_size(prog); i++) {
-        const corax_hole *h = corax_program_hole(prog, i);
-        const char *name = corax_hole_name(h);
-        for (size_t k = 0; k < corax_hole_station_count(h); k++) {
-            corax_station st;
-            corax_hole_station(h, k, &st, NULL, NULL);
-            const corax_station_record *r = corax_corrections_find(&o->c.corr.record, name,
-                                                                   st.line);
-            if (!r)
-                continue; /* every loaded station has its record */
-            const corax_correction *c = &r->correction;
-            write_text(w, name);
-            corax_writer_number(w, st.depth, 3);
-            write_date(w, c->date);
-            write_text(w, corax_north_name(c->north));
-            corax_writer_azimuth(w, corax_deg(r->azimuth), 3);
-            corax_writer_number(w, corax_deg(c->declination), 3);
-            corax_writer_number(w, corax_deg(c->convergence), 3);
-            corax_writer_number(w, corax_deg(c->rotation), 3);
-            corax_writer_number(w, corax_deg(c->total), 3);
-            corax_writer_azimuth(w, corax_deg(st.azimuth), 3);
-            corax_writer_number(w, corax_deg(r->site.latitude), 6);
-            corax_writer_number(w, corax_deg(r->site.longitude), 6);
-            write_text(w, c->field.model ? c->field.model : "");
-            corax_writer_number(w, c->field.total, 1);
-            corax_writer_number(w, corax_deg(c->field.inclination), 2);
-            corax_writer_number(w, r->total_field, 1);
-            corax_writer_number(w, corax_deg(r->field_dip), 2);
-            corax_writer_end_row(w);
-        }
-    }
-}
-
-/* The companion table, whole or not at all. */
-static int trace_corrections(const trace_opts *o, const corax_program *prog)
-{
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open(o->corrections, &w, &err);
-    if (st == CORAX_OK) {
-        write_corrections(o, prog, w);
-        st = corax_writer_commit(w, &err);
-    }
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
-    }
-    return EXIT_OK;
-}
 
 static int trace_option(void *ctx, int opt, const char *arg, char *why, size_t wl)
 {
@@ -329,42 +81,21 @@ int cmd_trace(int argc, char **argv)
     corax_program *prog;
     if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))
         return rc;
-    corax_writer *w;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st = corax_writer_open_in(o.c.outputs, o.c.output, &w, &err);
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
+    corax_trace_job_options j = corax_trace_job_options_default();
+    j.at = o.at;
+    j.depths = cli_table_settings(&o.c, CLI_DEPTHS);
+    j.step = o.step;
+    j.dip = cli_table_dip(&o.c, CLI_SURVEYS);
+    j.output = o.c.output_format;
+    j.corrections = o.corrections;
+    j.record = &o.c.corr.record;
+    corax_record *record = corax_record_new();
+    o.c.job.record = record;
+    rc = cli_status(corax_trace_job_run(&o.c.job, prog, &j, o.c.output));
+    o.c.job.record = NULL;
+    if (rc == EXIT_OK && cli_about_job("trace", &o.c, record) != 0)
         rc = EXIT_DATA;
-    } else {
-        corax_writer_format(w, o.c.output_format);
-        o.dip = cli_table_dip(&o.c, CLI_SURVEYS);
-        rc = o.at ? trace_at(&o, prog, w) : trace_all(&o, prog, w);
-        if (rc == EXIT_OK && o.corrections)
-            rc = trace_corrections(&o, prog);
-        if (rc == EXIT_OK) {
-            st = corax_writer_commit(w, &err);
-            if (st != CORAX_OK) {
-                cli_error_record(&err, st);
-                rc = EXIT_DATA;
-            }
-        } else {
-            corax_writer_discard(w);
-        }
-    }
-    if (rc == EXIT_OK) {
-        cli_about *a = cli_about_new("trace", &o.c);
-        cli_about_section(a, "trace");
-        if (o.at)
-            cli_about_set(a, "at", "%s", o.at);
-        else
-            cli_about_set(a, "step", "%g", o.step);
-        cli_about_set(a, "dip", "%s, as the surveys give it", cli_dip_convention_name(o.dip));
-        if (o.corrections)
-            cli_about_set(a, "corrections", "%s", o.corrections);
-        if (cli_about_commit(a, &o.c) != 0)
-            rc = EXIT_DATA;
-    }
+    corax_record_free(record);
     corax_program_free(prog);
     rc = cli_run_end(&o.c, rc);
     cli_common_free(&o.c);

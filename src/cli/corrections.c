@@ -126,46 +126,48 @@ void cli_corrections_about(cli_about *a, const cli_common *c)
 {
     const cli_corrections *k = &c->corr;
     if (k->declination_model && !k->model) { /* no surveys read: nothing was corrected */
-        cli_about_set(a, "declination", "model (not used: no survey table read)");
+        corax_record_set(a, "declination", "model (not used: no survey table read)");
     } else if (k->declination_model) {
         char valid[64];
         corax_magnetic_validity_text(k->model, valid, sizeof valid);
-        cli_about_set(a, "declination", "model: %s, valid %s, at each station's date and its "
-                      "collar's place and elevation (taken as height above the ellipsoid)",
-                      corax_magnetic_model_name(k->model), valid);
+        corax_record_set(a, "declination", "model: %s, valid %s, at each station's date and its "
+                         "collar's place and elevation (taken as height above the ellipsoid)",
+                         corax_magnetic_model_name(k->model), valid);
         if (k->model_name && !corax_magnetic_is_builtin(k->model_name))
-            cli_about_set(a, "magnetic_model_file", "%s", k->model_name);
-        cli_about_set(a, "survey_dates", "the surveys' date column, else the collars' date, "
-                      "else %s", k->date_text ? k->date_text : "none (a station without is an error)");
+            corax_record_set(a, "magnetic_model_file", "%s", k->model_name);
+        corax_record_set(a, "survey_dates", "the surveys' date column, else the collars' date, "
+                         "else %s",
+                         k->date_text ? k->date_text : "none (a station without is an error)");
     } else {
-        cli_about_set(a, "declination", "%g", c->load.declination);
+        corax_record_set(a, "declination", "%g", c->load.declination);
     }
     if (k->convergence_projection)
-        cli_about_set(a, "convergence", "projection: PROJ's meridian convergence at each collar");
+        corax_record_set(a, "convergence",
+                         "projection: PROJ's meridian convergence at each collar");
     else
-        cli_about_set(a, "convergence", "%g", c->load.convergence);
+        corax_record_set(a, "convergence", "%g", c->load.convergence);
     if (k->crs)
-        cli_about_set(a, "crs", "%s (%s)", corax_crs_definition(k->crs), corax_crs_name(k->crs));
+        corax_record_set(a, "crs", "%s (%s)", corax_crs_definition(k->crs), corax_crs_name(k->crs));
     if (k->grid_text) {
-        cli_about_set(a, "local_grid", "%s", k->grid_text);
-        cli_about_set(a, "local_grid_rotation", "%.6f (degrees, from the CRS's grid north to "
-                      "local north, clockwise positive)", corax_deg(k->grid.rotation));
-        cli_about_set(a, "local_grid_scale", "%.8f (CRS metres per local unit)", k->grid.scale);
-        cli_about_set(a, "local_grid_origin", "%.3f, %.3f (the local origin in the CRS)",
-                      k->grid.east, k->grid.north);
+        corax_record_set(a, "local_grid", "%s", k->grid_text);
+        corax_record_set(a, "local_grid_rotation", "%.6f (degrees, from the CRS's grid north to "
+                         "local north, clockwise positive)", corax_deg(k->grid.rotation));
+        corax_record_set(a, "local_grid_scale", "%.8f (CRS metres per local unit)", k->grid.scale);
+        corax_record_set(a, "local_grid_origin", "%.3f, %.3f (the local origin in the CRS)",
+                         k->grid.east, k->grid.north);
     }
-    cli_about_set(a, "survey_reference", "%s (the surveys' reference column overrides it)",
-                  corax_north_name((corax_north)k->north));
+    corax_record_set(a, "survey_reference", "%s (the surveys' reference column overrides it)",
+                     corax_north_name((corax_north)k->north));
     if (!k->declination_model && !k->convergence_projection && !k->grid_text)
-        cli_about_set(a, "azimuth_correction", "%g (added to every magnetic survey azimuth; "
-                      "collar azimuths are taken as given)",
-                      c->load.declination - c->load.convergence);
-    cli_about_set(a, "sign_convention",
-                  "total correction added to a magnetic survey azimuth = declination (east "
-                  "positive) - convergence (positive when grid north is east of true north) - "
-                  "local grid rotation (positive when local north is clockwise of grid north); "
-                  "a true-north survey gets - convergence - rotation, a grid survey nothing; "
-                  "collar azimuths are taken as given, in the grid of the coordinates");
+        corax_record_set(a, "azimuth_correction", "%g (added to every magnetic survey azimuth; "
+                         "collar azimuths are taken as given)",
+                         c->load.declination - c->load.convergence);
+    corax_record_set(a, "sign_convention",
+                     "total correction added to a magnetic survey azimuth = declination (east "
+                     "positive) - convergence (positive when grid north is east of true north) - "
+                     "local grid rotation (positive when local north is clockwise of grid north); "
+                     "a true-north survey gets - convergence - rotation, a grid survey nothing; "
+                     "collar azimuths are taken as given, in the grid of the coordinates");
 }
 
 void cli_corrections_free(cli_corrections *k)

@@ -9,12 +9,60 @@
 #include "cli/cli.h"
 #include "corax/project.h"
 
-static const char *const dip_names[] = {"negative-down", "positive-down", "from-vertical"};
-
-const char *cli_dip_convention_name(corax_dip_convention c)
-{
-    return (unsigned)c < 3 ? dip_names[c] : "unknown";
-}
+const char cli_common_help[] =
+    "Drill program:\n"
+    "  --collars FILE        collar table: hole, x, y, z; optional azimuth, dip, length,\n"
+    "                        date, latitude, longitude\n"
+    "  --surveys FILE        survey table: hole, depth, azimuth, dip; optional date,\n"
+    "                        reference (magnetic, true, grid), total_field, field_dip\n"
+    "  --columns MAP         header names for corax's columns, e.g.\n"
+    "                        hole=HOLE_NO,depth=DEPTH_M (names match without case)\n"
+    "  --dip-convention C    negative-down (default: -60 is a downward hole),\n"
+    "                        positive-down, or from-vertical (0 = straight down)\n"
+    "  --declination DEG|model  magnetic declination, east positive; added to\n"
+    "                        magnetic survey azimuths (magnetic to true). Default 0.\n"
+    "                        model: from the World Magnetic Model at each station's\n"
+    "                        date and its collar's place (needs --crs, or latitude\n"
+    "                        and longitude columns in the collars)\n"
+    "  --convergence DEG|projection  grid convergence, positive when grid north is\n"
+    "                        east of true north; subtracted from survey azimuths\n"
+    "                        (true to grid). Default 0. projection: from --crs at\n"
+    "                        each collar\n"
+    "  --crs EPSG:NNNN       the CRS of the collar coordinates (of the CRS side of\n"
+    "                        a local grid), any projected CRS PROJ knows\n"
+    "  --local-grid x1,y1,E1,N1,x2,y2,E2,N2 | origin=E,N,rotation=DEG,scale=S\n"
+    "                        the collars are on a local mine grid: two points known\n"
+    "                        on both grids, or its origin in the CRS, its rotation\n"
+    "                        (local north clockwise of grid north) and scale; its\n"
+    "                        rotation is subtracted from survey azimuths\n"
+    "  --survey-date DATE    the date (YYYY-MM-DD) of stations without one: the\n"
+    "                        surveys' date column comes first, then the collars'\n"
+    "  --magnetic-model M    WMM (default: WMM2015v2, WMM2020, WMM2025 by date),\n"
+    "                        WMM2015, WMM2015v2, WMM2020, WMM2025, or a COF file\n"
+    "  --survey-reference magnetic|true|grid  the north of survey azimuths without a\n"
+    "                        reference column of their own (default magnetic)\n"
+    "  --delimiter D         field separator of the input tables: comma, semicolon,\n"
+    "                        tab or auto (default: found from each table)\n"
+    "  --decimal-mark M      point, comma or auto (default: found from each table)\n"
+    "  --decimal-comma       the same as --decimal-mark comma\n"
+    "  --units U             metres (default) or feet, for every input table; also\n"
+    "                        --collars-units, --surveys-units, --structures-units\n"
+    "  --collars-dip-convention C, --surveys-dip-convention C   one table's\n"
+    "  --collars-columns MAP, --surveys-columns MAP, --structures-columns MAP\n"
+    "                        one table's header names\n"
+    "  --collar-station      the collar's set-up is a station at 0 m when the surveys\n"
+    "                        start deeper (the hole curves from it)\n"
+    "  --reject-station HOLE@DEPTH,...  leave these survey stations out\n"
+    "  -p, --project FILE    read inputs, columns and conventions from a project file\n"
+    "                        (INI); options on the command line override it\n"
+    "Output:\n"
+    "  -o, --output FILE     output file (default: standard output)\n"
+    "  --about FILE          record of the run's assumptions (default: OUTPUT.about\n"
+    "                        when -o names a file)\n"
+    "  --output-delimiter D, --output-decimal-mark M   the tables written: comma\n"
+    "                        and point (default), or semicolon and comma\n"
+    "  -q, --quiet           no notes, warnings or progress on standard error\n"
+    "  -h, --help            this help\n";
 
 static void table_unset(cli_table *t)
 {
@@ -32,8 +80,12 @@ void cli_common_init(cli_common *c, const char *command)
     table_unset(&c->all);
     for (int i = 0; i < CLI_NTABLES; i++)
         table_unset(&c->table[i]);
-    c->reads = calloc(1, sizeof *c->reads); /* NULL: nothing recorded */
-    c->outputs = corax_outputs_new();           /* NULL: refused by cli_common_finish */
+    c->outputs = corax_outputs_new(); /* NULL: refused by cli_common_finish */
+    corax_job_init(&c->job);
+    c->job.outputs = c->outputs;
+    c->job.on_message = cli_on_message;
+    c->job.on_stage = cli_on_stage;
+    c->job.user = c;
     c->inputs = calloc(1, sizeof *c->inputs);
     c->outputs_named = calloc(1, sizeof *c->outputs_named);
     cli_files_watch(c->outputs);
@@ -58,13 +110,10 @@ void cli_common_free(cli_common *c)
     free(c->reject);
     c->reject = NULL;
     c->nreject = 0;
-    if (c->reads)
-        free(c->reads->item);
-    free(c->reads);
-    c->reads = NULL;
+    corax_job_clear(&c->job);
     cli_files_watch(NULL);
     corax_outputs_free(c->outputs); /* anything not published is removed */
-    c->outputs = NULL;
+    c->outputs = c->job.outputs = NULL;
     for (cli_paths **ps = (cli_paths *[]){c->inputs, c->outputs_named, NULL}; *ps; ps++) {
         free((*ps)->item);
         free(*ps);
@@ -83,37 +132,6 @@ static const char *own_string(cli_common *c, char *s)
     c->owned = p;
     c->owned[c->nowned++] = s;
     return s;
-}
-
-int cli_value_number(const char *arg, double lo, double hi, double *value, char *why,
-                     size_t whylen)
-{
-    double v;
-    if (corax_parse_number(arg, strlen(arg), '.', &v) != CORAX_NUMBER_OK) {
-        snprintf(why, whylen, "'%s' is not a number", arg);
-        return -1;
-    }
-    if (v < lo || v > hi) {
-        snprintf(why, whylen, "%s is outside [%g, %g]", arg, lo, hi);
-        return -1;
-    }
-    *value = v;
-    return 0;
-}
-
-int cli_value_choice(const char *arg, const char *const *names, int count, int *value,
-                     char *why, size_t whylen)
-{
-    for (int i = 0; i < count; i++)
-        if (strcmp(arg, names[i]) == 0) {
-            *value = i;
-            return 0;
-        }
-    size_t used = (size_t)snprintf(why, whylen, "'%s' is not %s", arg, count > 2 ? "one of " : "");
-    for (int i = 0; i < count && used < whylen; i++)
-        used += (size_t)snprintf(why + used, whylen - used, "%s%s",
-                                 i == 0 ? "" : i + 1 < count ? ", " : " or ", names[i]);
-    return -1;
 }
 
 /* "QC003@120,QC004@36.5": stations to leave out. 0, or -1 with why filled. */
@@ -714,53 +732,3 @@ int cli_common_finish(cli_common *c, int need_program)
     return rc;
 }
 
-/* ---- core conventions ---- */
-
-const char cli_convention_help[] =
-    "Conventions (defaults first):\n"
-    "  --reference-line bottom|top       the orientation line marks the bottom or top\n"
-    "                                    of the hole\n"
-    "  --beta-end down-hole|up-hole      beta runs to this end of the ellipse's long axis\n"
-    "  --beta-sense clockwise|anticlockwise   looking down the hole\n"
-    "  --gamma-zero down-hole|up-hole    gamma runs from this end of the long axis\n"
-    "  --gamma-sense clockwise|anticlockwise  seen from the up-hole side of the plane\n"
-    "  --near-parallel DEG       flag alpha below this (default 10)\n"
-    "  --near-perpendicular DEG  flag alpha above this (default 80)\n"
-    "  --vertical-limit DEG      a hole within this of vertical has no usable\n"
-    "                            bottom-of-hole line (default 5)\n"
-    "Core logs:\n"
-    "  --interval-depth mid|from|to  where a reading of a from/to log sits (mid)\n"
-    "  --kind-codes MAP          the log's codes for feature kinds, e.g. BD=bedding,VN=vein\n"
-    "  --confidence-codes MAP    its codes for confidence, e.g. G=good,M=fair,P=poor\n";
-
-int cli_convention_option(corax_convert_options *o, int opt, const char *arg, char *why,
-                          size_t wl)
-{
-    static const char *const ref[] = {"bottom", "top"};
-    static const char *const ends[] = {"down-hole", "up-hole"};
-    static const char *const senses[] = {"clockwise", "anticlockwise"};
-    corax_core_conventions *cv = &o->conventions;
-    int *choice = opt == OPT_REFERENCE    ? &cv->top_reference
-                  : opt == OPT_BETA_END   ? &cv->beta_to_uphole_end
-                  : opt == OPT_BETA_SENSE ? &cv->beta_anticlockwise
-                  : opt == OPT_GAMMA_ZERO ? &cv->gamma_from_uphole
-                  : opt == OPT_GAMMA_SENSE ? &cv->gamma_anticlockwise
-                                           : NULL;
-    if (choice) {
-        const char *const *names = opt == OPT_REFERENCE ? ref
-                                   : (opt == OPT_BETA_END || opt == OPT_GAMMA_ZERO) ? ends
-                                                                                    : senses;
-        return cli_value_choice(arg, names, 2, choice, why, wl) ? -1 : 1;
-    }
-    double *angle = opt == OPT_NEAR_PARALLEL        ? &o->near_parallel
-                    : opt == OPT_NEAR_PERPENDICULAR ? &o->near_perpendicular
-                    : opt == OPT_VERTICAL_LIMIT     ? &o->vertical_limit
-                                                    : NULL;
-    if (!angle)
-        return 0;
-    double v;
-    if (cli_value_number(arg, 0, 90, &v, why, wl))
-        return -1;
-    *angle = corax_rad(v);
-    return 1;
-}

@@ -33,14 +33,6 @@ void cli_progress_start(cli_progress *p, const cli_common *c, const char *what,
     p->after = after ? atof(after) : 1.0;
 }
 
-double cli_file_size(const char *path)
-{
-    struct stat st;
-    if (strcmp(path, "-") == 0 || stat(path, &st) != 0 || !S_ISREG(st.st_mode))
-        return 0.0;
-    return (double)st.st_size;
-}
-
 void cli_progress_set(cli_progress *p, double done)
 {
     if (!p->on)
@@ -69,18 +61,6 @@ void cli_progress_end(cli_progress *p)
     p->on = 0;
 }
 
-void cli_progress_fn(void *user, double done) { cli_progress_set(user, done); }
-
-corax_status cli_table_load(const cli_common *c, const char *path, corax_table_format format,
-                            corax_table **out, corax_error *err)
-{
-    cli_progress p;
-    cli_progress_start(&p, c, path, "bytes", cli_file_size(path));
-    corax_status st = corax_table_load_progress(path, format, cli_progress_fn, &p, out, err);
-    cli_progress_end(&p);
-    return st;
-}
-
 void cli_phase(const cli_common *c, const char *fmt, ...)
 {
     if (c->quiet || !isatty(STDERR_FILENO))
@@ -91,4 +71,30 @@ void cli_phase(const cli_common *c, const char *fmt, ...)
     vfprintf(stderr, fmt, ap);
     va_end(ap);
     fputc('\n', stderr);
+}
+
+void cli_on_stage(void *user, corax_stage *s)
+{
+    const cli_common *c = user;
+    cli_progress *p = s->display;
+    switch (s->state) {
+    case CORAX_STAGE_BEGIN:
+        if ((p = malloc(sizeof *p)) != NULL)
+            cli_progress_start(p, c, s->what, s->unit, s->total);
+        s->display = p;
+        break;
+    case CORAX_STAGE_STEP:
+        if (p)
+            cli_progress_set(p, s->done);
+        break;
+    case CORAX_STAGE_END:
+        if (p)
+            cli_progress_end(p);
+        free(p);
+        s->display = NULL;
+        break;
+    case CORAX_STAGE_PHASE:
+        cli_phase(c, "%s", s->what);
+        break;
+    }
 }

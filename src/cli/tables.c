@@ -57,50 +57,6 @@ cli_interval cli_interval_depth(const cli_common *c)
                               CLI_INTERVAL_MID);
 }
 
-/* ---- settings by name, for options and project keys alike ---- */
-
-int cli_value_delimiter(const char *arg, int *value, char *why, size_t wl)
-{
-    static const char *const names[] = {"comma", "semicolon", "tab", "auto", ",", ";"};
-    static const int chars[] = {',', ';', '\t', 0, ',', ';'};
-    for (int k = 0; k < 6; k++)
-        if (strcmp(arg, names[k]) == 0) {
-            *value = chars[k];
-            return 0;
-        }
-    int k;
-    return cli_value_choice(arg, names, 4, &k, why, wl);
-}
-
-int cli_value_decimal(const char *arg, int *value, char *why, size_t wl)
-{
-    static const char *const names[] = {"point", "comma", "auto"};
-    static const int chars[] = {'.', ',', 0};
-    int k;
-    if (cli_value_choice(arg, names, 3, &k, why, wl))
-        return -1;
-    *value = chars[k];
-    return 0;
-}
-
-int cli_value_units(const char *arg, int *value, char *why, size_t wl)
-{
-    static const char *const names[] = {"metres", "feet", "meters", "m", "ft"};
-    int k;
-    if (cli_value_choice(arg, names, 5, &k, why, wl) == 0) {
-        *value = k == 1 || k == 4;
-        return 0;
-    }
-    cli_value_choice(arg, names, 2, &k, why, wl);
-    return -1;
-}
-
-int cli_value_dip(const char *arg, int *value, char *why, size_t wl)
-{
-    static const char *const names[] = {"negative-down", "positive-down", "from-vertical"};
-    return cli_value_choice(arg, names, 3, value, why, wl);
-}
-
 int cli_table_key(cli_common *c, cli_table_id id, const char *key, const char *value, char *why,
                   size_t wl)
 {
@@ -152,35 +108,6 @@ int cli_table_key(cli_common *c, cli_table_id id, const char *key, const char *v
     return 0;
 }
 
-/* ---- the record of what was read ---- */
-
-void cli_table_done(const cli_common *c, cli_table_id id, const char *path,
-                    const corax_table_info *info)
-{
-    cli_reads *rs = c->reads;
-    if (!rs)
-        return;
-    for (size_t i = 0; i < rs->n; i++) /* read again (an export's second pass) */
-        if (rs->item[i].id == id && strcmp(rs->item[i].path, path) == 0)
-            return;
-    cli_table_read *r = realloc(rs->item, (rs->n + 1) * sizeof *r);
-    if (r) {
-        rs->item = r;
-        rs->item[rs->n++] = (cli_table_read){path, id, *info};
-    }
-    if (c->quiet || (!info->comments && !info->blank_rows))
-        return;
-    char what[200] = "";
-    if (info->comments)
-        snprintf(what, sizeof what, "%zu comment line%s", info->comments,
-                 info->comments == 1 ? "" : "s");
-    if (info->blank_rows)
-        snprintf(what + strlen(what), sizeof what - strlen(what), "%s%zu blank row%s",
-                 info->comments ? " and " : "", info->blank_rows,
-                 info->blank_rows == 1 ? "" : "s");
-    fprintf(stderr, "corax: note: %s: %s skipped\n", path, what);
-}
-
 /* ---- reading core logs ---- */
 
 int cli_log_option(cli_common *c, cli_log_options *l, int opt, const char *arg, char *why,
@@ -207,62 +134,4 @@ void cli_log_options_free(cli_log_options *l)
     corax_codes_free(l->kind_codes);
     corax_codes_free(l->confidence_codes);
     l->kind_codes = l->confidence_codes = NULL;
-}
-
-static void about_codes(cli_about *a, const char *key, const corax_codes *codes)
-{
-    char text[1000] = "";
-    size_t used = 0;
-    const char *word, *code;
-    for (size_t i = 0; (code = corax_codes_at(codes, i, &word)) && used < sizeof text; i++)
-        used += (size_t)snprintf(text + used, sizeof text - used, "%s%s=%s", i ? "," : "", code,
-                                 word);
-    if (used)
-        cli_about_set(a, key, "%s", text);
-}
-
-void cli_about_codes(cli_about *a, const cli_log_options *l)
-{
-    about_codes(a, "kind_codes", l->kind_codes);
-    about_codes(a, "confidence_codes", l->confidence_codes);
-}
-
-void cli_tally_warn(const cli_common *c, const char *what, const char *problem,
-                    const corax_tally *t, const char *consequence)
-{
-    size_t count;
-    const char *file, *value;
-    long line;
-    for (size_t i = 0; !c->quiet && (value = corax_tally_at(t, i, &count, &file, &line)); i++)
-        fprintf(stderr, "corax: warning: %s '%s' (%zu row%s, first %s:%ld) %s: %s\n", what,
-                value, count, count == 1 ? "" : "s", file, line, problem, consequence);
-}
-
-int cli_table_columns(const corax_table *t, const corax_table_settings *ts,
-                      const char *const *names, size_t n, long *col)
-{
-    for (size_t k = 0; k < n; k++) {
-        col[k] = corax_table_column(t, names[k], ts->columns);
-        if (col[k] == CORAX_COLUMN_MAPPED_MISSING) {
-            cli_error(corax_table_path(t), 1, "no '%s' column in the header, which the column "
-                      "names give for %s", corax_column_mapped(ts->columns, names[k]),
-                      names[k]);
-            return -1;
-        }
-    }
-    return 0;
-}
-
-const char *cli_code_word(const corax_codes *codes, const char *text, size_t len,
-                          corax_tally *unknown, const char *file, size_t file_index, long line)
-{
-    size_t wl;
-    if (!codes || !len)
-        return text;
-    const char *w = corax_codes_word(codes, text, len, &wl);
-    if (w)
-        return w;
-    if (unknown)
-        corax_tally_add(unknown, text, len, file, file_index, line);
-    return text;
 }

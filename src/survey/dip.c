@@ -3,6 +3,13 @@
 
 #include "corax/survey.h"
 
+static const char *const dip_names[] = {"negative-down", "positive-down", "from-vertical"};
+
+const char *corax_dip_convention_name(corax_dip_convention convention)
+{
+    return (unsigned)convention < 3 ? dip_names[convention] : "unknown";
+}
+
 corax_status corax_dip_to_plunge(double dip, corax_dip_convention convention, double *plunge)
 {
     if (!isfinite(dip))

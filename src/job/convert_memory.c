@@ -1,4 +1,4 @@
-/* cli: `corax convert` with every log in memory (--draws N, --orient-by).
+/* job: the convert job with every log in memory (draws, references).
  * Orients the runs without a mark by reference, simulates the holes in
  * parallel (each from its own seeded stream), writes the rows in their
  * order, and the optional cloud of every draw hole by hole. */
@@ -6,12 +6,12 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "cli/convert_rows.h"
+#include "job/convert_int.h"
 
 /* Every log, in one table; end[f] is the number of rows up to the end of
  * log f, and decimal[f] its decimal mark. */
-static int load_logs(cli_common *c, convert_run *r, const char *const *files, size_t nfiles,
-                     corax_table **out, size_t *end, char *decimal)
+static corax_status load_logs(convert_run *r, const char *const *files, size_t nfiles,
+                              corax_table **out, size_t *end, char *decimal)
 {
     corax_table *all = NULL;
     for (size_t f = 0; f < nfiles; f++) {
@@ -31,18 +31,18 @@ static int load_logs(cli_common *c, convert_run *r, const char *const *files, si
             st = corax_table_append(all, &row);
         if (rd) {
             corax_reader_info(rd, &info);
-            cli_table_done(c, CLI_STRUCTURES, files[f], &info);
+            job_table_read(r->job, CORAX_ROLE_STRUCTURES, files[f], r->s->log.unit, &info);
         }
         corax_reader_close(rd);
         if (st != CORAX_END) {
-            cli_error_record(&err, st);
+            job_error_record(r->job, &err, st);
             corax_table_free(all);
-            return EXIT_DATA;
+            return job_failed(st);
         }
         end[f] = corax_table_rows(all);
     }
     *out = all;
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
 typedef struct member {
@@ -127,8 +127,9 @@ static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p, cons
 
 /* Simulate every group; spread[k] for member k. The cloud (may be NULL) gets
  * the holes in group order. */
-static int simulate(const convert_run *r, const member *g, const size_t *groups, size_t ngroups,
-                    const convert_eval *ev, corax_spread *spread, corax_writer *cloud, int nlanes)
+static corax_status simulate(const convert_run *r, const member *g, const size_t *groups,
+                             size_t ngroups, const convert_eval *ev, corax_spread *spread,
+                             corax_writer *cloud, int nlanes)
 {
     const convert_setup *s = r->s;
     size_t count = groups[ngroups];
@@ -145,8 +146,8 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
         const convert_eval *e = &ev[g[k].row];
         mr[k] = (corax_mc_reading){e->rd, e->errors, e->res};
     }
-    cli_progress progress;
-    cli_progress_start(&progress, r->c, "uncertainty", "readings", (double)count);
+    corax_stage progress;
+    job_stage_begin(r->job, &progress, "uncertainty", "readings", (double)count);
     size_t done = 0;
     if (!failed) {
 #pragma omp parallel for ordered schedule(dynamic, 1) num_threads(nlanes)
@@ -172,11 +173,11 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
                     corax_writer_text(cloud, text, len);
                 }
                 done += n;
-                cli_progress_set(&progress, (double)done);
+                job_stage_step(r->job, &progress, (double)done);
             }
         }
-        cli_progress_end(&progress);
     }
+    job_stage_end(r->job, &progress);
     for (int k = 0; mc && k < nlanes; k++)
         corax_mc_free(mc[k]);
     for (int k = 0; cw && k < nlanes; k++)
@@ -185,8 +186,8 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
     free(cw);
     free(mr);
     if (failed)
-        cli_error(NULL, 0, "out of memory while drawing");
-    return failed ? EXIT_DATA : EXIT_OK;
+        job_error(r->job, NULL, 0, "out of memory while drawing");
+    return failed ? CORAX_ENOMEM : CORAX_OK;
 }
 
 /* Point the lane at the log that row i came from. */
@@ -201,14 +202,15 @@ static void lane_at_row(convert_lane *ln, const char *const *files, const size_t
     ln->decimal = decimal[f];
 }
 
-int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
-                      const char *const *files, size_t nfiles)
+corax_status convert_in_memory(convert_run *r, convert_lane *lanes, int nlanes,
+                               const char *const *files, size_t nfiles)
 {
     corax_table *all = NULL;
     size_t *end = calloc(nfiles + 1, sizeof *end);
     char *decimal = calloc(nfiles + 1, 1);
-    int rc = end && decimal ? load_logs(c, r, files, nfiles, &all, end, decimal) : EXIT_DATA;
-    if (rc != EXIT_OK) {
+    corax_status rc =
+        end && decimal ? load_logs(r, files, nfiles, &all, end, decimal) : CORAX_ENOMEM;
+    if (rc != CORAX_OK) {
         free(end);
         free(decimal);
         return rc;
@@ -222,34 +224,34 @@ int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nl
     corax_writer *cloud = NULL;
     corax_error err;
     corax_error_clear(&err);
-    rc = ev && field ? EXIT_OK : EXIT_DATA;
-    for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
+    rc = ev && field ? CORAX_OK : CORAX_ENOMEM;
+    for (size_t i = 0; rc == CORAX_OK && i < n; i++) {
         corax_row row;
         corax_table_row(all, i, field, &row);
         lane_at_row(&lanes[0], files, end, decimal, i);
         convert_evaluate(r, &lanes[0], &row, &ev[i]);
     }
-    if (rc == EXIT_OK && r->s->nrefs) {
+    if (rc == CORAX_OK && r->s->nrefs) {
         rc = convert_orient(r, all, ev, n, &runs, &nruns);
         r->groups = runs;
     }
-    for (size_t i = 0; rc == EXIT_OK && i < n && r->s->draws; i++) { /* after the turns */
+    for (size_t i = 0; rc == CORAX_OK && i < n && r->s->draws; i++) { /* after the turns */
         corax_row row;
         corax_table_row(all, i, field, &row);
         lane_at_row(&lanes[0], files, end, decimal, i);
         convert_uncertainty(r, &lanes[0], &row, &ev[i]);
     }
-    if (rc == EXIT_OK && r->s->draws) {
+    if (rc == CORAX_OK && r->s->draws) {
         g = group_rows(ev, n, &count, &groups, &ngroups);
         spread = g ? calloc(count ? count : 1, sizeof *spread) : NULL;
         if (!spread)
-            rc = EXIT_DATA;
+            rc = CORAX_ENOMEM;
     }
-    if (rc == EXIT_OK && r->s->cloud) {
-        corax_status st = corax_writer_open_in(r->c->outputs, r->s->cloud, &cloud, &err);
+    if (rc == CORAX_OK && r->s->cloud) {
+        corax_status st = corax_writer_open_in(r->job->outputs, r->s->cloud, &cloud, &err);
         if (st != CORAX_OK) {
-            cli_error_record(&err, st);
-            rc = EXIT_DATA;
+            job_error_record(r->job, &err, st);
+            rc = job_failed(st);
         } else {
             static const char *const head[] = {"hole", "depth", "draw", "dip",
                                                "dip_direction", "x", "y", "z"};
@@ -259,28 +261,28 @@ int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nl
             corax_writer_end_row(cloud);
         }
     }
-    if (rc == EXIT_OK && r->s->draws)
+    if (rc == CORAX_OK && r->s->draws)
         rc = simulate(r, g, groups, ngroups, ev, spread, cloud, nlanes);
     /* back to row order, and out */
-    const corax_spread **by_row = rc == EXIT_OK ? calloc(n ? n : 1, sizeof *by_row) : NULL;
-    if (rc == EXIT_OK && !by_row)
-        rc = EXIT_DATA;
-    for (size_t k = 0; rc == EXIT_OK && k < count; k++)
+    const corax_spread **by_row = rc == CORAX_OK ? calloc(n ? n : 1, sizeof *by_row) : NULL;
+    if (rc == CORAX_OK && !by_row)
+        rc = CORAX_ENOMEM;
+    for (size_t k = 0; rc == CORAX_OK && k < count; k++)
         by_row[g[k].row] = &spread[k];
     lanes[0].w = r->w;
-    for (size_t i = 0; rc == EXIT_OK && i < n; i++) {
+    for (size_t i = 0; rc == CORAX_OK && i < n; i++) {
         corax_row row;
         corax_table_row(all, i, field, &row);
         lane_at_row(&lanes[0], files, end, decimal, i);
         convert_write(r, &lanes[0], &row, &ev[i], by_row[i]);
     }
     if (cloud) {
-        corax_status st = rc == EXIT_OK ? corax_writer_commit(cloud, &err) : CORAX_OK;
-        if (rc != EXIT_OK)
+        corax_status st = rc == CORAX_OK ? corax_writer_commit(cloud, &err) : CORAX_OK;
+        if (rc != CORAX_OK)
             corax_writer_discard(cloud);
         if (st != CORAX_OK) {
-            cli_error_record(&err, st);
-            rc = EXIT_DATA;
+            job_error_record(r->job, &err, st);
+            rc = job_failed(st);
         }
     }
     r->groups = NULL;
@@ -294,7 +296,5 @@ int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nl
     free(end);
     free(decimal);
     corax_table_free(all);
-    if (rc != EXIT_OK && rc != EXIT_DATA)
-        rc = EXIT_DATA;
     return rc;
 }

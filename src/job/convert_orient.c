@@ -1,4 +1,4 @@
-/* cli: runs of core without an orientation mark, oriented by reference
+/* job: runs of core without an orientation mark, oriented by reference
  * (convert --orient-by). The rows whose betas run from an arbitrary line are
  * grouped into their runs; each run's readings of a reference kind are set
  * against that kind's known plane, or the mean of the hole's oriented
@@ -11,8 +11,9 @@
 #include <string.h>
 #include <strings.h>
 
-#include "cli/convert_rows.h"
 #include "common/grow.h"
+#include "corax/stats.h"
+#include "job/convert_int.h"
 
 /* A turn fits as well as the best when its misfit is within this. */
 #define TURN_TIE_DEG 3.0
@@ -34,15 +35,15 @@ static int by_place(const void *pa, const void *pb)
 
 /* The rows with an arbitrary line, grouped into their runs: a run of the runs
  * table, or else consecutive rows of one hole. */
-static int group_runs(const convert_run *r, convert_eval *ev, size_t n, convert_group **out,
-                      size_t *nout)
+static corax_status group_runs(const convert_run *r, convert_eval *ev, size_t n,
+                               convert_group **out, size_t *nout)
 {
-    const cli_runs *runs = r->s->runs;
+    const corax_runs *runs = r->s->runs;
     long *of_run = malloc(((runs ? runs->n : 0) + 1) * sizeof *of_run);
     convert_group *g = NULL;
     size_t ng = 0, cap = 0;
     if (!of_run)
-        return EXIT_DATA;
+        return CORAX_ENOMEM;
     for (size_t k = 0; runs && k < runs->n; k++)
         of_run[k] = -1;
     long open = -1; /* the group of the row before, for rows outside the runs table */
@@ -60,7 +61,7 @@ static int group_runs(const convert_run *r, convert_eval *ev, size_t n, convert_
             if (!grown) {
                 free(g);
                 free(of_run);
-                return EXIT_DATA;
+                return CORAX_ENOMEM;
             }
             g = grown;
             memset(&g[ng], 0, sizeof *g);
@@ -84,7 +85,7 @@ static int group_runs(const convert_run *r, convert_eval *ev, size_t n, convert_
     free(of_run);
     *out = g;
     *nout = ng;
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
 /* The reference for a kind (len bytes), or NULL. */
@@ -262,27 +263,28 @@ static int fit_run(const convert_run *r, const corax_table *rows, convert_eval *
     return 1;
 }
 
-int convert_orient(const convert_run *r, const corax_table *rows, convert_eval *ev, size_t n,
-                   convert_group **groups, size_t *ngroups)
+corax_status convert_orient(const convert_run *r, const corax_table *rows, convert_eval *ev,
+                            size_t n, convert_group **groups, size_t *ngroups)
 {
     convert_group *g = NULL;
     size_t ng = 0, nidx = 0;
     if (r->col[COL_KIND] < 0) {
-        cli_error(corax_table_path(rows), 1, "--orient-by needs a 'kind' column in the core log");
-        return EXIT_DATA;
+        job_error(r->job, corax_table_path(rows), 1,
+                  "--orient-by needs a 'kind' column in the core log");
+        return CORAX_EFORMAT;
     }
     placed *idx = malloc((n ? n : 1) * sizeof *idx);
     corax_turn_reading *tr = malloc((n ? n : 1) * sizeof *tr);
-    int rc = idx && tr ? group_runs(r, ev, n, &g, &ng) : EXIT_DATA;
-    for (size_t i = 0; rc == EXIT_OK && i < n; i++)
+    corax_status rc = idx && tr ? group_runs(r, ev, n, &g, &ng) : CORAX_ENOMEM;
+    for (size_t i = 0; rc == CORAX_OK && i < n; i++)
         if (ev[i].res.has_plane && !ev[i].rd.arbitrary_line && ev[i].hole)
             idx[nidx++] = (placed){ev[i].hole, ev[i].rd.depth, i};
-    if (rc == EXIT_OK)
+    if (rc == CORAX_OK)
         qsort(idx, nidx, sizeof *idx, by_place);
-    for (size_t k = 0; rc == EXIT_OK && k < ng; k++) {
+    for (size_t k = 0; rc == CORAX_OK && k < ng; k++) {
         int fitted = fit_run(r, rows, ev, idx, nidx, &g[k], (long)k, tr);
         if (fitted < 0) {
-            rc = EXIT_DATA;
+            rc = CORAX_ENOMEM;
             break;
         }
         g[k].fitted = fitted;
@@ -298,12 +300,12 @@ int convert_orient(const convert_run *r, const corax_table *rows, convert_eval *
     }
     free(idx);
     free(tr);
-    if (rc != EXIT_OK) {
+    if (rc != CORAX_OK) {
         free(g);
-        cli_error(NULL, 0, "out of memory while orienting runs");
+        job_error(r->job, NULL, 0, "out of memory while orienting runs");
         return rc;
     }
     *groups = g;
     *ngroups = ng;
-    return EXIT_OK;
+    return CORAX_OK;
 }

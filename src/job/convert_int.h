@@ -1,48 +1,16 @@
-/* The row engine of `corax convert` (internal to src/cli). */
-#ifndef CORAX_CONVERT_ROWS_H
-#define CORAX_CONVERT_ROWS_H
+/* The row engine of the convert job (internal to src/job): convert_rows.c
+ * reads, converts and writes a row; convert_orient.c turns the runs without
+ * a mark; convert_memory.c holds every log for the draws and the turns;
+ * convert.c streams the logs in batches and is the job. */
+#ifndef CORAX_JOB_CONVERT_INT_H
+#define CORAX_JOB_CONVERT_INT_H
 
-#include "cli/cli.h"
-#include "corax/convert.h"
-#include "corax/uncertainty.h"
+#include "corax/job_convert.h"
+#include "corax/solve.h"
+#include "job/job_int.h"
 
-/* A confidence level and the orientation line's error it stands for. */
-typedef struct convert_confidence {
-    char name[32];
-    double sigma; /* radians */
-} convert_confidence;
-
-/* A reference that orients runs without a mark: a feature kind and either
- * its known plane or the mean of its oriented readings nearby. */
-typedef struct convert_reference {
-    char kind[64];
-    int nearby;
-    corax_plane plane; /* when not nearby */
-} convert_reference;
-
-typedef struct convert_setup {
-    corax_convert_options convert;
-    corax_table_settings log;  /* how the core logs are read */
-    int interval;              /* where an interval puts its reading (cli_interval) */
-    const corax_codes *kind_codes, *confidence_codes; /* NULL: values are words */
-    corax_table_format output; /* the converted table's format */
-    int has_section;
-    double section_azimuth; /* radians */
-    int quiet;
-    /* uncertainty (draws 0: none) */
-    size_t draws;
-    uint64_t seed;
-    corax_error_model errors;
-    convert_confidence confidence[16];
-    size_t nconfidence;
-    const char *cloud; /* every draw, or NULL */
-    /* runs without an orientation mark */
-    const cli_runs *runs;        /* NULL: none given */
-    const char *unoriented_word; /* the confidence word of such runs */
-    convert_reference refs[8];   /* --orient-by */
-    size_t nrefs;
-    double nearby_within;        /* metres: how far a nearby reference reaches */
-} convert_setup;
+typedef corax_convert_job_options convert_setup;
+typedef corax_convert_reference convert_reference;
 
 /* Logical columns of a core log (depth, from and to in this order). */
 enum {
@@ -60,7 +28,7 @@ typedef struct convert_group convert_group;
 
 /* What every row of a run shares; read-only while rows are converted. */
 typedef struct convert_run {
-    const cli_common *c;
+    corax_job *job;
     const corax_program *prog;
     const convert_setup *s;
     corax_writer *w; /* the output */
@@ -130,9 +98,9 @@ struct convert_group {
 
 /* Orient every run without a mark by the references of the setup: fit each
  * run's turn (corax_turn_fit) and convert its rows again. rows holds the logs;
- * *groups (free() it) gets the runs. An exit status (messages printed). */
-int convert_orient(const convert_run *r, const corax_table *rows, convert_eval *ev, size_t n,
-                   convert_group **groups, size_t *ngroups);
+ * *groups (free() it) gets the runs. A status (messages given). */
+corax_status convert_orient(const convert_run *r, const corax_table *rows, convert_eval *ev,
+                            size_t n, convert_group **groups, size_t *ngroups);
 
 /* Write a row: its fields, the conversion, the spread (sp NULL: none), the
  * status and the note; and count it. */
@@ -151,20 +119,8 @@ void convert_lane_file(convert_lane *ln, const char *path, size_t index,
 
 /* Every log in memory: runs oriented by reference (--orient-by), then the
  * uncertainty (holes simulated in parallel, when there are draws), rows
- * written in order. An exit status (messages printed). */
-int convert_in_memory(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
-                      const char *const *files, size_t nfiles);
-
-/* Stream every structures file through the conversion into one output.
- * Returns an exit status (messages printed); each log read is noted in c. */
-int convert_files(cli_common *c, const corax_program *prog, const convert_setup *s,
-                  const char *const *files, size_t nfiles, const char *output);
-
-/* One reading at the core shed: a labelled answer on standard output.
- * Angles in degrees; NaN for what was not given. */
-int convert_one_reading(const cli_common *c, const convert_setup *s, double hole_azimuth,
-                        double hole_dip, double alpha, double beta, double gamma,
-                        const double plane[2], const double line[2]);
-
+ * written in order. A status (messages given). */
+corax_status convert_in_memory(convert_run *r, convert_lane *lanes, int nlanes,
+                               const char *const *files, size_t nfiles);
 
 #endif

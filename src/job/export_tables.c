@@ -1,16 +1,18 @@
-/* cli: tables placed down holes for `corax export`: from/to interval tables
+/* job: tables placed down holes for the export: from/to interval tables
  * desurveyed (CSV, or a GIS layer of lines), corax check's findings (a GIS
  * layer of points) and contacts between units (CSV or a GIS layer). Each
  * table is read twice, streaming: once to learn its columns' types and
  * check its intervals, once to write. */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
 
-#include "cli/export_int.h"
 #include "common/grow.h"
+#include "corax/corax.h"
 #include "io/fields.h"
+#include "job/export_int.h"
 
 enum { MAX_SHOWN = 50 };
 #define NONE ((double)NAN) /* a value not known */
@@ -49,7 +51,7 @@ static int open_table(const export_opts *o, const char *path, const char *const 
     corax_error err;
     corax_error_clear(&err);
     long col[NT];
-    corax_table_settings ts = cli_table_settings(&o->c, CLI_DEPTHS);
+    corax_table_settings ts = o->p->depths;
     corax_status st = corax_reader_open(path, ts.format, r, &err);
     if (st == CORAX_OK)
         st = corax_table_header(*r, names, NT, nrequired, ts.columns, col, &s->width, header,
@@ -61,13 +63,13 @@ static int open_table(const export_opts *o, const char *path, const char *const 
         s->unit = ts.unit;
     }
     if (st != CORAX_OK) {
-        cli_error_record(&err, st);
+        job_error_record(o->job, &err, st);
         corax_reader_close(*r);
         *r = NULL;
-        return EXIT_DATA;
+        return JOB_FAILED;
     }
     memcpy(s->col, col, sizeof col);
-    return EXIT_OK;
+    return JOB_OK;
 }
 
 static int is_ours(const char *name, const char *const *ours, size_t nours)
@@ -128,12 +130,12 @@ static int scan_table(const export_opts *o, const corax_program *prog, const cha
     memset(s, 0, sizeof *s);
     s->path = path;
     int rc = open_table(o, path, names, nrequired, &r, s, &row);
-    if (rc != EXIT_OK)
+    if (rc != JOB_OK)
         return rc;
     if (remember_header(s, &row, ours, nours) != 0) {
         corax_reader_close(r);
-        cli_error(NULL, 0, "out of memory");
-        return EXIT_DATA;
+        job_error(o->job, NULL, 0, "out of memory");
+        return JOB_FAILED;
     }
     corax_error err;
     corax_error_clear(&err);
@@ -165,24 +167,24 @@ static int scan_table(const export_opts *o, const corax_program *prog, const cha
     }
     corax_reader_close(r);
     if (st != CORAX_END) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
+        job_error_record(o->job, &err, st);
+        return JOB_FAILED;
     }
     if (!s->iv)
-        return EXIT_OK;
+        return JOB_OK;
     corax_findings found = {0};
     if (corax_intervals_check(s->iv, s->n, path, hole_label, (void *)prog, &found) != CORAX_OK) {
         corax_findings_clear(&found);
-        cli_error(NULL, 0, "out of memory");
-        return EXIT_DATA;
+        job_error(o->job, NULL, 0, "out of memory");
+        return JOB_FAILED;
     }
-    for (size_t i = 0; i < found.count && !o->c.quiet; i++)
+    for (size_t i = 0; i < found.count; i++)
         if (i < MAX_SHOWN)
-            cli_finding(&found.item[i]);
+            job_finding(o->job, &found.item[i]);
         else if (i == MAX_SHOWN)
-            cli_error(path, 0, "warning: ... and %zu more interval problems", found.count - i);
+            job_warning(o->job, path, 0, "... and %zu more interval problems", found.count - i);
     corax_findings_clear(&found);
-    return EXIT_OK;
+    return JOB_OK;
 }
 
 static int by_line(const void *a, const void *b)
@@ -298,15 +300,15 @@ static corax_status end_row(export_sink *k, corax_error *err)
     return corax_gis_write(k->g, err);
 }
 
-static int sink_status(corax_status st, const corax_error *err)
+static int sink_status(corax_job *job, corax_status st, const corax_error *err)
 {
     if (st == CORAX_OK)
-        return EXIT_OK;
+        return JOB_OK;
     if (st == CORAX_ENOMEM)
-        cli_error(NULL, 0, "out of memory");
+        job_error(job, NULL, 0, "out of memory");
     else
-        cli_error_record(err, st);
-    return EXIT_DATA;
+        job_error_record(job, err, st);
+    return JOB_FAILED;
 }
 
 /* ---- intervals ---- */
@@ -413,7 +415,7 @@ int export_intervals(const export_opts *o, const corax_program *prog, const expo
         ours[i] = interval_fields[i].name;
     scan s;
     int rc = scan_table(o, prog, t->path, interval_names, 3, ours, NI, &s);
-    if (rc != EXIT_OK) {
+    if (rc != JOB_OK) {
         scan_free(&s);
         return rc;
     }
@@ -426,14 +428,14 @@ int export_intervals(const export_opts *o, const corax_program *prog, const expo
     int layer = -1;
     rc = open_table(o, t->path, interval_names, 3, &r, &s, &row);
     corax_status st = CORAX_OK;
-    if (rc == EXIT_OK && k->w)
+    if (rc == JOB_OK && k->w)
         csv_header(k, &s, interval_fields, NI);
-    else if (rc == EXIT_OK)
+    else if (rc == JOB_OK)
         st = make_layer(k, &s, CORAX_GIS_LINES, interval_fields, NI, &layer, &err);
-    while (rc == EXIT_OK && st == CORAX_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK)
+    while (rc == JOB_OK && st == CORAX_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK)
         st = interval_row(prog, &s, k, layer, &row, &err);
-    if (rc == EXIT_OK && st != CORAX_END)
-        rc = sink_status(st, &err);
+    if (rc == JOB_OK && st != CORAX_END)
+        rc = sink_status(o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
     return rc;
@@ -445,18 +447,18 @@ int export_findings(const export_opts *o, const corax_program *prog, export_sink
 {
     const char *const *names = interval_names;
     scan s;
-    int rc = scan_table(o, prog, o->findings, names, 1, NULL, 0, &s);
+    int rc = scan_table(o, prog, o->p->findings, names, 1, NULL, 0, &s);
     corax_reader *r = NULL;
     corax_row row;
     int layer = -1;
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXIT_OK)
-        rc = open_table(o, o->findings, names, 1, &r, &s, &row);
-    if (rc == EXIT_OK)
+    if (rc == JOB_OK)
+        rc = open_table(o, o->p->findings, names, 1, &r, &s, &row);
+    if (rc == JOB_OK)
         st = make_layer(k, &s, CORAX_GIS_POINTS, NULL, 0, &layer, &err);
-    while (rc == EXIT_OK && st == CORAX_OK &&
+    while (rc == JOB_OK && st == CORAX_OK &&
            (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         size_t hl;
         const char *name = corax_field_text(&row, s.col[T_HOLE], &hl);
@@ -474,8 +476,8 @@ int export_findings(const export_opts *o, const corax_program *prog, export_sink
             corax_gis_point(k->g, corax_hole_collar(hole)->position);
         st = end_row(k, &err);
     }
-    if (rc == EXIT_OK && st != CORAX_END)
-        rc = sink_status(st, &err);
+    if (rc == JOB_OK && st != CORAX_END)
+        rc = sink_status(o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
     return rc;
@@ -553,24 +555,24 @@ static int by_hole(const void *a, const void *b)
 
 static int read_units(contact_data *d)
 {
-    const char *column = d->o->contact_column ? d->o->contact_column : "unit";
+    const char *column = d->o->p->contact_column ? d->o->p->contact_column : "unit";
     const char *names[NT] = {"hole", "from", "to", "depth", column};
     scan s;
     const char *none[1] = {NULL};
-    int rc = scan_table(d->o, d->prog, d->o->contacts, names, 3, none, 0, &s);
-    if (rc == EXIT_OK && s.col[T_UNIT] < 0) {
-        cli_error(d->o->contacts, 1, "no '%s' column: name the unit's column with "
+    int rc = scan_table(d->o, d->prog, d->o->p->contacts, names, 3, none, 0, &s);
+    if (rc == JOB_OK && s.col[T_UNIT] < 0) {
+        job_error(d->o->job, d->o->p->contacts, 1, "no '%s' column: name the unit's column with "
                   "--contact-column", column);
-        rc = EXIT_DATA;
+        rc = JOB_FAILED;
     }
     corax_reader *r = NULL;
     corax_row row;
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXIT_OK)
-        rc = open_table(d->o, d->o->contacts, names, 3, &r, &s, &row);
-    while (rc == EXIT_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
+    if (rc == JOB_OK)
+        rc = open_table(d->o, d->o->p->contacts, names, 3, &r, &s, &row);
+    while (rc == JOB_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         size_t hl, ul;
         const char *hole = corax_field_text(&row, s.col[T_HOLE], &hl);
         const char *unit = corax_field_text(&row, s.col[T_UNIT], &ul);
@@ -593,11 +595,11 @@ static int read_units(contact_data *d)
         d->iv = p;
         d->iv[d->niv++] = (hole_interval){h, {from, to, id, row.line}};
     }
-    if (rc == EXIT_OK && st != CORAX_END)
-        rc = sink_status(st, &err);
+    if (rc == JOB_OK && st != CORAX_END)
+        rc = sink_status(d->o->job, st, &err);
     corax_reader_close(r);
     scan_free(&s);
-    if (rc == EXIT_OK && d->niv > 1)
+    if (rc == JOB_OK && d->niv > 1)
         qsort(d->iv, d->niv, sizeof *d->iv, by_hole_from);
     return rc;
 }
@@ -620,14 +622,14 @@ static int contact_reading(void *ctx, int table, const corax_row *row, const cor
     int code = corax_kinds_code(d->kinds, s->kind, s->kind_len);
     long h = d->prog ? corax_program_index(d->prog, s->hole, s->hole_len) : -1;
     if (code < 0) {
-        cli_error(NULL, 0, "out of memory");
+        job_error(d->o->job, NULL, 0, "out of memory");
         return -1;
     }
     if (!s->oriented || h < 0 || isnan(s->depth) || !wanted_kind(d, code))
         return 0;
     hole_reading *p = corax_grow(d->rd, d->nrd, &d->rdcap, sizeof *p, 256);
     if (!p) {
-        cli_error(NULL, 0, "out of memory");
+        job_error(d->o->job, NULL, 0, "out of memory");
         return -1;
     }
     d->rd = p;
@@ -637,7 +639,7 @@ static int contact_reading(void *ctx, int table, const corax_row *row, const cor
 
 static int contact_kinds(contact_data *d)
 {
-    const char *p = d->o->contact_kinds ? d->o->contact_kinds : "contact", *item;
+    const char *p = d->o->p->contact_kinds ? d->o->p->contact_kinds : "contact", *item;
     size_t len;
     while (export_list_next(&p, &item, &len)) {
         int *w = realloc(d->wanted, (d->nwanted + 1) * sizeof *w);
@@ -645,23 +647,23 @@ static int contact_kinds(contact_data *d)
         if (w)
             d->wanted = w;
         if (!w || code < 0) {
-            cli_error(NULL, 0, "out of memory");
-            return EXIT_DATA;
+            job_error(d->o->job, NULL, 0, "out of memory");
+            return JOB_FAILED;
         }
         d->wanted[d->nwanted++] = code;
     }
-    return EXIT_OK;
+    return JOB_OK;
 }
 
 /* rank[unit] from --youngest-first (-1 when not listed). */
-static int *age_ranks(contact_data *d, cli_about *a)
+static int *age_ranks(contact_data *d, corax_record *a)
 {
     int *rank = malloc((d->u.n ? d->u.n : 1) * sizeof *rank);
     if (!rank)
         return NULL;
     for (size_t i = 0; i < d->u.n; i++)
         rank[i] = -1;
-    const char *p = d->o->youngest_first, *item;
+    const char *p = d->o->p->youngest_first, *item;
     size_t len;
     for (int order = 0; export_list_next(&p, &item, &len); order++) {
         int found = 0;
@@ -671,11 +673,11 @@ static int *age_ranks(contact_data *d, cli_about *a)
                 found = 1;
             }
         if (!found)
-            cli_note(&d->o->c, "--youngest-first: no interval has the unit '%.*s'", (int)len,
+            job_note(d->o->job, "--youngest-first: no interval has the unit '%.*s'", (int)len,
                      item);
     }
-    if (d->o->youngest_first)
-        cli_about_set(a, "youngest_first", "%s", d->o->youngest_first);
+    if (d->o->p->youngest_first)
+        corax_record_set(a, "youngest_first", "%s", d->o->p->youngest_first);
     return rank;
 }
 
@@ -761,7 +763,7 @@ static int write_contacts(contact_data *d, export_sink *k, const int *rank, cora
         const corax_hole *hole = corax_program_hole(d->prog, (size_t)h);
         corax_contact *c;
         size_t nc;
-        st = corax_contacts_find(hole, iv, n, rd, nr, d->o->contact_window, rank, d->u.n, &c,
+        st = corax_contacts_find(hole, iv, n, rd, nr, d->o->p->contact_window, rank, d->u.n, &c,
                                  &nc);
         for (size_t i = 0; st == CORAX_OK && i < nc; i++)
             st = contact_row(d, k, layer, hole, &c[i], err);
@@ -770,11 +772,11 @@ static int write_contacts(contact_data *d, export_sink *k, const int *rank, cora
     }
     free(iv);
     free(rd);
-    return sink_status(st, err);
+    return sink_status(d->o->job, st, err);
 }
 
 int export_contacts(const export_opts *o, const corax_program *prog, export_sink *k,
-                    cli_about *a)
+                    corax_record *a)
 {
     contact_data d;
     memset(&d, 0, sizeof d);
@@ -783,26 +785,28 @@ int export_contacts(const export_opts *o, const corax_program *prog, export_sink
     corax_error err;
     corax_error_clear(&err);
     int *rank = NULL;
-    int rc = (d.kinds = corax_kinds_new()) ? contact_kinds(&d) : EXIT_DATA;
-    if (rc == EXIT_OK)
+    int rc = (d.kinds = corax_kinds_new()) ? contact_kinds(&d) : JOB_FAILED;
+    if (rc == JOB_OK)
         rc = read_units(&d);
     export_visit v = {NULL, NULL, contact_reading, 0};
-    if (rc == EXIT_OK)
+    if (rc == JOB_OK)
         rc = export_each_structure(o, &v, &d);
-    if (rc == EXIT_OK && d.nrd > 1)
+    if (rc == JOB_OK && d.nrd > 1)
         qsort(d.rd, d.nrd, sizeof *d.rd, by_hole);
-    if (rc == EXIT_OK && !(rank = age_ranks(&d, a))) {
-        cli_error(NULL, 0, "out of memory");
-        rc = EXIT_DATA;
+    if (rc == JOB_OK && !(rank = age_ranks(&d, a))) {
+        job_error(o->job, NULL, 0, "out of memory");
+        rc = JOB_FAILED;
     }
-    if (rc == EXIT_OK && d.unknown_holes)
-        cli_note(&o->c, "%s: %zu interval%s of holes not in the collar table left out",
-                 o->contacts, d.unknown_holes, d.unknown_holes == 1 ? "" : "s");
-    if (rc == EXIT_OK) {
-        cli_about_set(a, "contact_column", "%s", o->contact_column ? o->contact_column : "unit");
-        cli_about_set(a, "contact_kinds", "%s", o->contact_kinds ? o->contact_kinds : "contact");
-        cli_about_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
-                      "(axial), with count and kappa", o->contact_window);
+    if (rc == JOB_OK && d.unknown_holes)
+        job_note(o->job, "%s: %zu interval%s of holes not in the collar table left out",
+                 o->p->contacts, d.unknown_holes, d.unknown_holes == 1 ? "" : "s");
+    if (rc == JOB_OK) {
+        corax_record_set(a, "contact_column", "%s",
+                         o->p->contact_column ? o->p->contact_column : "unit");
+        corax_record_set(a, "contact_kinds", "%s",
+                         o->p->contact_kinds ? o->p->contact_kinds : "contact");
+        corax_record_set(a, "contact_window", "%g m either side; the Fisher mean of the poles "
+                         "(axial), with count and kappa", o->p->contact_window);
         rc = write_contacts(&d, k, rank, &err);
     }
     free(rank);
@@ -847,15 +851,15 @@ static int each_placed(vtk_intervals *vi, placed_fn fn)
     corax_error_clear(&err);
     int rc = open_table(vi->o, vi->s->path, interval_names, 3, &r, vi->s, &row);
     corax_status st = CORAX_OK;
-    while (rc == EXIT_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
+    while (rc == JOB_OK && (st = corax_reader_next(r, &row, &err)) == CORAX_OK) {
         corax_interval_points pts;
         const char *status;
         char note[160];
         if (place_interval(vi->prog, vi->s, &row, &pts, &status, note, sizeof note))
             fn(vi, &row, &pts);
     }
-    if (rc == EXIT_OK && st != CORAX_END)
-        rc = sink_status(st, &err);
+    if (rc == JOB_OK && st != CORAX_END)
+        rc = sink_status(vi->o->job, st, &err);
     corax_reader_close(r);
     return rc;
 }
@@ -952,7 +956,7 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
     size_t n = vi->placed;
     int rc;
     corax_vtk_points(v, 3 * n);
-    if ((rc = each_placed(vi, put_points)) != EXIT_OK)
+    if ((rc = each_placed(vi, put_points)) != JOB_OK)
         return rc;
     corax_vtk_cells(v, "LINES", n, 3 * n);
     for (size_t i = 0; i < n; i++) {
@@ -962,17 +966,17 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
     }
     corax_vtk_point_data(v, 3 * n);
     corax_vtk_scalars(v, "depth", CORAX_VTK_DOUBLE);
-    if ((rc = each_placed(vi, put_depths)) != EXIT_OK)
+    if ((rc = each_placed(vi, put_depths)) != JOB_OK)
         return rc;
     corax_vtk_cell_data(v, n);
     corax_vtk_scalars(v, "hole", CORAX_VTK_INT);
-    if ((rc = each_placed(vi, put_hole)) != EXIT_OK)
+    if ((rc = each_placed(vi, put_hole)) != JOB_OK)
         return rc;
     corax_vtk_field(v, "attributes", narrays);
     static const char *const direction[] = {"mid_azimuth", "mid_plunge"};
     for (vi->column = 0; vi->column < 2; vi->column++) {
         corax_vtk_array(v, direction[vi->column], 1, CORAX_VTK_DOUBLE);
-        if ((rc = each_placed(vi, put_direction)) != EXIT_OK)
+        if ((rc = each_placed(vi, put_direction)) != JOB_OK)
             return rc;
     }
     for (size_t i = 0; i < vi->s->width; i++) {
@@ -981,31 +985,31 @@ static int vtk_interval_blocks(vtk_intervals *vi, size_t narrays)
         vi->column = (long)i;
         corax_vtk_array(v, vi->s->name[i], 1,
                         vi->s->numeric[i] ? CORAX_VTK_DOUBLE : CORAX_VTK_INT);
-        if ((rc = each_placed(vi, put_column)) != EXIT_OK)
+        if ((rc = each_placed(vi, put_column)) != JOB_OK)
             return rc;
     }
-    return EXIT_OK;
+    return JOB_OK;
 }
 
-static void about_codes(const vtk_intervals *vi, cli_about *a)
+static void about_codes(const vtk_intervals *vi, corax_record *a)
 {
-    cli_about_section(a, "codes");
+    corax_record_section(a, "codes");
     for (size_t i = 0; i < vi->s->width; i++) {
         if (own_column(vi->s, i) || vi->s->numeric[i])
             continue;
         if (!vi->coded[i]) {
-            cli_about_set(a, vi->s->name[i], "left out: more than %d values", MAX_CODES);
+            corax_record_set(a, vi->s->name[i], "left out: more than %d values", MAX_CODES);
             continue;
         }
         for (size_t k = 0; k < vi->ncode[i]; k++) {
             char key[160];
             snprintf(key, sizeof key, "%s.%zu", vi->s->name[i], k);
-            cli_about_set(a, key, "%s", vi->code[i][k]);
+            corax_record_set(a, key, "%s", vi->code[i][k]);
         }
     }
 }
 
-int export_intervals_vtk(const export_opts *o, const corax_program *prog, cli_about *a)
+int export_intervals_vtk(const export_opts *o, const corax_program *prog, corax_record *a)
 {
     scan s;
     vtk_intervals vi;
@@ -1014,36 +1018,36 @@ int export_intervals_vtk(const export_opts *o, const corax_program *prog, cli_ab
     vi.o = o;
     vi.prog = prog;
     vi.s = &s;
-    int rc = scan_table(o, prog, o->intervals[0].path, interval_names, 3, NULL, 0, &s);
-    if (rc == EXIT_OK && s.n > 1)
+    int rc = scan_table(o, prog, o->p->intervals[0].path, interval_names, 3, NULL, 0, &s);
+    if (rc == JOB_OK && s.n > 1)
         qsort(s.iv, s.n, sizeof *s.iv, by_line);
-    if (rc == EXIT_OK)
+    if (rc == JOB_OK)
         rc = each_placed(&vi, count_placed);
     size_t narrays = 2;
-    for (size_t i = 0; rc == EXIT_OK && i < s.width; i++)
+    for (size_t i = 0; rc == JOB_OK && i < s.width; i++)
         narrays += !own_column(&s, i) && (s.numeric[i] || vi.coded[i]);
     corax_error err;
     corax_error_clear(&err);
     corax_status st = CORAX_OK;
-    if (rc == EXIT_OK) {
+    if (rc == JOB_OK) {
         char title[200];
         snprintf(title, sizeof title, "corax %s export: intervals of %s desurveyed; metres, x "
-                 "east, y north, z up", CORAX_VERSION, o->intervals[0].path);
-        st = corax_vtk_open(o->c.outputs, o->c.output, o->vtk.encoding, title, &vi.v, &err);
-        rc = st == CORAX_OK ? EXIT_OK : sink_status(st, &err);
+                 "east, y north, z up", CORAX_VERSION, o->p->intervals[0].path);
+        st = corax_vtk_open(o->job->outputs, o->output, o->p->vtk.encoding, title, &vi.v, &err);
+        rc = st == CORAX_OK ? JOB_OK : sink_status(o->job, st, &err);
     }
-    if (rc == EXIT_OK) {
+    if (rc == JOB_OK) {
         corax_vtk_decimals(vi.v, 6);
         rc = vtk_interval_blocks(&vi, narrays);
-        if (rc == EXIT_OK)
-            rc = sink_status(corax_vtk_commit(vi.v, &err), &err);
+        if (rc == JOB_OK)
+            rc = sink_status(o->job, corax_vtk_commit(vi.v, &err), &err);
         else
             corax_vtk_discard(vi.v);
     }
-    if (rc == EXIT_OK) {
-        cli_about_section(a, "results");
-        cli_about_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
-        cli_about_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");
+    if (rc == JOB_OK) {
+        corax_record_section(a, "results");
+        corax_record_set(a, "intervals", "%zu drawn (3 points each: from, middle, to)", vi.placed);
+        corax_record_set(a, "not_a_value", "-1 (legacy VTK cannot write NaN)");
         about_codes(&vi, a);
     }
     for (size_t i = 0; i < 64; i++) {

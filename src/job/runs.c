@@ -1,4 +1,4 @@
-/* cli: orientation runs, read from a runs table and looked up by hole and
+/* job: orientation runs, read from a runs table and looked up by hole and
  * depth, and the confidence word that says a run has no orientation mark. */
 #include <ctype.h>
 #include <math.h>
@@ -6,10 +6,10 @@
 #include <string.h>
 #include <strings.h>
 
-#include "cli/cli.h"
 #include "io/fields.h"
+#include "job/job_int.h"
 
-int cli_unoriented_confidence(const char *text, size_t len, const char *word)
+int corax_unoriented_confidence(const char *text, size_t len, const char *word)
 {
     while (len && isspace((unsigned char)*text)) {
         text++;
@@ -29,63 +29,60 @@ static int by_hole_from(const void *a, const void *b)
     return (x->from > y->from) - (x->from < y->from);
 }
 
-int cli_runs_load(const cli_common *c, const char *path, const corax_codes *codes,
-                  corax_tally *unknown, size_t file_index, cli_runs *runs, corax_findings *found)
+corax_status corax_runs_load(corax_job *job, const char *path, const corax_table_settings *ts,
+                             const corax_codes *codes, corax_tally *unknown, size_t file_index,
+                             corax_runs *runs, corax_findings *found)
 {
     static const char *const names[] = {"hole", "from", "to", "confidence"};
     memset(runs, 0, sizeof *runs);
-    corax_table_settings ts = cli_table_settings(c, CLI_RUNS);
-    size_t ntables = 0;
-    corax_table **tables = NULL;
-    runs->table = cli_table_keep(c, CLI_RUNS, path, &tables, &ntables);
-    free(tables); /* the one table is runs->table */
-    if (!runs->table)
-        return EXIT_DATA;
+    corax_status st = job_table_load(job, CORAX_ROLE_RUNS, path, ts, &runs->table);
+    if (st != CORAX_OK)
+        return job_failed(st);
     const corax_table *t = runs->table;
     long col[4];
-    if (cli_table_columns(t, &ts, names, 4, col))
-        return EXIT_DATA;
+    if ((st = job_table_columns(job, t, ts, names, 4, col)) != CORAX_OK)
+        return st;
     if (col[0] < 0 || col[1] < 0 || col[2] < 0) {
-        cli_error(path, 1, "no '%s' column in the header",
+        job_error(job, path, 1, "no '%s' column in the header",
                   col[0] < 0 ? "hole" : col[1] < 0 ? "from" : "to");
-        return EXIT_DATA;
+        return CORAX_EFORMAT;
     }
     size_t rows = corax_table_rows(t);
     if (!(runs->run = malloc((rows ? rows : 1) * sizeof *runs->run)))
-        return EXIT_DATA;
+        return CORAX_ENOMEM;
     for (size_t r = 0; r < rows; r++) {
         double a, b;
         const char *name = corax_table_cell(t, r, col[0], NULL);
         if (corax_table_number(t, r, col[1], &a) != CORAX_NUMBER_OK ||
             corax_table_number(t, r, col[2], &b) != CORAX_NUMBER_OK || !(a >= 0.0 && b > a) ||
-            b * ts.unit > CORAX_MAX_DEPTH || !name[0]) {
+            b * ts->unit > CORAX_MAX_DEPTH || !name[0]) {
             if (corax_findings_add(found, CORAX_ERROR, "run-row", path, corax_table_line(t, r),
                                    name, NAN, "the run row is not a hole with from < to (from "
                                    "'%.20s', to '%.20s'): it is left out",
                                    corax_table_cell(t, r, col[1], NULL),
                                    corax_table_cell(t, r, col[2], NULL)) != CORAX_OK)
-                return EXIT_DATA;
+                return CORAX_ENOMEM;
             continue;
         }
         size_t cl;
         const char *conf = corax_table_cell(t, r, col[3], &cl);
         const char *word =
-            cli_code_word(codes, conf, cl, unknown, path, file_index, corax_table_line(t, r));
+            job_code_word(codes, conf, cl, unknown, path, file_index, corax_table_line(t, r));
         runs->run[runs->n++] =
-            (corax_qa_run){name, a * ts.unit, b * ts.unit, word, path, corax_table_line(t, r)};
+            (corax_qa_run){name, a * ts->unit, b * ts->unit, word, path, corax_table_line(t, r)};
     }
     qsort(runs->run, runs->n, sizeof *runs->run, by_hole_from);
-    return EXIT_OK;
+    return CORAX_OK;
 }
 
-void cli_runs_free(cli_runs *runs)
+void corax_runs_free(corax_runs *runs)
 {
     corax_table_free(runs->table);
     free(runs->run);
     memset(runs, 0, sizeof *runs);
 }
 
-long cli_runs_find(const cli_runs *runs, const char *hole, size_t len, double depth)
+long corax_runs_find(const corax_runs *runs, const char *hole, size_t len, double depth)
 {
     size_t lo = 0, hi = runs->n; /* the first run of the hole not ending at or above depth */
     while (lo < hi) {

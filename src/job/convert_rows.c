@@ -1,14 +1,14 @@
-/* cli: the row engine of `corax convert`. Streams core logs row by row:
- * fields to a reading, the reading through the library, the answer out. Every
- * input row gives exactly one output row, in order. */
+/* job: the row engine of the convert job: fields to a reading, the reading
+ * through the library, the answer out. Every input row gives exactly one
+ * output row, in order. */
 #include <math.h>
-#include <omp.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
 
-#include "cli/convert_rows.h"
 #include "io/fields.h"
+#include "job/convert_int.h"
 
 static const char *const col_names[NCOLS] = {
     "hole",      "depth",     "from",        "to",          "alpha",      "beta",
@@ -29,9 +29,6 @@ static const char *const spread_names[] = {"dip_sd", "dip_direction_sd", "cone95
 static const char *const tail_names[] = {"status", "note"};
 
 #define COUNT(a) (sizeof(a) / sizeof(a)[0])
-
-/* Rows are read a batch at a time and converted in chunks on every thread. */
-enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
 
 static void write_names(corax_writer *w, const char *const *names, size_t n, int used)
 {
@@ -95,7 +92,7 @@ static int read_numbers(const convert_run *r, const convert_lane *ln, const cora
     double *slot[] = {&rd->alpha, &rd->beta, &rd->gamma, &rd->line_alpha, &rd->line_beta};
     *rd = corax_reading_empty();
     int ok = corax_field_depth(row, r->col + COL_DEPTH, ln->decimal, r->s->log.unit,
-                               r->s->interval, &rd->depth, why, wl) == CORAX_NUMBER_OK;
+                               (int)r->s->place, &rd->depth, why, wl) == CORAX_NUMBER_OK;
     for (int k = COL_ALPHA; k <= COL_LBETA; k++) {
         if (r->col[k] < 0)
             continue;
@@ -271,7 +268,7 @@ static int arbitrary_line(const convert_run *r, const convert_lane *ln, const co
         word = s->runs->run[run].confidence;
         n = strlen(word);
     }
-    return cli_unoriented_confidence(word, n, s->unoriented_word);
+    return corax_unoriented_confidence(word, n, s->unoriented_word);
 }
 
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
@@ -285,7 +282,7 @@ void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *r
     size_t hl;
     const char *name = corax_field_text(row, r->col[COL_HOLE], &hl);
     ev->hole = find_hole(r, ln, name, hl);
-    ev->run = r->s->runs ? cli_runs_find(r->s->runs, name, hl, ev->rd.depth) : -1;
+    ev->run = r->s->runs ? corax_runs_find(r->s->runs, name, hl, ev->rd.depth) : -1;
     ev->group = -1;
     ev->turn_sigma = NAN;
     ev->rd.arbitrary_line = arbitrary_line(r, ln, row, ev->run);
@@ -387,13 +384,6 @@ void convert_write(const convert_run *r, convert_lane *ln, const corax_row *row,
     ln->rows++;
 }
 
-static void convert_row(const convert_run *r, convert_lane *ln, const corax_row *row)
-{
-    convert_eval ev;
-    convert_evaluate(r, ln, row, &ev);
-    convert_write(r, ln, row, &ev, NULL);
-}
-
 /* Same header names, in the same order (without regard to case). */
 static int same_header(const corax_row *h, char **names, size_t n)
 {
@@ -403,80 +393,6 @@ static int same_header(const corax_row *h, char **names, size_t n)
         if (strcasecmp(h->field[i], names[i]) != 0)
             return 0;
     return 1;
-}
-
-static void free_names(char **names, size_t n)
-{
-    for (size_t i = 0; i < n; i++)
-        free(names[i]);
-    free(names);
-}
-
-/* Fill a batch with up to BATCH_ROWS rows: the reader's status (CORAX_OK when
- * more may follow, CORAX_END at the end, or an error). */
-static corax_status fill_batch(corax_reader *rd, corax_table *batch, corax_error *err)
-{
-    corax_row row;
-    corax_status st = CORAX_OK;
-    corax_table_truncate(batch);
-    while (corax_table_rows(batch) < BATCH_ROWS && (st = corax_reader_next(rd, &row, err)) == CORAX_OK)
-        if (corax_table_append(batch, &row) != CORAX_OK)
-            return CORAX_ENOMEM;
-    return st;
-}
-
-/* Write a batch's chunks to the output, in row order, and empty them. */
-static void write_chunks(const convert_run *r, corax_writer **chunk)
-{
-    for (size_t c = 0; c < BATCH_CHUNKS; c++) {
-        size_t len;
-        const char *text = corax_writer_contents(chunk[c], &len);
-        corax_writer_text(r->w, text, len);
-        corax_writer_reset(chunk[c]);
-    }
-}
-
-/* Convert batch `cur` on every thread into `chunk`, in chunks taken in turn,
- * while one thread first writes the previous batch's chunks (`done`) and reads
- * the following batch into `next` (when rd is not NULL). Chunks are written in
- * row order, so the output does not depend on the number of threads. */
-static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes,
-                                  int nlanes, corax_writer **chunk, corax_writer **done,
-                                  corax_reader *rd, corax_table *next, corax_status *read_status,
-                                  corax_error *read_err)
-{
-    size_t n = corax_table_rows(cur), widest = corax_table_widest(cur);
-    for (int k = 0; k < nlanes; k++) {
-        const char **field = realloc(lanes[k].field, (widest ? widest : 1) * sizeof *field);
-        if (!field)
-            return CORAX_ENOMEM;
-        lanes[k].field = field;
-    }
-    size_t taken = 0;
-#pragma omp parallel num_threads(nlanes)
-    {
-#pragma omp single nowait
-        {
-            write_chunks(r, done);
-            if (rd)
-                *read_status = fill_batch(rd, next, read_err);
-        }
-        convert_lane *ln = &lanes[omp_get_thread_num()];
-        for (;;) {
-            size_t c;
-#pragma omp atomic capture
-            c = taken++;
-            if (c >= BATCH_CHUNKS)
-                break;
-            ln->w = chunk[c];
-            for (size_t i = n * c / BATCH_CHUNKS; i < n * (c + 1) / BATCH_CHUNKS; i++) {
-                corax_row row;
-                corax_table_row(cur, i, ln->field, &row);
-                convert_row(r, ln, &row);
-            }
-        }
-    }
-    return CORAX_OK;
 }
 
 /* Which of the log's columns corax writes again, in its own words. */
@@ -535,309 +451,4 @@ void convert_lane_file(convert_lane *ln, const char *path, size_t index,
     ln->file = path;
     ln->file_index = index;
     ln->decimal = info.format.decimal;
-}
-
-static int convert_one_file(cli_common *c, convert_run *r, convert_lane *lanes, int nlanes,
-                            corax_writer **chunk, corax_writer **done, const char *path,
-                            size_t index)
-{
-    corax_reader *rd;
-    corax_error err;
-    corax_error_clear(&err);
-    corax_row row;
-    corax_status st = convert_open_log(r, path, &rd, &row, &err);
-    corax_table *cur = NULL, *next = NULL;
-    cli_progress progress;
-    cli_progress_start(&progress, c, path, "bytes", cli_file_size(path));
-    if (st == CORAX_OK) {
-        for (int k = 0; k < nlanes; k++)
-            convert_lane_file(&lanes[k], path, index, rd);
-        cur = corax_table_new(path, lanes[0].decimal, &row);
-        next = cur ? corax_table_new(path, lanes[0].decimal, &row) : NULL;
-        st = next ? fill_batch(rd, cur, &err) : CORAX_ENOMEM;
-    }
-    while ((st == CORAX_OK || st == CORAX_END) && corax_table_rows(cur) > 0) {
-        corax_status read_st = CORAX_END;
-        corax_error read_err;
-        corax_error_clear(&read_err);
-        corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, done,
-                                        st == CORAX_OK ? rd : NULL, next, &read_st, &read_err);
-        corax_writer **written = chunk; /* this batch's chunks go out with the next one */
-        chunk = done;
-        done = written;
-        if (bs != CORAX_OK) {
-            st = bs;
-            break;
-        }
-        if (st == CORAX_END)
-            break;
-        st = read_st;
-        err = read_err;
-        corax_table *t = cur; /* the batch just read is converted next */
-        cur = next;
-        next = t;
-        cli_progress_set(&progress, (double)corax_reader_offset(rd));
-    }
-    cli_progress_end(&progress);
-    write_chunks(r, done); /* the last batch */
-    corax_table_free(cur);
-    corax_table_free(next);
-    if (rd) {
-        corax_table_info info;
-        corax_reader_info(rd, &info);
-        cli_table_done(c, CLI_STRUCTURES, path, &info);
-    }
-    corax_reader_close(rd);
-    if (st != CORAX_END) {
-        cli_error_record(&err, st);
-        return EXIT_DATA;
-    }
-    return EXIT_OK;
-}
-
-static void summary(const convert_lane *lanes, int nlanes)
-{
-    convert_lane total;
-    memset(&total, 0, sizeof total);
-    for (int k = 0; k < nlanes; k++) {
-        total.rows += lanes[k].rows;
-        for (unsigned c = 0; c <= CORAX_COND_COUNT; c++)
-            total.count[c] += lanes[k].count[c];
-    }
-    const convert_lane *r = &total;
-    fprintf(stderr, "corax: %zu row%s:", r->rows, r->rows == 1 ? "" : "s");
-    int first = 1;
-    if (r->count[CORAX_COND_COUNT]) {
-        fprintf(stderr, " %zu converted", r->count[CORAX_COND_COUNT]);
-        first = 0;
-    }
-    for (unsigned k = 0; k < CORAX_COND_COUNT; k++)
-        if (r->count[k]) {
-            fprintf(stderr, "%s %zu %s", first ? "" : ",", r->count[k], corax_condition_name(k));
-            first = 0;
-        }
-    fputc('\n', stderr);
-}
-
-/* Every lane's counts of values with no meaning, said once each. */
-static int warn_unknown(const cli_common *c, const convert_run *r, convert_lane *lanes,
-                        int nlanes)
-{
-    for (int k = 1; k < nlanes; k++)
-        if (corax_tally_merge(lanes[0].unknown_kind, lanes[k].unknown_kind) != CORAX_OK ||
-            corax_tally_merge(lanes[0].unknown_confidence, lanes[k].unknown_confidence) !=
-                CORAX_OK ||
-            corax_tally_merge(lanes[0].no_line_error, lanes[k].no_line_error) != CORAX_OK)
-            return -1;
-    cli_tally_warn(c, "kind code", "has no mapping", lanes[0].unknown_kind,
-                   "these rows keep it as their kind");
-    cli_tally_warn(c, "confidence code", "has no mapping", lanes[0].unknown_confidence,
-                   r->s->draws ? "these rows get no uncertainty"
-                               : "these rows keep it as their confidence");
-    cli_tally_warn(c, "confidence", "has no line error (--confidence-errors)",
-                   lanes[0].no_line_error, "these rows get no uncertainty");
-    return 0;
-}
-
-static void lanes_free(convert_lane *lanes, int nlanes)
-{
-    for (int k = 0; lanes && k < nlanes; k++) {
-        free(lanes[k].field);
-        corax_tally_free(lanes[k].unknown_kind);
-        corax_tally_free(lanes[k].unknown_confidence);
-        corax_tally_free(lanes[k].no_line_error);
-    }
-    free(lanes);
-}
-
-int convert_files(cli_common *c, const corax_program *prog, const convert_setup *s,
-                  const char *const *files, size_t nfiles, const char *output)
-{
-    convert_run r;
-    memset(&r, 0, sizeof r);
-    r.c = c;
-    r.prog = prog;
-    r.s = s;
-    int nlanes = omp_get_max_threads();
-    convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
-    corax_writer *chunk[2][BATCH_CHUNKS] = {{NULL}};
-    int rc = lanes ? EXIT_OK : EXIT_DATA;
-    for (int k = 0; k < nlanes && rc == EXIT_OK; k++) {
-        lanes[k].last_len = (size_t)-1;
-        lanes[k].unknown_kind = corax_tally_new();
-        lanes[k].unknown_confidence = corax_tally_new();
-        lanes[k].no_line_error = corax_tally_new();
-        if (!lanes[k].unknown_kind || !lanes[k].unknown_confidence || !lanes[k].no_line_error)
-            rc = EXIT_DATA;
-    }
-    for (int k = 0; k < 2 * BATCH_CHUNKS && rc == EXIT_OK; k++) {
-        corax_writer **w = &chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS];
-        if (corax_writer_memory(w) != CORAX_OK)
-            rc = EXIT_DATA;
-        else
-            corax_writer_format(*w, s->output);
-    }
-    corax_error err;
-    corax_error_clear(&err);
-    corax_status st =
-        rc == EXIT_OK ? corax_writer_open_in(c->outputs, output, &r.w, &err) : CORAX_ENOMEM;
-    if (st != CORAX_OK) {
-        cli_error_record(&err, st);
-        rc = EXIT_DATA;
-    } else {
-        corax_writer_format(r.w, s->output);
-    }
-    int whole = s->draws || s->nrefs; /* drawing and orienting runs need every row */
-    if (rc == EXIT_OK && whole)
-        rc = convert_in_memory(c, &r, lanes, nlanes, files, nfiles);
-    for (size_t i = 0; i < nfiles && rc == EXIT_OK && !whole; i++)
-        rc = convert_one_file(c, &r, lanes, nlanes, chunk[0], chunk[1], files[i], i);
-    free_names(r.first, r.first ? r.nfirst : 0);
-    if (rc != EXIT_OK) {
-        corax_writer_discard(r.w);
-    } else if ((st = corax_writer_commit(r.w, &err)) != CORAX_OK) {
-        cli_error_record(&err, st);
-        rc = EXIT_DATA;
-    } else if (!s->quiet) {
-        summary(lanes, nlanes);
-    }
-    if (rc == EXIT_OK && warn_unknown(c, &r, lanes, nlanes))
-        rc = EXIT_DATA;
-    for (int k = 0; k < 2 * BATCH_CHUNKS; k++)
-        corax_writer_discard(chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS]);
-    lanes_free(lanes, nlanes);
-    return rc;
-}
-
-void cli_about_conventions(cli_about *a, const corax_convert_options *cv)
-{
-    const corax_core_conventions *c = &cv->conventions;
-    cli_about_set(a, "reference_line", "%s", c->top_reference ? "top" : "bottom");
-    cli_about_set(a, "beta_end", "%s", c->beta_to_uphole_end ? "up-hole" : "down-hole");
-    cli_about_set(a, "beta_sense", "%s (looking down the hole)",
-                  c->beta_anticlockwise ? "anticlockwise" : "clockwise");
-    cli_about_set(a, "gamma_zero", "%s", c->gamma_from_uphole ? "up-hole" : "down-hole");
-    cli_about_set(a, "gamma_sense", "%s (seen from the up-hole side of the plane)",
-                  c->gamma_anticlockwise ? "anticlockwise" : "clockwise");
-    cli_about_set(a, "near_parallel", "%g", corax_deg(cv->near_parallel));
-    cli_about_set(a, "near_perpendicular", "%g", corax_deg(cv->near_perpendicular));
-    cli_about_set(a, "vertical_limit", "%g", corax_deg(cv->vertical_limit));
-}
-
-/* ---- one reading ---- */
-
-static void print_conventions(const corax_core_conventions *c)
-{
-    printf("conventions  %s-of-hole line; beta %s looking down the hole, to the %s end;\n"
-           "             gamma from the %s end, %s seen from up-hole\n",
-           c->top_reference ? "top" : "bottom",
-           c->beta_anticlockwise ? "anticlockwise" : "clockwise",
-           c->beta_to_uphole_end ? "up-hole" : "down-hole",
-           c->gamma_from_uphole ? "up-hole" : "down-hole",
-           c->gamma_anticlockwise ? "anticlockwise" : "clockwise");
-}
-
-/* The alpha and beta a plane would show, with the status of the answer: a
- * plane along the hole has no beta, and one square to it any beta. */
-static void print_inverse(corax_plan_status st, double alpha, double beta,
-                          const corax_convert_options *o)
-{
-    printf("would show   alpha %.2f, beta ", corax_deg(alpha));
-    if (st == CORAX_PLAN_PARALLEL)
-        printf("undefined (the plane runs along the hole, which never crosses it: the "
-               "ellipse has no down-hole end)\n");
-    else if (isnan(beta))
-        printf("any (the ellipse is a circle)\n");
-    else
-        printf("%.2f\n", corax_wrap_degrees(corax_deg(beta), 2));
-    printf("status       %s\n", corax_plan_status_name(st));
-    if (st == CORAX_PLAN_NEAR_PARALLEL)
-        printf("note         alpha %.2f is below %.3g: a small error in beta swings the plane "
-               "widely, and a hole this way under-samples such planes\n",
-               corax_deg(alpha), corax_deg(o->near_parallel));
-    else if (st == CORAX_PLAN_NEAR_PERPENDICULAR && !isnan(beta))
-        printf("note         alpha %.2f is above %.3g: beta is barely defined\n",
-               corax_deg(alpha), corax_deg(o->near_perpendicular));
-}
-
-int convert_one_reading(const cli_common *cc, const convert_setup *s, double hole_azimuth,
-                        double hole_dip, double alpha, double beta, double gamma,
-                        const double plane[2], const double line[2])
-{
-    const corax_convert_options *o = &s->convert;
-    double plunge;
-    corax_dip_convention dipc = cli_table_dip(cc, CLI_SURVEYS);
-    if (corax_dip_to_plunge(hole_dip, dipc, &plunge) != CORAX_OK)
-        return cli_usage("convert", "--hole-dip %g is outside the range of %s", hole_dip,
-                         cli_dip_convention_name(dipc));
-    corax_vec3 t = corax_direction(corax_rad(hole_azimuth), plunge);
-    printf("hole         azimuth %.2f, dip %.2f (%s)\n", corax_wrap_degrees(hole_azimuth, 2),
-           hole_dip, cli_dip_convention_name(dipc));
-    print_conventions(&o->conventions);
-    corax_core_frame f;
-    int framed = corax_core_off_vertical(t) >= o->vertical_limit &&
-                 corax_core_frame_of(t, &f) == CORAX_OK;
-    if (!isnan(plane[0]) || !isnan(line[0])) { /* the inverse: what the core would show */
-        if (!framed) {
-            printf("answer       none: the hole is within %g degrees of vertical, so there is no "
-                   "bottom-of-hole line to measure beta from\n",
-                   corax_deg(o->vertical_limit));
-            return EXIT_DATA;
-        }
-        double a, b;
-        if (!isnan(plane[0])) {
-            corax_plane p = {corax_rad(plane[0]), corax_rad(plane[1])};
-            corax_plan_status st = corax_plan_angles(t, corax_plane_normal(p), o, &a, &b);
-            printf("plane        dip %.2f, dip direction %.2f\n", plane[0],
-                   corax_wrap_degrees(plane[1], 2));
-            print_inverse(st, a, b, o);
-        } else {
-            corax_vec3 l = corax_direction(corax_rad(line[0]), corax_rad(line[1]));
-            corax_core_line_angles(&f, l, &o->conventions, &a, &b);
-            printf("line         trend %.2f, plunge %.2f\n", corax_wrap_degrees(line[0], 2), line[1]);
-            if (isnan(b))
-                printf("would show   line_alpha %.2f, line_beta undefined (the line runs along "
-                       "the core axis)\n", corax_deg(a));
-            else
-                printf("would show   line_alpha %.2f, line_beta %.2f\n", corax_deg(a),
-                       corax_wrap_degrees(corax_deg(b), 2));
-        }
-        return EXIT_OK;
-    }
-    /* a straight hole through the reading gives the library its hole */
-    corax_collar collar = {{0, 0, 0}, corax_rad(hole_azimuth), plunge, 1, NAN};
-    corax_hole *h;
-    if (corax_hole_new("reading", &collar, NULL, 0, 0, &h, NULL) != CORAX_OK)
-        return EXIT_DATA;
-    corax_reading rd = corax_reading_empty();
-    rd.alpha = corax_rad(alpha);
-    rd.beta = isnan(beta) ? beta : corax_rad(beta);
-    rd.gamma = isnan(gamma) ? gamma : corax_rad(gamma);
-    corax_result res;
-    corax_convert_reading(h, &rd, o, NULL, &res);
-    res.conditions &= ~(unsigned)CORAX_COND_COLLAR_ONLY; /* the hole is given, not surveyed */
-    printf("reading      alpha %.2f, beta %s", alpha, isnan(beta) ? "none" : "");
-    if (!isnan(beta))
-        printf("%.2f", beta);
-    if (!isnan(gamma))
-        printf(", gamma %.2f", gamma);
-    printf("\n");
-    if (res.has_plane) {
-        double dd = corax_deg(res.plane.dip_direction), dip = corax_deg(res.plane.dip);
-        printf("plane        dip %.2f, dip direction %.2f\n", dip, corax_wrap_degrees(dd, 2));
-        printf("strike       %.2f (dip to the right)\n", corax_wrap_degrees(dd - 90, 2));
-        printf("pole         trend %.2f, plunge %.2f\n", corax_wrap_degrees(dd + 180, 2), 90 - dip);
-    }
-    if (res.conditions & CORAX_COND_DIP_ONLY)
-        printf("plane        dip %.2f, dip direction unknown\n", corax_deg(res.plane.dip));
-    if (res.has_line)
-        printf("line         trend %.2f, plunge %.2f\n",
-               corax_wrap_degrees(corax_deg(res.trend), 2), corax_deg(res.plunge));
-    printf("status       %s\n", corax_condition_status(res.conditions));
-    char note[600];
-    if (corax_result_note(&res, &rd, h, o, note, sizeof note))
-        printf("note         %s\n", note);
-    corax_hole_free(h);
-    return res.has_plane || res.has_line || (res.conditions & CORAX_COND_DIP_ONLY) ? EXIT_OK
-                                                                                   : EXIT_DATA;
 }
