@@ -20,6 +20,7 @@
 #include "corax/job_check.h"
 #include "corax/job_convert.h"
 #include "corax/job_export.h"
+#include "corax/job_merge.h"
 #include "corax/job_plan.h"
 #include "corax/job_section.h"
 #include "corax/job_solve.h"

@@ -66,6 +66,9 @@ typedef struct corax_convert_job_options {
     size_t nrefs;
     double nearby_within;          /* metres: how far a nearby reference reaches */
     int threads;                   /* 0: OpenMP's default */
+    /* work split by hole: only the rows whose hole is in shard `shard` of
+     * `shards` (corax_shard_of()); shards 0: every row */
+    unsigned shard, shards;
 } corax_convert_job_options;
 
 /* The defaults: the convert defaults, core logs found as they are, readings
@@ -77,6 +80,7 @@ corax_convert_job_options corax_convert_job_options_default(void);
 /* What a convert job did. */
 typedef struct corax_convert_job_summary {
     size_t rows;
+    size_t other_shards; /* rows left to the other shards */
     size_t count[CORAX_COND_COUNT + 1]; /* rows by their first condition (see
                                            corax_condition_name); the last:
                                            converted with none */

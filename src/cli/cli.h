@@ -290,6 +290,8 @@ int cli_value_number(const char *arg, double lo, double hi, double *value, char 
                      size_t whylen);
 int cli_value_choice(const char *arg, const char *const *names, int count, int *value,
                      char *why, size_t whylen);
+/* "K/N": shard K of N (1 <= K <= N <= 1,000,000). */
+int cli_value_shard(const char *arg, unsigned *shard, unsigned *shards, char *why, size_t whylen);
 
 /* ---- the tables' settings ---- */
 
@@ -455,6 +457,7 @@ int cmd_check(int argc, char **argv);
 int cmd_stereonet(int argc, char **argv);
 int cmd_help(int argc, char **argv);
 int cmd_plan(int argc, char **argv);
+int cmd_merge(int argc, char **argv);
 int cmd_solve(int argc, char **argv);
 
 #endif

@@ -85,6 +85,7 @@ enum {
     OPT_ORIENT_BY,
     OPT_UNORIENTED_WORD,
     OPT_NEARBY_WITHIN,
+    OPT_SHARD,
 };
 
 typedef struct convert_opts {
@@ -209,6 +210,8 @@ static int convert_option(void *ctx, int opt, const char *arg, char *why, size_t
         return 0;
     case OPT_STRUCTURES:
         return cli_files_add(&o->logs, &o->c, arg, why, wl);
+    case OPT_SHARD:
+        return cli_value_shard(arg, &o->setup.shard, &o->setup.shards, why, wl);
     case OPT_HOLE_AZIMUTH: o->single = 1; return cli_value_number(arg, 0, 360, &o->hole_azimuth, why, wl);
     case OPT_HOLE_DIP: o->single = 1; return cli_value_number(arg, -90, 180, &o->hole_dip, why, wl);
     case OPT_ALPHA: o->single = 1; return cli_value_number(arg, 0, 90, &o->alpha, why, wl);
@@ -260,6 +263,7 @@ static int parse(int argc, char **argv, convert_opts *o)
         {"orient-by", required_argument, NULL, OPT_ORIENT_BY},
         {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
         {"nearby-within", required_argument, NULL, OPT_NEARBY_WITHIN},
+        {"shard", required_argument, NULL, OPT_SHARD},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, convert_help, 1, convert_option, o);
@@ -309,6 +313,9 @@ static void summary(const corax_convert_job_summary *sum)
                     corax_condition_name(k));
             first = 0;
         }
+    if (sum->other_shards)
+        fprintf(stderr, "; %zu row%s of other shards left out", sum->other_shards,
+                sum->other_shards == 1 ? "" : "s");
     fputc('\n', stderr);
 }
 

@@ -22,6 +22,7 @@ static const command commands[] = {
     {"stereonet", cmd_stereonet, "stereonets and orientation statistics of converted structures"},
     {"section", cmd_section, "a cross-section: structures in a slab with apparent dips, drawn"},
     {"export", cmd_export, "structures and hole traces for 3-D modelling (CSV, VTK)"},
+    {"merge", cmd_merge, "the shards of convert --shard K/N put together as one run's output"},
     {"plan", cmd_plan, "drill planning: what planned holes would see, the best direction"},
     {"help", cmd_help, "help on a command, the column names, or the project file"},
 };

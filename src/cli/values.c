@@ -1,6 +1,7 @@
 /* cli: option values by name (numbers, choices, table formats, units, dip
  * conventions), the core conventions' options and the uncertainty's. */
 #include <math.h>
+#include <stdlib.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -19,6 +20,25 @@ int cli_value_number(const char *arg, double lo, double hi, double *value, char 
         return -1;
     }
     *value = v;
+    return 0;
+}
+
+int cli_value_shard(const char *arg, unsigned *shard, unsigned *shards, char *why, size_t whylen)
+{
+    char *end;
+    unsigned long k = strtoul(arg, &end, 10), n = 0;
+    int ok = end != arg && *end == '/' && arg[0] >= '0' && arg[0] <= '9';
+    if (ok) {
+        const char *p = end + 1;
+        n = strtoul(p, &end, 10);
+        ok = end != p && !*end && *p >= '0' && *p <= '9';
+    }
+    if (!ok || n < 1 || n > 1000000 || k < 1 || k > n) {
+        snprintf(why, whylen, "'%s' is not K/N, shard K of N (1 <= K <= N <= 1000000)", arg);
+        return -1;
+    }
+    *shard = (unsigned)k;
+    *shards = (unsigned)n;
     return 0;
 }
 

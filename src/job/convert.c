@@ -28,15 +28,19 @@ static void free_names(char **names, size_t n)
     free(names);
 }
 
-/* Fill a batch with up to BATCH_ROWS rows: the reader's status (CORAX_OK when
- * more may follow, CORAX_END at the end, or an error). */
-static corax_status fill_batch(corax_reader *rd, corax_table *batch, corax_error *err)
+/* Fill a batch with up to BATCH_ROWS rows of the shard, counting the others
+ * in *other: the reader's status (CORAX_OK when more may follow, CORAX_END at
+ * the end, or an error). */
+static corax_status fill_batch(const convert_run *r, corax_reader *rd, corax_table *batch,
+                               size_t *other, corax_error *err)
 {
     corax_row row;
     corax_status st = CORAX_OK;
     corax_table_truncate(batch);
     while (corax_table_rows(batch) < BATCH_ROWS && (st = corax_reader_next(rd, &row, err)) == CORAX_OK)
-        if (corax_table_append(batch, &row) != CORAX_OK)
+        if (!convert_row_in_shard(r, &row))
+            ++*other;
+        else if (corax_table_append(batch, &row) != CORAX_OK)
             return CORAX_ENOMEM;
     return st;
 }
@@ -59,7 +63,7 @@ static void write_chunks(const convert_run *r, corax_writer **chunk)
 static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes,
                                   int nlanes, corax_writer **chunk, corax_writer **done,
                                   corax_reader *rd, corax_table *next, corax_status *read_status,
-                                  corax_error *read_err)
+                                  size_t *read_other, corax_error *read_err)
 {
     size_t n = corax_table_rows(cur), widest = corax_table_widest(cur);
     for (int k = 0; k < nlanes; k++) {
@@ -75,7 +79,7 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
         {
             write_chunks(r, done);
             if (rd)
-                *read_status = fill_batch(rd, next, read_err);
+                *read_status = fill_batch(r, rd, next, read_other, read_err);
         }
         convert_lane *ln = &lanes[omp_get_thread_num()];
         for (;;) {
@@ -112,14 +116,15 @@ static corax_status convert_one_file(convert_run *r, convert_lane *lanes, int nl
             convert_lane_file(&lanes[k], path, index, rd);
         cur = corax_table_new(path, lanes[0].decimal, &row);
         next = cur ? corax_table_new(path, lanes[0].decimal, &row) : NULL;
-        st = next ? fill_batch(rd, cur, &err) : CORAX_ENOMEM;
+        st = next ? fill_batch(r, rd, cur, &r->other, &err) : CORAX_ENOMEM;
     }
     while ((st == CORAX_OK || st == CORAX_END) && corax_table_rows(cur) > 0) {
         corax_status read_st = CORAX_END;
         corax_error read_err;
         corax_error_clear(&read_err);
         corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, done,
-                                        st == CORAX_OK ? rd : NULL, next, &read_st, &read_err);
+                                        st == CORAX_OK ? rd : NULL, next, &read_st, &r->other,
+                                        &read_err);
         corax_writer **written = chunk; /* this batch's chunks go out with the next one */
         chunk = done;
         done = written;
@@ -249,6 +254,8 @@ static void record(corax_record *a, const corax_convert_job_options *o, const ch
             corax_record_set(a, "orient_by", "%s=%g/%g", ref->kind, corax_deg(ref->plane.dip),
                              corax_deg(ref->plane.dip_direction));
     }
+    if (o->shards > 1)
+        corax_record_set(a, "shard", "%u/%u (holes by corax_shard_of)", o->shard, o->shards);
     if (!o->draws)
         return;
     corax_record_uncertainty(a, &o->errors, o->draws, o->seed, 1);
@@ -316,6 +323,7 @@ corax_status corax_convert_job_run(corax_job *job, const corax_program *prog,
     }
     if (rc == CORAX_OK)
         rc = sum_lanes(lanes, nlanes, sum);
+    sum->other_shards = r.other;
     if (rc == CORAX_OK)
         record(job->record, s, files, nfiles);
     for (int k = 0; k < 2 * BATCH_CHUNKS; k++)

@@ -39,7 +39,11 @@ typedef struct convert_run {
     char **first;    /* the first log's header names: later logs must match */
     size_t nfirst;
     const convert_group *groups; /* the runs oriented by reference, or NULL */
+    size_t other;    /* rows left to the other shards */
 } convert_run;
+
+/* Whether a row's hole is in the run's shard (always, without shards). */
+int convert_row_in_shard(const convert_run *r, const corax_row *row);
 
 /* One thread's state: where its rows go and what it has seen. */
 typedef struct convert_lane {

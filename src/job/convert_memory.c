@@ -28,7 +28,10 @@ static corax_status load_logs(convert_run *r, const char *const *files, size_t n
                 st = CORAX_ENOMEM;
         }
         while (st == CORAX_OK && (st = corax_reader_next(rd, &row, &err)) == CORAX_OK)
-            st = corax_table_append(all, &row);
+            if (convert_row_in_shard(r, &row))
+                st = corax_table_append(all, &row);
+            else
+                r->other++;
         if (rd) {
             corax_reader_info(rd, &info);
             job_table_read(r->job, CORAX_ROLE_STRUCTURES, files[f], r->s->log.unit, &info);

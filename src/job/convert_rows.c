@@ -271,6 +271,15 @@ static int arbitrary_line(const convert_run *r, const convert_lane *ln, const co
     return corax_unoriented_confidence(word, n, s->unoriented_word);
 }
 
+int convert_row_in_shard(const convert_run *r, const corax_row *row)
+{
+    if (r->s->shards <= 1)
+        return 1;
+    size_t len;
+    const char *name = corax_field_text(row, r->col[COL_HOLE], &len);
+    return corax_shard_of(name, len, r->s->shards) == r->s->shard;
+}
+
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
                       convert_eval *ev)
 {
