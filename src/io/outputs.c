@@ -18,6 +18,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "io/fuzz.h"
 #include "io/outputs.h"
 
 enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
@@ -102,7 +103,7 @@ static int move_folder(const char *folder, const char *final)
             (size_t)snprintf(dst, sizeof dst, "%.*s%s", (int)dirlen, final,
                              own ? final + dirlen : e->d_name) >= sizeof dst)
             failed = ENAMETOOLONG;
-        else if (rename(src, dst) != 0)
+        else if (CORAX_FAILS() || rename(src, dst) != 0)
             failed = errno;
     }
     closedir(d);
@@ -113,6 +114,8 @@ corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **f
                                   corax_error *err)
 {
     *folder = NULL;
+    if (CORAX_MAY_WRITE(path) != 0)
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(errno));
     const char *slash = strrchr(path, '/');
     size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
     size_t n = strlen(path) + 16;
@@ -120,7 +123,7 @@ corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **f
     if (!d)
         return CORAX_ENOMEM;
     snprintf(d, n, "%.*s.%s.XXXXXX", (int)dirlen, path, path + dirlen);
-    if (!mkdtemp(d)) {
+    if (CORAX_FAILS() || !mkdtemp(d)) {
         int e = errno;
         free(d);
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
@@ -208,7 +211,7 @@ corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
             st = corax_outputs_place_folder(h->tmp, h->final, err);
             if (st != CORAX_OK)
                 break;
-        } else if (rename(h->tmp, h->final) != 0) {
+        } else if (CORAX_FAILS() || rename(h->tmp, h->final) != 0) {
             st = corax_error_set(err, CORAX_EIO, h->path, 0, "cannot write: %s",
                                  strerror(errno));
             break;
@@ -288,9 +291,11 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         return fail_open(t, path, 0, "the file name is empty", err);
     if (!(t->path = strdup(path)))
         return CORAX_ENOMEM;
+    if (CORAX_MAY_WRITE(path) != 0)
+        return fail_open(t, path, errno, NULL, err);
     int fd = descriptor_named(path);
     if (fd >= 0) { /* /dev/stdout and the like: the descriptor itself, where it stands */
-        t->fd = dup(fd);
+        t->fd = CORAX_FAILS() ? -1 : dup(fd);
         return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
     }
     struct stat st;
@@ -302,7 +307,8 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         return fail_open(t, path, 0, "it is a folder", err);
     if (exists && (!S_ISREG(st.st_mode) || system_file(resolved))) {
         /* a device, a pipe, a socket: written straight */
-        t->fd = open(path, O_WRONLY | O_CLOEXEC | O_NOCTTY | (S_ISREG(st.st_mode) ? O_TRUNC : 0));
+        int flags = O_WRONLY | O_CLOEXEC | O_NOCTTY | (S_ISREG(st.st_mode) ? O_TRUNC : 0);
+        t->fd = CORAX_FAILS() ? -1 : open(path, flags);
         return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
     }
     if (set && set->ntemp == MAX_FILES)
@@ -313,13 +319,15 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         free(t->tmp);
         if (!(t->tmp = temp_name(t->final, tries, t)))
             return fail_open(t, path, ENOMEM, NULL, err);
-        t->fd = open(t->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
+        t->fd = CORAX_FAILS() ? -1
+                              : open(t->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
         if (t->fd >= 0 || errno != EEXIST)
             break;
     }
     if (t->fd < 0)
         return fail_open(t, path, errno, NULL, err);
-    if (exists && fchmod(t->fd, st.st_mode & 07777) != 0) { /* the target's mode stays */
+    /* the target's mode stays */
+    if (exists && (CORAX_FAILS() || fchmod(t->fd, st.st_mode & 07777) != 0)) {
         int e = errno;
         close(t->fd);
         unlink(t->tmp);
@@ -333,9 +341,10 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
 corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
                                 corax_error *err)
 {
-    if (t->tmp && !failed && fsync(t->fd) != 0)
+    if (t->tmp && !failed && (CORAX_FAILS() || fsync(t->fd) != 0))
         failed = errno;
-    if (t->fd >= 0 && t->fd != STDOUT_FILENO && close(t->fd) != 0 && !failed)
+    if (t->fd >= 0 && t->fd != STDOUT_FILENO && (close(t->fd) != 0 || CORAX_FAILS()) &&
+        !failed)
         failed = errno;
     t->fd = -1;
     if (!failed && t->tmp && set) { /* held until the run publishes it */
@@ -348,7 +357,7 @@ corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
             return CORAX_OK;
         }
     }
-    if (!failed && t->tmp && rename(t->tmp, t->final) != 0)
+    if (!failed && t->tmp && (CORAX_FAILS() || rename(t->tmp, t->final) != 0))
         failed = errno;
     if (failed && t->tmp)
         unlink(t->tmp);
@@ -426,3 +435,47 @@ int corax_path_replaceable(const char *path)
         return 1; /* a new file */
     return S_ISREG(st.st_mode) && realpath(path, resolved) && !system_file(resolved);
 }
+
+#ifdef CORAX_FUZZ
+/* ---- the fuzzing build's hooks (io/fuzz.h) ---- */
+
+static long fail_countdown = -1;
+static int fail_errnum, fail_made;
+static const char *sandbox;
+
+void corax_fuzz_fail_at(long n, int errnum)
+{
+    fail_countdown = n;
+    fail_errnum = errnum;
+    fail_made = 0;
+}
+
+int corax_fuzz_failed(void) { return fail_made; }
+
+int corax_fuzz_fails(void)
+{
+    if (fail_countdown < 0 || fail_countdown-- > 0)
+        return 0;
+    fail_made = 1;
+    errno = fail_errnum;
+    return 1;
+}
+
+void corax_fuzz_sandbox(const char *folder) { sandbox = folder; }
+
+int corax_fuzz_may_write(const char *path)
+{
+    static const char *const devices[] = {"-", "/dev/null", "/dev/full", "/dev/stdout"};
+    if (!sandbox)
+        return 0;
+    for (size_t i = 0; i < sizeof devices / sizeof *devices; i++)
+        if (strcmp(path, devices[i]) == 0)
+            return 0;
+    size_t n = strlen(sandbox), len = strlen(path);
+    if (strncmp(path, sandbox, n) == 0 && path[n] == '/' && !strstr(path + n, "/../") &&
+        !(len >= 3 && strcmp(path + len - 3, "/..") == 0))
+        return 0;
+    errno = EACCES;
+    return -1;
+}
+#endif

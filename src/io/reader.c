@@ -15,6 +15,7 @@
 #include <string.h>
 
 #include "corax/table.h"
+#include "io/fuzz.h"
 
 enum {
     READ_BLOCK = 1 << 20,
@@ -31,7 +32,7 @@ struct corax_reader {
     int parser_ready;
 
     char *block; /* read buffer */
-    size_t have, pos;
+    size_t block_size, have, pos;
     int eof, first_block, prev_cr;
     long line;     /* line number of the next byte fed */
     long row_line; /* line where the row under construction starts, 0 if none */
@@ -311,7 +312,8 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
             return corax_error_set(err, CORAX_EIO, path, 0, "cannot open: %s", strerror(e));
         }
     }
-    r->block = malloc(READ_BLOCK);
+    r->block_size = CORAX_READ_BLOCK(READ_BLOCK);
+    r->block = malloc(r->block_size);
     if (!r->block || csv_init(&r->parser, CSV_STRICT_FINI) != 0) {
         corax_reader_close(r);
         return CORAX_ENOMEM;
@@ -335,9 +337,9 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
 static corax_status refill(corax_reader *r, corax_error *err)
 {
     r->consumed += r->have;
-    r->have = fread(r->block, 1, READ_BLOCK, r->fp);
+    r->have = fread(r->block, 1, r->block_size, r->fp);
     r->pos = 0;
-    if (r->have < READ_BLOCK) {
+    if (r->have < r->block_size) {
         if (ferror(r->fp))
             return corax_error_set(err, CORAX_EIO, r->path, r->line, "read error: %s",
                                    strerror(errno));
@@ -536,3 +538,11 @@ void corax_reader_close(corax_reader *r)
     free(r->field);
     free(r);
 }
+
+#ifdef CORAX_FUZZ
+static size_t fuzz_block;
+
+void corax_fuzz_read_block(size_t bytes) { fuzz_block = bytes && bytes < 16 ? 16 : bytes; }
+
+size_t corax_fuzz_block(size_t usual) { return fuzz_block ? fuzz_block : usual; }
+#endif

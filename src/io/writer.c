@@ -13,6 +13,7 @@
 #include "common/format.h"
 #include "corax/geometry.h"
 #include "corax/output.h"
+#include "io/fuzz.h"
 #include "io/outputs.h"
 
 enum { OUT_BUFFER = 1 << 18 };
@@ -79,7 +80,7 @@ corax_status corax_writer_open(const char *path, corax_writer **out, corax_error
 static void write_all(corax_writer *w, const char *p, size_t n)
 {
     while (n && !w->failed) {
-        ssize_t k = write(w->fd, p, n);
+        ssize_t k = CORAX_FAILS() ? -1 : write(w->fd, p, n);
         if (k < 0) {
             if (errno != EINTR)
                 w->failed = errno;
