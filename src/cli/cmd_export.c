@@ -6,6 +6,7 @@
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
+#include <sys/stat.h>
 
 #include "cli/export_int.h"
 #include "common/grow.h"
@@ -240,14 +241,24 @@ static int unknown_format(const export_opts *o)
                      o->format_name, list);
 }
 
+/* Standard output, a device or a pipe: a GIS file is made whole, then put
+ * in place by a rename, which would replace such a thing (as root, even
+ * /dev/null) rather than write to it. A folder is a place (shapefiles). */
+static int is_stream(const char *path)
+{
+    struct stat st;
+    return !corax_path_replaceable(path) && !(stat(path, &st) == 0 && S_ISDIR(st.st_mode));
+}
+
 static int parse_gis(export_opts *o)
 {
     if (!corax_gis_driver(o->format_name))
         return unknown_format(o);
     if (o->binary_given || o->shape_given)
         return cli_usage("export", "--binary and --shape are for --format vtk");
-    if (strcmp(o->c.output, "-") == 0)
-        return cli_usage("export", "--format %s writes a file: give -o FILE", o->format_name);
+    if (is_stream(o->c.output))
+        return cli_usage("export", "--format %s writes a file: give -o FILE (not standard "
+                                   "output, a device or a pipe)", o->format_name);
     int need = o->vtk.traces && (!o->layers || export_wants(o, LAYER_TRACES) ||
                                  export_wants(o, LAYER_COLLARS));
     if (o->findings || o->nintervals || o->contacts)

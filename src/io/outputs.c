@@ -58,6 +58,12 @@ static void free_held(held *h)
     free(h->tmp);
 }
 
+static int is_folder(const char *path)
+{
+    struct stat st;
+    return stat(path, &st) == 0 && S_ISDIR(st.st_mode);
+}
+
 /* Remove a file, or a folder with what it holds (only ever a private folder
  * of corax's own making). */
 static void remove_tree(const char *path)
@@ -83,12 +89,20 @@ static void remove_tree(const char *path)
     rmdir(path);
 }
 
-/* Move everything in a private folder into place: the file named as the
- * target's last name to the target, any side files beside it. */
-static int move_folder(const char *folder, const char *final)
+/* The last name of a path. */
+static const char *last_name(const char *path)
 {
-    const char *slash = strrchr(final, '/');
-    size_t dirlen = slash ? (size_t)(slash - final + 1) : 0;
+    const char *slash = strrchr(path, '/');
+    return slash ? slash + 1 : path;
+}
+
+/* Move everything in a private folder into place: the file named `name`
+ * (the target's last name, as the library that wrote it was given it) to
+ * final, with the given mode (-1: as it was written); any side files beside
+ * final. */
+static int move_folder(const char *folder, const char *name, const char *final, long mode)
+{
+    size_t dirlen = (size_t)(last_name(final) - final);
     DIR *d = opendir(folder);
     if (!d)
         return errno;
@@ -98,16 +112,28 @@ static int move_folder(const char *folder, const char *final)
         if (strcmp(e->d_name, ".") == 0 || strcmp(e->d_name, "..") == 0)
             continue;
         char src[PATH_MAX], dst[PATH_MAX];
-        int own = strcmp(e->d_name, final + dirlen) == 0;
+        int own = strcmp(e->d_name, name) == 0;
         if ((size_t)snprintf(src, sizeof src, "%s/%s", folder, e->d_name) >= sizeof src ||
             (size_t)snprintf(dst, sizeof dst, "%.*s%s", (int)dirlen, final,
                              own ? final + dirlen : e->d_name) >= sizeof dst)
             failed = ENAMETOOLONG;
+        else if (own && mode >= 0 && (CORAX_FAILS() || chmod(src, (mode_t)mode) != 0))
+            failed = errno; /* the target's mode stays */
         else if (CORAX_FAILS() || rename(src, dst) != 0)
             failed = errno;
     }
     closedir(d);
     return failed;
+}
+
+/* A device, a pipe, standard output: no file a library writes whole can be
+ * renamed over it. */
+static corax_status refuse_stream(const char *path, corax_error *err)
+{
+    return corax_error_set(err, CORAX_EIO, path, 0,
+                           "cannot write: this output is made whole and then put in place, "
+                           "which a device, a pipe or standard output cannot take: give a "
+                           "file name");
 }
 
 corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **folder,
@@ -116,6 +142,8 @@ corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **f
     *folder = NULL;
     if (CORAX_MAY_WRITE(path) != 0)
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(errno));
+    if (!corax_path_replaceable(path) && !is_folder(path))
+        return refuse_stream(path, err);
     const char *slash = strrchr(path, '/');
     size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
     size_t n = strlen(path) + 16;
@@ -159,7 +187,16 @@ void corax_outputs_drop_folder(corax_outputs *set, const char *folder)
 
 corax_status corax_outputs_place_folder(const char *folder, const char *path, corax_error *err)
 {
-    int failed = move_folder(folder, path);
+    /* through a symlink to the file it names, keeping that file's mode */
+    struct stat st;
+    char resolved[PATH_MAX];
+    int exists = stat(path, &st) == 0 && realpath(path, resolved);
+    if (exists && !S_ISREG(st.st_mode) && !S_ISDIR(st.st_mode)) {
+        remove_tree(folder);
+        return refuse_stream(path, err);
+    }
+    int failed = move_folder(folder, last_name(path), exists ? resolved : path,
+                             exists && S_ISREG(st.st_mode) ? (long)(st.st_mode & 07777) : -1);
     remove_tree(folder);
     if (failed)
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot put it in place: %s",
