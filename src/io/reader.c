@@ -332,6 +332,22 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
     return CORAX_OK;
 }
 
+/* The line of the block's first NUL byte (from pos), or 0 when it holds
+ * none: lines end at LF, CR or CRLF, as feed_line counts them. */
+static long nul_line(const corax_reader *r)
+{
+    const char *s = r->block + r->pos, *nul = memchr(s, '\0', r->have - r->pos);
+    if (!nul)
+        return 0;
+    long line = r->line;
+    int cr = r->prev_cr;
+    for (const char *p = s; p < nul; p++) {
+        line += *p == '\r' || (*p == '\n' && !cr); /* the LF of a CRLF ends no line */
+        cr = *p == '\r';
+    }
+    return line;
+}
+
 /* Read the next block; keeps nothing from the previous one (we only ever
  * leave a block after feeding all of it). */
 static corax_status refill(corax_reader *r, corax_error *err)
@@ -354,16 +370,12 @@ static corax_status refill(corax_reader *r, corax_error *err)
             return corax_error_set(err, CORAX_EFORMAT, r->path, 1,
                                    "the file is UTF-16 text: save it as UTF-8 (for example "
                                    "iconv -f UTF-16 -t UTF-8 FILE > FILE.csv)");
-        const char *nul = memchr(r->block, '\0', r->have);
-        if (nul) {
-            long line = 1;
-            for (const char *p = r->block; p < nul; p++)
-                line += *p == '\n';
-            return corax_error_set(err, CORAX_EFORMAT, r->path, line,
-                                   "the file holds NUL bytes: it is not a text table "
-                                   "(UTF-16 without its mark, or a binary file?)");
-        }
     }
+    long nul = nul_line(r); /* in every block: a NUL would cut a field short */
+    if (nul)
+        return corax_error_set(err, CORAX_EFORMAT, r->path, nul,
+                               "the file holds NUL bytes: it is not a text table "
+                               "(UTF-16 without its mark, or a binary file?)");
     return CORAX_OK;
 }
 
