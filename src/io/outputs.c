@@ -26,6 +26,11 @@ enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
 typedef struct held {
     char *path, *final, *tmp;
     int folder; /* tmp is a private folder whose files go beside final */
+    /* while publishing: the file final names (a symlink's target), a second
+     * name (a hard link) for what stood there, or NULL, and whether something
+     * stood there */
+    char *target, *old;
+    int existed;
 } held;
 
 struct corax_outputs {
@@ -56,6 +61,8 @@ static void free_held(held *h)
     free(h->path);
     free(h->final);
     free(h->tmp);
+    free(h->target);
+    free(h->old);
 }
 
 static int is_folder(const char *path)
@@ -238,8 +245,49 @@ void corax_outputs_remove_temporaries(const corax_outputs *set)
             remove_tree(set->pending[i].tmp);
 }
 
+static char *temp_name(const char *final, unsigned tries, const void *salt);
+
+/* Before a held file is made public: where it goes, and a second name (a
+ * hard link, in the same folder) for the file it will replace, so that the
+ * run can put that file back. Without one (a file system without hard
+ * links), a failure later in the run cannot be undone for this file. */
+static void keep_old(corax_outputs *set, held *h)
+{
+    struct stat st;
+    char resolved[PATH_MAX];
+    h->existed = stat(h->final, &st) == 0;
+    h->target = strdup(h->existed && realpath(h->final, resolved) ? resolved : h->final);
+    if (!h->target || !h->existed || !S_ISREG(st.st_mode) || set->ntemp == MAX_FILES)
+        return;
+    for (unsigned tries = 0; tries < 100 && !h->old; tries++) {
+        if (!(h->old = temp_name(h->target, tries, h)))
+            return;
+        if (link(h->target, h->old) != 0) {
+            int e = errno;
+            free(h->old);
+            h->old = NULL;
+            if (e != EEXIST)
+                return;
+        }
+    }
+    if (h->old)
+        set->temp[set->ntemp++] = h->old; /* a signal removes it */
+}
+
+/* Undo a file made public: what stood there comes back, or a file that was
+ * new goes. */
+static void put_back(const held *h)
+{
+    if (h->old)
+        rename(h->old, h->target);
+    else if (!h->existed && h->target)
+        remove_tree(h->target);
+}
+
 corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
 {
+    for (size_t i = 0; i < set->npending; i++)
+        keep_old(set, &set->pending[i]);
     corax_status st = CORAX_OK;
     size_t i = 0;
     for (; i < set->npending; i++) {
@@ -253,13 +301,24 @@ corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
                                  strerror(errno));
             break;
         }
-        forget_temp(set, h->tmp);
-        free_held(h);
     }
-    /* a rename that failed leaves the rest unpublished: remove them */
-    memmove(set->pending, set->pending + i, (set->npending - i) * sizeof *set->pending);
-    set->npending -= i;
-    corax_outputs_discard(set);
+    /* all or nothing: a failure puts back every file made public before it */
+    for (size_t k = i; st != CORAX_OK && k-- > 0;)
+        put_back(&set->pending[k]);
+    for (size_t k = 0; k < set->npending; k++) {
+        held *h = &set->pending[k];
+        if (h->old) {
+            unlink(h->old); /* gone already when put back */
+            forget_temp(set, h->old);
+        }
+        if (k < i && st == CORAX_OK) {
+            forget_temp(set, h->tmp);
+            free_held(h);
+        }
+    }
+    if (st == CORAX_OK)
+        set->npending = 0;
+    corax_outputs_discard(set); /* the rest, unpublished */
     return st;
 }
 
@@ -388,7 +447,8 @@ corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
         if (set->npending == MAX_FILES) {
             failed = EMFILE;
         } else {
-            set->pending[set->npending++] = (held){t->path, t->final, t->tmp, 0};
+            set->pending[set->npending++] =
+                (held){.path = t->path, .final = t->final, .tmp = t->tmp};
             memset(t, 0, sizeof *t);
             t->fd = -1;
             return CORAX_OK;
