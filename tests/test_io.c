@@ -199,6 +199,36 @@ static void test_reader_large_file(void **state)
     unlink(path);
 }
 
+/* A line of blanks cut by the end of a read block (1 MiB) is a blank row
+ * all the same, as it is anywhere else (found by fuzzing the reader in
+ * small blocks). */
+static void test_reader_blank_line_across_blocks(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("cut_blank.csv");
+    FILE *fp = fopen(path, "w");
+    assert_non_null(fp);
+    fputs("a,b\n", fp);
+    for (int i = 0; i < 262142; i++) /* to byte 1,048,572 */
+        fputs("1,2\n", fp);
+    fputs("    \n", fp); /* four blanks before byte 1 MiB, the line end after */
+    fputs(",\n1,2\n", fp);
+    fclose(fp);
+    corax_reader *r;
+    assert_int_equal(corax_reader_open(path, corax_table_format_default(), &r, NULL), CORAX_OK);
+    corax_row row;
+    size_t rows = 0;
+    while (corax_reader_next(r, &row, NULL) == CORAX_OK)
+        rows++;
+    corax_table_info info;
+    corax_reader_info(r, &info);
+    assert_int_equal(rows, 1 + 262142 + 1);
+    assert_int_equal(info.blank_rows, 2); /* the blank line and the row "," */
+    assert_int_equal(row.line, 262146);
+    corax_reader_close(r);
+    unlink(path);
+}
+
 static void test_writer_quotes_and_commits_whole(void **state)
 {
     (void)state;
@@ -455,6 +485,7 @@ int main(void)
         cmocka_unit_test(test_reader_handles_real_world_csv),
         cmocka_unit_test(test_reader_faults),
         cmocka_unit_test(test_reader_large_file),
+        cmocka_unit_test(test_reader_blank_line_across_blocks),
         cmocka_unit_test(test_writer_quotes_and_commits_whole),
         cmocka_unit_test(test_outputs_all_or_nothing),
         cmocka_unit_test(test_column_names_and_mapping),

@@ -379,15 +379,17 @@ static corax_status refill(corax_reader *r, corax_error *err)
     return CORAX_OK;
 }
 
-/* Split an unquoted line (without its line end) into fields. */
-static void split_line(corax_reader *r, const char *s, size_t n)
+/* Split an unquoted line (without its line end) into fields; cut_blanks:
+ * the line began with blanks in the block before (given to libcsv, which
+ * skips them). */
+static void split_line(corax_reader *r, const char *s, size_t n, int cut_blanks)
 {
     const char *end = s + n, delim = (char)r->parser.delim_char;
     const char *p = s;
     while (p < end && blank_or_space((unsigned char)*p) && *p != delim)
         p++;
     if (p == end) { /* a blank line: no row */
-        r->info.blank_rows += n > 0;
+        r->info.blank_rows += n > 0 || cut_blanks;
         return;
     }
     for (p = s;;) {
@@ -410,6 +412,7 @@ static void feed_line(corax_reader *r)
 {
     const char *s = r->block + r->pos;
     size_t n = r->have - r->pos, i = 0;
+    size_t earlier = 0; /* bytes of the line in blocks before */
     if (r->prev_cr && n && s[0] == '\n') { /* the LF of a CRLF split from its CR */
         r->prev_cr = 0;
         i = 1;
@@ -425,6 +428,7 @@ static void feed_line(corax_reader *r)
             comment = k < i && s[k] == '#';
             r->info.comments += comment;
         }
+        earlier = r->line_len;
         r->line_len = i < n ? 0 : r->line_len + i; /* a line cut by the block's end */
         if (r->line_len > MAX_LINE) {
             r->too_big = "the line is longer than 1 MiB: is this a table?";
@@ -460,7 +464,7 @@ static void feed_line(corax_reader *r)
      * skipped). Most lines of a log are like that, and this is the hot path. */
     if (i && r->parser.pstate == 0 && (s[i - 1] == '\n' || s[i - 1] == '\r') &&
         !memchr(s, '"', i))
-        split_line(r, s, i - 1);
+        split_line(r, s, i - 1, earlier > 0);
     else if (i)
         csv_parse(&r->parser, s, i, on_field, on_row, r);
     r->pos += i;
