@@ -25,9 +25,10 @@ void fuzz_fail(const char *fmt, ...)
     char text[2048];
     va_list ap;
     va_start(ap, fmt);
-    vsnprintf(text, sizeof text, fmt, ap);
+    int n = snprintf(text, sizeof text, "corax fuzz: ");
+    vsnprintf(text + n, sizeof text - (size_t)n, fmt, ap);
     va_end(ap);
-    fprintf(stderr, "corax fuzz: %s\n", text);
+    fprintf(stderr, "%s\n", text);
 #ifdef CORAX_FUZZ
     /* libFuzzer's -close_fd_mask closes standard error: say it where the
      * sanitizers report */
@@ -417,6 +418,8 @@ void fuzz_run_command(const fuzz_cmd *cmd, const uint8_t *data, size_t size)
         fuzz_fail("an output operation failed, yet the run reports success");
     if ((sink == SINK_DEVICE || sink == SINK_STDOUT) && rc == 0)
         fuzz_fail("writing to /dev/full reported success");
+    if (sink == SINK_MISSING && rc == 0)
+        fuzz_fail("writing into a missing folder reported success");
     if ((sink == SINK_DEVICE && !is_symlink_to(main_output, "/dev/full")) ||
         (sink == SINK_SYMLINK && !is_symlink_to(main_output, fuzz_path(7, "out/real"))))
         fuzz_fail("the symlink %s was replaced", main_output);
