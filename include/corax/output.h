@@ -112,7 +112,8 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
     ;
 
 /* A CSV field: separated from the previous one, quoted when it holds a comma,
- * the delimiter, a quote, a tab, a line end or surrounding blanks. */
+ * the delimiter, a quote, a tab, a line end or surrounding blanks, or opens
+ * its row with '#' (which would make the line a comment). */
 void corax_writer_field(corax_writer *w, const char *text, size_t length);
 
 /* A number field with a fixed number of decimals (0..9); NaN gives an empty

@@ -197,9 +197,12 @@ static inline void separator(corax_writer *w)
     w->row_start = 0;
 }
 
-static int needs_quotes(const char *s, size_t n, char delimiter)
+/* first: the field opens its row, where a '#' would make the line a
+ * comment to a reader (corax's own among them). */
+static int needs_quotes(const char *s, size_t n, char delimiter, int first)
 {
-    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t'))
+    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
+              (first && s[0] == '#')))
         return 1;
     for (size_t i = 0; i < n; i++) {
         unsigned char c = (unsigned char)s[i];
@@ -223,8 +226,9 @@ static void mark_decimal(corax_writer *w, size_t n)
 
 void corax_writer_field(corax_writer *w, const char *s, size_t n)
 {
+    int first = w->row_start;
     separator(w);
-    if (!needs_quotes(s, n, w->delimiter)) {
+    if (!needs_quotes(s, n, w->delimiter, first)) {
         corax_writer_text(w, s, n);
         return;
     }
