@@ -139,8 +139,10 @@ sanitize: deps
 # libFuzzer (Debian: apt-get install clang libclang-rt-14-dev libomp-dev).
 # Findings go to build-fuzz/findings/, the corpus grows in build-fuzz/corpus/.
 fuzz: deps
-	@command -v $(FUZZ_CC) >/dev/null 2>&1 || { echo "make fuzz needs clang and libFuzzer:" \
-	    "apt-get install clang libclang-rt-14-dev libomp-dev" >&2; exit 1; }
+	@printf 'int LLVMFuzzerTestOneInput(const char *d, long n) { return !d + !n; }\n' | \
+	    $(FUZZ_CC) -x c -fsanitize=fuzzer,address -fopenmp -o /dev/null - >/dev/null 2>&1 || \
+	    { echo "make fuzz needs clang, libFuzzer and OpenMP for clang:" \
+	      "apt-get install clang libclang-rt-14-dev libomp-dev" >&2; exit 1; }
 	@$(MAKE) --no-print-directory BUILD=build-fuzz CC=$(FUZZ_CC) OPT="-O1 -g" \
 	    SANITIZE="$(FUZZ_SANITIZE)" FUZZ_DRIVER=-fsanitize=fuzzer fuzz-run
 

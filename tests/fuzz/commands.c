@@ -21,7 +21,8 @@ const fuzz_cmd fuzz_commands[] = {
       "trace " PROGRAM " --collar-station --dip-convention positive-down --units feet "
       "--declination 6 --convergence -1.5 --step 25 -o {o.csv}",
       "trace " PROGRAM " --surveys-dip-convention from-vertical --reject-station T1@50,T2@10 "
-      "--at {at.csv} -q -o {o.csv}"}},
+      "--at {at.csv} -q -o {o.csv}"},
+     {NULL, "at.csv", NULL, NULL, NULL, NULL, NULL, "at.csv"}},
     {"convert", cmd_convert, {"collars.csv", "surveys.csv", "log.csv", "project.ini"},
      {"convert " PROGRAM " -o {o.csv} {log.csv}",
       "convert -p {project.ini} -o {o.csv}",
@@ -34,7 +35,8 @@ const fuzz_cmd fuzz_commands[] = {
       "convert " PROGRAM " --units feet --delimiter semicolon --output-delimiter tab -o {o.csv} "
       "{log.csv}",
       "convert " PROGRAM " --draws 5 --confidence-errors good=3,fair=8,poor=20 "
-      "--near-parallel 20 -o {o.csv} {log.csv}"}},
+      "--near-parallel 20 -o {o.csv} {log.csv}"},
+     {"log.csv", NULL, "log.csv", "log.csv", "log.csv", NULL, NULL, "log.csv"}},
     {"check", cmd_check, {"collars.csv", "surveys.csv", "log.csv", "runs.csv", "project.ini"},
      {"check " PROGRAM " -o {o.csv} {log.csv}",
       "check " PROGRAM " --runs {runs.csv} --report {s.html} -o {o.csv} {log.csv}",
@@ -43,7 +45,7 @@ const fuzz_cmd fuzz_commands[] = {
       "check " PROGRAM " --gap 20 --dogleg 1 --run-length 1.5 --hole-turn 5 --low-confidence "
       "poor --kind-codes BD=bedding -o {o.csv} {log.csv}",
       "check -p {project.ini} --runs {runs.csv} -o {o.csv}",
-      "check " PROGRAM " --report {o.html} -o {s.csv} {log.csv}"}},
+      "check " PROGRAM " --report {o.html} -o {s.csv} {log.csv}"}, {NULL}},
     {"stereonet", cmd_stereonet, {"converted.csv", "other.csv", "project.ini"},
      {"stereonet {converted.csv} -o {o.svg}",
       "stereonet {converted.csv} --stats {s.csv} -o {o.svg}",
@@ -57,7 +59,7 @@ const fuzz_cmd fuzz_commands[] = {
       "stereonet --group-by hole --contour-step 1 --terzaghi --terzaghi-min-angle 30 "
       "{converted.csv} --stats {o.csv} -o {s.svg}",
       "stereonet --delimiter semicolon --decimal-mark comma --title Net {converted.csv} "
-      "-o {o.svg}"}},
+      "-o {o.svg}"}, {NULL}},
     {"section", cmd_section, {"collars.csv", "surveys.csv", "converted.csv", "project.ini"},
      {"section " PROGRAM " --origin 1000,2000 --azimuth 90 --width 20 -o {o.csv} "
       "{converted.csv}",
@@ -66,7 +68,7 @@ const fuzz_cmd fuzz_commands[] = {
       "section -p {project.ini} --origin 1000,2000 --azimuth 0 --width 50 --kinds bedding,vein "
       "--svg {s.svg} -o {o.csv} {converted.csv}",
       "section " PROGRAM " --origin 1000,2000 --azimuth 45 --width 5 --scale 500 --step 2 "
-      "--svg {o.svg} -o {s.csv} {converted.csv}"}},
+      "--svg {o.svg} -o {s.csv} {converted.csv}"}, {NULL}},
     {"export", cmd_export,
      {"collars.csv", "surveys.csv", "converted.csv", "intervals.csv", "project.ini"},
      {"export --format csv -o {o.csv} {converted.csv}",
@@ -79,7 +81,7 @@ const fuzz_cmd fuzz_commands[] = {
       "export --format dxf " PROGRAM " --radius 3 -o {o.dxf} {converted.csv}",
       "export --format csv " PROGRAM " --contacts {intervals.csv} --contact-column unit "
       "--youngest-first cover,basalt,dolerite -o {o.csv} {converted.csv}",
-      "export -p {project.ini} --format vtk --intervals {intervals.csv} -o {o.vtk}"}},
+      "export -p {project.ini} --format vtk --intervals {intervals.csv} -o {o.vtk}"}, {NULL}},
     {"plan", cmd_plan, {"holes.csv", "sets.csv", "targets.csv", "project.ini"},
      {"plan --holes {holes.csv} --sets {sets.csv} -o {o.csv}",
       "plan --holes {holes.csv} --sets {sets.csv} --targets {targets.csv} --pierce {s.csv} "
@@ -90,7 +92,7 @@ const fuzz_cmd fuzz_commands[] = {
       "plan --holes {holes.csv} --sets {sets.csv} --targets {targets.csv} --dip-convention "
       "from-vertical --declination 5 --near-parallel 20 --pierce {o.csv} -o {s.csv}",
       "plan --holes {holes.csv} --sets {sets.csv} --targets {targets.csv} --sweep "
-      "azimuth=90:270:60,dip=-45:-90:15 --best {o.csv} --svg {s.svg} -o {t.csv}"}},
+      "azimuth=90:270:60,dip=-45:-90:15 --best {o.csv} --svg {s.svg} -o {t.csv}"}, {NULL}},
 };
 
 const size_t fuzz_ncommands = sizeof fuzz_commands / sizeof *fuzz_commands;

@@ -66,6 +66,9 @@ typedef struct fuzz_cmd {
     int (*run)(int, char **);
     const char *file[FUZZ_FILES];
     const char *variant[FUZZ_VARIANTS];
+    /* for each line, the file whose every row comes out as one row of the
+     * main output (as often as the line names it), or NULL */
+    const char *rows[FUZZ_VARIANTS];
 } fuzz_cmd;
 
 /* Every command, and the small good tables the commands' files are named
@@ -79,7 +82,9 @@ const char *fuzz_table(const char *name);
  * rest holds the files, split at FUZZ_SEPARATOR (the last file takes the
  * rest, separators and all). Checks what every run must keep: no temporary file
  * left, nothing made public by a failed run, inputs and the files behind a
- * symlink or a device untouched, a failed write never reported as success. */
+ * symlink or a device untouched, a failed write never reported as success,
+ * every row of a table whose rows each give one row out (cmd->rows) found in
+ * the output. */
 void fuzz_run_command(const fuzz_cmd *cmd, const uint8_t *data, size_t size);
 
 #endif

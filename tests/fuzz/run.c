@@ -17,6 +17,7 @@
 #include <sanitizer/common_interface_defs.h>
 #endif
 
+#include "corax/table.h"
 #include "fuzz.h"
 #include "io/fuzz.h"
 
@@ -320,6 +321,41 @@ static void check_descriptors(void)
     closedir(d);
 }
 
+/* The data rows of a table as corax reads it (the header not counted), or
+ * -1 when it cannot be read whole. */
+static long data_rows(const char *path)
+{
+    corax_reader *r;
+    if (corax_reader_open(path, corax_table_format_default(), &r, NULL) != CORAX_OK)
+        return -1;
+    corax_row row;
+    corax_status st;
+    long n = -1;
+    while ((st = corax_reader_next(r, &row, NULL)) == CORAX_OK)
+        n++;
+    corax_reader_close(r);
+    return st == CORAX_END ? n : -1;
+}
+
+/* Every row of the table a line names comes out once for each time it is
+ * named (convert, trace --at). */
+static void check_rows(const fuzz_cmd *cmd, int variant, const char *main_output)
+{
+    const char *name = cmd->rows[variant];
+    char braced[64];
+    snprintf(braced, sizeof braced, "{%s}", name);
+    long times = 0;
+    for (const char *p = cmd->variant[variant]; (p = strstr(p, braced)) != NULL; p++)
+        times++;
+    long in = -1;
+    for (int i = 0; i < FUZZ_FILES && cmd->file[i]; i++)
+        if (strcmp(cmd->file[i], name) == 0)
+            in = data_rows(fuzz_path(i, name));
+    long out = data_rows(main_output);
+    if (in >= 0 && out != in * times)
+        fuzz_fail("%ld rows of %s (named %ld times) gave %ld rows", in, name, times, out);
+}
+
 /* The argument line, expanded and split at blanks: argv (NULL-ended,
  * strings of their own, which getopt may reorder). */
 static int expand(const fuzz_cmd *cmd, const char *line, enum sink sink, char **argv, int max,
@@ -374,7 +410,8 @@ void fuzz_run_command(const fuzz_cmd *cmd, const uint8_t *data, size_t size)
     int nvariants = 0;
     while (nvariants < FUZZ_VARIANTS && cmd->variant[nvariants])
         nvariants++;
-    const char *line = cmd->variant[data[0] % nvariants];
+    int variant = data[0] % nvariants;
+    const char *line = cmd->variant[variant];
     enum sink sink = (enum sink)(data[1] & 7);
     long fail_at = data[1] >> 3;
     size_t nfiles = 0;
@@ -435,6 +472,10 @@ void fuzz_run_command(const fuzz_cmd *cmd, const uint8_t *data, size_t size)
     for (int i = 0; i < FUZZ_FILES; i++)
         if (cmd->file[i] && !fuzz_holds(fuzz_path(i, cmd->file[i]), part[i].data, part[i].size))
             fuzz_fail("input %s was changed", cmd->file[i]);
+    if (rc == 0 && !fault && cmd->rows[variant] &&
+        (sink == SINK_NEW || sink == SINK_EXISTING || sink == SINK_SYMLINK ||
+         sink == SINK_NOSPACE || sink == SINK_EIO))
+        check_rows(cmd, variant, main_output);
     check_folder(out, cmd, sink, rc != 0, main_output);
     check_folder(fuzz_dir(), cmd, sink, rc != 0, main_output);
     check_descriptors();
