@@ -356,6 +356,175 @@ static void check_rows(const fuzz_cmd *cmd, int variant, const char *main_output
         fuzz_fail("%ld rows of %s (named %ld times) gave %ld rows", in, name, times, out);
 }
 
+/* ---- pictures and pages: well-formed whatever text they show ---- */
+
+static int name_char(char c)
+{
+    return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9') ||
+           c == '-' || c == '_' || c == ':' || c == '.';
+}
+
+/* A character reference at p ("&amp;", "&#39;", "&#xFFFD;"): its length, 0
+ * when it is not one. */
+static size_t reference(const char *p, const char *end)
+{
+    const char *q = p + 1;
+    if (q < end && *q == '#') {
+        q++;
+        int hex = q < end && *q == 'x';
+        q += hex;
+        const char *d = q;
+        while (q < end && ((*q >= '0' && *q <= '9') ||
+                           (hex && ((*q >= 'a' && *q <= 'f') || (*q >= 'A' && *q <= 'F')))))
+            q++;
+        if (q == d)
+            return 0;
+    } else {
+        const char *d = q;
+        while (q < end && name_char(*q))
+            q++;
+        if (q == d)
+            return 0;
+    }
+    return q < end && *q == ';' ? (size_t)(q + 1 - p) : 0;
+}
+
+/* Text between tags, or a quoted value (stop at its quote): no '<', every
+ * '&' a reference, no control character but tab and line ends, UTF-8. 0
+ * with *at past it, or a complaint. */
+static const char *markup_text(const char **at, const char *end, char stop)
+{
+    const unsigned char *p = (const unsigned char *)*at;
+    while ((const char *)p < end && *p != (unsigned char)(stop ? stop : '<')) {
+        if (*p == '<')
+            return "a raw '<' in a value";
+        if (*p == '&') {
+            size_t k = reference((const char *)p, end);
+            if (!k)
+                return "a raw '&'";
+            p += k;
+            continue;
+        }
+        if ((*p < 0x20 && *p != '\t' && *p != '\n' && *p != '\r') || *p == 0x7f)
+            return "a control character";
+        size_t n = *p < 0x80 ? 1 : *p >= 0xc2 && *p <= 0xdf ? 2 : *p >= 0xe0 && *p <= 0xef ? 3
+                                   : *p >= 0xf0 && *p <= 0xf4 ? 4 : 0;
+        if (!n || (const char *)p + n > end)
+            return "a byte that is not UTF-8";
+        for (size_t k = 1; k < n; k++)
+            if ((p[k] & 0xc0) != 0x80)
+                return "a byte that is not UTF-8";
+        p += n;
+    }
+    *at = (const char *)p;
+    return NULL;
+}
+
+/* Whether an SVG picture or an HTML page (corax writes both as XML) is
+ * well-formed: tags closed in order, attributes quoted, text escaped; the
+ * contents of style and script taken as they are. A complaint, or NULL. */
+static const char *markup_fault(const char *p, const char *end)
+{
+    enum { DEPTH = 256 };
+    char open[DEPTH][32];
+    int depth = 0;
+    while (p < end) {
+        const char *why = markup_text(&p, end, 0);
+        if (why)
+            return why;
+        if (p == end)
+            break;
+        if (strncmp(p, "<!--", 4) == 0 || strncmp(p, "<!", 2) == 0 || strncmp(p, "<?", 2) == 0) {
+            const char *close = strncmp(p, "<!--", 4) == 0 ? strstr(p, "-->") : strchr(p, '>');
+            if (!close)
+                return "a comment or declaration never closed";
+            p = close + 1;
+            continue;
+        }
+        int closing = p[1] == '/';
+        const char *name = p + 1 + closing, *q = name;
+        while (q < end && name_char(*q))
+            q++;
+        size_t len = (size_t)(q - name);
+        if (!len || len >= sizeof open[0])
+            return "a '<' that opens no tag";
+        while (!closing && q < end && *q != '>' && *q != '/') { /* attributes */
+            while (q < end && (*q == ' ' || *q == '\n' || *q == '\t' || *q == '\r'))
+                q++;
+            if (q < end && (*q == '>' || *q == '/'))
+                break;
+            const char *a = q;
+            while (q < end && name_char(*q))
+                q++;
+            if (q == a || q + 1 >= end || q[0] != '=' || q[1] != '"')
+                return "an attribute without a quoted value";
+            q += 2;
+            if ((why = markup_text(&q, end, '"')) != NULL)
+                return why;
+            if (q == end)
+                return "an attribute value never closed";
+            q++;
+        }
+        int empty = q < end && *q == '/';
+        q += empty;
+        if (q >= end || *q != '>')
+            return "a tag never closed";
+        p = q + 1;
+        if (closing) {
+            if (depth == 0 || strlen(open[depth - 1]) != len ||
+                strncmp(open[depth - 1], name, len) != 0)
+                return "a closing tag that closes nothing open";
+            depth--;
+        } else if (!empty) {
+            if (depth == DEPTH)
+                return "elements nested too deep";
+            snprintf(open[depth++], sizeof open[0], "%.*s", (int)len, name);
+            if (strcmp(open[depth - 1], "style") == 0 || strcmp(open[depth - 1], "script") == 0) {
+                char tag[16];
+                snprintf(tag, sizeof tag, "</%s>", open[depth - 1]);
+                const char *close = strstr(p, tag);
+                if (!close)
+                    return "a style or script never closed";
+                p = close;
+            }
+        }
+    }
+    return depth ? "an element never closed" : NULL;
+}
+
+/* Every picture and page a run made public is well-formed. */
+static void check_markup(const char *folder)
+{
+    DIR *d = opendir(folder);
+    struct dirent *e;
+    while (d && (e = readdir(d)) != NULL) {
+        const char *dot = strrchr(e->d_name, '.');
+        if (!dot || (strcmp(dot, ".svg") != 0 && strcmp(dot, ".html") != 0))
+            continue;
+        char path[PATH_MAX];
+        FILE *f = (size_t)snprintf(path, sizeof path, "%s/%s", folder, e->d_name) < sizeof path
+                      ? fopen(path, "rb")
+                      : NULL;
+        if (!f)
+            continue;
+        size_t cap = 1 << 16, n = 0, k;
+        char *text = malloc(cap + 1);
+        while (text && (k = fread(text + n, 1, cap - n, f)) > 0)
+            if ((n += k) == cap && !(text = realloc(text, (cap *= 2) + 1)))
+                break;
+        fclose(f);
+        if (!text)
+            fuzz_fail("out of memory");
+        text[n] = '\0'; /* for strstr: a NUL inside is a control character anyway */
+        const char *why = memchr(text, '\0', n) ? "a NUL byte" : markup_fault(text, text + n);
+        free(text);
+        if (why)
+            fuzz_fail("%s is not well-formed: %s", path, why);
+    }
+    if (d)
+        closedir(d);
+}
+
 /* The argument line, expanded and split at blanks: argv (NULL-ended,
  * strings of their own, which getopt may reorder). */
 static int expand(const fuzz_cmd *cmd, const char *line, enum sink sink, char **argv, int max,
@@ -476,6 +645,8 @@ void fuzz_run_command(const fuzz_cmd *cmd, const uint8_t *data, size_t size)
         (sink == SINK_NEW || sink == SINK_EXISTING || sink == SINK_SYMLINK ||
          sink == SINK_NOSPACE || sink == SINK_EIO))
         check_rows(cmd, variant, main_output);
+    if (rc == 0)
+        check_markup(out);
     check_folder(out, cmd, sink, rc != 0, main_output);
     check_folder(fuzz_dir(), cmd, sink, rc != 0, main_output);
     check_descriptors();
