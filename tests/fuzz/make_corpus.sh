@@ -33,10 +33,10 @@ seed() {
         byte "$v"
         byte "$s"
         first=1
-        for f in "$@"; do
+        for file in "$@"; do
             [ $first = 1 ] || sep
             first=0
-            [ "$f" = - ] || cat "$f"
+            [ "$file" = - ] || cat "$file"
         done
     } > "$C/$h/$name"
 }
@@ -246,12 +246,17 @@ seed plan q7 1 0 $D/plan_q7_10_hole.csv $D/plan_q7_10_sets.csv $D/plan_targets.c
 
 # ---- project: byte 0 the command (bits 0-2) and line (bits 3-7), byte 1 the
 # sink and the handler's stop (bits 4-7), then the project file ----
+cmd=0
+for f in trace convert check net section export plan; do # each with its command
+    seed project "$f" $cmd 0 "$T/$f.ini"
+    seed project "$f-first" $((cmd + 8)) 0 "$T/$f.ini"
+    cmd=$((cmd + 1))
+done
 n=0
-for f in "$T"/*.ini $D/project/*.ini $D/arrival_clean/clean.ini; do
-    for cmd in 0 1 2 3 4 5 6; do
-        seed project "$(basename "$f" .ini)-$cmd" $((cmd + 8 * (n % 3))) 0 "$f"
-        n=$((n + 1))
-    done
+for f in $D/project/*.ini $D/arrival_clean/clean.ini; do # and the tests' own, turn about
+    seed project "$(basename "$f" .ini)" $((n % 7 + 8 * (n % 3))) 0 "$f"
+    seed project "$(basename "$f" .ini)-2" $(((n + 3) % 7)) 0 "$f"
+    n=$((n + 1))
 done
 seed project stop 1 48 "$T/convert.ini"
 
