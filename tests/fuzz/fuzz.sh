@@ -14,7 +14,10 @@ set -u
 cd "$(dirname "$0")/../.." || exit 1
 : "${BUILD:?set BUILD to the fuzzing build folder}"
 seconds=${FUZZ_SECONDS:-50}
-mkdir -p "$BUILD/findings" "$BUILD/logs"
+mkdir -p "$BUILD/findings" "$BUILD/logs" "$BUILD/tmp"
+# the harnesses' scratch folders: here, and gone at the end even after a crash
+export TMPDIR="$BUILD/tmp"
+trap 'rm -rf "$BUILD/tmp"' EXIT
 # one thread a run (the machine is shared; threads add nothing the
 # sanitizers check); leaks are checked after every input
 export OMP_NUM_THREADS=1
