@@ -65,8 +65,24 @@ SO_MAP    := $(BUILD)/libcorax.map
 # The library's objects serve the shared library too.
 $(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 
+# Fuzzing harnesses (tests/fuzz; DEVELOPERS.md): reader, names and project
+# from their own files, one per command from command.c. `make check` links
+# them with replay.c and runs their seed corpus once; `make fuzz` links them
+# with libFuzzer (clang) and fuzzes each for FUZZ_SECONDS.
+FUZZ_COMMANDS  := trace convert check stereonet section export plan
+FUZZ_HARNESSES := reader names project $(FUZZ_COMMANDS)
+FUZZ_BIN       := $(FUZZ_HARNESSES:%=$(BUILD)/fuzz/%)
+FUZZ_AUX_OBJ   := $(BUILD)/obj/tests/fuzz/run.o $(BUILD)/obj/tests/fuzz/commands.o
+FUZZ_DRIVER    ?= $(BUILD)/obj/tests/fuzz/replay.o
+CLI_LIB        := $(BUILD)/libcorax-cli.a
+FUZZ_SECONDS   ?= 50
+FUZZ_CC        ?= clang
+FUZZ_SANITIZE  := -fsanitize=fuzzer-no-link,address,undefined -fno-omit-frame-pointer \
+                  -fno-sanitize-recover=all -DCORAX_FUZZ -Wno-double-promotion
+
 .SECONDARY:
-.PHONY: all deps check unit cli-tests cycles sanitize demo demo-run bench install stage clean
+.PHONY: all deps check unit cli-tests cycles fuzz-replay sanitize fuzz fuzz-run demo demo-run \
+        bench install stage clean
 
 all: $(LIB) $(BIN) $(SO_LINKS)
 
@@ -112,6 +128,22 @@ $(BUILD)/tests/test_jobs: $(BUILD)/obj/tests/test_jobs.o $(LIB)
 	@mkdir -p $(dir $@)
 	$(CC) $(LDFLAGS_ALL) -o $@ $< $(LIB) $(TEST_LIBS) $(PKG_LIBS)
 
+# The commands without main, for harnesses that run them in-process.
+$(CLI_LIB): $(filter-out %/main.o,$(CLI_OBJ))
+	@mkdir -p $(dir $@)
+	rm -f $@
+	ar rcs $@ $^
+
+$(FUZZ_COMMANDS:%=$(BUILD)/obj/tests/fuzz/fuzz_%.o): $(BUILD)/obj/tests/fuzz/fuzz_%.o: \
+    tests/fuzz/command.c
+	@mkdir -p $(dir $@)
+	$(CC) $(CFLAGS_ALL) -DFUZZ_COMMAND='"$*"' -c $< -o $@
+
+$(BUILD)/fuzz/%: $(BUILD)/obj/tests/fuzz/fuzz_%.o $(FUZZ_AUX_OBJ) $(filter %.o,$(FUZZ_DRIVER)) \
+    $(CLI_LIB) $(LIB)
+	@mkdir -p $(dir $@)
+	$(CC) $(LDFLAGS_ALL) -o $@ $< $(FUZZ_AUX_OBJ) $(FUZZ_DRIVER) $(CLI_LIB) $(LIB) $(PKG_LIBS)
+
 $(BUILD)/bench/%: $(BUILD)/obj/bench/%.o $(LIB)
 	@mkdir -p $(dir $@)
 	$(CC) $(LDFLAGS_ALL) -o $@ $< $(LIB) $(PKG_LIBS)
@@ -124,10 +156,10 @@ $(BUILD)/tools/%: $(BUILD)/obj/tools/%.o $(LIB)
 deps:
 	@.ci/deps
 
-# The whole suite: unit tests (cmocka), command-line cases, and no circles in
-# the code's dependencies.
+# The whole suite: unit tests (cmocka), command-line cases, no circles in
+# the code's dependencies, and the fuzzing harnesses over their seed corpus.
 check: deps
-	@$(MAKE) --no-print-directory unit cli-tests cycles
+	@$(MAKE) --no-print-directory unit cli-tests cycles fuzz-replay
 
 unit: $(TESTS)
 	@set -e; for t in $(TESTS); do echo "== $$t"; $$t; done
@@ -142,11 +174,34 @@ cli-tests: $(BIN) $(TOOLS) stage
 cycles: $(LIB_OBJ) $(CLI_OBJ)
 	@sh tools/check_cycles.sh $(LIB_OBJ) $(CLI_OBJ)
 
+fuzz-replay: $(FUZZ_BIN)
+	@set -e; for h in $(FUZZ_HARNESSES); do \
+	    echo "== $(BUILD)/fuzz/$$h tests/fuzz/corpus/$$h"; \
+	    $(BUILD)/fuzz/$$h tests/fuzz/corpus/$$h 2> $(BUILD)/fuzz/$$h.log || \
+	        { tail -n 40 $(BUILD)/fuzz/$$h.log; exit 1; }; \
+	    tail -n 1 $(BUILD)/fuzz/$$h.log; \
+	done
+
 # The same suite built with AddressSanitizer and UndefinedBehaviorSanitizer.
 sanitize: deps
 	@$(MAKE) --no-print-directory BUILD=build-sanitize OPT="-O1 -g" \
 	    SANITIZE="-fsanitize=address,undefined -fno-omit-frame-pointer -fno-sanitize-recover=all" \
-	    unit cli-tests
+	    unit cli-tests fuzz-replay
+
+# Fuzz every harness with libFuzzer for FUZZ_SECONDS each, one at a time
+# (about 10 minutes with the default 50), in build-fuzz/: needs clang and
+# libFuzzer (Debian: apt-get install clang libclang-rt-14-dev libomp-dev).
+# Findings go to build-fuzz/findings/, the corpus grows in build-fuzz/corpus/.
+fuzz: deps
+	@printf 'int LLVMFuzzerTestOneInput(const char *d, long n) { return !d + !n; }\n' | \
+	    $(FUZZ_CC) -x c -fsanitize=fuzzer,address -fopenmp -o /dev/null - >/dev/null 2>&1 || \
+	    { echo "make fuzz needs clang, libFuzzer and OpenMP for clang:" \
+	      "apt-get install clang libclang-rt-14-dev libomp-dev" >&2; exit 1; }
+	@$(MAKE) --no-print-directory BUILD=build-fuzz CC=$(FUZZ_CC) OPT="-O1 -g" \
+	    SANITIZE="$(FUZZ_SANITIZE)" FUZZ_DRIVER=-fsanitize=fuzzer fuzz-run
+
+fuzz-run: $(FUZZ_BIN)
+	@BUILD=$(abspath $(BUILD)) FUZZ_SECONDS=$(FUZZ_SECONDS) tests/fuzz/fuzz.sh $(FUZZ_HARNESSES)
 
 # The main job on the shipped demo program.
 demo: deps
@@ -185,6 +240,6 @@ stage: all
 	    PYTHONDIR=/usr/local/lib/python3/dist-packages > /dev/null
 
 clean:
-	rm -rf build build-sanitize demo-output
+	rm -rf build build-sanitize build-fuzz demo-output
 
 -include $(shell find $(BUILD)/obj -name '*.d' 2>/dev/null)

@@ -4,6 +4,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 #include <unistd.h>
 
 #include "corax/load.h"
@@ -198,6 +199,36 @@ static void test_reader_large_file(void **state)
     unlink(path);
 }
 
+/* A line of blanks cut by the end of a read block (1 MiB) is a blank row
+ * all the same, as it is anywhere else (found by fuzzing the reader in
+ * small blocks). */
+static void test_reader_blank_line_across_blocks(void **state)
+{
+    (void)state;
+    const char *path = test_tmp_path("cut_blank.csv");
+    FILE *fp = fopen(path, "w");
+    assert_non_null(fp);
+    fputs("a,b\n", fp);
+    for (int i = 0; i < 262142; i++) /* to byte 1,048,572 */
+        fputs("1,2\n", fp);
+    fputs("    \n", fp); /* four blanks before byte 1 MiB, the line end after */
+    fputs(",\n1,2\n", fp);
+    fclose(fp);
+    corax_reader *r;
+    assert_int_equal(corax_reader_open(path, corax_table_format_default(), &r, NULL), CORAX_OK);
+    corax_row row;
+    size_t rows = 0;
+    while (corax_reader_next(r, &row, NULL) == CORAX_OK)
+        rows++;
+    corax_table_info info;
+    corax_reader_info(r, &info);
+    assert_int_equal(rows, 1 + 262142 + 1);
+    assert_int_equal(info.blank_rows, 2); /* the blank line and the row "," */
+    assert_int_equal(row.line, 262146);
+    corax_reader_close(r);
+    unlink(path);
+}
+
 static void test_writer_quotes_and_commits_whole(void **state)
 {
     (void)state;
@@ -237,6 +268,95 @@ static void test_writer_quotes_and_commits_whole(void **state)
     corax_error err;
     assert_int_equal(corax_writer_open("/nonexistent-dir/x.csv", &w, &err), CORAX_EIO);
     assert_string_equal(err.file, "/nonexistent-dir/x.csv");
+}
+
+/* The whole text of a small file ("" when it cannot be read). */
+static const char *file_text(const char *path)
+{
+    static char buf[256];
+    FILE *fp = fopen(path, "r");
+    size_t n = fp ? fread(buf, 1, sizeof buf - 1, fp) : 0;
+    if (fp)
+        fclose(fp);
+    buf[n] = '\0';
+    return buf;
+}
+
+/* One output of a run cannot be put in place at the end: every other output
+ * made public before it is put back as it was (found by fuzzing the
+ * commands with a failed rename). */
+static void test_outputs_all_or_nothing(void **state)
+{
+    (void)state;
+    const char *old = test_tmp_path("kept.csv"), *fresh = test_tmp_path("fresh.csv");
+    const char *blocked = test_tmp_path("blocked.csv");
+    char inside[600];
+    snprintf(inside, sizeof inside, "%s/x", blocked);
+    test_write_file(old, "old\n");
+    unlink(fresh);
+    corax_outputs *set = corax_outputs_new();
+    assert_non_null(set);
+    const char *path[] = {old, fresh, blocked};
+    for (int i = 0; i < 3; i++) {
+        corax_writer *w;
+        assert_int_equal(corax_writer_open_in(set, path[i], &w, NULL), CORAX_OK);
+        corax_writer_text(w, "new\n", 4);
+        assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
+    }
+    assert_int_equal(corax_outputs_pending(set), 3);
+    /* the last one's place is taken by a folder that is not empty */
+    assert_int_equal(mkdir(blocked, 0777), 0);
+    test_write_file(inside, "x");
+    corax_error err;
+    corax_error_clear(&err);
+    assert_int_equal(corax_outputs_publish(set, &err), CORAX_EIO);
+    assert_string_equal(err.file, blocked);
+    assert_string_equal(file_text(old), "old\n"); /* put back */
+    assert_int_equal(access(fresh, F_OK), -1);     /* new: gone again */
+    assert_int_equal(corax_outputs_pending(set), 0);
+    corax_outputs_free(set);
+    unlink(inside);
+    rmdir(blocked);
+
+    /* published whole: every file new, no second name left behind */
+    set = corax_outputs_new();
+    corax_writer *w;
+    assert_int_equal(corax_writer_open_in(set, old, &w, NULL), CORAX_OK);
+    corax_writer_text(w, "new\n", 4);
+    assert_int_equal(corax_writer_commit(w, NULL), CORAX_OK);
+    assert_int_equal(corax_outputs_publish(set, &err), CORAX_OK);
+    assert_string_equal(file_text(old), "new\n");
+    corax_outputs_free(set);
+    unlink(old);
+}
+
+/* A row opening with '#' would be a comment to the reader: the writer quotes
+ * it, so a converted row whose hole is "#1" reads back (found by fuzzing
+ * convert: every row of the log must come out, and read back). */
+static void test_writer_quotes_a_row_opening_hash(void **state)
+{
+    (void)state;
+    corax_writer *w;
+    assert_int_equal(corax_writer_memory(&w), CORAX_OK);
+    corax_writer_field(w, "#1", 2);
+    corax_writer_field(w, "#2", 2);
+    corax_writer_end_row(w);
+    corax_writer_field(w, "a#", 2);
+    corax_writer_end_row(w);
+    size_t n;
+    const char *text = corax_writer_contents(w, &n);
+    assert_int_equal(n, strlen("\"#1\",#2\na#\n"));
+    assert_memory_equal(text, "\"#1\",#2\na#\n", n);
+    const char *path = test_tmp_path("hash.csv");
+    FILE *fp = fopen(path, "w");
+    assert_non_null(fp);
+    fwrite(text, 1, n, fp);
+    fclose(fp);
+    corax_writer_discard(w);
+    char got[64];
+    assert_int_equal(slurp(path, corax_table_format_default(), got, sizeof got, NULL), CORAX_END);
+    assert_string_equal(got, "1:#1|#2/2:a#/");
+    unlink(path);
 }
 
 static void test_column_names_and_mapping(void **state)
@@ -394,7 +514,10 @@ int main(void)
         cmocka_unit_test(test_reader_handles_real_world_csv),
         cmocka_unit_test(test_reader_faults),
         cmocka_unit_test(test_reader_large_file),
+        cmocka_unit_test(test_reader_blank_line_across_blocks),
         cmocka_unit_test(test_writer_quotes_and_commits_whole),
+        cmocka_unit_test(test_outputs_all_or_nothing),
+        cmocka_unit_test(test_writer_quotes_a_row_opening_hash),
         cmocka_unit_test(test_column_names_and_mapping),
         cmocka_unit_test(test_load_program_reports_row_faults),
         cmocka_unit_test(test_table_in_memory),

@@ -21,7 +21,11 @@ typedef struct corax_outputs corax_outputs;
 corax_outputs *corax_outputs_new(void);
 
 /* Rename every file the set holds into place. CORAX_EIO (err names the
- * file) when a rename fails: the files not yet renamed are removed. */
+ * file) when a rename fails: the files not yet renamed are removed, and
+ * those renamed before are put back as they were (each file replaced is
+ * kept under a second name, a hard link, until all are in place; on a file
+ * system without hard links a replaced file cannot come back; a private
+ * folder's side files stay). */
 corax_status corax_outputs_publish(corax_outputs *set, corax_error *err);
 
 /* Files held, waiting to be published. */
@@ -108,7 +112,8 @@ void corax_writer_printf(corax_writer *w, const char *fmt, ...)
     ;
 
 /* A CSV field: separated from the previous one, quoted when it holds a comma,
- * the delimiter, a quote, a tab, a line end or surrounding blanks. */
+ * the delimiter, a quote, a tab, a line end or surrounding blanks, or opens
+ * its row with '#' (which would make the line a comment). */
 void corax_writer_field(corax_writer *w, const char *text, size_t length);
 
 /* A number field with a fixed number of decimals (0..9); NaN gives an empty

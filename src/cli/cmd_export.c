@@ -5,6 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
+#include <sys/stat.h>
 
 #include "cli/cli.h"
 
@@ -222,14 +223,24 @@ static int unknown_format(const export_opts *o)
                      o->j.format_name, list);
 }
 
+/* Standard output, a device or a pipe: a GIS file is made whole, then put
+ * in place by a rename, which would replace such a thing (as root, even
+ * /dev/null) rather than write to it. A folder is a place (shapefiles). */
+static int is_stream(const char *path)
+{
+    struct stat st;
+    return !corax_path_replaceable(path) && !(stat(path, &st) == 0 && S_ISDIR(st.st_mode));
+}
+
 static int parse_gis(export_opts *o)
 {
     if (!corax_gis_driver(o->j.format_name))
         return unknown_format(o);
     if (o->binary_given || o->shape_given)
         return cli_usage("export", "--binary and --shape are for --format vtk");
-    if (strcmp(o->c.output, "-") == 0)
-        return cli_usage("export", "--format %s writes a file: give -o FILE", o->j.format_name);
+    if (is_stream(o->c.output))
+        return cli_usage("export", "--format %s writes a file: give -o FILE (not standard "
+                                   "output, a device or a pipe)", o->j.format_name);
     int need = o->j.vtk.traces && (!o->j.layers || corax_export_job_wants(&o->j, "traces") ||
                                    corax_export_job_wants(&o->j, "collars"));
     if (o->j.findings || o->j.nintervals || o->j.contacts)

@@ -18,6 +18,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "io/fuzz.h"
 #include "io/outputs.h"
 
 enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
@@ -25,6 +26,11 @@ enum { MAX_FILES = 64 }; /* files of one run: a few in practice */
 typedef struct held {
     char *path, *final, *tmp;
     int folder; /* tmp is a private folder whose files go beside final */
+    /* while publishing: the file final names (a symlink's target), a second
+     * name (a hard link) for what stood there, or NULL, and whether something
+     * stood there */
+    char *target, *old;
+    int existed;
 } held;
 
 struct corax_outputs {
@@ -55,6 +61,14 @@ static void free_held(held *h)
     free(h->path);
     free(h->final);
     free(h->tmp);
+    free(h->target);
+    free(h->old);
+}
+
+static int is_folder(const char *path)
+{
+    struct stat st;
+    return stat(path, &st) == 0 && S_ISDIR(st.st_mode);
 }
 
 /* Remove a file, or a folder with what it holds (only ever a private folder
@@ -82,12 +96,20 @@ static void remove_tree(const char *path)
     rmdir(path);
 }
 
-/* Move everything in a private folder into place: the file named as the
- * target's last name to the target, any side files beside it. */
-static int move_folder(const char *folder, const char *final)
+/* The last name of a path. */
+static const char *last_name(const char *path)
 {
-    const char *slash = strrchr(final, '/');
-    size_t dirlen = slash ? (size_t)(slash - final + 1) : 0;
+    const char *slash = strrchr(path, '/');
+    return slash ? slash + 1 : path;
+}
+
+/* Move everything in a private folder into place: the file named `name`
+ * (the target's last name, as the library that wrote it was given it) to
+ * final, with the given mode (-1: as it was written); any side files beside
+ * final. */
+static int move_folder(const char *folder, const char *name, const char *final, long mode)
+{
+    size_t dirlen = (size_t)(last_name(final) - final);
     DIR *d = opendir(folder);
     if (!d)
         return errno;
@@ -97,22 +119,38 @@ static int move_folder(const char *folder, const char *final)
         if (strcmp(e->d_name, ".") == 0 || strcmp(e->d_name, "..") == 0)
             continue;
         char src[PATH_MAX], dst[PATH_MAX];
-        int own = strcmp(e->d_name, final + dirlen) == 0;
+        int own = strcmp(e->d_name, name) == 0;
         if ((size_t)snprintf(src, sizeof src, "%s/%s", folder, e->d_name) >= sizeof src ||
             (size_t)snprintf(dst, sizeof dst, "%.*s%s", (int)dirlen, final,
                              own ? final + dirlen : e->d_name) >= sizeof dst)
             failed = ENAMETOOLONG;
-        else if (rename(src, dst) != 0)
+        else if (own && mode >= 0 && (CORAX_FAILS() || chmod(src, (mode_t)mode) != 0))
+            failed = errno; /* the target's mode stays */
+        else if (CORAX_FAILS() || rename(src, dst) != 0)
             failed = errno;
     }
     closedir(d);
     return failed;
 }
 
+/* A device, a pipe, standard output: no file a library writes whole can be
+ * renamed over it. */
+static corax_status refuse_stream(const char *path, corax_error *err)
+{
+    return corax_error_set(err, CORAX_EIO, path, 0,
+                           "cannot write: this output is made whole and then put in place, "
+                           "which a device, a pipe or standard output cannot take: give a "
+                           "file name");
+}
+
 corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **folder,
                                   corax_error *err)
 {
     *folder = NULL;
+    if (CORAX_MAY_WRITE(path) != 0)
+        return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(errno));
+    if (!corax_path_replaceable(path) && !is_folder(path))
+        return refuse_stream(path, err);
     const char *slash = strrchr(path, '/');
     size_t dirlen = slash ? (size_t)(slash - path + 1) : 0;
     size_t n = strlen(path) + 16;
@@ -120,7 +158,7 @@ corax_status corax_outputs_folder(corax_outputs *set, const char *path, char **f
     if (!d)
         return CORAX_ENOMEM;
     snprintf(d, n, "%.*s.%s.XXXXXX", (int)dirlen, path, path + dirlen);
-    if (!mkdtemp(d)) {
+    if (CORAX_FAILS() || !mkdtemp(d)) {
         int e = errno;
         free(d);
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s", strerror(e));
@@ -156,7 +194,16 @@ void corax_outputs_drop_folder(corax_outputs *set, const char *folder)
 
 corax_status corax_outputs_place_folder(const char *folder, const char *path, corax_error *err)
 {
-    int failed = move_folder(folder, path);
+    /* through a symlink to the file it names, keeping that file's mode */
+    struct stat st;
+    char resolved[PATH_MAX];
+    int exists = stat(path, &st) == 0 && realpath(path, resolved);
+    if (exists && !S_ISREG(st.st_mode) && !S_ISDIR(st.st_mode)) {
+        remove_tree(folder);
+        return refuse_stream(path, err);
+    }
+    int failed = move_folder(folder, last_name(path), exists ? resolved : path,
+                             exists && S_ISREG(st.st_mode) ? (long)(st.st_mode & 07777) : -1);
     remove_tree(folder);
     if (failed)
         return corax_error_set(err, CORAX_EIO, path, 0, "cannot put it in place: %s",
@@ -198,8 +245,49 @@ void corax_outputs_remove_temporaries(const corax_outputs *set)
             remove_tree(set->pending[i].tmp);
 }
 
+static char *temp_name(const char *final, unsigned tries, const void *salt);
+
+/* Before a held file is made public: where it goes, and a second name (a
+ * hard link, in the same folder) for the file it will replace, so that the
+ * run can put that file back. Without one (a file system without hard
+ * links), a failure later in the run cannot be undone for this file. */
+static void keep_old(corax_outputs *set, held *h)
+{
+    struct stat st;
+    char resolved[PATH_MAX];
+    h->existed = stat(h->final, &st) == 0;
+    h->target = strdup(h->existed && realpath(h->final, resolved) ? resolved : h->final);
+    if (!h->target || !h->existed || !S_ISREG(st.st_mode) || set->ntemp == MAX_FILES)
+        return;
+    for (unsigned tries = 0; tries < 100 && !h->old; tries++) {
+        if (!(h->old = temp_name(h->target, tries, h)))
+            return;
+        if (link(h->target, h->old) != 0) {
+            int e = errno;
+            free(h->old);
+            h->old = NULL;
+            if (e != EEXIST)
+                return;
+        }
+    }
+    if (h->old)
+        set->temp[set->ntemp++] = h->old; /* a signal removes it */
+}
+
+/* Undo a file made public: what stood there comes back, or a file that was
+ * new goes. */
+static void put_back(const held *h)
+{
+    if (h->old)
+        rename(h->old, h->target);
+    else if (!h->existed && h->target)
+        remove_tree(h->target);
+}
+
 corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
 {
+    for (size_t i = 0; i < set->npending; i++)
+        keep_old(set, &set->pending[i]);
     corax_status st = CORAX_OK;
     size_t i = 0;
     for (; i < set->npending; i++) {
@@ -208,18 +296,29 @@ corax_status corax_outputs_publish(corax_outputs *set, corax_error *err)
             st = corax_outputs_place_folder(h->tmp, h->final, err);
             if (st != CORAX_OK)
                 break;
-        } else if (rename(h->tmp, h->final) != 0) {
+        } else if (CORAX_FAILS() || rename(h->tmp, h->final) != 0) {
             st = corax_error_set(err, CORAX_EIO, h->path, 0, "cannot write: %s",
                                  strerror(errno));
             break;
         }
-        forget_temp(set, h->tmp);
-        free_held(h);
     }
-    /* a rename that failed leaves the rest unpublished: remove them */
-    memmove(set->pending, set->pending + i, (set->npending - i) * sizeof *set->pending);
-    set->npending -= i;
-    corax_outputs_discard(set);
+    /* all or nothing: a failure puts back every file made public before it */
+    for (size_t k = i; st != CORAX_OK && k-- > 0;)
+        put_back(&set->pending[k]);
+    for (size_t k = 0; k < set->npending; k++) {
+        held *h = &set->pending[k];
+        if (h->old) {
+            unlink(h->old); /* gone already when put back */
+            forget_temp(set, h->old);
+        }
+        if (k < i && st == CORAX_OK) {
+            forget_temp(set, h->tmp);
+            free_held(h);
+        }
+    }
+    if (st == CORAX_OK)
+        set->npending = 0;
+    corax_outputs_discard(set); /* the rest, unpublished */
     return st;
 }
 
@@ -288,9 +387,11 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         return fail_open(t, path, 0, "the file name is empty", err);
     if (!(t->path = strdup(path)))
         return CORAX_ENOMEM;
+    if (CORAX_MAY_WRITE(path) != 0)
+        return fail_open(t, path, errno, NULL, err);
     int fd = descriptor_named(path);
     if (fd >= 0) { /* /dev/stdout and the like: the descriptor itself, where it stands */
-        t->fd = dup(fd);
+        t->fd = CORAX_FAILS() ? -1 : dup(fd);
         return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
     }
     struct stat st;
@@ -302,7 +403,8 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         return fail_open(t, path, 0, "it is a folder", err);
     if (exists && (!S_ISREG(st.st_mode) || system_file(resolved))) {
         /* a device, a pipe, a socket: written straight */
-        t->fd = open(path, O_WRONLY | O_CLOEXEC | O_NOCTTY | (S_ISREG(st.st_mode) ? O_TRUNC : 0));
+        int flags = O_WRONLY | O_CLOEXEC | O_NOCTTY | (S_ISREG(st.st_mode) ? O_TRUNC : 0);
+        t->fd = CORAX_FAILS() ? -1 : open(path, flags);
         return t->fd >= 0 ? CORAX_OK : fail_open(t, path, errno, NULL, err);
     }
     if (set && set->ntemp == MAX_FILES)
@@ -313,13 +415,15 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
         free(t->tmp);
         if (!(t->tmp = temp_name(t->final, tries, t)))
             return fail_open(t, path, ENOMEM, NULL, err);
-        t->fd = open(t->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
+        t->fd = CORAX_FAILS() ? -1
+                              : open(t->tmp, O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
         if (t->fd >= 0 || errno != EEXIST)
             break;
     }
     if (t->fd < 0)
         return fail_open(t, path, errno, NULL, err);
-    if (exists && fchmod(t->fd, st.st_mode & 07777) != 0) { /* the target's mode stays */
+    /* the target's mode stays */
+    if (exists && (CORAX_FAILS() || fchmod(t->fd, st.st_mode & 07777) != 0)) {
         int e = errno;
         close(t->fd);
         unlink(t->tmp);
@@ -333,22 +437,24 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
 corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
                                 corax_error *err)
 {
-    if (t->tmp && !failed && fsync(t->fd) != 0)
+    if (t->tmp && !failed && (CORAX_FAILS() || fsync(t->fd) != 0))
         failed = errno;
-    if (t->fd >= 0 && t->fd != STDOUT_FILENO && close(t->fd) != 0 && !failed)
+    if (t->fd >= 0 && t->fd != STDOUT_FILENO && (close(t->fd) != 0 || CORAX_FAILS()) &&
+        !failed)
         failed = errno;
     t->fd = -1;
     if (!failed && t->tmp && set) { /* held until the run publishes it */
         if (set->npending == MAX_FILES) {
             failed = EMFILE;
         } else {
-            set->pending[set->npending++] = (held){t->path, t->final, t->tmp, 0};
+            set->pending[set->npending++] =
+                (held){.path = t->path, .final = t->final, .tmp = t->tmp};
             memset(t, 0, sizeof *t);
             t->fd = -1;
             return CORAX_OK;
         }
     }
-    if (!failed && t->tmp && rename(t->tmp, t->final) != 0)
+    if (!failed && t->tmp && (CORAX_FAILS() || rename(t->tmp, t->final) != 0))
         failed = errno;
     if (failed && t->tmp)
         unlink(t->tmp);
@@ -426,3 +532,47 @@ int corax_path_replaceable(const char *path)
         return 1; /* a new file */
     return S_ISREG(st.st_mode) && realpath(path, resolved) && !system_file(resolved);
 }
+
+#ifdef CORAX_FUZZ
+/* ---- the fuzzing build's hooks (io/fuzz.h) ---- */
+
+static long fail_countdown = -1;
+static int fail_errnum, fail_made;
+static const char *sandbox;
+
+void corax_fuzz_fail_at(long n, int errnum)
+{
+    fail_countdown = n;
+    fail_errnum = errnum;
+    fail_made = 0;
+}
+
+int corax_fuzz_failed(void) { return fail_made; }
+
+int corax_fuzz_fails(void)
+{
+    if (fail_countdown < 0 || fail_countdown-- > 0)
+        return 0;
+    fail_made = 1;
+    errno = fail_errnum;
+    return 1;
+}
+
+void corax_fuzz_sandbox(const char *folder) { sandbox = folder; }
+
+int corax_fuzz_may_write(const char *path)
+{
+    static const char *const devices[] = {"-", "/dev/null", "/dev/full", "/dev/stdout"};
+    if (!sandbox)
+        return 0;
+    for (size_t i = 0; i < sizeof devices / sizeof *devices; i++)
+        if (strcmp(path, devices[i]) == 0)
+            return 0;
+    size_t n = strlen(sandbox), len = strlen(path);
+    if (strncmp(path, sandbox, n) == 0 && path[n] == '/' && !strstr(path + n, "/../") &&
+        !(len >= 3 && strcmp(path + len - 3, "/..") == 0))
+        return 0;
+    errno = EACCES;
+    return -1;
+}
+#endif

@@ -15,6 +15,7 @@
 #include <string.h>
 
 #include "corax/table.h"
+#include "io/fuzz.h"
 
 enum {
     READ_BLOCK = 1 << 20,
@@ -31,7 +32,7 @@ struct corax_reader {
     int parser_ready;
 
     char *block; /* read buffer */
-    size_t have, pos;
+    size_t block_size, have, pos;
     int eof, first_block, prev_cr;
     long line;     /* line number of the next byte fed */
     long row_line; /* line where the row under construction starts, 0 if none */
@@ -311,7 +312,8 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
             return corax_error_set(err, CORAX_EIO, path, 0, "cannot open: %s", strerror(e));
         }
     }
-    r->block = malloc(READ_BLOCK);
+    r->block_size = CORAX_READ_BLOCK(READ_BLOCK);
+    r->block = malloc(r->block_size);
     if (!r->block || csv_init(&r->parser, CSV_STRICT_FINI) != 0) {
         corax_reader_close(r);
         return CORAX_ENOMEM;
@@ -330,14 +332,30 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
     return CORAX_OK;
 }
 
+/* The line of the block's first NUL byte (from pos), or 0 when it holds
+ * none: lines end at LF, CR or CRLF, as feed_line counts them. */
+static long nul_line(const corax_reader *r)
+{
+    const char *s = r->block + r->pos, *nul = memchr(s, '\0', r->have - r->pos);
+    if (!nul)
+        return 0;
+    long line = r->line;
+    int cr = r->prev_cr;
+    for (const char *p = s; p < nul; p++) {
+        line += *p == '\r' || (*p == '\n' && !cr); /* the LF of a CRLF ends no line */
+        cr = *p == '\r';
+    }
+    return line;
+}
+
 /* Read the next block; keeps nothing from the previous one (we only ever
  * leave a block after feeding all of it). */
 static corax_status refill(corax_reader *r, corax_error *err)
 {
     r->consumed += r->have;
-    r->have = fread(r->block, 1, READ_BLOCK, r->fp);
+    r->have = fread(r->block, 1, r->block_size, r->fp);
     r->pos = 0;
-    if (r->have < READ_BLOCK) {
+    if (r->have < r->block_size) {
         if (ferror(r->fp))
             return corax_error_set(err, CORAX_EIO, r->path, r->line, "read error: %s",
                                    strerror(errno));
@@ -352,28 +370,26 @@ static corax_status refill(corax_reader *r, corax_error *err)
             return corax_error_set(err, CORAX_EFORMAT, r->path, 1,
                                    "the file is UTF-16 text: save it as UTF-8 (for example "
                                    "iconv -f UTF-16 -t UTF-8 FILE > FILE.csv)");
-        const char *nul = memchr(r->block, '\0', r->have);
-        if (nul) {
-            long line = 1;
-            for (const char *p = r->block; p < nul; p++)
-                line += *p == '\n';
-            return corax_error_set(err, CORAX_EFORMAT, r->path, line,
-                                   "the file holds NUL bytes: it is not a text table "
-                                   "(UTF-16 without its mark, or a binary file?)");
-        }
     }
+    long nul = nul_line(r); /* in every block: a NUL would cut a field short */
+    if (nul)
+        return corax_error_set(err, CORAX_EFORMAT, r->path, nul,
+                               "the file holds NUL bytes: it is not a text table "
+                               "(UTF-16 without its mark, or a binary file?)");
     return CORAX_OK;
 }
 
-/* Split an unquoted line (without its line end) into fields. */
-static void split_line(corax_reader *r, const char *s, size_t n)
+/* Split an unquoted line (without its line end) into fields; cut_blanks:
+ * the line began with blanks in the block before (given to libcsv, which
+ * skips them). */
+static void split_line(corax_reader *r, const char *s, size_t n, int cut_blanks)
 {
     const char *end = s + n, delim = (char)r->parser.delim_char;
     const char *p = s;
     while (p < end && blank_or_space((unsigned char)*p) && *p != delim)
         p++;
     if (p == end) { /* a blank line: no row */
-        r->info.blank_rows += n > 0;
+        r->info.blank_rows += n > 0 || cut_blanks;
         return;
     }
     for (p = s;;) {
@@ -396,6 +412,7 @@ static void feed_line(corax_reader *r)
 {
     const char *s = r->block + r->pos;
     size_t n = r->have - r->pos, i = 0;
+    size_t earlier = 0; /* bytes of the line in blocks before */
     if (r->prev_cr && n && s[0] == '\n') { /* the LF of a CRLF split from its CR */
         r->prev_cr = 0;
         i = 1;
@@ -411,6 +428,7 @@ static void feed_line(corax_reader *r)
             comment = k < i && s[k] == '#';
             r->info.comments += comment;
         }
+        earlier = r->line_len;
         r->line_len = i < n ? 0 : r->line_len + i; /* a line cut by the block's end */
         if (r->line_len > MAX_LINE) {
             r->too_big = "the line is longer than 1 MiB: is this a table?";
@@ -446,7 +464,7 @@ static void feed_line(corax_reader *r)
      * skipped). Most lines of a log are like that, and this is the hot path. */
     if (i && r->parser.pstate == 0 && (s[i - 1] == '\n' || s[i - 1] == '\r') &&
         !memchr(s, '"', i))
-        split_line(r, s, i - 1);
+        split_line(r, s, i - 1, earlier > 0);
     else if (i)
         csv_parse(&r->parser, s, i, on_field, on_row, r);
     r->pos += i;
@@ -536,3 +554,11 @@ void corax_reader_close(corax_reader *r)
     free(r->field);
     free(r);
 }
+
+#ifdef CORAX_FUZZ
+static size_t fuzz_block;
+
+void corax_fuzz_read_block(size_t bytes) { fuzz_block = bytes && bytes < 16 ? 16 : bytes; }
+
+size_t corax_fuzz_block(size_t usual) { return fuzz_block ? fuzz_block : usual; }
+#endif

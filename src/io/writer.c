@@ -13,6 +13,7 @@
 #include "common/format.h"
 #include "corax/geometry.h"
 #include "corax/output.h"
+#include "io/fuzz.h"
 #include "io/outputs.h"
 
 enum { OUT_BUFFER = 1 << 18 };
@@ -79,7 +80,7 @@ corax_status corax_writer_open(const char *path, corax_writer **out, corax_error
 static void write_all(corax_writer *w, const char *p, size_t n)
 {
     while (n && !w->failed) {
-        ssize_t k = write(w->fd, p, n);
+        ssize_t k = CORAX_FAILS() ? -1 : write(w->fd, p, n);
         if (k < 0) {
             if (errno != EINTR)
                 w->failed = errno;
@@ -196,9 +197,12 @@ static inline void separator(corax_writer *w)
     w->row_start = 0;
 }
 
-static int needs_quotes(const char *s, size_t n, char delimiter)
+/* first: the field opens its row, where a '#' would make the line a
+ * comment to a reader (corax's own among them). */
+static int needs_quotes(const char *s, size_t n, char delimiter, int first)
 {
-    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t'))
+    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
+              (first && s[0] == '#')))
         return 1;
     for (size_t i = 0; i < n; i++) {
         unsigned char c = (unsigned char)s[i];
@@ -222,8 +226,9 @@ static void mark_decimal(corax_writer *w, size_t n)
 
 void corax_writer_field(corax_writer *w, const char *s, size_t n)
 {
+    int first = w->row_start;
     separator(w);
-    if (!needs_quotes(s, n, w->delimiter)) {
+    if (!needs_quotes(s, n, w->delimiter, first)) {
         corax_writer_text(w, s, n);
         return;
     }

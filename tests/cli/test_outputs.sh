@@ -64,6 +64,25 @@ ln -s target.csv "$T/link.csv"
 grep -q '^hole,depth,x,' "$T/target.csv" || fail "the file behind the symlink was not written"
 [ "$(stat -c %a "$T/target.csv")" = 600 ] || fail "mode 600 became $(stat -c %a "$T/target.csv")"
 
+# GIS files are made whole by GDAL in a private folder, then put in place:
+# never over a pipe or a device (a rename would replace it), through a
+# symlink to its file, keeping a file's mode (found by tests/fuzz: export)
+if "$CORAX" export --format geojson --no-traces -o "$T/fifo" data/converted.csv 2> "$T/err"; then
+    fail "a GIS file onto a pipe accepted"
+fi
+grep -q "writes a file: give -o FILE (not standard output, a device or a pipe)" "$T/err" \
+    || fail "GIS onto a pipe: $(cat "$T/err")"
+[ -p "$T/fifo" ] || fail "a GIS export replaced the pipe"
+echo old > "$T/target.geojson"
+chmod 600 "$T/target.geojson"
+ln -s target.geojson "$T/link.geojson"
+"$CORAX" export --format geojson --no-traces -q -o "$T/link.geojson" data/converted.csv
+[ -L "$T/link.geojson" ] || fail "a GIS export replaced the symlink by a file"
+grep -q FeatureCollection "$T/target.geojson" || fail "the GIS file behind the symlink was not written"
+[ "$(stat -c %a "$T/target.geojson")" = 600 ] \
+    || fail "GIS: mode 600 became $(stat -c %a "$T/target.geojson")"
+rm -f "$T/link.geojson" "$T/link.geojson.about"
+
 # no file name, a folder: clear messages naming them
 if "$CORAX" trace $D -o "" 2> "$T/err"; then fail "an empty name accepted"; fi
 grep -q "cannot write: the file name is empty" "$T/err" || fail "empty: $(cat "$T/err")"
