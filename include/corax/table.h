@@ -5,6 +5,7 @@
 #define CORAX_TABLE_H
 
 #include <stddef.h>
+#include <stdio.h>
 
 #include "corax/status.h"
 
@@ -93,6 +94,11 @@ typedef struct corax_reader corax_reader;
  * cannot be opened (err names it). */
 corax_status corax_reader_open(const char *path, corax_table_format format,
                                corax_reader **out, corax_error *err);
+
+/* corax_reader_open() on a stream already open, read from where it stands
+ * and left open; name stands for it in messages. */
+corax_status corax_reader_open_stream(FILE *stream, const char *name, corax_table_format format,
+                                      corax_reader **out, corax_error *err);
 
 /* The next row: CORAX_OK, CORAX_END at the end of the table, CORAX_EIO on a
  * read error, CORAX_EFORMAT on an unterminated quote, CORAX_ENOMEM. */

@@ -291,8 +291,8 @@ static corax_status detect_format(corax_reader *r, corax_table_format want, cora
     return CORAX_OK;
 }
 
-corax_status corax_reader_open(const char *path, corax_table_format format,
-                               corax_reader **out, corax_error *err)
+static corax_status reader_open(FILE *stream, const char *path, corax_table_format format,
+                                corax_reader **out, corax_error *err)
 {
     *out = NULL;
     corax_reader *r = calloc(1, sizeof *r);
@@ -301,7 +301,9 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
     r->path = path;
     r->line = 1;
     r->first_block = 1;
-    if (strcmp(path, "-") == 0) {
+    if (stream) {
+        r->fp = stream;
+    } else if (strcmp(path, "-") == 0) {
         r->fp = stdin;
     } else {
         r->fp = fopen(path, "rb");
@@ -330,6 +332,18 @@ corax_status corax_reader_open(const char *path, corax_table_format format,
     csv_set_delim(&r->parser, (unsigned char)r->info.format.delimiter);
     *out = r;
     return CORAX_OK;
+}
+
+corax_status corax_reader_open(const char *path, corax_table_format format,
+                               corax_reader **out, corax_error *err)
+{
+    return reader_open(NULL, path, format, out, err);
+}
+
+corax_status corax_reader_open_stream(FILE *stream, const char *name, corax_table_format format,
+                                      corax_reader **out, corax_error *err)
+{
+    return reader_open(stream, name, format, out, err);
 }
 
 /* The line of the block's first NUL byte (from pos), or 0 when it holds

@@ -18,7 +18,14 @@ static void convert_row(const convert_run *r, convert_lane *ln, const corax_row 
 {
     convert_eval ev;
     convert_evaluate(r, ln, row, &ev);
-    convert_write(r, ln, row, &ev, NULL);
+    corax_spread spread;
+    const corax_spread *sp = NULL;
+    if (r->draws) { /* drawn in the first reading */
+        convert_uncertainty(r, ln, row, &ev);
+        if (ev.simulate)
+            sp = convert_draws_spread(r->draws, ln->next_draw++, &spread);
+    }
+    convert_write(r, ln, row, &ev, sp);
 }
 
 static void free_names(char **names, size_t n)
@@ -26,23 +33,6 @@ static void free_names(char **names, size_t n)
     for (size_t i = 0; i < n; i++)
         free(names[i]);
     free(names);
-}
-
-/* Fill a batch with up to BATCH_ROWS rows of the shard, counting the others
- * in *other: the reader's status (CORAX_OK when more may follow, CORAX_END at
- * the end, or an error). */
-static corax_status fill_batch(const convert_run *r, corax_reader *rd, corax_table *batch,
-                               size_t *other, corax_error *err)
-{
-    corax_row row;
-    corax_status st = CORAX_OK;
-    corax_table_truncate(batch);
-    while (corax_table_rows(batch) < BATCH_ROWS && (st = corax_reader_next(rd, &row, err)) == CORAX_OK)
-        if (!convert_row_in_shard(r, &row))
-            ++*other;
-        else if (corax_table_append(batch, &row) != CORAX_OK)
-            return CORAX_ENOMEM;
-    return st;
 }
 
 /* Write a batch's chunks to the output, in row order, and empty them. */
@@ -60,10 +50,10 @@ static void write_chunks(const convert_run *r, corax_writer **chunk)
  * while one thread first writes the previous batch's chunks (`done`) and reads
  * the following batch into `next` (when rd is not NULL). Chunks are written in
  * row order, so the output does not depend on the number of threads. */
-static corax_status convert_batch(const convert_run *r, const corax_table *cur, convert_lane *lanes,
+static corax_status convert_batch(convert_run *r, const corax_table *cur, convert_lane *lanes,
                                   int nlanes, corax_writer **chunk, corax_writer **done,
                                   corax_reader *rd, corax_table *next, corax_status *read_status,
-                                  size_t *read_other, corax_error *read_err)
+                                  corax_error *read_err)
 {
     size_t n = corax_table_rows(cur), widest = corax_table_widest(cur);
     for (int k = 0; k < nlanes; k++) {
@@ -72,14 +62,15 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
             return CORAX_ENOMEM;
         lanes[k].field = field;
     }
-    size_t taken = 0;
+    size_t taken = 0, base = r->seen; /* the batch's first row in the shard */
+    r->seen += n;
 #pragma omp parallel num_threads(nlanes)
     {
 #pragma omp single nowait
         {
             write_chunks(r, done);
             if (rd)
-                *read_status = fill_batch(r, rd, next, read_other, read_err);
+                *read_status = convert_fill_batch(r, rd, next, BATCH_ROWS, read_err);
         }
         convert_lane *ln = &lanes[omp_get_thread_num()];
         for (;;) {
@@ -89,6 +80,8 @@ static corax_status convert_batch(const convert_run *r, const corax_table *cur, 
             if (c >= BATCH_CHUNKS)
                 break;
             ln->w = chunk[c];
+            if (r->draws)
+                ln->next_draw = convert_draws_rank(r->draws, base + n * c / BATCH_CHUNKS);
             for (size_t i = n * c / BATCH_CHUNKS; i < n * (c + 1) / BATCH_CHUNKS; i++) {
                 corax_row row;
                 corax_table_row(cur, i, ln->field, &row);
@@ -116,15 +109,14 @@ static corax_status convert_one_file(convert_run *r, convert_lane *lanes, int nl
             convert_lane_file(&lanes[k], path, index, rd);
         cur = corax_table_new(path, lanes[0].decimal, &row);
         next = cur ? corax_table_new(path, lanes[0].decimal, &row) : NULL;
-        st = next ? fill_batch(r, rd, cur, &r->other, &err) : CORAX_ENOMEM;
+        st = next ? convert_fill_batch(r, rd, cur, BATCH_ROWS, &err) : CORAX_ENOMEM;
     }
     while ((st == CORAX_OK || st == CORAX_END) && corax_table_rows(cur) > 0) {
         corax_status read_st = CORAX_END;
         corax_error read_err;
         corax_error_clear(&read_err);
         corax_status bs = convert_batch(r, cur, lanes, nlanes, chunk, done,
-                                        st == CORAX_OK ? rd : NULL, next, &read_st, &r->other,
-                                        &read_err);
+                                        st == CORAX_OK ? rd : NULL, next, &read_st, &read_err);
         corax_writer **written = chunk; /* this batch's chunks go out with the next one */
         chunk = done;
         done = written;
@@ -309,11 +301,29 @@ corax_status corax_convert_job_run(corax_job *job, const corax_program *prog,
     } else {
         corax_writer_format(r.w, s->output);
     }
-    int whole = s->draws || s->nrefs; /* drawing and orienting runs need every row */
-    if (rc == CORAX_OK && whole)
+    int whole = s->nrefs > 0; /* orienting runs needs every row in memory */
+    convert_draws *draws = NULL;
+    if (rc == CORAX_OK && whole) {
         rc = convert_in_memory(&r, lanes, nlanes, files, nfiles);
+    } else if (rc == CORAX_OK && s->draws) { /* drawn in a first reading, written in a second */
+        for (size_t i = 0; i < nfiles && rc == CORAX_OK; i++)
+            if (strcmp(files[i], "-") == 0 && !(r.stdin_copy = convert_stdin_copy(job)))
+                rc = CORAX_EIO;
+        if (rc == CORAX_OK)
+            rc = convert_draws_run(&r, files, nfiles, nlanes, &draws);
+        r.draws = draws;
+        r.other = 0; /* counted again in the second reading */
+    }
     for (size_t i = 0; i < nfiles && rc == CORAX_OK && !whole; i++)
         rc = convert_one_file(&r, lanes, nlanes, chunk[0], chunk[1], files[i], i);
+    if (rc == CORAX_OK && draws && !convert_draws_match(draws, r.seen)) {
+        job_error(job, NULL, 0, "the core logs changed while they were converted (%zu rows "
+                  "the second time they were read): convert them again", r.seen);
+        rc = CORAX_EFORMAT;
+    }
+    convert_draws_free(draws);
+    if (r.stdin_copy)
+        fclose(r.stdin_copy);
     free_names(r.first, r.first ? r.nfirst : 0);
     if (rc != CORAX_OK) {
         corax_writer_discard(r.w);

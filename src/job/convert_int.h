@@ -25,6 +25,7 @@ enum {
 enum { OWN_HOLE, OWN_DEPTH, OWN_KIND, OWN_CONFIDENCE, NOWN };
 
 typedef struct convert_group convert_group;
+typedef struct convert_draws convert_draws;
 
 /* What every row of a run shares; read-only while rows are converted. */
 typedef struct convert_run {
@@ -40,6 +41,10 @@ typedef struct convert_run {
     size_t nfirst;
     const convert_group *groups; /* the runs oriented by reference, or NULL */
     size_t other;    /* rows left to the other shards */
+    FILE *stdin_copy; /* standard input kept for a second reading, or NULL */
+    const convert_draws *draws; /* every reading's spread, drawn before the rows
+                                   are written (convert_draws.c), or NULL */
+    size_t seen;     /* rows of the shard read so far, over every log */
 } convert_run;
 
 /* Whether a row's hole is in the run's shard (always, without shards). */
@@ -62,6 +67,7 @@ typedef struct convert_lane {
     size_t count[CORAX_COND_COUNT + 1]; /* rows by status; the last is "converted" */
     size_t rows;
     const char **field; /* room for a row's field pointers */
+    size_t next_draw;   /* the next simulated row's place in r->draws */
 } convert_lane;
 
 /* One row, evaluated. */
@@ -120,6 +126,34 @@ corax_status convert_open_log(convert_run *r, const char *path, corax_reader **r
 /* The log a lane reads from now on: its name, place and format. */
 void convert_lane_file(convert_lane *ln, const char *path, size_t index,
                        const corax_reader *reader);
+
+/* Fill a batch with up to `most` rows of the shard, counting the others in
+ * r->other: the reader's status (CORAX_OK when more may follow, CORAX_END at
+ * the end, or an error). */
+corax_status convert_fill_batch(convert_run *r, corax_reader *rd, corax_table *batch, size_t most,
+                                corax_error *err);
+
+/* The uncertainty drawn in a first reading of the logs, for the rows to be
+ * written in a second (no references): each simulated reading kept in a
+ * compact record (about 50 bytes), holes drawn in parallel, each spread
+ * written over its reading. A status (messages given). */
+corax_status convert_draws_run(convert_run *r, const char *const *files, size_t nfiles,
+                               int nlanes, convert_draws **out);
+void convert_draws_free(convert_draws *d);
+
+/* Standard input copied whole to an unnamed temporary file (in TMPDIR), to
+ * be read twice; NULL with the error said. */
+FILE *convert_stdin_copy(corax_job *job);
+
+/* The place in d of the first simulated row at or after row `row` of the
+ * shard (rows counted over every log). */
+size_t convert_draws_rank(const convert_draws *d, size_t row);
+
+/* The spread of simulated row j into *sp: sp, or NULL past the end. */
+const corax_spread *convert_draws_spread(const convert_draws *d, size_t j, corax_spread *sp);
+
+/* Whether the second reading met the first's rows: rows of the shard seen. */
+int convert_draws_match(const convert_draws *d, size_t rows);
 
 /* Every log in memory: runs oriented by reference (--orient-by), then the
  * uncertainty (holes simulated in parallel, when there are draws), rows

@@ -280,6 +280,20 @@ int convert_row_in_shard(const convert_run *r, const corax_row *row)
     return corax_shard_of(name, len, r->s->shards) == r->s->shard;
 }
 
+corax_status convert_fill_batch(convert_run *r, corax_reader *rd, corax_table *batch, size_t most,
+                                corax_error *err)
+{
+    corax_row row;
+    corax_status st = CORAX_OK;
+    corax_table_truncate(batch);
+    while (corax_table_rows(batch) < most && (st = corax_reader_next(rd, &row, err)) == CORAX_OK)
+        if (!convert_row_in_shard(r, &row))
+            r->other++;
+        else if (corax_table_append(batch, &row) != CORAX_OK)
+            return CORAX_ENOMEM;
+    return st;
+}
+
 void convert_evaluate(const convert_run *r, convert_lane *ln, const corax_row *row,
                       convert_eval *ev)
 {
@@ -422,7 +436,13 @@ static void choose_own(convert_run *r, const corax_row *header)
 corax_status convert_open_log(convert_run *r, const char *path, corax_reader **reader,
                               corax_row *header, corax_error *err)
 {
-    corax_status st = corax_reader_open(path, r->s->log.format, reader, err);
+    corax_status st;
+    if (r->stdin_copy && strcmp(path, "-") == 0) { /* read again from the start */
+        rewind(r->stdin_copy);
+        st = corax_reader_open_stream(r->stdin_copy, path, r->s->log.format, reader, err);
+    } else {
+        st = corax_reader_open(path, r->s->log.format, reader, err);
+    }
     if (st != CORAX_OK)
         return st;
     st = corax_table_header(*reader, col_names, NCOLS, 1, r->s->log.columns, r->col, &r->width,
