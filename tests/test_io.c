@@ -69,29 +69,60 @@ static void test_decimal_comma(void **state)
     assert_int_equal(parse("12.75", ',', &v), CORAX_NUMBER_NOT_NUMBER);
 }
 
+/* A value for the formatter's sweep: spread over magnitudes, on and next to
+ * ties at d decimals, or any finite bit pattern. */
+static double format_sample(uint64_t *seed, int d, int kind)
+{
+    double x;
+    switch (kind) {
+    case 0:
+        return (test_uniform(seed) - 0.5) * pow(10, (int)(test_uniform(seed) * 18) - 4);
+    case 1: /* a decimal tie, as the nearest double gives it */
+        x = floor(test_uniform(seed) * 1e6) / pow(10, (int)(test_uniform(seed) * 7)) +
+            0.5 * pow(10, -d);
+        return test_uniform(seed) < 0.5 ? -x : x;
+    case 2: /* exact binary ties: multiples of 2^-k */
+        return ldexp(floor(test_uniform(seed) * 1e6), -(int)(test_uniform(seed) * 12));
+    default:
+        do {
+            uint64_t bits = (uint64_t)(test_uniform(seed) * 0x1p32) << 32 |
+                            (uint64_t)(test_uniform(seed) * 0x1p32);
+            memcpy(&x, &bits, sizeof x);
+        } while (!isfinite(x));
+        return x;
+    }
+}
+
+/* The fixed formatter against the C library's printf("%.*f") (the reference:
+ * the exact binary value rounded half to even), digit for digit, on a random
+ * sweep, ties and random bit patterns included; only -0 differs, by design. */
 static void test_fixed_format_matches_printf(void **state)
 {
     (void)state;
     uint64_t seed = 5;
     char a[64], b[64];
-    for (int i = 0; i < 200000; i++) {
-        double x = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 10) - 3);
-        int d = (int)(test_uniform(&seed) * 7);
+    for (int i = 0; i < 400000; i++) {
+        int d = (int)(test_uniform(&seed) * 10);
+        double x = format_sample(&seed, d, i % 4);
+        if (!(fabs(x) * pow(10, d) < 9e15))
+            continue; /* all 17 digits instead: checked below */
         size_t n = corax_format_fixed(a, x, d);
         a[n] = '\0';
         snprintf(b, sizeof b, "%.*f", d, x);
-        if (strcmp(b, "-0") == 0 || strncmp(b, "-0.", 3) == 0) { /* we never print -0 */
-            double back = strtod(b, NULL);
-            if (back == 0.0)
-                memmove(b, b + 1, strlen(b));
-        }
-        /* printf rounds the exact binary value; we round the scaled value. They may
-         * differ only on a last-digit tie: accept a difference of one unit there. */
-        if (strcmp(a, b) != 0) {
-            double ua = strtod(a, NULL), ub = strtod(b, NULL);
-            if (fabs(ua - ub) > 1.01 * pow(10, -d))
-                fail_msg("%.17g to %d places: '%s', printf '%s'", x, d, a, b);
-        }
+        if (b[0] == '-' && strtod(b, NULL) == 0.0) /* we never print -0 */
+            memmove(b, b + 1, strlen(b));
+        if (strcmp(a, b) != 0)
+            fail_msg("%.17g to %d places: '%s', printf '%s'", x, d, a, b);
+    }
+    static const struct {
+        double x;
+        int d;
+        const char *text;
+    } ties[] = {{0.125, 2, "0.12"}, {0.375, 2, "0.38"}, {2.5, 0, "2"}, {-3.5, 0, "-4"},
+                {1.005, 2, "1.00"}, {0.0625, 3, "0.062"}};
+    for (size_t i = 0; i < sizeof ties / sizeof ties[0]; i++) {
+        a[corax_format_fixed(a, ties[i].x, ties[i].d)] = '\0';
+        assert_string_equal(a, ties[i].text);
     }
     assert_int_equal(corax_format_fixed(a, NAN, 2), 0);
     a[corax_format_fixed(a, -0.0001, 2)] = '\0';

@@ -245,6 +245,22 @@ static const char digit_pairs[201] =
     "40414243444546474849505152535455565758596061626364656667686970717273747576777879"
     "8081828384858687888990919293949596979899";
 
+/* The integer nearest a * s (a >= 0, s a power of ten up to 1e9, so exact;
+ * their double product p below 2^52), rounded as printf rounds the exact
+ * value: half to even on a true tie. p + 0.5 is exact below 2^52, so its
+ * whole part is p rounded half up; p = fl(a s) differs from a s by less than
+ * its distance from any half-way point it is not on, so only p on a half-way
+ * point needs the product's rounding error e (fma gives it exactly): its
+ * sign says which way the exact value lies, and e = 0 is a true tie. */
+static uint64_t round_scaled(double a, double s, double p)
+{
+    int64_t q = (int64_t)(p + 0.5); /* signed: the quicker conversions */
+    if ((double)q - p != 0.5) /* the usual case: no branch taken at random */
+        return (uint64_t)q;
+    double e = fma(a, s, -p);
+    return (uint64_t)(e > 0.0 ? q : e < 0.0 ? q - 1 : q - (q & 1));
+}
+
 size_t corax_format_fixed(char *buf, double v, int decimals)
 {
     static const double scale[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9};
@@ -254,20 +270,23 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
         decimals = 0;
     if (decimals > 9)
         decimals = 9;
-    double scaled = fabs(v) * scale[decimals];
+    double a = fabs(v), scaled = a * scale[decimals];
     if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
         return (size_t)snprintf(buf, 40, "%.17g", v);
-    uint64_t q = (uint64_t)(scaled + 0.5); /* round half away from zero */
-    int negative = v < 0.0 && q != 0;      /* never "-0.00" */
-    char tmp[40];
-    char *p = tmp + sizeof tmp; /* digits are written backwards from the end */
+    if (scaled >= 0x1p52) /* whole numbers apart: printf's own rounding */
+        return (size_t)snprintf(buf, 40, "%.*f", decimals, v);
+    uint64_t q = round_scaled(a, scale[decimals], scaled);
+    int negative = v < 0.0 && q != 0; /* never "-0.00" */
+    /* at most 16 digits, a point and a sign: written backwards into the
+     * first 24 bytes of tmp, then copied whole (a copy of fixed size is a
+     * few moves, where a copy of the digits alone would call memcpy) */
+    char tmp[48];
+    char *end = tmp + 24, *p = end;
     int frac = decimals;
-    while (frac >= 2) {
+    for (; frac >= 2; frac -= 2, q /= 100) {
         const char *d = digit_pairs + 2 * (q % 100);
         *--p = d[1];
         *--p = d[0];
-        q /= 100;
-        frac -= 2;
     }
     if (frac) {
         *--p = (char)('0' + q % 10);
@@ -275,11 +294,10 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
     }
     if (decimals)
         *--p = '.';
-    while (q >= 100) {
+    for (; q >= 100; q /= 100) {
         const char *d = digit_pairs + 2 * (q % 100);
         *--p = d[1];
         *--p = d[0];
-        q /= 100;
     }
     if (q >= 10) {
         *--p = digit_pairs[2 * q + 1];
@@ -287,12 +305,10 @@ size_t corax_format_fixed(char *buf, double v, int decimals)
     } else {
         *--p = (char)('0' + q);
     }
-    size_t n = (size_t)(tmp + sizeof tmp - p);
     if (negative)
-        *buf++ = '-';
-    for (size_t i = 0; i < n; i++) /* short: a loop beats a call to memcpy */
-        buf[i] = p[i];
-    return n + (size_t)negative;
+        *--p = '-';
+    memcpy(buf, p, 24);
+    return (size_t)(end - p);
 }
 
 void corax_writer_number(corax_writer *w, double v, int decimals)
