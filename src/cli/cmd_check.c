@@ -413,7 +413,7 @@ static int write_report(const check_opts *o, const corax_program *prog,
     if (dot && !o->title)
         *dot = '\0';
     corax_report_input in = {name, inputs, ninputs, CORAX_VERSION, when, prog,
-                             found, l->reading, l->n, &o->convert};
+                             found, l->reading, l->n, &o->convert, o->c.output};
     corax_error err;
     corax_error_clear(&err);
     corax_status st = corax_report_write(&in, o->c.outputs, o->report, &err);
