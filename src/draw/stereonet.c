@@ -5,7 +5,6 @@
 #include <ctype.h>
 #include <math.h>
 #include <stdarg.h>
-#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -14,6 +13,7 @@
 #include "corax/stereonet.h"
 #include "draw/net.h"
 #include "draw/palette.h"
+#include "draw/sample.h"
 #include "geometry/vec.h"
 
 enum { MAX_LEVELS = CORAX_BANDS };
@@ -33,29 +33,7 @@ static size_t draw_every(size_t count, size_t total, size_t set_limit, size_t ne
         size_t share = (size_t)((double)net_limit * (double)count / (double)total);
         limit = share < limit ? share : limit;
     }
-    limit = limit ? limit : 1;
-    return count <= limit ? 1 : (count + limit - 1) / limit;
-}
-
-/* Whether mark i is drawn: one in each run of `every`, at a place in the run
- * fixed by a hash of the run's number, so the same marks are drawn on every
- * run and the sample does not beat with a period in the table. */
-static int drawn(size_t i, size_t every)
-{
-    if (every == 1)
-        return 1;
-    uint64_t z = (uint64_t)(i / every) * 0x9E3779B97F4A7C15u;
-    z = (z ^ (z >> 31)) * 0xBF58476D1CE4E5B9u;
-    return i % every == (size_t)((z ^ (z >> 29)) % every);
-}
-
-/* How many of count marks are drawn, one in every `every`. */
-static size_t drawn_count(size_t count, size_t every)
-{
-    size_t k = 0;
-    for (size_t i = 0; i < count; i++)
-        k += drawn(i, every);
-    return k;
+    return corax_sample_every(count, limit);
 }
 
 typedef struct net {
@@ -288,8 +266,8 @@ static void describe_axes(net *n, const corax_axial_summary *s)
         panel_text(n, "small", 18, "Woodcock K %.2f, C %.2f", s->tensor.shape, s->tensor.strength);
 }
 
-/* "3000 of 120000 poles drawn (one in every 40), ...": what a sampled set
- * shows of itself. */
+/* "2000 of 120000 poles drawn (a sample)": what a sampled set shows of
+ * itself. */
 static void sample_note(net *n, const plan *p, const corax_net_set *set)
 {
     every e = set_every(p, n->style, set);
@@ -298,8 +276,8 @@ static void sample_note(net *n, const plan *p, const corax_net_set *set)
     static const char *const what[] = {"poles", "lines", "great circles", "small circles"};
     for (int k = 0; k < 4; k++)
         if (step[k] > 1)
-            panel_text(n, "note", 18, "%zu of %zu %s drawn (a sample)", drawn_count(count[k],
-                       step[k]), count[k], what[k]);
+            panel_text(n, "note", 18, "%zu of %zu %s drawn (a sample)",
+                       corax_sample_count(count[k], step[k]), count[k], what[k]);
 }
 
 static void legend_entry(net *n, const plan *pl, const corax_net_set *set, size_t index,
@@ -469,24 +447,24 @@ static void draw_set(const net *n, const plan *p, const corax_net_set *set, size
     if (n->style->planes & CORAX_NET_GREAT_CIRCLES) {
         snprintf(cls, sizeof cls, "gc %s", stroke);
         for (size_t i = 0; i < set->npoles; i++)
-            if (drawn(i, e.great))
+            if (corax_sample_drawn(i, e.great))
                 great_circle(n, set->poles[i], cls);
     }
     snprintf(cls, sizeof cls, "sc %s", stroke);
     for (size_t i = 0; i < set->ncircles; i++)
-        if (drawn(i, e.small))
+        if (corax_sample_drawn(i, e.small))
             small_circle(n, set->circles[i].axis, set->circles[i].angle, cls);
     double x, y;
     if (n->style->planes & CORAX_NET_POLES)
         for (size_t i = 0; i < set->npoles; i++) {
-            if (!drawn(i, e.poles))
+            if (!corax_sample_drawn(i, e.poles))
                 continue;
             place(n, set->poles[i], &x, &y);
             corax_palette_symbol(n->svg, shape, x, y, 8, fill);
         }
     snprintf(cls, sizeof cls, "hollow %s", stroke);
     for (size_t i = 0; i < set->nlines; i++) {
-        if (!drawn(i, e.lines))
+        if (!corax_sample_drawn(i, e.lines))
             continue;
         place(n, set->lines[i], &x, &y);
         corax_palette_symbol(n->svg, shape, x, y, 8, cls);
