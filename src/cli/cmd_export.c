@@ -43,7 +43,8 @@ static const char export_help[] =
     "  --contact-window M    structures this near orient a contact (default 2): the\n"
     "                        Fisher mean of their poles, with count and kappa\n"
     "  --youngest-first LIST units youngest first: polarity and younging_x/y/z\n"
-    "  --binary              VTK in binary (big-endian)\n"
+    "  --binary, --ascii     VTK in binary (big-endian) or text; default: text up to\n"
+    "                        100000 structures, binary above\n"
     "  --shape discs|points  VTK structures as discs (default) or points with normals\n"
     "  --radius METRES       disc radius, VTK and DXF (default 5)\n"
     "  --arrows METRES       lineations also as lines this long, down-plunge (VTK:\n"
@@ -61,6 +62,7 @@ static const char export_help[] =
 enum {
     OPT_FORMAT = OPT_COMMAND_BASE,
     OPT_BINARY,
+    OPT_ASCII,
     OPT_SHAPE,
     OPT_RADIUS,
     OPT_STEP,
@@ -133,8 +135,9 @@ static int export_option(void *ctx, int opt, const char *arg, char *why, size_t 
                                               : FORMAT_GIS;
         return 0;
     case OPT_BINARY:
+    case OPT_ASCII:
         o->binary_given = 1;
-        o->vtk.encoding = CORAX_VTK_BINARY;
+        o->vtk.encoding = opt == OPT_BINARY ? CORAX_VTK_BINARY : CORAX_VTK_ASCII;
         return 0;
     case OPT_SHAPE:
         o->shape_given = 1;
@@ -191,7 +194,7 @@ static int parse_csv(export_opts *o)
 {
     if (o->binary_given || o->shape_given || o->radius_given || o->arrows_given ||
         !o->vtk.traces)
-        return cli_usage("export", "--binary, --shape, --radius, --arrows and --no-traces are "
+        return cli_usage("export", "--binary, --ascii, --shape, --radius, --arrows and --no-traces are "
                                    "for --format vtk and the GIS formats");
     if (o->findings || o->layers)
         return cli_usage("export", "--findings and --layers are for the GIS formats (gpkg, "
@@ -244,7 +247,7 @@ static int parse_gis(export_opts *o)
     if (!corax_gis_driver(o->format_name))
         return unknown_format(o);
     if (o->binary_given || o->shape_given)
-        return cli_usage("export", "--binary and --shape are for --format vtk");
+        return cli_usage("export", "--binary, --ascii and --shape are for --format vtk");
     if (strcmp(o->c.output, "-") == 0)
         return cli_usage("export", "--format %s writes a file: give -o FILE", o->format_name);
     int need = o->vtk.traces && (!o->layers || export_wants(o, LAYER_TRACES) ||
@@ -263,6 +266,7 @@ static int parse(int argc, char **argv, export_opts *o)
         CLI_COMMON_OPTIONS,
         {"format", required_argument, NULL, OPT_FORMAT},
         {"binary", no_argument, NULL, OPT_BINARY},
+        {"ascii", no_argument, NULL, OPT_ASCII},
         {"shape", required_argument, NULL, OPT_SHAPE},
         {"radius", required_argument, NULL, OPT_RADIUS},
         {"step", required_argument, NULL, OPT_STEP},
@@ -480,7 +484,9 @@ static void about_export(cli_about *a, const export_opts *o, const corax_program
     }
     const corax_export_options *v = &o->vtk;
     cli_about_set(a, "encoding", "%s", v->encoding == CORAX_VTK_BINARY ? "binary (big-endian)"
-                                                                      : "ascii");
+                                       : v->encoding == CORAX_VTK_ASCII ? "ascii"
+                                       : "ascii up to 100000 structures, binary (big-endian) "
+                                         "above");
     cli_about_set(a, "shape", "%s", v->shape == CORAX_EXPORT_DISCS ? "discs" : "points");
     if (v->shape == CORAX_EXPORT_DISCS)
         cli_about_set(a, "disc_radius", "%g (%d corners)", v->disc_radius, v->disc_sides);
