@@ -125,6 +125,20 @@ static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p, cons
     corax_writer_end_row(c->w);
 }
 
+/* Simulate group h (one hole's readings) into spread; its cloud, when w is
+ * not NULL, into w. */
+static corax_status simulate_hole(const convert_run *r, const member *g, const size_t *groups,
+                                  size_t h, const corax_mc_reading *mr, corax_spread *spread,
+                                  corax_mc *mc, corax_writer *w)
+{
+    const convert_setup *s = r->s;
+    size_t a = groups[h], n = groups[h + 1] - a;
+    const corax_hole *hole = g[a].hole;
+    cloud_ctx ctx = {w, corax_hole_name(hole), mr + a};
+    return corax_mc_hole(mc, hole, mr + a, n, &s->convert, &s->errors, s->draws, s->seed,
+                         spread + a, w ? on_draw : NULL, &ctx);
+}
+
 /* Simulate every group; spread[k] for member k. The cloud (may be NULL) gets
  * the holes in group order. */
 static int simulate(const convert_run *r, const member *g, const size_t *groups, size_t ngroups,
@@ -148,35 +162,44 @@ static int simulate(const convert_run *r, const member *g, const size_t *groups,
     cli_progress progress;
     cli_progress_start(&progress, r->c, "uncertainty", "readings", (double)count);
     size_t done = 0;
-    if (!failed) {
+    /* Holes go to threads in turn. Only the cloud needs them in order: an
+     * ordered loop makes a thread that finishes early wait (spinning, which
+     * on a busy machine takes the processor from the others), so without a
+     * cloud each hole just counts itself done. */
+    if (!failed && cloud) {
 #pragma omp parallel for ordered schedule(dynamic, 1) num_threads(nlanes)
         for (size_t h = 0; h < ngroups; h++) {
             int t = omp_get_thread_num();
-            size_t a = groups[h], n = groups[h + 1] - a;
-            const corax_hole *hole = g[a].hole;
-            cloud_ctx ctx = {cw[t], corax_hole_name(hole), mr + a};
-            if (cloud)
-                corax_writer_reset(cw[t]);
-            corax_status st = corax_mc_hole(mc[t], hole, mr + a, n, &s->convert, &s->errors,
-                                            s->draws, s->seed, spread + a,
-                                            cloud ? on_draw : NULL, &ctx);
-            if (st != CORAX_OK) {
+            corax_writer_reset(cw[t]);
+            if (simulate_hole(r, g, groups, h, mr, spread, mc[t], cw[t]) != CORAX_OK) {
 #pragma omp atomic write
                 failed = 1;
             }
 #pragma omp ordered
             {
-                if (cloud) {
-                    size_t len;
-                    const char *text = corax_writer_contents(cw[t], &len);
-                    corax_writer_text(cloud, text, len);
-                }
-                done += n;
+                size_t len;
+                const char *text = corax_writer_contents(cw[t], &len);
+                corax_writer_text(cloud, text, len);
+                done += groups[h + 1] - groups[h];
                 cli_progress_set(&progress, (double)done);
             }
         }
-        cli_progress_end(&progress);
+    } else if (!failed) {
+#pragma omp parallel for schedule(dynamic, 1) num_threads(nlanes)
+        for (size_t h = 0; h < ngroups; h++) {
+            if (simulate_hole(r, g, groups, h, mr, spread, mc[omp_get_thread_num()], NULL) !=
+                CORAX_OK) {
+#pragma omp atomic write
+                failed = 1;
+            }
+#pragma omp critical(convert_mc_progress)
+            {
+                done += groups[h + 1] - groups[h];
+                cli_progress_set(&progress, (double)done);
+            }
+        }
     }
+    cli_progress_end(&progress);
     for (int k = 0; mc && k < nlanes; k++)
         corax_mc_free(mc[k]);
     for (int k = 0; cw && k < nlanes; k++)
