@@ -6,6 +6,7 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "common/format.h"
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/table.h"
@@ -129,6 +130,45 @@ static void test_fixed_format_matches_printf(void **state)
     assert_string_equal(a, "0.00");
     a[corax_format_fixed(a, -1e300, 1)] = '\0';
     assert_close(strtod(a, NULL), -1e300, 1e-16, 0, "huge values keep all their digits");
+}
+
+/* The notes' thresholds as printf's "%.3g" gives them, digit for digit: whole
+ * numbers without printf, anything else through it. The C library's printf
+ * is the reference. */
+static void test_g3_matches_printf(void **state)
+{
+    (void)state;
+    uint64_t seed = 9;
+    char a[64], b[64];
+    for (int i = 0; i < 100000; i++) {
+        double x = i % 3 == 0 ? floor((test_uniform(&seed) - 0.5) * 2400)
+                   : i % 3 == 1 ? (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 8) - 3)
+                                : floor(test_uniform(&seed) * 2000) / 4;
+        a[corax_format_g3(a, x)] = '\0';
+        snprintf(b, sizeof b, "%.3g", x);
+        if (strcmp(a, b) != 0)
+            fail_msg("%.17g: '%s', printf '%s'", x, a, b);
+    }
+    a[corax_format_g3(a, -0.0)] = '\0';
+    assert_string_equal(a, "-0");
+}
+
+/* A note's phrases from pieces are cut short exactly as printf's are. */
+static void test_note_pieces_like_note_add(void **state)
+{
+    (void)state;
+    const char *const piece[] = {"alpha ", "7.5", " is below ", "10", ": a phrase"};
+    for (size_t size = 1; size < 80; size++) {
+        char a[80], b[80];
+        size_t ua = 0, ub = 0;
+        a[0] = b[0] = '\0';
+        corax_note_add(a, size, &ua, "first");
+        corax_note_add(b, size, &ub, "first");
+        corax_note_pieces(a, size, &ua, piece, 5);
+        corax_note_add(b, size, &ub, "%s%s%s%s%s", piece[0], piece[1], piece[2], piece[3], piece[4]);
+        assert_int_equal(ua, ub);
+        assert_string_equal(a, b);
+    }
 }
 
 /* Read a whole small table into one string: fields joined by '|', rows by '/',
@@ -503,6 +543,8 @@ int main(void)
         cmocka_unit_test(test_numbers_refused),
         cmocka_unit_test(test_decimal_comma),
         cmocka_unit_test(test_fixed_format_matches_printf),
+        cmocka_unit_test(test_g3_matches_printf),
+        cmocka_unit_test(test_note_pieces_like_note_add),
         cmocka_unit_test(test_reader_handles_real_world_csv),
         cmocka_unit_test(test_reader_faults),
         cmocka_unit_test(test_reader_large_file),
