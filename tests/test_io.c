@@ -95,8 +95,9 @@ static double format_sample(uint64_t *seed, int d, int kind)
 }
 
 /* The fixed formatter against the C library's printf("%.*f") (the reference:
- * the exact binary value rounded half to even), digit for digit, on a random
- * sweep, ties and random bit patterns included; only -0 differs, by design. */
+ * the exact binary value rounded half to even; docs/check-values.md), digit
+ * for digit, on a random sweep, ties and random bit patterns included; only
+ * -0 differs, by design. */
 static void test_fixed_format_matches_printf(void **state)
 {
     (void)state;
@@ -134,7 +135,7 @@ static void test_fixed_format_matches_printf(void **state)
 
 /* The notes' thresholds as printf's "%.3g" gives them, digit for digit: whole
  * numbers without printf, anything else through it. The C library's printf
- * is the reference. */
+ * is the reference (docs/check-values.md). */
 static void test_g3_matches_printf(void **state)
 {
     (void)state;

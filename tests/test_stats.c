@@ -398,9 +398,10 @@ static void test_density_cluster_peaks_at_centre(void **state)
     free(grid2);
 }
 
-/* The density grid as it was first written, kept as the reference: every
- * reading against every node (Kamb 1959 counting; Vollmer 1995 smoothing with
- * terms below e^-40 dropped), weights rescaled to sum to n. */
+/* The density grid as it was first written, kept as the reference
+ * (docs/check-values.md): every reading against every node (Kamb 1959
+ * counting; Vollmer 1995 smoothing with terms below e^-40 dropped), weights
+ * rescaled to sum to n. */
 static double reference_count(const corax_density *d, corax_vec3 u, const corax_vec3 *v,
                               const double *w, double scale)
 {

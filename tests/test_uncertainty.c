@@ -396,7 +396,8 @@ static void test_ziggurat_is_normal(void **state)
 
 /* The inline generator is GSL's taus2 (L'Ecuyer 1996, as GSL seeds it),
  * number for number, checked against GSL itself (a general-purpose reference
- * library) from seeds small, zero (taken as 1), and past 32 bits. */
+ * library; docs/check-values.md) from seeds small, zero (taken as 1), and
+ * past 32 bits. */
 static void test_taus_is_gsl_taus2(void **state)
 {
     (void)state;
