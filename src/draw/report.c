@@ -380,10 +380,8 @@ typedef struct check_count {
 static int check_order(const void *pa, const void *pb)
 {
     const check_count *a = pa, *b = pb;
-    for (int s = CORAX_ERROR; s >= CORAX_NOTE; s--)
-        if (a->count[s] != b->count[s])
-            return a->count[s] > b->count[s] ? -1 : 1;
-    return strcmp(a->check, b->check);
+    int worse = corax_report_worse(a->count, b->count);
+    return worse ? worse : strcmp(a->check, b->check);
 }
 
 static corax_status by_check(page *p)

@@ -104,6 +104,17 @@ enum {
     REPORT_HOLE_ROWS = 5
 };
 
+/* Which of two tallies is worse: -1 when a is (more errors, then warnings,
+ * then notes), 1 when b is, 0 when they are equal. */
+static inline int corax_report_worse(const size_t a[REPORT_SEVERITIES],
+                                     const size_t b[REPORT_SEVERITIES])
+{
+    for (int s = REPORT_SEVERITIES - 1; s >= 0; s--)
+        if (a[s] != b[s])
+            return a[s] > b[s] ? -1 : 1;
+    return 0;
+}
+
 /* Build the model. CORAX_ENOMEM; the model is then freed. */
 corax_status corax_report_model_build(report_model *m, const corax_report_input *in);
 void corax_report_model_free(report_model *m);

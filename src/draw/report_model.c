@@ -298,9 +298,9 @@ typedef struct rank {
 static int rank_order(const void *pa, const void *pb)
 {
     const rank *a = pa, *b = pb;
-    for (int s = CORAX_ERROR; s >= CORAX_NOTE; s--)
-        if (a->count[s] != b->count[s])
-            return a->count[s] > b->count[s] ? -1 : 1;
+    int worse = corax_report_worse(a->count, b->count);
+    if (worse)
+        return worse;
     if (a->readings != b->readings)
         return a->readings > b->readings ? -1 : 1;
     return a->index < b->index ? -1 : 1;
