@@ -1,7 +1,9 @@
 /* Benchmark: every command end to end on an invented program of 1,000,000
  * core readings in 2,000 holes, the log in random hole order (a multi-hole log
  * as it arrives, the realistic case: every row moves to another hole).
- * CORAX_BENCH_READINGS sets another size (e.g. 4000000). Needs CORAX, the
+ * CORAX_BENCH_READINGS sets another size (e.g. 4000000), CORAX_BENCH_ONLY
+ * the commands (those whose label holds it, e.g. "stereonet"; plain convert
+ * always runs, for the later commands read its table). Needs CORAX, the
  * command, in the environment.
  *
  * For each command it prints rows per second and the peak resident memory of
@@ -233,8 +235,11 @@ int main(void)
           log},
          {col, sur, log}, {draws}, 1},
     };
+    const char *only = getenv("CORAX_BENCH_ONLY");
     for (size_t i = 0; i < sizeof commands / sizeof commands[0]; i++)
-        if (measure(&commands[i], corax, readings))
+        if ((!only || strstr(commands[i].label, only) || strstr(only, commands[i].label) ||
+             strncmp(commands[i].label, "convert, ", 9) == 0) &&
+            measure(&commands[i], corax, readings))
             return 1;
     printf("  sizes: report %.1f MB, net %.1f MB, VTK %.1f MB\n", file_mb(path("report.html")),
            file_mb(path("net.svg")), file_mb(path("out.vtk")));
