@@ -112,10 +112,12 @@ static void net_point(corax_vec3 w, double *x, double *y)
     *y = w.y * f;
 }
 
+/* The cell of a coordinate, clamped to the net (a reading that is not a
+ * number goes to the first cell, where its test fails as it always did). */
 static size_t cell_index(const bins *b, double x)
 {
     double c = floor((x + 1.0) / b->cell);
-    return c <= 0.0 ? 0 : c >= (double)b->m ? b->m - 1 : (size_t)c;
+    return !(c > 0.0) ? 0 : c >= (double)b->m ? b->m - 1 : (size_t)c;
 }
 
 static size_t cell_of(const bins *b, corax_vec3 v)
