@@ -41,6 +41,24 @@ static void test_numbers_parse_like_strtod(void **state)
         if (v != ref)
             fail_msg("'%s' parsed as %.17g, strtod gives %.17g", buf, v, ref);
     }
+    for (int i = 0; i < 100000; i++) { /* any finite double, all its digits or some */
+        double x;
+        do {
+            uint64_t bits = (uint64_t)(test_uniform(&seed) * 0x1p32) << 32 |
+                            (uint64_t)(test_uniform(&seed) * 0x1p32);
+            memcpy(&x, &bits, sizeof x);
+        } while (!isfinite(x));
+        if (i % 2)
+            snprintf(buf, sizeof buf, "%.17g", x);
+        else
+            snprintf(buf, sizeof buf, "%.*e", (int)(test_uniform(&seed) * 20), x);
+        double v, ref = strtod(buf, NULL);
+        corax_number_status st = parse(buf, '.', &v);
+        if (fabs(ref) == HUGE_VAL) /* beyond the doubles: refused, not rounded to infinity */
+            assert_int_equal(st, CORAX_NUMBER_NOT_FINITE);
+        else if (st != CORAX_NUMBER_OK || memcmp(&v, &ref, sizeof v) != 0)
+            fail_msg("'%s' parsed as %.17g, strtod gives %.17g", buf, v, ref);
+    }
 }
 
 static void test_numbers_refused(void **state)
