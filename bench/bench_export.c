@@ -59,8 +59,9 @@ static void export(const char *label, const char *path, const corax_program *pro
         exit(1);
     }
     double t = now() - t0, mb = megabytes(path);
-    printf("  %-22s %.2f s, %.2f million structures/s, %.0f MiB at %.0f MiB/s (%zu points)\n",
-           label, t, STRUCTURES / t / 1e6, mb, mb / t, n.points);
+    printf("  %-22s %.2f s, %.2f million structures/s, %.0f MiB at %.0f MiB/s, %.0f bytes a "
+           "structure with its share of the traces (%zu points)\n",
+           label, t, STRUCTURES / t / 1e6, mb, mb / t, mb * 1048576.0 / STRUCTURES, n.points);
     unlink(path);
 }
 
@@ -86,11 +87,15 @@ int main(void)
     corax_export_options o = corax_export_options_default();
     printf("synthetic program: %d holes of %d m, %d structures\n", HOLES, STATIONS * SPACING,
            STRUCTURES);
+    printf("  (by default an export of over %d structures is binary)\n", CORAX_EXPORT_ASCII_MAX);
+    o.encoding = CORAX_VTK_ASCII;
     export("discs, ASCII:", path, prog, s, &o);
     o.encoding = CORAX_VTK_BINARY;
     export("discs, binary:", path, prog, s, &o);
     o.shape = CORAX_EXPORT_POINTS;
     export("points, binary:", path, prog, s, &o);
+    o.encoding = CORAX_VTK_ASCII;
+    export("points, ASCII:", path, prog, s, &o);
 
     /* every hole projected into a section, with its slab crossings */
     corax_section sec = corax_section_make(5000, 5000, corax_rad(135), 100);

@@ -113,12 +113,63 @@ static void test_section_without_structures(void **state)
     corax_section_drawing_free(NULL);
 }
 
+static size_t count(const char *doc, const char *what)
+{
+    size_t n = 0;
+    for (const char *p = doc; (p = strstr(p, what)); p++)
+        n++;
+    return n;
+}
+
+/* A slab of 100,000 structures is drawn as a sample of at most 20,000
+ * ticks, the legend saying how many of how many, and the file stays a few
+ * megabytes; the legend's counts are of them all. A crowd of holes at one
+ * place names a few of them, never stacking names above the page. */
+static void test_section_big_slab_sampled(void **state)
+{
+    (void)state;
+    enum { N = 100000, HOLES = 40 };
+    corax_section s = corax_section_make(0, 0, corax_rad(90), 50);
+    corax_section_drawing *d = corax_section_drawing_new(&s, 5);
+    assert_non_null(d);
+    for (int h = 0; h < HOLES; h++) {
+        char name[16];
+        snprintf(name, sizeof name, "C%02d", h);
+        corax_section_sample t[2] = {{0, {h * 0.5, 0, 500}, 1}, {300, {h * 0.5, 0, 200}, 1}};
+        assert_int_equal(corax_section_drawing_hole(d, name, t, 2), CORAX_OK);
+    }
+    corax_section_dip dip = corax_section_plane(&s, (corax_plane){corax_rad(40), 0});
+    for (int i = 0; i < N; i++) {
+        corax_section_point at = {(i % 200) * 0.1, 0, 480 - (i % 997) * 0.25};
+        assert_int_equal(corax_section_drawing_structure(d, at, &dip, 1 + i % 2,
+                                                         i % 2 ? "vein" : "bedding", "a reading"),
+                         CORAX_OK);
+    }
+    corax_svg *svg = corax_section_drawing_render(d, "Big", NULL);
+    size_t len;
+    const char *doc = corax_svg_finish(svg, &len);
+    size_t ticks = count(doc, "class=\"tick c");
+    size_t drawn = ticks - 2; /* the legend's two */
+    assert_true(drawn > 19000 && drawn <= 20000);
+    char want[80];
+    snprintf(want, sizeof want, ">%zu of %d drawn (a sample)</text>", drawn, N);
+    assert_non_null(strstr(doc, want));
+    assert_non_null(strstr(doc, ">bedding (50000)</text>"));
+    assert_true(len < 5000000);
+    /* names stack at most a few rows above the holes; none above the top */
+    size_t names = count(doc, "class=\"hole-name\"");
+    assert_true(names >= 1 && names <= 5);
+    corax_svg_free(svg);
+    corax_section_drawing_free(d);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_svg_document),
         cmocka_unit_test(test_section_tick_at_the_apparent_dip),
         cmocka_unit_test(test_section_without_structures),
+        cmocka_unit_test(test_section_big_slab_sampled),
     };
     return cmocka_run_group_tests_name("draw", tests, NULL, NULL);
 }

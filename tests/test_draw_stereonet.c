@@ -293,6 +293,72 @@ static void test_small_circles_and_picks(void **state)
     corax_svg_free(svg);
 }
 
+/* A big set is drawn as a sample, and the net says so: at most 2,000 poles
+ * of a set and 300 great circles, the count drawn of the count read in its
+ * legend, while the density and the summary take every reading. The sample
+ * does not beat with a period of the table: poles that alternate between two
+ * clusters (a sample of every 25th would hold one) come out about half and
+ * half. */
+static void test_big_sets_drawn_as_a_sample(void **state)
+{
+    (void)state;
+    enum { N = 50000 };
+    corax_vec3 *poles = malloc(N * sizeof *poles);
+    assert_non_null(poles);
+    uint64_t seed = 6;
+    for (int i = 0; i < N; i++)
+        poles[i] = corax_fisher_draw(i % 2 ? pole_of(50, 180) : pole_of(50, 0), 40,
+                                     test_uniform(&seed), test_uniform(&seed));
+    corax_axial_summary s;
+    assert_int_equal(corax_axial_summary_compute(poles, NULL, N, &s), CORAX_OK);
+    corax_net_set set = {.name = "many", .poles = poles, .npoles = N, .pole_summary = &s};
+    corax_net_style style = corax_net_style_default();
+    corax_svg *svg;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    size_t len;
+    const char *doc = corax_svg_finish(svg, &len);
+    size_t drawn = count(doc, "class=\"pt f0\"") - 2; /* the legend's mark, the mean's dot */
+    assert_true(drawn >= 1900 && drawn <= 2000);
+    char note[80];
+    snprintf(note, sizeof note, ">%zu of %d poles drawn (a sample)</text>", drawn, N);
+    assert_non_null(strstr(doc, note));
+    assert_non_null(strstr(doc, ">50000 poles, 0 lines</text>"));
+    assert_non_null(strstr(doc, "uniform data: 3 σ; n 50000"));
+    double cx, cy, r, x, y;
+    primitive_of(doc, &cx, &cy, &r);
+    size_t north = 0, south = 0;
+    for (const char *c = doc; (c = strstr(c, "<circle cx=\"")); c++)
+        if (sscanf(c, "<circle cx=\"%lf\" cy=\"%lf\" r=\"3.4\" class=\"pt f0\"", &x, &y) == 2 &&
+            hypot(x - cx, y - cy) < r) {
+            north += y < cy;
+            south += y > cy;
+        }
+    assert_true(north + south >= drawn - 1);
+    assert_close((double)north / (double)(north + south), 0.5, 0, 0.06,
+                 "the sample holds both clusters of an alternating table");
+    assert_true(len < 1000000);
+    corax_svg_free(svg);
+
+    style.planes = CORAX_NET_GREAT_CIRCLES;
+    style.contours = 0;
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    drawn = count(doc, "class=\"gc k0\"");
+    assert_true(drawn >= 280 && drawn <= 300);
+    snprintf(note, sizeof note, ">%zu of %d great circles drawn (a sample)</text>", drawn, N);
+    assert_non_null(strstr(doc, note));
+    corax_svg_free(svg);
+
+    set.npoles = 1500; /* below the limit: every pole */
+    style = corax_net_style_default();
+    assert_int_equal(corax_stereonet_page(&set, 1, &style, 0, &svg), CORAX_OK);
+    doc = corax_svg_finish(svg, NULL);
+    assert_int_equal(count(doc, "class=\"pt f0\""), 1500 + 2);
+    assert_null(strstr(doc, "(a sample)"));
+    corax_svg_free(svg);
+    free(poles);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -301,6 +367,7 @@ int main(void)
         cmocka_unit_test(test_groups_and_empty_sets),
         cmocka_unit_test(test_great_circles_inside_primitive),
         cmocka_unit_test(test_small_circles_and_picks),
+        cmocka_unit_test(test_big_sets_drawn_as_a_sample),
     };
     return cmocka_run_group_tests_name("draw_stereonet", tests, NULL, NULL);
 }

@@ -7,6 +7,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "common/format.h"
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/table.h"
@@ -41,6 +42,24 @@ static void test_numbers_parse_like_strtod(void **state)
         if (v != ref)
             fail_msg("'%s' parsed as %.17g, strtod gives %.17g", buf, v, ref);
     }
+    for (int i = 0; i < 100000; i++) { /* any finite double, all its digits or some */
+        double x;
+        do {
+            uint64_t bits = (uint64_t)(test_uniform(&seed) * 0x1p32) << 32 |
+                            (uint64_t)(test_uniform(&seed) * 0x1p32);
+            memcpy(&x, &bits, sizeof x);
+        } while (!isfinite(x));
+        if (i % 2)
+            snprintf(buf, sizeof buf, "%.17g", x);
+        else
+            snprintf(buf, sizeof buf, "%.*e", (int)(test_uniform(&seed) * 20), x);
+        double v, ref = strtod(buf, NULL);
+        corax_number_status st = parse(buf, '.', &v);
+        if (fabs(ref) == HUGE_VAL) /* beyond the doubles: refused, not rounded to infinity */
+            assert_int_equal(st, CORAX_NUMBER_NOT_FINITE);
+        else if (st != CORAX_NUMBER_OK || memcmp(&v, &ref, sizeof v) != 0)
+            fail_msg("'%s' parsed as %.17g, strtod gives %.17g", buf, v, ref);
+    }
 }
 
 static void test_numbers_refused(void **state)
@@ -70,35 +89,106 @@ static void test_decimal_comma(void **state)
     assert_int_equal(parse("12.75", ',', &v), CORAX_NUMBER_NOT_NUMBER);
 }
 
+/* A value for the formatter's sweep: spread over magnitudes, on and next to
+ * ties at d decimals, or any finite bit pattern. */
+static double format_sample(uint64_t *seed, int d, int kind)
+{
+    double x;
+    switch (kind) {
+    case 0:
+        return (test_uniform(seed) - 0.5) * pow(10, (int)(test_uniform(seed) * 18) - 4);
+    case 1: /* a decimal tie, as the nearest double gives it */
+        x = floor(test_uniform(seed) * 1e6) / pow(10, (int)(test_uniform(seed) * 7)) +
+            0.5 * pow(10, -d);
+        return test_uniform(seed) < 0.5 ? -x : x;
+    case 2: /* exact binary ties: multiples of 2^-k */
+        return ldexp(floor(test_uniform(seed) * 1e6), -(int)(test_uniform(seed) * 12));
+    default:
+        do {
+            uint64_t bits = (uint64_t)(test_uniform(seed) * 0x1p32) << 32 |
+                            (uint64_t)(test_uniform(seed) * 0x1p32);
+            memcpy(&x, &bits, sizeof x);
+        } while (!isfinite(x));
+        return x;
+    }
+}
+
+/* The fixed formatter against the C library's printf("%.*f") (the reference:
+ * the exact binary value rounded half to even; docs/check-values.md), digit
+ * for digit, on a random sweep, ties and random bit patterns included; only
+ * -0 differs, by design. */
 static void test_fixed_format_matches_printf(void **state)
 {
     (void)state;
     uint64_t seed = 5;
     char a[64], b[64];
-    for (int i = 0; i < 200000; i++) {
-        double x = (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 10) - 3);
-        int d = (int)(test_uniform(&seed) * 7);
+    for (int i = 0; i < 400000; i++) {
+        int d = (int)(test_uniform(&seed) * 10);
+        double x = format_sample(&seed, d, i % 4);
+        if (!(fabs(x) * pow(10, d) < 9e15))
+            continue; /* all 17 digits instead: checked below */
         size_t n = corax_format_fixed(a, x, d);
         a[n] = '\0';
         snprintf(b, sizeof b, "%.*f", d, x);
-        if (strcmp(b, "-0") == 0 || strncmp(b, "-0.", 3) == 0) { /* we never print -0 */
-            double back = strtod(b, NULL);
-            if (back == 0.0)
-                memmove(b, b + 1, strlen(b));
-        }
-        /* printf rounds the exact binary value; we round the scaled value. They may
-         * differ only on a last-digit tie: accept a difference of one unit there. */
-        if (strcmp(a, b) != 0) {
-            double ua = strtod(a, NULL), ub = strtod(b, NULL);
-            if (fabs(ua - ub) > 1.01 * pow(10, -d))
-                fail_msg("%.17g to %d places: '%s', printf '%s'", x, d, a, b);
-        }
+        if (b[0] == '-' && strtod(b, NULL) == 0.0) /* we never print -0 */
+            memmove(b, b + 1, strlen(b));
+        if (strcmp(a, b) != 0)
+            fail_msg("%.17g to %d places: '%s', printf '%s'", x, d, a, b);
+    }
+    static const struct {
+        double x;
+        int d;
+        const char *text;
+    } ties[] = {{0.125, 2, "0.12"}, {0.375, 2, "0.38"}, {2.5, 0, "2"}, {-3.5, 0, "-4"},
+                {1.005, 2, "1.00"}, {0.0625, 3, "0.062"}};
+    for (size_t i = 0; i < sizeof ties / sizeof ties[0]; i++) {
+        a[corax_format_fixed(a, ties[i].x, ties[i].d)] = '\0';
+        assert_string_equal(a, ties[i].text);
     }
     assert_int_equal(corax_format_fixed(a, NAN, 2), 0);
     a[corax_format_fixed(a, -0.0001, 2)] = '\0';
     assert_string_equal(a, "0.00");
     a[corax_format_fixed(a, -1e300, 1)] = '\0';
     assert_close(strtod(a, NULL), -1e300, 1e-16, 0, "huge values keep all their digits");
+}
+
+/* The notes' thresholds as printf's "%.3g" gives them, digit for digit: whole
+ * numbers without printf, anything else through it. The C library's printf
+ * is the reference (docs/check-values.md). */
+static void test_g3_matches_printf(void **state)
+{
+    (void)state;
+    uint64_t seed = 9;
+    char a[64], b[64];
+    for (int i = 0; i < 100000; i++) {
+        double x = i % 3 == 0 ? floor((test_uniform(&seed) - 0.5) * 2400)
+                   : i % 3 == 1 ? (test_uniform(&seed) - 0.5) * pow(10, (int)(test_uniform(&seed) * 8) - 3)
+                                : floor(test_uniform(&seed) * 2000) / 4;
+        a[corax_format_g3(a, x)] = '\0';
+        snprintf(b, sizeof b, "%.3g", x);
+        if (strcmp(a, b) != 0)
+            fail_msg("%.17g: '%s', printf '%s'", x, a, b);
+    }
+    a[corax_format_g3(a, -0.0)] = '\0';
+    assert_string_equal(a, "-0");
+}
+
+/* A note's phrases from pieces are cut short exactly as printf's are. */
+static void test_note_pieces_like_note_add(void **state)
+{
+    (void)state;
+    const char *const piece[] = {"alpha ", "7.5", " is below ", "10", ": a phrase"};
+    for (size_t size = 1; size < 80; size++) {
+        char a[80], b[80];
+        size_t ua = 0, ub = 0;
+        a[0] = b[0] = '\0';
+        corax_note_add(a, size, &ua, "first");
+        corax_note_add(b, size, &ub, "first");
+        corax_note_pieces(a, size, &ua, piece, 5);
+        corax_note_add(b, size, &ub, "%s%s%s%s%s", piece[0], piece[1], piece[2], piece[3], piece[4]);
+        assert_int_equal(ua, ub);
+        assert_string_equal(a, b);
+    }
 }
 
 /* Read a whole small table into one string: fields joined by '|', rows by '/',
@@ -226,6 +316,87 @@ static void test_reader_blank_line_across_blocks(void **state)
     assert_int_equal(info.blank_rows, 2); /* the blank line and the row "," */
     assert_int_equal(row.line, 262146);
     corax_reader_close(r);
+    unlink(path);
+}
+
+/* A random field for the round trip: letters, digits, inner blanks, and now
+ * and then a delimiter, a quote or a line end (which need quotes). */
+static size_t random_field(uint64_t *seed, char *out, int first)
+{
+    static const char chars[] = "abcxyz0189.- ,\"\n\r";
+    size_t n = (size_t)(test_uniform(seed) * (test_uniform(seed) < 0.9 ? 12 : 70)) + first;
+    for (size_t i = 0; i < n; i++) {
+        size_t k = (size_t)(test_uniform(seed) * (test_uniform(seed) < 0.9 ? 10 : 17));
+        out[i] = chars[k];
+        if (out[i] == ' ' && (i == 0 || i + 1 == n))
+            out[i] = 'q'; /* blanks around a value are not part of it */
+    }
+    out[n] = '\0';
+    return n;
+}
+
+/* Property: any table, written with the quoting CSV asks for and a random
+ * line end on each row (LF, CRLF, CR), reads back field for field with the
+ * right line numbers, across the reader's blocks: the word-at-a-time line
+ * scan and the in-place split agree with libcsv on every byte. */
+static void test_reader_round_trip(void **state)
+{
+    (void)state;
+    enum { ROWS = 30000, WIDTH = 8 };
+    static const char *const ends[] = {"\n", "\r\n", "\r"};
+    const char *path = test_tmp_path("round.csv");
+    FILE *fp = fopen(path, "wb");
+    assert_non_null(fp);
+    uint64_t seed = 404, replay = seed;
+    long *lines = malloc(ROWS * sizeof *lines), line = 1;
+    assert_non_null(lines);
+    char field[128];
+    for (int r = 0; r < ROWS; r++) {
+        int width = 1 + (int)(test_uniform(&seed) * WIDTH);
+        lines[r] = line;
+        for (int c = 0; c < width; c++) {
+            size_t n = random_field(&seed, field, c == 0);
+            int quoted = strpbrk(field, ",\"\n\r") != NULL || test_uniform(&seed) < 0.05;
+            fputs(c ? "," : "", fp);
+            if (!quoted) {
+                fputs(field, fp);
+                continue;
+            }
+            fputc('"', fp);
+            for (size_t i = 0; i < n; i++) {
+                fputc(field[i], fp);
+                if (field[i] == '"')
+                    fputc('"', fp);
+                /* a quoted CR LF is one line end, as is a lone CR or LF */
+                line += field[i] == '\n' ? !(i && field[i - 1] == '\r') : field[i] == '\r';
+            }
+            fputc('"', fp);
+        }
+        fputs(ends[(int)(test_uniform(&seed) * 3)], fp);
+        line++;
+    }
+    fclose(fp);
+    corax_reader *rd;
+    corax_table_format f = {',', '.'};
+    assert_int_equal(corax_reader_open(path, f, &rd, NULL), CORAX_OK);
+    corax_row row;
+    for (int r = 0; r < ROWS; r++) {
+        assert_int_equal(corax_reader_next(rd, &row, NULL), CORAX_OK);
+        int width = 1 + (int)(test_uniform(&replay) * WIDTH);
+        assert_int_equal(row.count, (size_t)width);
+        assert_int_equal(row.line, lines[r]);
+        for (int c = 0; c < width; c++) {
+            size_t n = random_field(&replay, field, c == 0);
+            if (!(strpbrk(field, ",\"\n\r") != NULL))
+                (void)test_uniform(&replay);
+            assert_int_equal(row.length[c], n);
+            assert_string_equal(row.field[c], field);
+        }
+        (void)test_uniform(&replay); /* the line end */
+    }
+    assert_int_equal(corax_reader_next(rd, &row, NULL), CORAX_END);
+    corax_reader_close(rd);
+    free(lines);
     unlink(path);
 }
 
@@ -511,10 +682,13 @@ int main(void)
         cmocka_unit_test(test_numbers_refused),
         cmocka_unit_test(test_decimal_comma),
         cmocka_unit_test(test_fixed_format_matches_printf),
+        cmocka_unit_test(test_g3_matches_printf),
+        cmocka_unit_test(test_note_pieces_like_note_add),
         cmocka_unit_test(test_reader_handles_real_world_csv),
         cmocka_unit_test(test_reader_faults),
         cmocka_unit_test(test_reader_large_file),
         cmocka_unit_test(test_reader_blank_line_across_blocks),
+        cmocka_unit_test(test_reader_round_trip),
         cmocka_unit_test(test_writer_quotes_and_commits_whole),
         cmocka_unit_test(test_outputs_all_or_nothing),
         cmocka_unit_test(test_writer_quotes_a_row_opening_hash),

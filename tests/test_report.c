@@ -434,6 +434,103 @@ static void test_large_hole_thinned(void **state)
     free(r);
 }
 
+/* A program of many holes keeps to the page's budget: REPORT_LISTED_HOLES
+ * listed (those with the most errors, then warnings, first), the figures of
+ * REPORT_FIGURE_HOLES, at most REPORT_HOLE_ROWS rows of findings a hole once
+ * they exceed REPORT_FINDING_ROWS, and a link to the findings table beside
+ * the page for the rest; the tiles still count every finding. */
+static void test_many_holes_keep_to_the_budget(void **state)
+{
+    (void)state;
+    enum { HOLES = REPORT_LISTED_HOLES + 150, PER = 8, FINDINGS = 12 };
+    corax_program *p = corax_program_new();
+    corax_qa_reading *r = calloc(HOLES * PER, sizeof *r);
+    char (*name)[16] = calloc(HOLES, sizeof *name);
+    assert_true(p && r && name);
+    corax_findings F = {0};
+    for (int h = 0; h < HOLES; h++) {
+        snprintf(name[h], sizeof name[h], "M%04d", h);
+        assert_int_equal(corax_program_add(p, hole(name[h], 20.0 * (h % 40), 20.0 * (h / 40),
+                                                   10.0 * h, 60, 120, 1, 1)),
+                         CORAX_OK);
+        const corax_hole *path = corax_program_hole(p, (size_t)h);
+        for (int k = 0; k < PER; k++) {
+            corax_qa_reading *q = &r[h * PER + k];
+            *q = (corax_qa_reading){.hole = name[h], .path = path,
+                                    .reading = corax_reading_empty(), .kind = "vein",
+                                    .confidence = "", .file = "log.csv",
+                                    .line = (long)(h * PER + k + 2)};
+            q->reading.depth = 10.0 + 12.0 * k;
+            q->reading.alpha = corax_rad(30 + 5 * k);
+            q->reading.beta = corax_rad(40 * k);
+        }
+        /* every hole has notes; one in three a warning deep down, every 50th an
+     * error */
+        for (int k = 0; k < FINDINGS; k++)
+            assert_int_equal(corax_findings_add(&F, k == 0 && h % 50 == 7 ? CORAX_ERROR
+                                                    : k == 10 && h % 3 == 0 ? CORAX_WARNING
+                                                                          : CORAX_NOTE,
+                                                "soft", "log.csv", k + 2, name[h], 5.0 + 9 * k,
+                                                "finding %d of %s", k, name[h]),
+                             CORAX_OK);
+    }
+    corax_findings_sort(&F);
+    const char *path_out = test_tmp_path("report-budget.html");
+    corax_report_input in = {.program = p, .findings = &F, .readings = r,
+                             .nreadings = HOLES * PER,
+                             .findings_table = test_tmp_path("findings-budget.csv")};
+    corax_error err;
+    assert_int_equal(corax_report_write(&in, NULL, path_out, &err), CORAX_OK);
+    size_t len;
+    char *page = test_read_file(path_out, &len);
+    assert_int_equal(count(page, "<article class=\"hole\""), REPORT_LISTED_HOLES);
+    assert_int_equal(count(page, "<figure class=\"fig strip\">"), REPORT_FIGURE_HOLES);
+    char want[600];
+    snprintf(want, sizeof want, "<a href=\"%s\">the findings table (",
+             strrchr(in.findings_table, '/') + 1); /* beside the page: by its name */
+    assert_non_null(strstr(page, want));
+    snprintf(want, sizeof want, "%d other holes are not listed here", HOLES - REPORT_LISTED_HOLES);
+    assert_non_null(strstr(page, want));
+    snprintf(want, sizeof want, "id=\"count-note\">%d</span>",
+             HOLES * FINDINGS - HOLES / 3 - 1 - (HOLES + 42) / 50);
+    assert_non_null(strstr(page, want)); /* every finding counted */
+    /* every hole with an error is listed and drawn, the error ranks first */
+    for (int h = 7; h < HOLES; h += 50) {
+        snprintf(want, sizeof want, "<h3>%s</h3>", name[h]);
+        const char *part = strstr(page, want);
+        assert_non_null(part);
+        const char *next = strstr(part + 1, "<article");
+        const char *fig = strstr(part, "<figure class=\"fig strip\">");
+        assert_true(fig && (!next || fig < next));
+    }
+    /* the listed holes' 12 findings each pass the budget: a share of the rows
+     * each (never below REPORT_HOLE_ROWS), the rest named */
+    size_t rows = REPORT_FINDING_ROWS / REPORT_LISTED_HOLES;
+    rows = rows > REPORT_HOLE_ROWS ? rows : REPORT_HOLE_ROWS;
+    assert_int_equal(count(page, "<tr class=\"sev-"), REPORT_LISTED_HOLES * rows);
+    snprintf(want, sizeof want, "%zu more findings of this hole are in <a href=",
+             FINDINGS - rows);
+    assert_non_null(strstr(page, want));
+    const char *m3 = strstr(page, "<h3>M0003</h3>"); /* its warning is its 11th finding */
+    assert_non_null(m3);
+    const char *warned = strstr(m3, "finding 10 of M0003");
+    assert_true(warned && warned < strstr(m3, "</article>"));
+    free(page);
+    unlink(path_out);
+    /* standard output as the table: named, not linked */
+    in.findings_table = "-";
+    assert_int_equal(corax_report_write(&in, NULL, path_out, &err), CORAX_OK);
+    page = test_read_file(path_out, NULL);
+    assert_null(strstr(page, "<a href=\"findings"));
+    assert_non_null(strstr(page, "are in the findings table."));
+    free(page);
+    unlink(path_out);
+    corax_findings_clear(&F);
+    corax_program_free(p);
+    free(r);
+    free(name);
+}
+
 /* A program with nothing in it still makes a whole page. */
 static void test_empty_program(void **state)
 {
@@ -594,6 +691,7 @@ int main(void)
         cmocka_unit_test(test_strip_to_scale),
         cmocka_unit_test(test_section_along_the_spread),
         cmocka_unit_test(test_large_hole_thinned),
+        cmocka_unit_test(test_many_holes_keep_to_the_budget),
         cmocka_unit_test(test_empty_program),
         cmocka_unit_test(test_failed_write_leaves_nothing),
         cmocka_unit_test(test_program_first_and_holes_counted),

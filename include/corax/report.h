@@ -35,11 +35,18 @@ typedef struct corax_report_input {
     size_t nreadings;
     const corax_convert_options *convert; /* how readings convert (for the nets; NULL:
                                              the defaults) */
+    const char *findings_table;           /* the findings as a table (corax check -o), which
+                                             the page links to for what it leaves out: in
+                                             the report's folder, or an absolute path;
+                                             NULL or "-": named, not linked */
 } corax_report_input;
 
 /* Write the report to path ("-" for standard output), whole or not at all.
  * Every hole named by the program, the findings or the readings gets its
- * part, in the order corax_findings_sort() puts holes in. Text from the data
+ * part, in the order corax_findings_sort() puts holes in. A large program's
+ * page keeps to a budget (the figures of the holes with the most serious
+ * findings, a share of each hole's findings) and links to the findings
+ * table for the rest, so that it stays a few megabytes. Text from the data
  * is escaped; nothing on the page is fetched or run.
  * CORAX_EARG for a NULL input or path, a finding of no known severity, or a
  * count without its array; CORAX_EIO (err names the file), CORAX_ENOMEM. */

@@ -25,13 +25,20 @@
 extern "C" {
 #endif
 
-typedef enum corax_vtk_encoding { CORAX_VTK_ASCII = 0, CORAX_VTK_BINARY } corax_vtk_encoding;
+/* ASCII text or binary; AUTO lets the writer choose (corax_export_vtk() by
+ * the export's size; corax_vtk_open(), which knows no size, takes ASCII). */
+typedef enum corax_vtk_encoding {
+    CORAX_VTK_ASCII = 0,
+    CORAX_VTK_BINARY,
+    CORAX_VTK_AUTO
+} corax_vtk_encoding;
 typedef enum corax_vtk_type { CORAX_VTK_DOUBLE = 0, CORAX_VTK_INT } corax_vtk_type;
 
 typedef struct corax_vtk corax_vtk;
 
 /* Open a file ("-" for standard output) and write the header; the title is
- * one line (line breaks become blanks, cut at 255 bytes). */
+ * one line (line breaks become blanks, cut at 255 bytes). CORAX_VTK_AUTO
+ * writes ASCII. */
 corax_status corax_vtk_open(corax_outputs *set, const char *path, corax_vtk_encoding encoding,
                             const char *title,
                             corax_vtk **out, corax_error *err);

@@ -50,7 +50,8 @@ static const char export_help[] =
     "  --contact-window M    structures this near orient a contact (default 2): the\n"
     "                        Fisher mean of their poles, with count and kappa\n"
     "  --youngest-first LIST units youngest first: polarity and younging_x/y/z\n"
-    "  --binary              VTK in binary (big-endian)\n"
+    "  --binary, --ascii     VTK in binary (big-endian) or text; default: text up to\n"
+    "                        100000 structures, binary above\n"
     "  --shape discs|points  VTK structures as discs (default) or points with normals\n"
     "  --radius METRES       disc radius, VTK and DXF (default 5)\n"
     "  --arrows METRES       lineations also as lines this long, down-plunge (VTK:\n"
@@ -68,6 +69,7 @@ static const char export_help[] =
 enum {
     OPT_FORMAT = OPT_COMMAND_BASE,
     OPT_BINARY,
+    OPT_ASCII,
     OPT_SHAPE,
     OPT_RADIUS,
     OPT_STEP,
@@ -140,8 +142,9 @@ static int export_option(void *ctx, int opt, const char *arg, char *why, size_t 
                                                 : CORAX_EXPORT_JOB_GIS;
         return 0;
     case OPT_BINARY:
+    case OPT_ASCII:
         o->binary_given = 1;
-        o->j.vtk.encoding = CORAX_VTK_BINARY;
+        o->j.vtk.encoding = opt == OPT_BINARY ? CORAX_VTK_BINARY : CORAX_VTK_ASCII;
         return 0;
     case OPT_SHAPE:
         o->shape_given = 1;
@@ -175,7 +178,8 @@ static int parse_csv(export_opts *o)
 {
     if (o->binary_given || o->shape_given || o->radius_given || o->j.arrows_given ||
         !o->j.vtk.traces)
-        return cli_usage("export", "--binary, --shape, --radius, --arrows and --no-traces are "
+        return cli_usage("export", "--binary, --ascii, --shape, --radius, --arrows and "
+                                   "--no-traces are "
                                    "for --format vtk and the GIS formats");
     if (o->j.findings || o->j.layers)
         return cli_usage("export", "--findings and --layers are for the GIS formats (gpkg, "
@@ -237,7 +241,7 @@ static int parse_gis(export_opts *o)
     if (!corax_gis_driver(o->j.format_name))
         return unknown_format(o);
     if (o->binary_given || o->shape_given)
-        return cli_usage("export", "--binary and --shape are for --format vtk");
+        return cli_usage("export", "--binary, --ascii and --shape are for --format vtk");
     if (is_stream(o->c.output))
         return cli_usage("export", "--format %s writes a file: give -o FILE (not standard "
                                    "output, a device or a pipe)", o->j.format_name);
@@ -257,6 +261,7 @@ static int parse(int argc, char **argv, export_opts *o)
         CLI_COMMON_OPTIONS,
         {"format", required_argument, NULL, OPT_FORMAT},
         {"binary", no_argument, NULL, OPT_BINARY},
+        {"ascii", no_argument, NULL, OPT_ASCII},
         {"shape", required_argument, NULL, OPT_SHAPE},
         {"radius", required_argument, NULL, OPT_RADIUS},
         {"step", required_argument, NULL, OPT_STEP},

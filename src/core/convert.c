@@ -234,13 +234,22 @@ size_t corax_result_note(const corax_result *r, const corax_reading *rd, const c
     if (c & CORAX_COND_EXTRAPOLATED)
         corax_note_add(buf, size, &used,
                        "below the last survey station: the hole is taken as straight");
-    if (c & CORAX_COND_NEAR_PARALLEL)
-        corax_note_add(buf, size, &used,
-            "alpha %.1f is below %.3g: an error in beta swings this plane almost fully, and "
-            "the hole under-samples such planes",
-            alpha, corax_deg(o->near_parallel));
-    if (c & CORAX_COND_NEAR_PERPENDICULAR)
-        corax_note_add(buf, size, &used, "alpha %.1f is above %.3g: beta is barely defined", alpha,
-            corax_deg(o->near_perpendicular));
+    /* the commonest notes, built without printf: a large log gives one to a
+     * row in five */
+    char a[48], lim[48];
+    if (c & (CORAX_COND_NEAR_PARALLEL | CORAX_COND_NEAR_PERPENDICULAR))
+        a[corax_format_fixed(a, alpha, 1)] = '\0';
+    if (c & CORAX_COND_NEAR_PARALLEL) {
+        lim[corax_format_g3(lim, corax_deg(o->near_parallel))] = '\0';
+        const char *const piece[] = {"alpha ", a, " is below ", lim,
+                                     ": an error in beta swings this plane almost fully, and "
+                                     "the hole under-samples such planes"};
+        corax_note_pieces(buf, size, &used, piece, 5);
+    }
+    if (c & CORAX_COND_NEAR_PERPENDICULAR) {
+        lim[corax_format_g3(lim, corax_deg(o->near_perpendicular))] = '\0';
+        const char *const piece[] = {"alpha ", a, " is above ", lim, ": beta is barely defined"};
+        corax_note_pieces(buf, size, &used, piece, 5);
+    }
     return used;
 }

@@ -14,8 +14,9 @@ static inline corax_status core_frame_of(corax_vec3 t, corax_core_frame *f)
     f->t = t;
     if (h < 1e-9)
         return CORAX_EVALUE;
-    /* r = -(u - (u.t) t) / h, written out */
-    f->r = vec3(t.z * t.x / h, t.z * t.y / h, -(1.0 - t.z * t.z) / h);
+    /* r = -(u - (u.t) t) / h, written out: one division */
+    double k = 1.0 / h;
+    f->r = vec3(t.z * t.x * k, t.z * t.y * k, -(1.0 - t.z * t.z) * k);
     f->s = vec_cross(t, f->r);
     return CORAX_OK;
 }

@@ -2,8 +2,10 @@
  * findings about the program as a whole, a summary of the findings by
  * severity, hole and check, a plan and a section of the program with the
  * findings marked, and every hole with its findings, its strip and its
- * stereonet; the caution again at the foot. Inline CSS and SVG only: no script, nothing fetched. Every text
- * from the data is escaped. Written through corax_writer: whole or not at
+ * stereonet; the caution again at the foot. Inline CSS and SVG only: no
+ * script, nothing fetched; the one link out of the page is to the findings
+ * table, for what a large program's page leaves out. Every text from the
+ * data is escaped. Written through corax_writer: whole or not at
  * all. */
 #include <math.h>
 #include <stdio.h>
@@ -18,6 +20,7 @@ typedef struct page {
     corax_writer *w;
     const report_model *m;
     const corax_report_input *in;
+    const char *href; /* the findings table, relative to the page; NULL: not linked */
 } page;
 
 static void out(page *p, const char *html) { corax_writer_text(p->w, html, strlen(html)); }
@@ -26,6 +29,38 @@ static void sink(void *w, const char *text, size_t n) { corax_writer_text(w, tex
 
 /* Text from the data, escaped. */
 static void text(page *p, const char *t) { corax_markup_escape(t ? t : "", sink, p->w); }
+
+/* "the findings table (NAME)", a link when the page can reach it. */
+static void findings_link(page *p)
+{
+    const char *t = p->in->findings_table;
+    if (p->href) {
+        out(p, "<a href=\"");
+        text(p, p->href);
+        out(p, "\">the findings table (");
+        text(p, t);
+        out(p, ")</a>");
+    } else if (t && strcmp(t, "-") != 0) {
+        out(p, "the findings table (");
+        text(p, t);
+        out(p, ")");
+    } else {
+        out(p, "the findings table");
+    }
+}
+
+/* How the page reaches the findings table: by its name when it sits in the
+ * page's folder, by its path when absolute; else not at all. */
+static const char *table_href(const char *table, const char *page_path)
+{
+    if (!table || strcmp(table, "-") == 0)
+        return NULL;
+    const char *ts = strrchr(table, '/'), *ps = strrchr(page_path, '/');
+    size_t td = ts ? (size_t)(ts - table) : 0, pd = ps ? (size_t)(ps - page_path) : 0;
+    if (td == pd && strncmp(table, page_path, td) == 0)
+        return ts ? ts + 1 : table;
+    return table[0] == '/' ? table : NULL;
+}
 
 static const char *const severity_class[REPORT_SEVERITIES] = {"sev-n", "sev-w", "sev-e"};
 static const char *const severity_plural[REPORT_SEVERITIES] = {"notes", "warnings", "errors"};
@@ -88,6 +123,9 @@ static const char css_page[] =
     "article.hole{border-top:1px solid #d5d9de;margin-top:30px;padding-top:4px}\n"
     "article.hole h3{font-size:20px;margin:14px 0 2px}\n"
     ".about{margin:0 0 8px;color:#3d444d;font-size:14px}\n"
+    ".more{margin:4px 0 10px;color:#3d444d;font-size:13px;font-style:italic}\n"
+    ".budget{margin:0 0 12px;padding:8px 12px;background:#f3f5f7;border-left:4px solid #8a939c;"
+    "font-size:14px}\n"
     ".verdict{margin:4px 0 8px;font-weight:600}\n"
     ".clean{color:#2f6f4b}\n"
     ".hole-figs{display:flex;flex-wrap:wrap;gap:26px;align-items:flex-start}\n"
@@ -320,7 +358,16 @@ static void by_hole(page *p)
     severity_cells(p, wide);
     out(p, "<td></td><td></td><td></td></tr>\n");
     for (size_t i = 0; i < m->nhole; i++)
-        hole_row(p, &m->hole[i], i);
+        if (m->hole[i].listed)
+            hole_row(p, &m->hole[i], i);
+    if (m->listed_holes < m->nhole) {
+        corax_writer_printf(p->w, "<tr class=\"wide\"><td>%zu other holes (in ",
+                            m->nhole - m->listed_holes);
+        findings_link(p);
+        out(p, ")</td>");
+        severity_cells(p, m->unlisted);
+        out(p, "<td></td><td></td><td></td></tr>\n");
+    }
     out(p, "</tbody>\n</table>\n</div>\n");
 }
 
@@ -333,10 +380,8 @@ typedef struct check_count {
 static int check_order(const void *pa, const void *pb)
 {
     const check_count *a = pa, *b = pb;
-    for (int s = CORAX_ERROR; s >= CORAX_NOTE; s--)
-        if (a->count[s] != b->count[s])
-            return a->count[s] > b->count[s] ? -1 : 1;
-    return strcmp(a->check, b->check);
+    int worse = corax_report_worse(a->count, b->count);
+    return worse ? worse : strcmp(a->check, b->check);
 }
 
 static corax_status by_check(page *p)
@@ -377,6 +422,22 @@ static corax_status by_check(page *p)
     return CORAX_OK;
 }
 
+/* The names of the holes not in the collars, comma-separated: the first
+ * 50, then how many more (a log of another program's holes must not fill
+ * the page). */
+static void names_of(page *p)
+{
+    enum { MOST = 50 };
+    size_t k = 0;
+    for (size_t i = 0; i < p->m->nhole; i++)
+        if (!p->m->hole[i].path && k++ < MOST) {
+            out(p, k > 1 ? ", " : "");
+            text(p, p->m->hole[i].name);
+        }
+    if (k > MOST)
+        corax_writer_printf(p->w, " and %zu more", k - MOST);
+}
+
 /* The names the core log gives that the collars lack: not holes of the
  * program (a typo, most often), counted apart. */
 static void log_only_names(page *p, size_t *names, size_t *with)
@@ -407,14 +468,25 @@ static corax_status summary(page *p)
     if (strays) {
         corax_writer_printf(p->w, " and under %zu name%s that only the core log gives (",
                             strays, strays == 1 ? "" : "s");
-        for (size_t i = 0, k = 0; i < m->nhole; i++)
-            if (!m->hole[i].path) {
-                out(p, k++ ? ", " : "");
-                text(p, m->hole[i].name);
-            }
+        names_of(p);
         out(p, "), not holes of the program");
     }
-    out(p, ".</p>\n<div class=\"side-by-side\">\n");
+    out(p, ".</p>\n");
+    if (m->listed_holes < m->nhole || m->figure_holes < m->nhole || m->hidden) {
+        out(p, "<p class=\"budget\">To keep this page small enough to open, it ");
+        if (m->listed_holes < m->nhole)
+            corax_writer_printf(p->w, "lists %zu of the %zu holes, ", m->listed_holes, m->nhole);
+        corax_writer_printf(p->w, "draws the strips and stereonets of %zu%s (those with the "
+                                  "most errors, then warnings, then notes) and shows %zu of "
+                                  "the %zu findings of the holes in their tables, errors and "
+                                  "warnings first; every finding is in ",
+                            m->figure_holes,
+                            m->listed_holes < m->nhole ? "" : " of them",
+                            m->nfinding - m->nwide - m->hidden, m->nfinding - m->nwide);
+        findings_link(p);
+        out(p, ".</p>\n");
+    }
+    out(p, "<div class=\"side-by-side\">\n");
     by_hole(p);
     corax_status st = by_check(p);
     out(p, "</div>\n</section>\n");
@@ -426,15 +498,13 @@ static corax_status summary(page *p)
 /* The holes that no picture can place: not in the collars. */
 static void unplaced_holes(page *p)
 {
-    const report_model *m = p->m;
-    size_t n = 0;
-    for (size_t i = 0; i < m->nhole; i++)
-        if (!m->hole[i].path) {
-            out(p, n++ ? ", " : " Not drawn, for they are not in the collars: ");
-            text(p, m->hole[i].name);
+    for (size_t i = 0; i < p->m->nhole; i++)
+        if (!p->m->hole[i].path) {
+            out(p, " Not drawn, for they are not in the collars: ");
+            names_of(p);
+            out(p, ".");
+            return;
         }
-    if (n)
-        out(p, ".");
 }
 
 static void marks_caption(page *p)
@@ -442,6 +512,12 @@ static void marks_caption(page *p)
     out(p, " Each finding sits where it lies down its hole: a symbol at its depth, or a band "
            "along its stretch with the symbol at the middle; a finding about a whole hole sits "
            "at the collar. Point at a mark to read the finding.");
+    const report_model *m = p->m;
+    if (m->drawn_holes < m->nhole || m->listed_holes < m->nhole)
+        corax_writer_printf(p->w, " To keep the page small, the paths of %zu of the %zu holes "
+                                  "are drawn, with the collars of the %zu listed below and "
+                                  "the findings their tables show.", m->drawn_holes, m->nhole,
+                            m->listed_holes);
     if (p->m->nwide)
         corax_writer_printf(p->w, " The %zu finding%s about the program as a whole %s not drawn.",
                             p->m->nwide, p->m->nwide == 1 ? "" : "s",
@@ -634,7 +710,11 @@ static void net_caption(page *p, const report_hole *h, const report_net_counts *
                             c->flagged);
     else
         out(p, "None lies in a stretch named by a warning or an error.");
-    if (c->drawn < c->placed)
+    if (c->flagged_drawn < c->flagged)
+        corax_writer_printf(p->w, " To keep the page small, %zu of them are drawn: an even "
+                                  "share of the flagged (%zu of %zu) and of the rest.",
+                            c->drawn, c->flagged_drawn, c->flagged);
+    else if (c->drawn < c->placed)
         corax_writer_printf(p->w, " To keep the page small, %zu of them are drawn: every "
                                   "flagged one, and an even share of the rest.",
                             c->drawn);
@@ -701,9 +781,22 @@ static corax_status hole_part(page *p, const report_hole *h, size_t index)
         out(p, "<p class=\"verdict\">");
         tally(p, h->count);
         out(p, ".</p>\n");
-        findings_table(p, h->finding, h->nfinding, 1);
+        findings_table(p, h->shown, h->nshown, 1);
+        if (h->nshown < h->nfinding) {
+            size_t more = h->nfinding - h->nshown;
+            corax_writer_printf(p->w, "<p class=\"more\">%zu more finding%s of this hole %s in ",
+                                more, more == 1 ? "" : "s", more == 1 ? "is" : "are");
+            findings_link(p);
+            out(p, ".</p>\n");
+        }
     }
-    corax_status st = hole_figures(p, h, index + 1);
+    corax_status st = CORAX_OK;
+    if (h->figures)
+        st = hole_figures(p, h, index + 1);
+    else
+        out(p, "<p class=\"more\">Its strip and stereonet are left out to keep the page small: "
+               "the page draws them for the holes with the most errors, then warnings, then "
+               "notes.</p>\n");
     out(p, "<p class=\"back\"><a href=\"#summary\">Back to the summary</a></p>\n</article>\n");
     return st;
 }
@@ -715,7 +808,14 @@ static corax_status holes(page *p)
     if (p->m->nhole == 0)
         out(p, "<p>The program has no holes.</p>\n");
     for (size_t i = 0; i < p->m->nhole && st == CORAX_OK; i++)
-        st = hole_part(p, &p->m->hole[i], i);
+        if (p->m->hole[i].listed)
+            st = hole_part(p, &p->m->hole[i], i);
+    if (p->m->listed_holes < p->m->nhole) {
+        corax_writer_printf(p->w, "<p class=\"more\">%zu other holes are not listed here: their "
+                                  "findings are in ", p->m->nhole - p->m->listed_holes);
+        findings_link(p);
+        out(p, ".</p>\n");
+    }
     out(p, "</section>\n");
     return st;
 }
@@ -763,7 +863,7 @@ corax_status corax_report_write(const corax_report_input *input, corax_outputs *
         return corax_error_set(err, st, path, 0, "out of memory preparing the report");
     corax_writer *w;
     if ((st = corax_writer_open_in(set, path, &w, err)) == CORAX_OK) {
-        page p = {w, &m, input};
+        page p = {w, &m, input, table_href(input->findings_table, path)};
         st = whole_page(&p);
         if (st == CORAX_OK)
             st = corax_writer_commit(w, err);

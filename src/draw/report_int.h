@@ -49,6 +49,11 @@ typedef struct report_hole {
     size_t *reading;        /* indices of its readings, by depth */
     size_t nreading;
     size_t count[REPORT_SEVERITIES];
+    int drawn;              /* its path is on the plan and section (REPORT_PATH_HOLES) */
+    int listed;             /* it has a row in the summary and a part of its own */
+    int figures;            /* its strip and net are drawn (see REPORT_FIGURE_HOLES) */
+    size_t *shown;          /* the findings its table shows (of `finding`), in order */
+    size_t nshown;          /* nfinding, or fewer when the page's budget is reached */
 } report_hole;
 
 typedef struct report_model {
@@ -68,7 +73,47 @@ typedef struct report_model {
     size_t unreadable;            /* readings whose values could not be read */
     corax_convert_options convert;
     size_t *store;                /* the storage behind the holes' index lists */
+    size_t *shown_store;          /* the storage behind the holes' shown lists */
+    size_t drawn_holes;           /* holes on the plan and section */
+    size_t listed_holes;          /* holes listed (REPORT_LISTED_HOLES at most) */
+    size_t figure_holes;          /* holes whose figures are drawn */
+    size_t hidden;                /* findings of holes (listed or not) not in a table */
+    size_t unlisted[REPORT_SEVERITIES]; /* the findings of the holes not listed */
 } report_model;
+
+/* The page's budget, so that it stays a few megabytes whatever the program's
+ * size (a browser opens it; 2,000 holes of 500 readings made 216 MB before).
+ * Holes are ranked by their errors, then warnings, notes and readings (ties
+ * in the page's order). The first REPORT_PATH_HOLES are drawn on the plan
+ * and section (their paths simplified to a quarter of a pixel), the first
+ * REPORT_LISTED_HOLES have a row in the summary, a part of their own and a
+ * collar mark (the rest are counted in one line), the
+ * first REPORT_FIGURE_HOLES their strip and stereonet, and the named holes
+ * of the plan and section are those; the listed holes' tables show at most
+ * REPORT_FINDING_ROWS findings, each hole at least REPORT_HOLE_ROWS (its
+ * errors and warnings before its notes, in depth order), and only those are
+ * marked on the plan and section. Everything left out is in the findings
+ * table (corax check -o), which the page links to; the tiles and counts
+ * still count every hole and finding. Within these bounds a program's page is
+ * drawn whole, as before. */
+enum {
+    REPORT_PATH_HOLES = 5000,
+    REPORT_LISTED_HOLES = 500,
+    REPORT_FIGURE_HOLES = 40,
+    REPORT_FINDING_ROWS = 3000,
+    REPORT_HOLE_ROWS = 5
+};
+
+/* Which of two tallies is worse: -1 when a is (more errors, then warnings,
+ * then notes), 1 when b is, 0 when they are equal. */
+static inline int corax_report_worse(const size_t a[REPORT_SEVERITIES],
+                                     const size_t b[REPORT_SEVERITIES])
+{
+    for (int s = REPORT_SEVERITIES - 1; s >= 0; s--)
+        if (a[s] != b[s])
+            return a[s] > b[s] ? -1 : 1;
+    return 0;
+}
 
 /* Build the model. CORAX_ENOMEM; the model is then freed. */
 corax_status corax_report_model_build(report_model *m, const corax_report_input *in);
@@ -88,8 +133,9 @@ corax_status corax_report_plan(const report_model *m, corax_svg **out);
 corax_status corax_report_section(const report_model *m, double *azimuth, corax_svg **out);
 
 /* Above these many readings a hole's strip, or its net, draws only every
- * k-th (the net keeps every flagged one), so that the page of a large
- * program stays a few megabytes; the captions say so. */
+ * k-th (the net keeps every flagged one up to its cap, and every k-th
+ * flagged one beyond), so that the page of a large program stays a few
+ * megabytes; the captions say so. */
 enum { REPORT_STRIP_CAP = 2500, REPORT_NET_CAP = 1500 };
 
 /* What a hole's strip shows of its readings. */
@@ -113,6 +159,7 @@ typedef struct report_net_counts {
     size_t too_steep; /* ...of which because the hole is too near vertical there for
                          an orientation line */
     size_t drawn;     /* readings drawn, when the net was thinned; else placed */
+    size_t flagged_drawn; /* flagged readings drawn (every one up to REPORT_NET_CAP) */
     size_t poles;     /* poles drawn */
     int contoured;    /* the density is shaded and contoured (REPORT_NET_CONTOURS poles
                          or more) */

@@ -290,6 +290,89 @@ int corax_report_hole_at(const report_hole *h, double depth, corax_vec3 *at)
     return 1;
 }
 
+/* A hole's rank for the figures: errors, then warnings, notes, readings. */
+typedef struct rank {
+    size_t count[REPORT_SEVERITIES], readings, index;
+} rank;
+
+static int rank_order(const void *pa, const void *pb)
+{
+    const rank *a = pa, *b = pb;
+    int worse = corax_report_worse(a->count, b->count);
+    if (worse)
+        return worse;
+    if (a->readings != b->readings)
+        return a->readings > b->readings ? -1 : 1;
+    return a->index < b->index ? -1 : 1;
+}
+
+/* The findings a hole's table shows: up to `rows`, its errors and warnings
+ * before its notes, in the order given. */
+static void pick_rows(const report_model *m, report_hole *h, size_t rows)
+{
+    size_t serious = 0;
+    for (size_t k = 0; k < h->nfinding; k++)
+        serious += m->finding[h->finding[k]].severity >= CORAX_WARNING;
+    size_t want_serious = serious < rows ? serious : rows;
+    size_t want_notes = h->nfinding - serious < rows - want_serious ? h->nfinding - serious
+                                                                    : rows - want_serious;
+    h->nshown = 0;
+    for (size_t k = 0; k < h->nfinding; k++) {
+        size_t *quota = m->finding[h->finding[k]].severity >= CORAX_WARNING ? &want_serious
+                                                                            : &want_notes;
+        if (*quota) {
+            --*quota;
+            h->shown[h->nshown++] = h->finding[k];
+        }
+    }
+}
+
+/* Which holes get figures, and how many findings each table shows. */
+static corax_status budget(report_model *m)
+{
+    rank *order = malloc((m->nhole + 1) * sizeof *order);
+    m->shown_store = malloc((m->nfinding + 1) * sizeof *m->shown_store);
+    if (!order || !m->shown_store) {
+        free(order);
+        return CORAX_ENOMEM;
+    }
+    for (size_t i = 0; i < m->nhole; i++) {
+        order[i] = (rank){{0, 0, 0}, m->hole[i].nreading, i};
+        memcpy(order[i].count, m->hole[i].count, sizeof order[i].count);
+    }
+    qsort(order, m->nhole, sizeof *order, rank_order);
+    m->drawn_holes = m->nhole < REPORT_PATH_HOLES ? m->nhole : REPORT_PATH_HOLES;
+    m->listed_holes = m->nhole < REPORT_LISTED_HOLES ? m->nhole : REPORT_LISTED_HOLES;
+    for (size_t i = 0; i < m->drawn_holes; i++)
+        m->hole[order[i].index].drawn = 1;
+    m->figure_holes = m->nhole < REPORT_FIGURE_HOLES ? m->nhole : REPORT_FIGURE_HOLES;
+    for (size_t i = 0; i < m->listed_holes; i++) {
+        m->hole[order[i].index].listed = 1;
+        m->hole[order[i].index].figures = i < m->figure_holes;
+    }
+    free(order);
+    size_t in_listed = 0, with = 0;
+    for (size_t i = 0; i < m->nhole; i++)
+        if (m->hole[i].listed) {
+            in_listed += m->hole[i].nfinding;
+            with += m->hole[i].nfinding > 0;
+        }
+    size_t rows = in_listed <= REPORT_FINDING_ROWS ? in_listed : REPORT_FINDING_ROWS / with;
+    rows = rows > REPORT_HOLE_ROWS ? rows : REPORT_HOLE_ROWS;
+    size_t used = 0;
+    m->hidden = 0;
+    for (size_t i = 0; i < m->nhole; i++) {
+        report_hole *h = &m->hole[i];
+        h->shown = m->shown_store + used;
+        pick_rows(m, h, h->listed ? rows : 0);
+        used += h->nshown;
+        m->hidden += h->nfinding - h->nshown;
+        for (int s = 0; s < REPORT_SEVERITIES && !h->listed; s++)
+            m->unlisted[s] += h->count[s];
+    }
+    return CORAX_OK;
+}
+
 corax_status corax_report_model_build(report_model *m, const corax_report_input *in)
 {
     memset(m, 0, sizeof *m);
@@ -304,6 +387,8 @@ corax_status corax_report_model_build(report_model *m, const corax_report_input 
         st = classify(m);
     for (size_t h = 0; h < m->nhole && st == CORAX_OK; h++)
         st = trace(m, &m->hole[h]);
+    if (st == CORAX_OK)
+        st = budget(m);
     if (st != CORAX_OK)
         corax_report_model_free(m);
     return st;
@@ -315,6 +400,7 @@ void corax_report_model_free(report_model *m)
         free(m->hole[h].trace);
     free(m->hole);
     free(m->store);
+    free(m->shown_store);
     free(m->kind);
     free(m->kind_of);
     free(m->flagged);

@@ -390,6 +390,8 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         counts->flagged += keep[j] && m->flagged[i];
         rest += keep[j] && !m->flagged[i];
     }
+    /* the flagged first, all of them up to the cap; the rest share what is left */
+    size_t step_flagged = every_kth(counts->flagged, REPORT_NET_CAP), seen_flagged = 0;
     size_t cap = counts->flagged < REPORT_NET_CAP ? REPORT_NET_CAP - counts->flagged : 0;
     size_t step = every_kth(rest, cap ? cap : 1), seen = 0;
     size_t np[2] = {0, 0}, nl[2] = {0, 0}; /* [0] the rest, [1] flagged */
@@ -397,9 +399,10 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         if (!keep[j])
             continue;
         int flagged = m->flagged[h->reading[j]];
-        if (!flagged && seen++ % step)
+        if (flagged ? seen_flagged++ % step_flagged : seen++ % step)
             continue;
         counts->drawn++;
+        counts->flagged_drawn += flagged;
         if (res[j].has_plane) {
             size_t at = flagged ? n - 1 - np[1]++ : np[0]++;
             poles[at] = res[j].normal;

@@ -193,26 +193,83 @@ static void section_ends(corax_svg *svg, const view *v)
 
 /* ---- holes ---- */
 
-/* A hole's path in runs, solid where surveyed and dashed where projected;
- * a long run in pieces of up to 256 points that meet end to end. */
-static void hole_path(corax_svg *svg, const view *v, const report_hole *h)
+/* Douglas-Peucker (1973): mark in keep[] the points of xy[lo..hi] that the
+ * line needs to stay within `tol` pixels of every point (the ends are kept
+ * by the caller). */
+static void simplify(const double *xy, unsigned char *keep, size_t lo, size_t hi, double tol)
+{
+    while (hi > lo + 1) {
+        double ax = xy[2 * lo], ay = xy[2 * lo + 1], dx = xy[2 * hi] - ax, dy = xy[2 * hi + 1] - ay;
+        double len = hypot(dx, dy), far = -1.0;
+        size_t at = lo;
+        for (size_t k = lo + 1; k < hi; k++) {
+            double px = xy[2 * k] - ax, py = xy[2 * k + 1] - ay;
+            double d = len > 0.0 ? fabs(px * dy - py * dx) / len : hypot(px, py);
+            if (d > far) {
+                far = d;
+                at = k;
+            }
+        }
+        if (far <= tol)
+            return;
+        keep[at] = 1;
+        simplify(xy, keep, lo, at, tol); /* the shorter side would bound the depth; */
+        lo = at;                         /* paths hold a few hundred points */
+    }
+}
+
+/* The polyline through xy[0..n), simplified to within a quarter of a pixel
+ * (a point that bends it by less adds nothing to the picture), in pieces of
+ * up to 256 points that meet end to end; keep[] is n bytes of scratch. */
+static void simple_line(corax_svg *svg, const double *xy, unsigned char *keep, size_t n,
+                        const char *cls)
 {
     enum { PIECE = 256 };
-    double xy[2 * PIECE];
+    double piece[2 * PIECE];
+    memset(keep, 0, n);
+    keep[0] = keep[n - 1] = 1;
+    simplify(xy, keep, 0, n - 1, 0.25);
+    size_t m = 0;
+    for (size_t q = 0; q < n; q++) {
+        if (!keep[q])
+            continue;
+        piece[2 * m] = xy[2 * q];
+        piece[2 * m + 1] = xy[2 * q + 1];
+        if (++m == PIECE) { /* a full piece: the next starts where it ends */
+            corax_svg_poly(svg, piece, m, 0, cls);
+            piece[0] = piece[2 * m - 2];
+            piece[1] = piece[2 * m - 1];
+            m = 1;
+        }
+    }
+    if (m > 1)
+        corax_svg_poly(svg, piece, m, 0, cls);
+}
+
+/* A hole's path in runs, solid where surveyed and dashed where projected,
+ * so that a program of many holes draws each in a few points. CORAX_ENOMEM. */
+static corax_status hole_path(corax_svg *svg, const view *v, const report_hole *h)
+{
+    double *xy = malloc(2 * (h->ntrace + 1) * sizeof *xy);
+    unsigned char *keep = malloc(h->ntrace + 1);
+    if (!xy || !keep) {
+        free(xy);
+        free(keep);
+        return CORAX_ENOMEM;
+    }
+    for (size_t q = 0; q < h->ntrace; q++)
+        on_page(v, h->trace[q].at, &xy[2 * q], &xy[2 * q + 1]);
     for (size_t i = 0; i + 1 < h->ntrace;) {
         int surveyed = h->trace[i + 1].surveyed;
         size_t j = i + 1; /* the run of segments that are surveyed, or not */
         while (j + 1 < h->ntrace && h->trace[j + 1].surveyed == surveyed)
             j++;
-        for (size_t k = i; k < j;) {
-            size_t n = 0;
-            for (size_t q = k; q <= j && n < PIECE; q++, n++)
-                on_page(v, h->trace[q].at, &xy[2 * n], &xy[2 * n + 1]);
-            corax_svg_poly(svg, xy, n, 0, surveyed ? "path" : "path projected");
-            k += n - 1;
-        }
+        simple_line(svg, xy + 2 * i, keep, j - i + 1, surveyed ? "path" : "path projected");
         i = j;
     }
+    free(xy);
+    free(keep);
+    return CORAX_OK;
 }
 
 /* Hole names beside their collars, each where it overlaps no other name. */
@@ -261,12 +318,13 @@ static corax_status collars(corax_svg *svg, const report_model *m, const view *v
     corax_svg_group(svg, "collars", NULL);
     for (size_t i = 0; i < m->nhole; i++) {
         const report_hole *h = &m->hole[i];
-        if (!h->ntrace)
+        if (!h->ntrace || !h->listed) /* the page's budget: see REPORT_LISTED_HOLES */
             continue;
         double x, y;
         on_page(v, h->trace[0].at, &x, &y);
         corax_svg_circle(svg, x, y, 3.6, h->traced ? "collar" : "collar untraced");
-        hole_name(svg, x, y, h->name, placed, &nplaced);
+        if (h->figures) /* named: the holes whose figures the page draws */
+            hole_name(svg, x, y, h->name, placed, &nplaced);
     }
     corax_svg_end_group(svg);
     free(placed);
@@ -314,13 +372,14 @@ static void stretch(corax_svg *svg, const view *v, const report_hole *h, double 
                                                        "stretch sev-e"};
     enum { MOST = 200 };
     double lo = fmin(a, b), hi = fmax(a, b), xy[2 * (MOST + 1)];
+    unsigned char keep[MOST + 1];
     int steps = (int)fmin(MOST, ceil((hi - lo) / 2.0) + 1);
     for (int k = 0; k <= steps; k++) {
         corax_vec3 at;
         corax_report_hole_at(h, lo + (hi - lo) * k / steps, &at);
         on_page(v, at, &xy[2 * k], &xy[2 * k + 1]);
     }
-    corax_svg_poly(svg, xy, (size_t)steps + 1, 0, cls[s]);
+    simple_line(svg, xy, keep, (size_t)steps + 1, cls[s]);
 }
 
 /* Notes first, errors last, so that the worst stays on top. */
@@ -330,8 +389,8 @@ static void findings(corax_svg *svg, const report_model *m, const view *v)
     for (int s = CORAX_NOTE; s <= CORAX_ERROR; s++)
         for (size_t i = 0; i < m->nhole; i++) {
             const report_hole *h = &m->hole[i];
-            for (size_t k = 0; k < h->nfinding && h->path; k++) {
-                const corax_finding *f = &m->finding[h->finding[k]];
+            for (size_t k = 0; k < h->nshown && h->path; k++) { /* those in the tables */
+                const corax_finding *f = &m->finding[h->shown[k]];
                 if ((int)f->severity != s)
                     continue;
                 corax_svg_group(svg, NULL, NULL);
@@ -422,10 +481,13 @@ static corax_status draw(const report_model *m, view *v, corax_svg **out)
         section_ends(svg, v);
     }
     corax_svg_group(svg, "holes", NULL);
-    for (size_t i = 0; i < m->nhole; i++)
-        hole_path(svg, v, &m->hole[i]);
+    corax_status st = CORAX_OK;
+    for (size_t i = 0; i < m->nhole && st == CORAX_OK; i++)
+        if (m->hole[i].drawn)
+            st = hole_path(svg, v, &m->hole[i]);
     corax_svg_end_group(svg);
-    corax_status st = collars(svg, m, v);
+    if (st == CORAX_OK)
+        st = collars(svg, m, v);
     findings(svg, m, v);
     scale_bar(svg, v);
     if (v->plan)

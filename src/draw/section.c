@@ -10,6 +10,7 @@
 #include "common/grow.h"
 #include "corax/geometry.h"
 #include "corax/section_drawing.h"
+#include "draw/sample.h"
 
 /* Our own palette for feature kinds, in the order kinds are given colours,
  * then grey for any further kinds. Chosen so that every pair of colours
@@ -422,7 +423,8 @@ typedef struct placed {
     size_t n;
 } placed;
 
-static double free_spot(placed *p, double x, double y)
+/* The height of a name above (x, y) clear of those placed, stacked up. */
+static double free_spot(const placed *p, double x, double y)
 {
     for (int moved = 1; moved;) {
         moved = 0;
@@ -432,18 +434,26 @@ static double free_spot(placed *p, double x, double y)
                 moved = 1;
             }
     }
-    p->xy[2 * p->n] = x;
-    p->xy[2 * p->n + 1] = y;
-    p->n++;
     return y;
 }
+
+/* A name stacks at most this many rows above its hole: in a crowd of holes
+ * the rest go unnamed (each hole's path names it as a tooltip), or the
+ * names would climb over the title. */
+enum { NAME_ROWS = 4 };
 
 static void hole_name(corax_svg *svg, const layout *l, const hole *h, placed *p)
 {
     for (size_t k = 0; k < h->n; k++) {
         double x = px(l, h->s[k].at.along), y = py(l, h->s[k].at.elevation);
         if (inside_plot(l, x, y)) {
-            corax_svg_text(svg, x, free_spot(p, x, y - 7), "hole-name", "middle", h->name);
+            double at = free_spot(p, x, y - 7);
+            if (at < y - 7 - 13.0 * NAME_ROWS || at < l->top - 13.0)
+                return;
+            p->xy[2 * p->n] = x;
+            p->xy[2 * p->n + 1] = at;
+            p->n++;
+            corax_svg_text(svg, x, at, "hole-name", "middle", h->name);
             return;
         }
     }
@@ -473,12 +483,20 @@ static void holes(corax_svg *svg, const corax_section_drawing *d, const layout *
     corax_svg_end_group(svg);
 }
 
+/* Structures drawn at most: beyond, a sample (see draw/sample.h), and the
+ * legend says how many of how many; 20,000 ticks with their tooltips make
+ * about 3 MB. */
+enum { SECTION_MARKS = 20000 };
+
 static void marks(corax_svg *svg, const corax_section_drawing *d, const layout *l)
 {
     char cls[40];
+    size_t every = corax_sample_every(d->nmark, SECTION_MARKS);
     corax_svg_group(svg, "structures", NULL);
     for (size_t i = 0; i < d->nmark; i++) {
         const mark *m = &d->mark[i];
+        if (!corax_sample_drawn(i, every))
+            continue;
         double x = px(l, m->at.along), y = py(l, m->at.elevation);
         size_t k = kind_index(d, m->kind);
         if (m->label) {
@@ -498,6 +516,15 @@ static void marks(corax_svg *svg, const corax_section_drawing *d, const layout *
             corax_svg_end_group(svg);
     }
     corax_svg_end_group(svg);
+}
+
+/* The legend's height below its top, pixels: its heads, one line a kind, the
+ * no-orientation and sample lines when there, the holes and the ticks. */
+static double legend_height(const corax_section_drawing *d)
+{
+    size_t lines = (d->nkind ? d->nkind : 1) + (d->unoriented != 0) +
+                   (corax_sample_every(d->nmark, SECTION_MARKS) > 1);
+    return 20.0 + 18.0 * (double)lines + 14 + 20 + 3 * 18 + 8 + 18 + 2 * 15 + 10;
 }
 
 static void legend(corax_svg *svg, const corax_section_drawing *d, const layout *l,
@@ -522,6 +549,13 @@ static void legend(corax_svg *svg, const corax_section_drawing *d, const layout 
         mark_class(cls, sizeof cls, "open", NCOLOURS);
         corax_svg_circle(svg, x + 11, y - 5, 3.6, cls);
         corax_svg_text(svg, x + 32, y - 1, "legend", "start", "no orientation");
+        y += 18;
+    }
+    size_t one_in = corax_sample_every(d->nmark, SECTION_MARKS);
+    if (one_in > 1) {
+        snprintf(t, sizeof t, "%zu of %zu drawn (a sample)", corax_sample_count(d->nmark, one_in),
+                 d->nmark);
+        corax_svg_text(svg, x, y, "legend", "start", t);
         y += 18;
     }
     y += 14;
@@ -597,7 +631,8 @@ corax_svg *corax_section_drawing_render(const corax_section_drawing *d, const ch
     footer_lines lines;
     int nlines = wrap(lines, footer ? wrap(lines, 0, footer, width - l.left - 20) : 0, caution,
                       width - l.left - 20);
-    double height = l.top + l.h + MARGIN_BOTTOM + 15.0 * (nlines - 2);
+    double height = fmax(l.top + l.h + MARGIN_BOTTOM + 15.0 * (nlines - 2),
+                         l.top + 4 + legend_height(d));
     corax_svg *svg = corax_svg_new(width, height);
     if (!svg)
         return NULL;

@@ -13,9 +13,28 @@
 #include "corax/stereonet.h"
 #include "draw/net.h"
 #include "draw/palette.h"
+#include "draw/sample.h"
 #include "geometry/vec.h"
 
 enum { MAX_LEVELS = CORAX_BANDS };
+
+/* Marks drawn on one net: at most SET_POINTS poles and as many lines of a
+ * set, SET_CURVES great or small circles, and all sets together within the
+ * page's budget, shared in proportion. Beyond, a set is drawn as a sample
+ * (the density, means and statistics always take every reading). */
+enum { SET_POINTS = 2000, NET_POINTS = 10000, SET_CURVES = 300, NET_CURVES = 2000 };
+
+/* Draw one mark in every `every`: a sample of `count` marks of a kind that
+ * has `total` on the net. */
+static size_t draw_every(size_t count, size_t total, size_t set_limit, size_t net_limit)
+{
+    size_t limit = set_limit;
+    if (total > net_limit) {
+        size_t share = (size_t)((double)net_limit * (double)count / (double)total);
+        limit = share < limit ? share : limit;
+    }
+    return corax_sample_every(count, limit);
+}
 
 typedef struct net {
     corax_svg *svg;
@@ -103,7 +122,26 @@ typedef struct plan {
     size_t levels;        /* contour levels reached */
     size_t count;         /* readings contoured */
     int of_lines;         /* contoured lines, not poles */
+    size_t points, curves; /* marks of each kind on the net, before sampling */
 } plan;
+
+/* One in how many of a set's poles, lines, great circles (of its poles) and
+ * small circles the net draws. */
+typedef struct every {
+    size_t poles, lines, great, small;
+} every;
+
+static every set_every(const plan *p, const corax_net_style *s, const corax_net_set *set)
+{
+    every e = {1, 1, 1, 1};
+    if (s->planes & CORAX_NET_POLES)
+        e.poles = draw_every(set->npoles, p->points, SET_POINTS, NET_POINTS);
+    e.lines = draw_every(set->nlines, p->points, SET_POINTS, NET_POINTS);
+    if (s->planes & CORAX_NET_GREAT_CIRCLES)
+        e.great = draw_every(set->npoles, p->curves, SET_CURVES, NET_CURVES);
+    e.small = draw_every(set->ncircles, p->curves, SET_CURVES, NET_CURVES);
+    return e;
+}
 
 static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 **v, double **w,
                            size_t *count, int *of_lines);
@@ -228,7 +266,22 @@ static void describe_axes(net *n, const corax_axial_summary *s)
         panel_text(n, "small", 18, "Woodcock K %.2f, C %.2f", s->tensor.shape, s->tensor.strength);
 }
 
-static void legend_entry(net *n, const corax_net_set *set, size_t index, int one_set)
+/* "2000 of 120000 poles drawn (a sample)": what a sampled set shows of
+ * itself. */
+static void sample_note(net *n, const plan *p, const corax_net_set *set)
+{
+    every e = set_every(p, n->style, set);
+    const size_t count[] = {set->npoles, set->nlines, set->npoles, set->ncircles};
+    const size_t step[] = {e.poles, e.lines, e.great, e.small};
+    static const char *const what[] = {"poles", "lines", "great circles", "small circles"};
+    for (int k = 0; k < 4; k++)
+        if (step[k] > 1)
+            panel_text(n, "note", 18, "%zu of %zu %s drawn (a sample)",
+                       corax_sample_count(count[k], step[k]), count[k], what[k]);
+}
+
+static void legend_entry(net *n, const plan *pl, const corax_net_set *set, size_t index,
+                         int one_set)
 {
     char fill[16], stroke[16];
     set_classes(index, fill, stroke, sizeof fill);
@@ -244,6 +297,7 @@ static void legend_entry(net *n, const corax_net_set *set, size_t index, int one
     if (set->ncircles)
         panel_text(n, "small", 18, "%zu reading%s by alpha alone", set->ncircles,
                    set->ncircles == 1 ? "" : "s");
+    sample_note(n, pl, set);
     for (size_t k = 0; k < set->npicks; k++) {
         const corax_net_pick *pk = &set->picks[k];
         corax_plane p = corax_plane_from_normal(pk->pole, NULL);
@@ -384,27 +438,34 @@ static void draw_picks(const net *n, const corax_net_set *set, size_t index)
     }
 }
 
-static void draw_set(const net *n, const corax_net_set *set, size_t index)
+static void draw_set(const net *n, const plan *p, const corax_net_set *set, size_t index)
 {
     char fill[16], stroke[16], cls[32];
     set_classes(index, fill, stroke, sizeof fill);
     corax_shape shape = corax_palette_shape_of(index);
+    every e = set_every(p, n->style, set);
     if (n->style->planes & CORAX_NET_GREAT_CIRCLES) {
         snprintf(cls, sizeof cls, "gc %s", stroke);
         for (size_t i = 0; i < set->npoles; i++)
-            great_circle(n, set->poles[i], cls);
+            if (corax_sample_drawn(i, e.great))
+                great_circle(n, set->poles[i], cls);
     }
     snprintf(cls, sizeof cls, "sc %s", stroke);
     for (size_t i = 0; i < set->ncircles; i++)
-        small_circle(n, set->circles[i].axis, set->circles[i].angle, cls);
+        if (corax_sample_drawn(i, e.small))
+            small_circle(n, set->circles[i].axis, set->circles[i].angle, cls);
     double x, y;
     if (n->style->planes & CORAX_NET_POLES)
         for (size_t i = 0; i < set->npoles; i++) {
+            if (!corax_sample_drawn(i, e.poles))
+                continue;
             place(n, set->poles[i], &x, &y);
             corax_palette_symbol(n->svg, shape, x, y, 8, fill);
         }
     snprintf(cls, sizeof cls, "hollow %s", stroke);
     for (size_t i = 0; i < set->nlines; i++) {
+        if (!corax_sample_drawn(i, e.lines))
+            continue;
         place(n, set->lines[i], &x, &y);
         corax_palette_symbol(n->svg, shape, x, y, 8, cls);
     }
@@ -457,7 +518,7 @@ static void draw_panel(net *n, const plan *p)
     int has_lines, one_set = p->nsets == 1;
     size_t total = readings(p, &has_lines);
     for (size_t i = 0; i < p->nsets; i++)
-        legend_entry(n, &p->sets[i], p->index0 + i, one_set);
+        legend_entry(n, p, &p->sets[i], p->index0 + i, one_set);
     if (p->grid)
         density_legend(n, p->step, p->levels, p->count, p->of_lines);
     else if (n->style->contours && total)
@@ -478,7 +539,7 @@ static corax_status draw_net(net *n, const plan *p)
             return st;
     }
     for (size_t i = 0; i < p->nsets; i++)
-        draw_set(n, &p->sets[i], p->index0 + i);
+        draw_set(n, p, &p->sets[i], p->index0 + i);
     if (p->nsets == 1 && p->sets[0].pole_summary && p->sets[0].npoles)
         draw_axes(n, p->sets[0].pole_summary); /* beneath the means, which matter more */
     for (size_t i = 0; i < p->nsets; i++) {
@@ -547,6 +608,12 @@ static corax_status plan_page(const corax_net_set *sets, size_t nsets,
         p->nsets = net_per_set ? 1 : nsets;
         p->index0 = net_per_set ? k : 0;
         p->title = p->nsets == 1 ? p->sets[0].name : "All sets";
+        for (size_t i = 0; i < p->nsets; i++) {
+            const corax_net_set *set = &p->sets[i];
+            p->points += (style->planes & CORAX_NET_POLES ? set->npoles : 0) + set->nlines;
+            p->curves += (style->planes & CORAX_NET_GREAT_CIRCLES ? set->npoles : 0) +
+                         set->ncircles;
+        }
         st = plan_density(p, style);
     }
     return st;

@@ -131,7 +131,7 @@ corax_status corax_export_extra_read(const corax_row *row, const corax_export_co
 
 corax_export_options corax_export_options_default(void)
 {
-    corax_export_options o = {CORAX_VTK_ASCII, 1, 5.0, CORAX_EXPORT_DISCS, 5.0, 24, NULL, 0.0};
+    corax_export_options o = {CORAX_VTK_AUTO, 1, 5.0, CORAX_EXPORT_DISCS, 5.0, 24, NULL, 0.0};
     return o;
 }
 
@@ -502,6 +502,13 @@ static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_
     return CORAX_OK;
 }
 
+corax_vtk_encoding corax_export_encoding(const corax_export_options *o, size_t n)
+{
+    if (o->encoding != CORAX_VTK_AUTO)
+        return o->encoding;
+    return n > CORAX_EXPORT_ASCII_MAX ? CORAX_VTK_BINARY : CORAX_VTK_ASCII;
+}
+
 corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_program *program,
                               const corax_export_structure *s, size_t n,
                               const corax_export_options *o, corax_export_counts *counts,
@@ -516,7 +523,8 @@ corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_
     corax_status st = count_traces(&t);
     corax_vtk *v = NULL;
     if (st == CORAX_OK)
-        st = corax_vtk_open(set, path, o->encoding, o->title ? o->title : "corax export", &v, err);
+        st = corax_vtk_open(set, path, corax_export_encoding(o, n),
+                            o->title ? o->title : "corax export", &v, err);
     if (st == CORAX_OK) {
         corax_vtk_decimals(v, 6);
         st = write_vtk(v, &t, s, n, o);

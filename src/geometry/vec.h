@@ -52,6 +52,19 @@ static inline double fast_atan2(double y, double x)
     return y < 0.0 ? -a : a;
 }
 
+/* atan2(y, x) for the angles of a perturbation: when |y| < x / 8 (under 7
+ * degrees) the arctangent's series to the q^15 term, exact to 2e-17 and
+ * several times quicker than the C library, which takes the rest. */
+static inline double small_atan2(double y, double x)
+{
+    if (x > 0.0 && fabs(y) < 0.125 * x) {
+        double q = y / x, q2 = q * q;
+        return q * (1.0 + q2 * (-1.0 / 3 + q2 * (1.0 / 5 + q2 * (-1.0 / 7 + q2 * (1.0 / 9 +
+                    q2 * (-1.0 / 11 + q2 * (1.0 / 13 + q2 * (-1.0 / 15))))))));
+    }
+    return fast_atan2(y, x);
+}
+
 /* Sine and cosine of x. Small angles (|x| < 0.25, the usual size of a
  * perturbation or of the turn along one survey course) go by their Taylor
  * series to the x^10 term, good to 1e-13 and several times quicker than the C

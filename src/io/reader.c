@@ -10,6 +10,7 @@
  * are blank rows, and blanks around a field are not part of it. */
 #include <csv.h>
 #include <errno.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -87,28 +88,20 @@ static int grow_fields(corax_reader *r)
  * set to spot lines holding nothing but blanks. */
 static int blank_or_space(unsigned char c) { return c == ' ' || c == '\t'; }
 
-static void on_field(void *data, size_t len, void *user)
+/* Room for one more field and `len` more bytes of text; 0 (with r->failed
+ * set) past a limit or out of memory. */
+static int room_for(corax_reader *r, size_t len)
 {
-    corax_reader *r = user;
-    if (r->failed)
-        return;
     if (r->count == MAX_FIELDS || r->text_len + len > MAX_ROW) {
         r->too_big = r->count == MAX_FIELDS ? "the row has more than 10000 fields"
                                             : "the row is longer than 16 MiB (a quote never "
                                               "closed?)";
         r->failed = 1;
-        return;
+        return 0;
     }
-    /* blanks around a value are not part of it, quoted or not */
-    while (len && blank_or_space(*(unsigned char *)data)) {
-        data = (char *)data + 1;
-        len--;
-    }
-    while (len && blank_or_space(((unsigned char *)data)[len - 1]))
-        len--;
     if (r->count == r->cap && !grow_fields(r)) {
         r->failed = 1;
-        return;
+        return 0;
     }
     if (r->text_len + len + 1 > r->text_cap) {
         size_t cap = r->text_cap ? r->text_cap : 256;
@@ -117,11 +110,28 @@ static void on_field(void *data, size_t len, void *user)
         char *t = realloc(r->text, cap);
         if (!t) {
             r->failed = 1;
-            return;
+            return 0;
         }
         r->text = t;
         r->text_cap = cap;
     }
+    return 1;
+}
+
+static void on_field(void *data, size_t len, void *user)
+{
+    corax_reader *r = user;
+    if (r->failed)
+        return;
+    /* blanks around a value are not part of it, quoted or not */
+    while (len && blank_or_space(*(unsigned char *)data)) {
+        data = (char *)data + 1;
+        len--;
+    }
+    while (len && blank_or_space(((unsigned char *)data)[len - 1]))
+        len--;
+    if (!room_for(r, len))
+        return;
     if (len)
         memcpy(r->text + r->text_len, data, len);
     r->offset[r->count] = r->text_len;
@@ -393,32 +403,78 @@ static corax_status refill(corax_reader *r, corax_error *err)
     return CORAX_OK;
 }
 
-/* Split an unquoted line (without its line end) into fields; cut_blanks:
- * the line began with blanks in the block before (given to libcsv, which
- * skips them). */
+/* Split an unquoted line (without its line end) into fields: the line is
+ * copied once into the row's text and cut there, each field ended by a NUL
+ * over its delimiter (or its first trailing blank); cut_blanks: the line began
+ * with blanks in the block before (given to libcsv, which skips them). */
 static void split_line(corax_reader *r, const char *s, size_t n, int cut_blanks)
 {
-    const char *end = s + n, delim = (char)r->parser.delim_char;
-    const char *p = s;
-    while (p < end && blank_or_space((unsigned char)*p) && *p != delim)
-        p++;
-    if (p == end) { /* a blank line: no row */
+    const char delim = (char)r->parser.delim_char;
+    size_t i = 0;
+    while (i < n && blank_or_space((unsigned char)s[i]) && s[i] != delim)
+        i++;
+    if (i == n) { /* a blank line: no row */
         r->info.blank_rows += n > 0 || cut_blanks;
         return;
     }
-    for (p = s;;) {
-        const char *q = memchr(p, delim, (size_t)(end - p));
-        const char *fe = q ? q : end, *fs = p;
-        while (fs < fe && blank_or_space((unsigned char)*fs))
+    if (!room_for(r, n))
+        return;
+    size_t base = r->text_len;
+    char *t = r->text + base;
+    memcpy(t, s, n);
+    t[n] = '\0';
+    r->text_len += n + 1;
+    for (size_t start = 0;;) {
+        size_t end = start;
+        while (end < n && t[end] != delim)
+            end++;
+        size_t fs = start, fe = end;
+        while (fs < fe && blank_or_space((unsigned char)t[fs]))
             fs++;
-        while (fe > fs && blank_or_space((unsigned char)fe[-1]))
+        while (fe > fs && blank_or_space((unsigned char)t[fe - 1]))
             fe--;
-        on_field((void *)fs, (size_t)(fe - fs), r);
-        if (!q)
+        if (r->count == MAX_FIELDS || (r->count == r->cap && !grow_fields(r))) {
+            r->too_big = r->count == MAX_FIELDS ? "the row has more than 10000 fields" : NULL;
+            r->failed = 1;
+            return;
+        }
+        t[fe] = '\0';
+        r->offset[r->count] = base + fs;
+        r->length[r->count] = fe - fs;
+        r->count++;
+        if (end == n)
             break;
-        p = q + 1;
+        start = end + 1;
     }
     on_row('\n', r);
+}
+
+/* Where the line starting at s ends: the first line end in n bytes (n when
+ * there is none); *quote set when a '"' comes before it. Every byte read
+ * passes here, so eight at a time: a byte equal to c turns up as the lowest
+ * set high bit of (y - 0x01..) & ~y, y = x ^ (c repeated); higher bits may
+ * be false, the lowest never is. */
+static size_t line_end(const char *s, size_t n, int *quote)
+{
+    size_t i = 0;
+    *quote = 0;
+#if defined(__GNUC__) && defined(__BYTE_ORDER__) && __BYTE_ORDER__ == __ORDER_LITTLE_ENDIAN__
+    const uint64_t ones = 0x0101010101010101u, highs = 0x8080808080808080u;
+    for (; i + 8 <= n; i += 8) {
+        uint64_t x;
+        memcpy(&x, s + i, sizeof x);
+        uint64_t lf = x ^ (ones * '\n'), cr = x ^ (ones * '\r'), qu = x ^ (ones * '"');
+        uint64_t hit = (((lf - ones) & ~lf) | ((cr - ones) & ~cr) | ((qu - ones) & ~qu)) & highs;
+        if (hit) {
+            i += (size_t)__builtin_ctzll(hit) / 8;
+            break;
+        }
+    }
+#endif
+    for (; i < n && s[i] != '\n' && s[i] != '\r'; i++)
+        if (s[i] == '"')
+            *quote = 1;
+    return i;
 }
 
 /* Feed up to and including the next line end. */
@@ -427,13 +483,13 @@ static void feed_line(corax_reader *r)
     const char *s = r->block + r->pos;
     size_t n = r->have - r->pos, i = 0;
     size_t earlier = 0; /* bytes of the line in blocks before */
+    int quote = 0;
     if (r->prev_cr && n && s[0] == '\n') { /* the LF of a CRLF split from its CR */
         r->prev_cr = 0;
         i = 1;
     } else {
         r->prev_cr = 0;
-        while (i < n && s[i] != '\n' && s[i] != '\r')
-            i++;
+        i = line_end(s, n, &quote);
         int comment = r->in_comment;
         if (!comment && r->parser.pstate == 0 && r->row_line == 0) {
             size_t k = 0; /* at the start of a row: a comment line is no row */
@@ -476,8 +532,7 @@ static void feed_line(corax_reader *r)
     /* A whole line with no quote, at the start of a row, needs no state
      * machine: split it here (libcsv's rules: blanks trimmed, blank lines
      * skipped). Most lines of a log are like that, and this is the hot path. */
-    if (i && r->parser.pstate == 0 && (s[i - 1] == '\n' || s[i - 1] == '\r') &&
-        !memchr(s, '"', i))
+    if (i && r->parser.pstate == 0 && (s[i - 1] == '\n' || s[i - 1] == '\r') && !quote)
         split_line(r, s, i - 1, earlier > 0);
     else if (i)
         csv_parse(&r->parser, s, i, on_field, on_row, r);

@@ -106,7 +106,7 @@ corax_status corax_vtk_open(corax_outputs *set, const char *path, corax_vtk_enco
         free(v);
         return st;
     }
-    v->encoding = encoding;
+    v->encoding = encoding == CORAX_VTK_BINARY ? CORAX_VTK_BINARY : CORAX_VTK_ASCII;
     v->decimals = 6;
     char t[256];
     size_t n = 0;

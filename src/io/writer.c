@@ -244,62 +244,6 @@ void corax_writer_field(corax_writer *w, const char *s, size_t n)
     corax_writer_text(w, "\"", 1);
 }
 
-/* "00" .. "99": two digits at a time halves the divisions */
-static const char digit_pairs[201] =
-    "00010203040506070809101112131415161718192021222324252627282930313233343536373839"
-    "40414243444546474849505152535455565758596061626364656667686970717273747576777879"
-    "8081828384858687888990919293949596979899";
-
-size_t corax_format_fixed(char *buf, double v, int decimals)
-{
-    static const double scale[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9};
-    if (isnan(v))
-        return 0;
-    if (decimals < 0)
-        decimals = 0;
-    if (decimals > 9)
-        decimals = 9;
-    double scaled = fabs(v) * scale[decimals];
-    if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
-        return (size_t)snprintf(buf, 40, "%.17g", v);
-    uint64_t q = (uint64_t)(scaled + 0.5); /* round half away from zero */
-    int negative = v < 0.0 && q != 0;      /* never "-0.00" */
-    char tmp[40];
-    char *p = tmp + sizeof tmp; /* digits are written backwards from the end */
-    int frac = decimals;
-    while (frac >= 2) {
-        const char *d = digit_pairs + 2 * (q % 100);
-        *--p = d[1];
-        *--p = d[0];
-        q /= 100;
-        frac -= 2;
-    }
-    if (frac) {
-        *--p = (char)('0' + q % 10);
-        q /= 10;
-    }
-    if (decimals)
-        *--p = '.';
-    while (q >= 100) {
-        const char *d = digit_pairs + 2 * (q % 100);
-        *--p = d[1];
-        *--p = d[0];
-        q /= 100;
-    }
-    if (q >= 10) {
-        *--p = digit_pairs[2 * q + 1];
-        *--p = digit_pairs[2 * q];
-    } else {
-        *--p = (char)('0' + q);
-    }
-    size_t n = (size_t)(tmp + sizeof tmp - p);
-    if (negative)
-        *buf++ = '-';
-    for (size_t i = 0; i < n; i++) /* short: a loop beats a call to memcpy */
-        buf[i] = p[i];
-    return n + (size_t)negative;
-}
-
 void corax_writer_number(corax_writer *w, double v, int decimals)
 {
     separator(w);

@@ -198,7 +198,7 @@ static corax_status write_findings(corax_job *job, const char *output, const cor
 
 static corax_status write_report(corax_job *job, const corax_check_job_options *o,
                                  const corax_program *prog, const corax_findings *found,
-                                 const logs *l)
+                                 const logs *l, const char *output)
 {
     const char *inputs[64];
     size_t ninputs = 0;
@@ -217,7 +217,7 @@ static corax_status write_report(corax_job *job, const corax_check_job_options *
         strftime(when, sizeof when, "%Y-%m-%d %H:%M UTC", gmtime_r(&now, &tm));
     }
     corax_report_input in = {o->title ? o->title : "Drill program", inputs, ninputs,
-                             CORAX_VERSION, when, prog, found, l->reading, l->n, &o->convert};
+                             CORAX_VERSION, when, prog, found, l->reading, l->n, &o->convert, output};
     corax_error err;
     corax_error_clear(&err);
     corax_status st = corax_report_write(&in, job->outputs, o->report, &err);
@@ -321,7 +321,7 @@ corax_status corax_check_job_run(corax_job *job, const corax_program *prog,
         rc = write_findings(job, output, found);
     if (rc == CORAX_OK && o->report) {
         job_phase(job, "writing the report");
-        rc = write_report(job, o, prog, found, &l);
+        rc = write_report(job, o, prog, found, &l, output);
     }
     if (rc == CORAX_OK) {
         record(job->record, o);

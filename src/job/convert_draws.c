@@ -1,16 +1,17 @@
 /* job: the convert job's uncertainty in bounded memory. The logs are read
  * twice. The first reading keeps each reading to be drawn in a compact record
- * (its hole, depth, angles and errors: 48 bytes; a bit for every row); the
+ * (its hole, depth, the alpha and beta drawn, and its errors as a place in a
+ * table of the distinct errors met: 32 bytes; and a bit for every row); the
  * holes are then drawn in parallel, each from its own stream seeded by its
- * name, and each reading's spread is written over its record. The second
- * reading converts the rows again in batches, as plain convert does, and
- * takes each row's spread from its record. A log on standard input is kept
- * in a temporary file for the second reading.
+ * name, and each reading's spread is written over its record (48 bytes). The
+ * second reading converts the rows again in batches, as plain convert does,
+ * and takes each row's spread from its record. A log on standard input is
+ * kept in a temporary file for the second reading.
  *
- * Angles (in degrees) and errors are kept in single precision: a few
- * millionths of a degree, far below any reading's error, while the values a
- * log writes on a boundary (alpha 0 or 90, beta 0 or 360) stay exact, so a
- * reading meets the same conditions in the draws as in its row. */
+ * Every value is kept in double precision, so the draws are those of a
+ * reading held whole: a plane's alpha and beta (or a line's), which are all
+ * the draws take, with the hole, depth and errors; the plain conversion that
+ * fixes their hemisphere is made again from them. */
 #include <errno.h>
 #include <math.h>
 #include <omp.h>
@@ -28,23 +29,33 @@ enum { READ_ROWS = 16384, BLOCK_SHIFT = 16, BLOCK = 1 << BLOCK_SHIFT };
 typedef union draw_rec {
     struct {
         double depth;
-        float angle[5];     /* degrees: alpha, beta, gamma, line_alpha, line_beta; NaN:
-                               none (degrees keep 0, 90, 180 and 360 exact) */
-        float error[4];     /* alpha, beta, line, depth */
-        uint32_t hole;      /* its index in the program; the top bit: an
-                               arbitrary line (no gravity error) */
+        double alpha, beta; /* radians: the plane's, or (LINE) the line's; NaN: none */
+        uint32_t hole;      /* its index in the program, and the flags below */
+        uint32_t errors;    /* its errors' place in the table of errors */
     } in;
     struct {
-        float dip_sd, dip_direction_sd, cone95, kappa, position_sd;
-        uint32_t draws;
-        uint8_t has_orientation, is_plane;
+        double dip_sd, dip_direction_sd, cone95, kappa, position_sd;
+        uint32_t draws;     /* and the flags has_orientation (ARBITRARY's bit) and
+                               is_plane (LINE's) */
     } out;
 } draw_rec;
 
-#define ARBITRARY (UINT32_C(1) << 31)
+#define ARBITRARY (UINT32_C(1) << 31) /* an arbitrary line: no gravity error */
+#define LINE (UINT32_C(1) << 30)      /* a line drawn, not a plane */
+#define HOLE_BITS (~(ARBITRARY | LINE))
+
+/* The distinct errors of the readings (alpha, beta, line, depth), each once:
+ * a few confidence levels in most programs. */
+typedef struct error_table {
+    double (*e)[4];
+    size_t n, cap;
+    uint32_t *slot; /* open addressing: place + 1, or 0 */
+    size_t nslots;
+} error_table;
 
 struct convert_draws {
     draw_rec **block;   /* records by their place among the simulated rows */
+    error_table errors;
     size_t n, nblocks;
     uint64_t *bits;     /* a bit for every row of the shard: simulated */
     uint32_t *rank;     /* simulated rows before each word of bits */
@@ -63,6 +74,8 @@ void convert_draws_free(convert_draws *d)
     for (size_t b = 0; b < d->nblocks; b++)
         free(d->block[b]);
     free(d->block);
+    free(d->errors.e);
+    free(d->errors.slot);
     free(d->bits);
     free(d->rank);
     free(d);
@@ -82,9 +95,9 @@ const corax_spread *convert_draws_spread(const convert_draws *d, size_t j, corax
     if (j >= d->n)
         return NULL;
     const draw_rec *r = rec_at(d, j);
-    *sp = (corax_spread){r->out.has_orientation, r->out.is_plane, r->out.dip_sd,
-                         r->out.dip_direction_sd, r->out.cone95, r->out.kappa,
-                         r->out.position_sd, r->out.draws};
+    *sp = (corax_spread){(r->out.draws & ARBITRARY) != 0, (r->out.draws & LINE) != 0,
+                         r->out.dip_sd, r->out.dip_direction_sd, r->out.cone95, r->out.kappa,
+                         r->out.position_sd, r->out.draws & HOLE_BITS};
     return sp;
 }
 
@@ -157,27 +170,79 @@ static corax_status grow(first_reading *f)
     return CORAX_OK;
 }
 
-/* A row's record, from its evaluation. */
-static void make_record(const corax_program *prog, const convert_eval *ev, draw_rec *out)
+/* A reading waiting for its place: its record and its errors. */
+typedef struct pending {
+    draw_rec rec;
+    double errors[4];
+} pending;
+
+/* A row's record, from its evaluation: the plane's angles when the draws
+ * take a plane (it has one, or its dip alone), else the line's. */
+static void make_record(const corax_program *prog, const convert_eval *ev, pending *out)
 {
     const corax_reading *rd = &ev->rd;
-    const double angle[5] = {rd->alpha, rd->beta, rd->gamma, rd->line_alpha, rd->line_beta};
-    const double error[4] = {ev->errors.alpha, ev->errors.beta, ev->errors.line,
-                             ev->errors.depth};
-    out->in.depth = rd->depth;
-    for (int k = 0; k < 5; k++)
-        out->in.angle[k] = (float)corax_deg(angle[k]);
-    for (int k = 0; k < 4; k++)
-        out->in.error[k] = (float)error[k];
+    int plane = ev->res.has_plane || (ev->res.conditions & CORAX_COND_DIP_ONLY);
+    out->rec.in.depth = rd->depth;
+    out->rec.in.alpha = plane ? rd->alpha : rd->line_alpha;
+    out->rec.in.beta = plane ? rd->beta : rd->line_beta;
+    out->errors[0] = ev->errors.alpha;
+    out->errors[1] = ev->errors.beta;
+    out->errors[2] = ev->errors.line;
+    out->errors[3] = ev->errors.depth;
     const char *name = corax_hole_name(ev->hole);
     long h = corax_program_index(prog, name, strlen(name));
-    out->in.hole = (uint32_t)h | (rd->arbitrary_line ? ARBITRARY : 0u);
+    out->rec.in.hole = (uint32_t)h | (rd->arbitrary_line ? ARBITRARY : 0u) | (plane ? 0u : LINE);
+}
+
+static size_t error_hash(const double *e)
+{
+    uint64_t h = 14695981039346656037u;
+    const unsigned char *b = (const unsigned char *)e;
+    for (size_t i = 0; i < 4 * sizeof *e; i++)
+        h = (h ^ b[i]) * 1099511628211u;
+    return (size_t)h;
+}
+
+/* The place of errors e in the table, added when new; UINT32_MAX when out of
+ * memory. */
+static uint32_t error_place(error_table *t, const double *e)
+{
+    if (2 * (t->n + 1) > t->nslots) {
+        size_t nslots = t->nslots ? 2 * t->nslots : 64;
+        uint32_t *slot = calloc(nslots, sizeof *slot);
+        if (!slot)
+            return UINT32_MAX;
+        for (size_t i = 0; i < t->n; i++) {
+            size_t k = error_hash(t->e[i]) & (nslots - 1);
+            while (slot[k])
+                k = (k + 1) & (nslots - 1);
+            slot[k] = (uint32_t)i + 1;
+        }
+        free(t->slot);
+        t->slot = slot;
+        t->nslots = nslots;
+    }
+    size_t k = error_hash(e) & (t->nslots - 1);
+    for (; t->slot[k]; k = (k + 1) & (t->nslots - 1))
+        if (memcmp(t->e[t->slot[k] - 1], e, sizeof t->e[0]) == 0)
+            return t->slot[k] - 1;
+    if (t->n == t->cap) {
+        size_t cap = t->cap ? 2 * t->cap : 16;
+        double(*p)[4] = realloc(t->e, cap * sizeof *p);
+        if (!p)
+            return UINT32_MAX;
+        t->e = p;
+        t->cap = cap;
+    }
+    memcpy(t->e[t->n], e, sizeof t->e[0]);
+    t->slot[k] = (uint32_t)t->n + 1;
+    return (uint32_t)t->n++;
 }
 
 /* Evaluate a batch on every lane (each row once, in parallel) and keep its
  * simulated rows in row order. */
 static corax_status keep_batch(convert_run *r, first_reading *f, const corax_table *batch,
-                               convert_lane *lanes, int nlanes, draw_rec *tmp, uint8_t *sim)
+                               convert_lane *lanes, int nlanes, pending *tmp, uint8_t *sim)
 {
     size_t n = corax_table_rows(batch), widest = corax_table_widest(batch);
     for (int k = 0; k < nlanes; k++) {
@@ -210,16 +275,18 @@ static corax_status keep_batch(convert_run *r, first_reading *f, const corax_tab
             return CORAX_EVALUE;
         }
         d->bits[d->rows >> 6] |= UINT64_C(1) << (d->rows & 63);
-        uint32_t h = tmp[i].in.hole & ~ARBITRARY;
+        uint32_t h = tmp[i].rec.in.hole & HOLE_BITS;
+        if ((tmp[i].rec.in.errors = error_place(&d->errors, tmp[i].errors)) == UINT32_MAX)
+            return CORAX_ENOMEM;
         if (f->count[h]++ == 0)
             f->order[f->norder++] = h;
-        *rec_at(d, d->n++) = tmp[i];
+        *rec_at(d, d->n++) = tmp[i].rec;
     }
     return CORAX_OK;
 }
 
 static corax_status read_log(convert_run *r, first_reading *f, const char *path, size_t index,
-                             convert_lane *lanes, int nlanes, draw_rec *tmp, uint8_t *sim)
+                             convert_lane *lanes, int nlanes, pending *tmp, uint8_t *sim)
 {
     corax_reader *rd;
     corax_error err;
@@ -320,16 +387,20 @@ static corax_status draw_hole(const convert_run *r, convert_draws *d, uint32_t h
         corax_mc_reading *m = &room->mr[k];
         m->reading = corax_reading_empty();
         m->reading.depth = rec->in.depth;
-        double *angle[5] = {&m->reading.alpha, &m->reading.beta, &m->reading.gamma,
-                            &m->reading.line_alpha, &m->reading.line_beta};
-        for (int a = 0; a < 5; a++)
-            *angle[a] = corax_rad(rec->in.angle[a]);
+        if (rec->in.hole & LINE) {
+            m->reading.line_alpha = rec->in.alpha;
+            m->reading.line_beta = rec->in.beta;
+        } else {
+            m->reading.alpha = rec->in.alpha;
+            m->reading.beta = rec->in.beta;
+        }
         m->reading.arbitrary_line = (rec->in.hole & ARBITRARY) != 0;
+        const double *e = d->errors.e[rec->in.errors];
         m->errors = s->errors;
-        m->errors.alpha = rec->in.error[0];
-        m->errors.beta = rec->in.error[1];
-        m->errors.line = rec->in.error[2];
-        m->errors.depth = rec->in.error[3];
+        m->errors.alpha = e[0];
+        m->errors.beta = e[1];
+        m->errors.line = e[2];
+        m->errors.depth = e[3];
         if (m->reading.arbitrary_line)
             m->errors.gravity = 0.0;
         corax_convert_reading(hole, &m->reading, &s->convert, &hint, &m->nominal);
@@ -341,14 +412,13 @@ static corax_status draw_hole(const convert_run *r, convert_draws *d, uint32_t h
     for (size_t k = 0; st == CORAX_OK && k < n; k++) {
         const corax_spread *sp = &room->sp[k];
         draw_rec *rec = rec_at(d, members[k]);
-        rec->out.dip_sd = (float)sp->dip_sd;
-        rec->out.dip_direction_sd = (float)sp->dip_direction_sd;
-        rec->out.cone95 = (float)sp->cone95;
-        rec->out.kappa = (float)sp->kappa;
-        rec->out.position_sd = (float)sp->position_sd;
-        rec->out.draws = (uint32_t)sp->draws;
-        rec->out.has_orientation = (uint8_t)(sp->has_orientation != 0);
-        rec->out.is_plane = (uint8_t)(sp->is_plane != 0);
+        rec->out.dip_sd = sp->dip_sd;
+        rec->out.dip_direction_sd = sp->dip_direction_sd;
+        rec->out.cone95 = sp->cone95;
+        rec->out.kappa = sp->kappa;
+        rec->out.position_sd = sp->position_sd;
+        rec->out.draws = ((uint32_t)sp->draws & HOLE_BITS) | (sp->has_orientation ? ARBITRARY : 0u) |
+                         (sp->is_plane ? LINE : 0u);
     }
     return st;
 }
@@ -398,7 +468,7 @@ static corax_status draw_holes(const convert_run *r, first_reading *f, int nlane
             f->count[h] = 0; /* now the members placed so far */
         }
         for (size_t j = 0; j < d->n; j++) {
-            uint32_t h = rec_at(d, j)->in.hole & ~ARBITRARY;
+            uint32_t h = rec_at(d, j)->in.hole & HOLE_BITS;
             members[start[h] + f->count[h]++] = (uint32_t)j;
         }
     }
@@ -472,9 +542,14 @@ corax_status convert_draws_run(convert_run *r, const char *const *files, size_t 
     f.order = malloc((nholes + 1) * sizeof *f.order);
     /* the first reading's lanes count nothing: the second's do */
     convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
-    draw_rec *tmp = malloc(READ_ROWS * sizeof *tmp);
+    pending *tmp = malloc(READ_ROWS * sizeof *tmp);
     uint8_t *sim = malloc(READ_ROWS);
     corax_status st = f.d && f.count && f.order && lanes && tmp && sim ? CORAX_OK : CORAX_ENOMEM;
+    if (st == CORAX_OK && nholes > HOLE_BITS) {
+        job_error(r->job, NULL, 0, "more than %u holes to draw in one run: split the holes "
+                  "with --shard K/N", (unsigned)HOLE_BITS);
+        st = CORAX_EVALUE;
+    }
     for (int k = 0; st == CORAX_OK && k < nlanes; k++) {
         lanes[k].last_len = (size_t)-1;
         if (!(lanes[k].unknown_kind = corax_tally_new()) ||

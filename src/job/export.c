@@ -138,8 +138,11 @@ static void about_export(corax_record *a, const export_opts *o, const corax_prog
         return;
     }
     const corax_export_options *v = &o->p->vtk;
-    corax_record_set(a, "encoding", "%s", v->encoding == CORAX_VTK_BINARY ? "binary (big-endian)"
-                                                                      : "ascii");
+    corax_record_set(a, "encoding", "%s",
+                     v->encoding == CORAX_VTK_BINARY  ? "binary (big-endian)"
+                     : v->encoding == CORAX_VTK_ASCII ? "ascii"
+                                                      : "ascii up to 100000 structures, binary "
+                                                        "(big-endian) above");
     corax_record_set(a, "shape", "%s", v->shape == CORAX_EXPORT_DISCS ? "discs" : "points");
     if (v->shape == CORAX_EXPORT_DISCS)
         corax_record_set(a, "disc_radius", "%g (%d corners)", v->disc_radius, v->disc_sides);

@@ -2,7 +2,6 @@
  * survey errors and the generator of the uncertainty module: every hole of
  * the set resurveyed in each draw, every reading moved by its depth and alpha
  * errors, every candidate polished again from where it was found. */
-#include <gsl/gsl_rng.h>
 #include <math.h>
 #include <stdlib.h>
 
@@ -14,7 +13,7 @@
 #include "uncertainty/mc_int.h"
 
 typedef struct sim {
-    gsl_rng *rng;
+    corax_taus rng[1];
     corax_ziggurat zig;
     const corax_hole **hole; /* the set's holes, in order of first reading */
     corax_hole **work;       /* their copies, resurveyed draw by draw */
@@ -28,7 +27,6 @@ typedef struct sim {
 
 static void sim_free(sim *s)
 {
-    gsl_rng_free(s->rng);
     for (size_t k = 0; s->work && k < s->nholes; k++)
         corax_hole_free(s->work[k]);
     free(s->work);
@@ -44,13 +42,12 @@ static void sim_free(sim *s)
 static corax_status sim_init(sim *s, const corax_solve_reading *r, size_t n, size_t draws,
                              size_t ncand)
 {
-    s->rng = gsl_rng_alloc(gsl_rng_taus2);
     s->hole = malloc(n * sizeof *s->hole);
     s->hole_of = malloc(n * sizeof *s->hole_of);
     s->cones = malloc(n * sizeof *s->cones);
     s->drawn = malloc(draws * ncand * sizeof *s->drawn);
     s->dots = malloc(draws * sizeof *s->dots);
-    if (!s->rng || !s->hole || !s->hole_of || !s->cones || !s->drawn || !s->dots)
+    if (!s->hole || !s->hole_of || !s->cones || !s->drawn || !s->dots)
         return CORAX_ENOMEM;
     corax_ziggurat_init(&s->zig);
     size_t nodes = 1;
@@ -113,7 +110,7 @@ corax_status corax_solve_draws(const corax_solve_reading *r, size_t n,
         sim_free(&s);
         return st;
     }
-    gsl_rng_set(s.rng, (unsigned long)seed);
+    corax_taus_set(s.rng, (unsigned long)seed);
     for (size_t d = 0; d < draws; d++) {
         if (!draw_cones(&s, r, n, survey))
             continue;

@@ -17,6 +17,18 @@ static int station_cmp(const void *a, const void *b)
     return x->line < y->line ? -1 : x->line > y->line; /* keep a stable order */
 }
 
+/* The course from node i to node i + 1 as corax_hole_at() reads it. */
+static void set_span(corax_hole *h, size_t i)
+{
+    const corax_hole_node *a = &h->node[i], *z = &h->node[i + 1];
+    corax_hole_span *s = (corax_hole_span *)&hole_spans(h)[i];
+    s->r1 = a->r;
+    s->t1 = a->t;
+    s->t2 = z->t;
+    s->course = z->course;
+    s->straight = z->straight;
+}
+
 /* Fill node positions from node tangents: the desurvey proper. */
 static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
 {
@@ -26,8 +38,9 @@ static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
         corax_hole_node *a = &h->node[i - 1], *z = &h->node[i];
         double length = z->depth - a->depth;
         if (z->straight) {
-            z->course.b = NAN;
+            z->course = (corax_mc_course){length, NAN, 0.0, 1.0, 0.0};
             z->r = vec_add(a->r, vec_scale(a->t, length));
+            set_span(h, i - 1);
             continue;
         }
         z->course = corax_mc_course_of(a->t, z->t, length);
@@ -42,8 +55,21 @@ static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
         }
         corax_vec3 t;
         corax_mc_along(a->r, a->t, z->t, &z->course, 1.0, &z->r, &t);
+        set_span(h, i - 1);
     }
     return CORAX_OK;
+}
+
+/* A hole's block with room for `room` nodes: the header zeroed. */
+static corax_hole *hole_alloc(size_t room)
+{
+    size_t spans = ((room > 1 ? room - 1 : 1) * sizeof(corax_hole_span) + 63) / 64 * 64;
+    corax_hole *h = aligned_alloc(64, CORAX_HOLE_HEAD + corax_hole_depth_bytes(room) + spans);
+    if (!h)
+        return NULL;
+    memset(h, 0, sizeof *h);
+    h->room = room;
+    return h;
 }
 
 static corax_status check_station(const char *name, const corax_station *s, corax_error *err)
@@ -97,6 +123,9 @@ static corax_status build_nodes(corax_hole *h, corax_error *err)
         z->t = corax_direction(z->azimuth, z->plunge);
         z->straight = (i == 0 && h->offset);
     }
+    double *depth = (double *)hole_depths(h); /* the block is h's own */
+    for (size_t i = 0; i < h->n; i++)
+        depth[i] = h->node[i].depth;
     return desurvey_nodes(h, err);
 }
 
@@ -107,7 +136,7 @@ corax_status corax_hole_new(const char *name, const corax_collar *collar,
     *out = NULL;
     if (!name || !collar || (n && !stations))
         return corax_error_set(err, CORAX_EARG, NULL, 0, "hole: missing argument");
-    corax_hole *h = calloc(1, sizeof *h);
+    corax_hole *h = hole_alloc(n + 1); /* the stations, and the collar when it leads */
     if (!h)
         return CORAX_ENOMEM;
     corax_status st = CORAX_ENOMEM;
@@ -139,10 +168,13 @@ fail:
 
 corax_hole *corax_hole_copy(const corax_hole *base)
 {
-    corax_hole *h = calloc(1, sizeof *h);
+    corax_hole *h = hole_alloc(base->room);
     if (!h)
         return NULL;
-    *h = *base;
+    size_t spans = base->n > 1 ? base->n - 1 : 0;
+    memcpy(h, base, sizeof *h);
+    memcpy((void *)hole_depths(h), hole_depths(base), base->n * sizeof(double));
+    memcpy((void *)hole_spans(h), hole_spans(base), spans * sizeof(corax_hole_span));
     h->name = strdup(base->name);
     h->given = malloc((base->n_given ? base->n_given : 1) * sizeof *h->given);
     h->node = malloc((base->n ? base->n : 1) * sizeof *h->node);

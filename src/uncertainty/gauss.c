@@ -24,10 +24,32 @@ void corax_ziggurat_init(corax_ziggurat *z)
     }
 }
 
-/* A uniform number in (0, 1). */
-static double open_uniform(gsl_rng *rng) { return gsl_rng_uniform_pos(rng); }
+void corax_taus_set(corax_taus *t, unsigned long seed)
+{
+    /* each part from the last by the LCG 69069, kept above its bits that
+     * the recurrence drops; then six numbers thrown away, as GSL does */
+    uint32_t s = seed ? (uint32_t)seed : 1u;
+    t->s1 = 69069u * s;
+    t->s1 += t->s1 < 2u ? 2u : 0u;
+    t->s2 = 69069u * t->s1;
+    t->s2 += t->s2 < 8u ? 8u : 0u;
+    t->s3 = 69069u * t->s2;
+    t->s3 += t->s3 < 16u ? 16u : 0u;
+    for (int i = 0; i < 6; i++)
+        corax_taus_get(t);
+}
 
-double corax_ziggurat_tail(const corax_ziggurat *z, gsl_rng *rng, int32_t hz, uint32_t iz)
+/* A uniform number in (0, 1), as gsl_rng_uniform_pos(). */
+static double open_uniform(corax_taus *rng)
+{
+    double x;
+    do
+        x = corax_taus_uniform(rng);
+    while (x == 0.0);
+    return x;
+}
+
+double corax_ziggurat_tail(const corax_ziggurat *z, corax_taus *rng, int32_t hz, uint32_t iz)
 {
     for (;;) {
         double x = hz * z->w[iz];
@@ -41,7 +63,7 @@ double corax_ziggurat_tail(const corax_ziggurat *z, gsl_rng *rng, int32_t hz, ui
         }
         if (z->f[iz] + open_uniform(rng) * (z->f[iz - 1] - z->f[iz]) < exp(-0.5 * x * x))
             return x;
-        hz = (int32_t)(uint32_t)gsl_rng_get(rng);
+        hz = (int32_t)corax_taus_get(rng);
         iz = (uint32_t)hz & 127u;
         uint32_t mag = hz < 0 ? (uint32_t)(-(int64_t)hz) : (uint32_t)hz;
         if (mag < z->k[iz])

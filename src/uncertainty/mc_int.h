@@ -3,8 +3,6 @@
 #ifndef CORAX_MC_INT_H
 #define CORAX_MC_INT_H
 
-#include <gsl/gsl_rng.h>
-
 #include "corax/uncertainty.h"
 #include "uncertainty/gauss.h"
 
@@ -12,7 +10,7 @@
  * hole (azimuth, dip) shared by all nodes, plus each node's own, from the
  * station's errors or else the model's. d_azimuth and d_plunge get
  * corax_hole_node_count() entries each. */
-void mc_survey_errors(const corax_ziggurat *z, gsl_rng *rng, const corax_hole *hole,
+void mc_survey_errors(const corax_ziggurat *z, corax_taus *rng, const corax_hole *hole,
                       const corax_error_model *e, double *d_azimuth, double *d_plunge);
 
 /* The spread of k drawn unit vectors (all on one side): their Fisher mean,

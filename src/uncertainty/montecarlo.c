@@ -1,6 +1,5 @@
 /* uncertainty: Monte Carlo over the survey and core-reading errors of one
  * hole at a time (one generator per thread, seeded per hole). */
-#include <gsl/gsl_rng.h>
 #include <gsl/gsl_statistics_double.h>
 #include <math.h>
 #include <stdlib.h>
@@ -58,11 +57,12 @@ typedef struct prepared {
     int plane;
     corax_vec3 reference;     /* the nominal normal or line */
     double dip;               /* the nominal dip */
+    double sin_dip, cos_dip;  /* of the nominal dip */
     corax_vec3 position;      /* the nominal position */
 } prepared;
 
 struct corax_mc {
-    gsl_rng *rng;
+    corax_taus rng[1];
     corax_ziggurat zig;
     double *d_azimuth, *d_plunge; /* per draw, per node */
     size_t azimuth_cap, plunge_cap;
@@ -83,10 +83,6 @@ struct corax_mc {
 corax_mc *corax_mc_new(void)
 {
     corax_mc *mc = calloc(1, sizeof *mc);
-    if (mc && !(mc->rng = gsl_rng_alloc(gsl_rng_taus2))) {
-        free(mc);
-        return NULL;
-    }
     if (mc)
         corax_ziggurat_init(&mc->zig);
     return mc;
@@ -96,7 +92,6 @@ void corax_mc_free(corax_mc *mc)
 {
     if (!mc)
         return;
-    gsl_rng_free(mc->rng);
     free(mc->d_azimuth);
     free(mc->d_plunge);
     free(mc->drawn);
@@ -138,7 +133,7 @@ static int reserve(void *pp, size_t *cap, size_t count, size_t size)
     return 1;
 }
 
-void mc_survey_errors(const corax_ziggurat *z, gsl_rng *rng, const corax_hole *hole,
+void mc_survey_errors(const corax_ziggurat *z, corax_taus *rng, const corax_hole *hole,
                       const corax_error_model *e, double *d_azimuth, double *d_plunge)
 {
     size_t nodes = corax_hole_node_count(hole);
@@ -198,6 +193,8 @@ static void prepare(const corax_mc_reading *m, const corax_convert_options *o, p
     p->cos_beta = isnan(p->beta) ? 1.0 : cos(p->beta);
     p->reference = dip_only ? vec3(0.0, 0.0, 1.0) : p->plane ? m->nominal.normal : m->nominal.line;
     p->dip = m->nominal.plane.dip;
+    p->sin_dip = sin(p->dip);
+    p->cos_dip = cos(p->dip);
     p->position = m->nominal.point.position;
 }
 
@@ -212,7 +209,7 @@ static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, siz
     /* without a beta (alpha 90, or a line along the core) an error in alpha
      * tilts the plane or line toward no side in particular */
     if (isnan(p->beta))
-        db += 2.0 * CORAX_PI * gsl_rng_uniform(mc->rng);
+        db += 2.0 * CORAX_PI * corax_taus_uniform(mc->rng);
     /* the angles as read turned by their errors: sin(a + d) from sin a, cos a
      * and the small sine and cosine of d */
     double sd, cd, sb, cb;
@@ -252,7 +249,10 @@ static void add_draw(accum *ac, const prepared *p, corax_vec3 pos, corax_vec3 di
     if (p->plane) {
         corax_vec3 up = dir.z < 0.0 ? vec_neg(dir) : dir;
         double h = sqrt(up.x * up.x + up.y * up.y);
-        double dip = fast_atan2(h, up.z) - p->dip; /* small numbers: no cancellation */
+        /* the dip less the nominal dip, from their difference's sine and
+         * cosine: a few degrees, most often */
+        double dip = small_atan2(h * p->cos_dip - up.z * p->sin_dip,
+                                 up.z * p->cos_dip + h * p->sin_dip);
         ac->dip += dip;
         ac->dip2 += dip * dip;
         if (h > 0.0) {
@@ -338,9 +338,9 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
     if (!work)
         return CORAX_ENOMEM;
     const char *name = corax_hole_name(hole);
-    gsl_rng_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 0));
+    corax_taus_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 0));
     draw_survey(mc, hole, draws, survey);
-    gsl_rng_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 1));
+    corax_taus_set(mc->rng, (unsigned long)corax_mc_hole_seed(seed, name, 1));
     for (size_t first = 0; first < n; first += block) {
         size_t count = n - first < block ? n - first : block;
         for (size_t j = 0; j < count; j++)

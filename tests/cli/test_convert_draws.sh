@@ -14,6 +14,12 @@ OMP_NUM_THREADS=1 "$CORAX" convert -q $D --draws 64 --seed 99 --cloud "$T/cloud1
 OMP_NUM_THREADS=2 "$CORAX" convert -q $D --draws 64 --seed 99 --cloud "$T/cloud2.csv" -o "$T/two.csv" "$T/log.csv"
 cmp -s "$T/one.csv" "$T/two.csv" || fail "output depends on the number of threads"
 cmp -s "$T/cloud1.csv" "$T/cloud2.csv" || fail "cloud depends on the number of threads"
+# without a cloud the holes finish in any order: still the same output, on
+# one thread, two and three
+OMP_NUM_THREADS=2 "$CORAX" convert -q $D --draws 64 --seed 99 -o "$T/two-nocloud.csv" "$T/log.csv"
+OMP_NUM_THREADS=3 "$CORAX" convert -q $D --draws 64 --seed 99 -o "$T/three-nocloud.csv" "$T/log.csv"
+cmp -s "$T/one.csv" "$T/two-nocloud.csv" || fail "output without a cloud depends on the threads"
+cmp -s "$T/one.csv" "$T/three-nocloud.csv" || fail "output on three threads differs"
 [ "$(wc -l < "$T/cloud1.csv")" -gt 30000 ] || fail "cloud too small"
 head -n 1 "$T/cloud1.csv" | grep -q '^hole,depth,draw,dip,dip_direction,x,y,z$' || fail "cloud header"
 grep -q '^seed = 99$' "$T/one.csv.about" || fail "about lacks the seed"
