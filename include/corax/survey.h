@@ -99,6 +99,11 @@ corax_status corax_hole_new(const char *name, const corax_collar *collar,
 /* Free a hole; NULL is allowed. */
 void corax_hole_free(corax_hole *hole);
 
+/* A hint, no more: start fetching what corax_hole_at() reads of the hole
+ * (its header and the nodes' depths) into the processor's cache, for a look-up
+ * a little later. hole may be NULL. */
+void corax_hole_prefetch(const corax_hole *hole);
+
 /* Position and tangent at a depth (metres). Interpolates on the arc between
  * stations. CORAX_EVALUE for a negative or non-finite depth.
  * hint (may be NULL) caches the last course used: pass the same size_t, set

@@ -14,6 +14,10 @@
 /* Rows are read a batch at a time and converted in chunks on every thread. */
 enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
 
+/* Rows ahead whose hole is fetched toward the cache: a log of many holes
+ * moves to another hole on every row, and the look-up waits on memory. */
+enum { PREFETCH_AHEAD = 4 };
+
 static void convert_row(const convert_run *r, convert_lane *ln, const corax_row *row)
 {
     convert_eval ev;
@@ -82,7 +86,10 @@ static corax_status convert_batch(convert_run *r, const corax_table *cur, conver
             ln->w = chunk[c];
             if (r->draws)
                 ln->next_draw = convert_draws_rank(r->draws, base + n * c / BATCH_CHUNKS);
-            for (size_t i = n * c / BATCH_CHUNKS; i < n * (c + 1) / BATCH_CHUNKS; i++) {
+            size_t end = n * (c + 1) / BATCH_CHUNKS;
+            for (size_t i = n * c / BATCH_CHUNKS; i < end; i++) {
+                if (i + PREFETCH_AHEAD < end) /* the hole of a row to come, toward the cache */
+                    convert_prefetch(r, cur, i + PREFETCH_AHEAD);
                 corax_row row;
                 corax_table_row(cur, i, ln->field, &row);
                 convert_row(r, ln, &row);

@@ -47,6 +47,9 @@ typedef struct convert_run {
     size_t seen;     /* rows of the shard read so far, over every log */
 } convert_run;
 
+/* Start fetching the hole of a batch's row toward the cache. */
+void convert_prefetch(const convert_run *r, const corax_table *batch, size_t row);
+
 /* Whether a row's hole is in the run's shard (always, without shards). */
 int convert_row_in_shard(const convert_run *r, const corax_row *row);
 

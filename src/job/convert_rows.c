@@ -271,6 +271,13 @@ static int arbitrary_line(const convert_run *r, const convert_lane *ln, const co
     return corax_unoriented_confidence(word, n, s->unoriented_word);
 }
 
+void convert_prefetch(const convert_run *r, const corax_table *batch, size_t row)
+{
+    size_t len;
+    const char *name = corax_table_cell(batch, row, r->col[COL_HOLE], &len);
+    corax_hole_prefetch(corax_program_find(r->prog, name, len));
+}
+
 int convert_row_in_shard(const convert_run *r, const corax_row *row)
 {
     if (r->s->shards <= 1)

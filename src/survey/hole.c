@@ -217,6 +217,17 @@ void corax_hole_free(corax_hole *h)
     free(h);
 }
 
+void corax_hole_prefetch(const corax_hole *h)
+{
+    if (!h)
+        return;
+    /* the header and the first depths, without reading the hole (which
+     * would wait for it) */
+    const char *b = (const char *)h;
+    for (size_t k = 0; k < CORAX_HOLE_HEAD + 256; k += 64)
+        __builtin_prefetch(b + k);
+}
+
 corax_status corax_hole_at(const corax_hole *h, double depth, size_t *hint,
                            corax_hole_point *pt)
 {
