@@ -198,17 +198,6 @@ void corax_convert_job_summary_clear(corax_convert_job_summary *sum)
     memset(sum, 0, sizeof *sum);
 }
 
-static void lanes_free(convert_lane *lanes, int nlanes)
-{
-    for (int k = 0; lanes && k < nlanes; k++) {
-        free(lanes[k].field);
-        corax_tally_free(lanes[k].unknown_kind);
-        corax_tally_free(lanes[k].unknown_confidence);
-        corax_tally_free(lanes[k].no_line_error);
-    }
-    free(lanes);
-}
-
 corax_convert_job_options corax_convert_job_options_default(void)
 {
     static const corax_convert_confidence levels[] = {{"good", 3}, {"fair", 8}, {"poor", 20}};
@@ -280,17 +269,9 @@ corax_status corax_convert_job_run(corax_job *job, const corax_program *prog,
     r.prog = prog;
     r.s = s;
     int nlanes = s->threads > 0 ? s->threads : omp_get_max_threads();
-    convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
+    convert_lane *lanes = convert_lanes_new(nlanes);
     corax_writer *chunk[2][BATCH_CHUNKS] = {{NULL}};
     corax_status rc = lanes ? CORAX_OK : CORAX_ENOMEM;
-    for (int k = 0; k < nlanes && rc == CORAX_OK; k++) {
-        lanes[k].last_len = (size_t)-1;
-        lanes[k].unknown_kind = corax_tally_new();
-        lanes[k].unknown_confidence = corax_tally_new();
-        lanes[k].no_line_error = corax_tally_new();
-        if (!lanes[k].unknown_kind || !lanes[k].unknown_confidence || !lanes[k].no_line_error)
-            rc = CORAX_ENOMEM;
-    }
     for (int k = 0; k < 2 * BATCH_CHUNKS && rc == CORAX_OK; k++) {
         corax_writer **w = &chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS];
         if (corax_writer_memory(w) != CORAX_OK)
@@ -345,6 +326,6 @@ corax_status corax_convert_job_run(corax_job *job, const corax_program *prog,
         record(job->record, s, files, nfiles);
     for (int k = 0; k < 2 * BATCH_CHUNKS; k++)
         corax_writer_discard(chunk[k / BATCH_CHUNKS][k % BATCH_CHUNKS]);
-    lanes_free(lanes, nlanes);
+    convert_lanes_free(lanes, nlanes);
     return rc;
 }

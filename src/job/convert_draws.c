@@ -327,33 +327,6 @@ static corax_status read_log(convert_run *r, first_reading *f, const char *path,
 
 /* ---- the draws ---- */
 
-/* The cloud of one hole, gathered in memory before its turn to be written. */
-typedef struct cloud_ctx {
-    corax_writer *w;
-    const char *hole;
-    const corax_mc_reading *readings;
-} cloud_ctx;
-
-static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p,
-                    const corax_plane *plane)
-{
-    cloud_ctx *c = user;
-    corax_writer_field(c->w, c->hole, strlen(c->hole));
-    corax_writer_number(c->w, c->readings[i].reading.depth, 3);
-    corax_writer_integer(c->w, (long long)draw + 1);
-    if (plane) {
-        corax_writer_number(c->w, corax_deg(plane->dip), 2);
-        corax_writer_azimuth(c->w, corax_deg(plane->dip_direction), 2);
-    } else {
-        corax_writer_field(c->w, "", 0);
-        corax_writer_field(c->w, "", 0);
-    }
-    corax_writer_number(c->w, p->x, 3);
-    corax_writer_number(c->w, p->y, 3);
-    corax_writer_number(c->w, p->z, 3);
-    corax_writer_end_row(c->w);
-}
-
 /* One thread's room for a hole's readings. */
 typedef struct lane_room {
     corax_mc *mc;
@@ -405,10 +378,10 @@ static corax_status draw_hole(const convert_run *r, convert_draws *d, uint32_t h
             m->errors.gravity = 0.0;
         corax_convert_reading(hole, &m->reading, &s->convert, &hint, &m->nominal);
     }
-    cloud_ctx ctx = {room->cloud, corax_hole_name(hole), room->mr};
+    convert_cloud ctx = {room->cloud, corax_hole_name(hole), room->mr};
     corax_status st = corax_mc_hole(room->mc, hole, room->mr, n, &s->convert, &s->errors,
                                     s->draws, s->seed, room->sp,
-                                    room->cloud ? on_draw : NULL, &ctx);
+                                    room->cloud ? convert_cloud_draw : NULL, &ctx);
     for (size_t k = 0; st == CORAX_OK && k < n; k++) {
         const corax_spread *sp = &room->sp[k];
         draw_rec *rec = rec_at(d, members[k]);
@@ -421,21 +394,6 @@ static corax_status draw_hole(const convert_run *r, convert_draws *d, uint32_t h
                          (sp->is_plane ? LINE : 0u);
     }
     return st;
-}
-
-/* Open the cloud and write its header: the writer, or NULL (said). */
-static corax_writer *open_cloud(const convert_run *r, corax_status *st)
-{
-    corax_writer *cloud = job_output(r->job, r->s->cloud, st);
-    if (!cloud)
-        return NULL;
-    static const char *const head[] = {"hole", "depth", "draw", "dip", "dip_direction",
-                                       "x", "y", "z"};
-    corax_writer_format(cloud, r->s->output);
-    for (size_t k = 0; k < sizeof head / sizeof *head; k++)
-        corax_writer_field(cloud, head[k], strlen(head[k]));
-    corax_writer_end_row(cloud);
-    return cloud;
 }
 
 /* Draw every hole, holes to threads in turn; with a cloud, its holes are
@@ -452,7 +410,7 @@ static corax_status draw_holes(const convert_run *r, first_reading *f, int nlane
     corax_status st = start && members && room ? CORAX_OK : CORAX_ENOMEM;
     corax_writer *cloud = NULL;
     if (st == CORAX_OK && r->s->cloud)
-        cloud = open_cloud(r, &st);
+        cloud = convert_cloud_open(r, &st);
     for (int k = 0; st == CORAX_OK && k < nlanes; k++)
         if (!(room[k].mc = corax_mc_new()) ||
             (cloud && corax_writer_memory(&room[k].cloud) != CORAX_OK))
@@ -541,7 +499,7 @@ corax_status convert_draws_run(convert_run *r, const char *const *files, size_t 
     f.count = calloc(nholes + 1, sizeof *f.count);
     f.order = malloc((nholes + 1) * sizeof *f.order);
     /* the first reading's lanes count nothing: the second's do */
-    convert_lane *lanes = calloc((size_t)nlanes, sizeof *lanes);
+    convert_lane *lanes = convert_lanes_new(nlanes);
     pending *tmp = malloc(READ_ROWS * sizeof *tmp);
     uint8_t *sim = malloc(READ_ROWS);
     corax_status st = f.d && f.count && f.order && lanes && tmp && sim ? CORAX_OK : CORAX_ENOMEM;
@@ -549,13 +507,6 @@ corax_status convert_draws_run(convert_run *r, const char *const *files, size_t 
         job_error(r->job, NULL, 0, "more than %u holes to draw in one run: split the holes "
                   "with --shard K/N", (unsigned)HOLE_BITS);
         st = CORAX_EVALUE;
-    }
-    for (int k = 0; st == CORAX_OK && k < nlanes; k++) {
-        lanes[k].last_len = (size_t)-1;
-        if (!(lanes[k].unknown_kind = corax_tally_new()) ||
-            !(lanes[k].unknown_confidence = corax_tally_new()) ||
-            !(lanes[k].no_line_error = corax_tally_new()))
-            st = CORAX_ENOMEM;
     }
     for (size_t i = 0; i < nfiles && st == CORAX_OK; i++)
         st = read_log(r, &f, files[i], i, lanes, nlanes, tmp, sim);
@@ -573,13 +524,7 @@ corax_status convert_draws_run(convert_run *r, const char *const *files, size_t 
             }
         }
     }
-    for (int k = 0; lanes && k < nlanes; k++) {
-        free(lanes[k].field);
-        corax_tally_free(lanes[k].unknown_kind);
-        corax_tally_free(lanes[k].unknown_confidence);
-        corax_tally_free(lanes[k].no_line_error);
-    }
-    free(lanes);
+    convert_lanes_free(lanes, nlanes);
     free(tmp);
     free(sim);
     if (st == CORAX_OK)

@@ -158,6 +158,22 @@ const corax_spread *convert_draws_spread(const convert_draws *d, size_t j, corax
 /* Whether the second reading met the first's rows: rows of the shard seen. */
 int convert_draws_match(const convert_draws *d, size_t rows);
 
+/* n lanes with their tallies, or NULL when out of memory; and their end. */
+convert_lane *convert_lanes_new(int n);
+void convert_lanes_free(convert_lane *lanes, int n);
+
+/* The cloud of draws (--cloud): opened with its header (NULL, said, with *st
+ * its status), and a row for each draw of a hole's readings
+ * (corax_mc_draw_fn, user a convert_cloud). */
+typedef struct convert_cloud {
+    corax_writer *w;
+    const char *hole;
+    const corax_mc_reading *readings;
+} convert_cloud;
+corax_writer *convert_cloud_open(const convert_run *r, corax_status *st);
+void convert_cloud_draw(void *user, size_t i, size_t draw, const corax_vec3 *p,
+                        const corax_plane *plane);
+
 /* Every log in memory: runs oriented by reference (--orient-by), then the
  * uncertainty (holes simulated in parallel, when there are draws), rows
  * written in order. A status (messages given). */

@@ -102,32 +102,6 @@ static member *group_rows(const convert_eval *ev, size_t n, size_t *count, size_
     return g;
 }
 
-/* The cloud of one hole, gathered in memory before its turn to be written. */
-typedef struct cloud_ctx {
-    corax_writer *w;
-    const char *hole;
-    const corax_mc_reading *readings;
-} cloud_ctx;
-
-static void on_draw(void *user, size_t i, size_t draw, const corax_vec3 *p, const corax_plane *plane)
-{
-    cloud_ctx *c = user;
-    corax_writer_field(c->w, c->hole, strlen(c->hole));
-    corax_writer_number(c->w, c->readings[i].reading.depth, 3);
-    corax_writer_integer(c->w, (long long)draw + 1);
-    if (plane) {
-        corax_writer_number(c->w, corax_deg(plane->dip), 2);
-        corax_writer_azimuth(c->w, corax_deg(plane->dip_direction), 2);
-    } else {
-        corax_writer_field(c->w, "", 0);
-        corax_writer_field(c->w, "", 0);
-    }
-    corax_writer_number(c->w, p->x, 3);
-    corax_writer_number(c->w, p->y, 3);
-    corax_writer_number(c->w, p->z, 3);
-    corax_writer_end_row(c->w);
-}
-
 /* Simulate every group; spread[k] for member k. The cloud (may be NULL) gets
  * the holes in group order. */
 static corax_status simulate(const convert_run *r, const member *g, const size_t *groups,
@@ -158,12 +132,12 @@ static corax_status simulate(const convert_run *r, const member *g, const size_t
             int t = omp_get_thread_num();
             size_t a = groups[h], n = groups[h + 1] - a;
             const corax_hole *hole = g[a].hole;
-            cloud_ctx ctx = {cw[t], corax_hole_name(hole), mr + a};
+            convert_cloud ctx = {cw[t], corax_hole_name(hole), mr + a};
             if (cloud)
                 corax_writer_reset(cw[t]);
             corax_status st = corax_mc_hole(mc[t], hole, mr + a, n, &s->convert, &s->errors,
                                             s->draws, s->seed, spread + a,
-                                            cloud ? on_draw : NULL, &ctx);
+                                            cloud ? convert_cloud_draw : NULL, &ctx);
             if (st != CORAX_OK) {
 #pragma omp atomic write
                 failed = 1;
@@ -250,20 +224,8 @@ corax_status convert_in_memory(convert_run *r, convert_lane *lanes, int nlanes,
         if (!spread)
             rc = CORAX_ENOMEM;
     }
-    if (rc == CORAX_OK && r->s->cloud) {
-        corax_status st = corax_writer_open_in(r->job->outputs, r->s->cloud, &cloud, &err);
-        if (st != CORAX_OK) {
-            job_error_record(r->job, &err, st);
-            rc = job_failed(st);
-        } else {
-            static const char *const head[] = {"hole", "depth", "draw", "dip",
-                                               "dip_direction", "x", "y", "z"};
-            corax_writer_format(cloud, r->s->output);
-            for (size_t k = 0; k < sizeof head / sizeof *head; k++)
-                corax_writer_field(cloud, head[k], strlen(head[k]));
-            corax_writer_end_row(cloud);
-        }
-    }
+    if (rc == CORAX_OK && r->s->cloud && !(cloud = convert_cloud_open(r, &rc)))
+        rc = job_failed(rc);
     if (rc == CORAX_OK && r->s->draws)
         rc = simulate(r, g, groups, ngroups, ev, spread, cloud, nlanes);
     /* back to row order, and out */
