@@ -17,6 +17,14 @@ typedef struct corax_station_ref {
     double depth; /* in the unit of the survey table */
 } corax_station_ref;
 
+/* Stations to leave out from their text, "QC003@120,QC004@36.5" (blanks
+ * around a hole's name are not part of it): each appended to *refs (*n of
+ * them, the array grown with realloc), its hole a new string the caller
+ * frees. CORAX_EVALUE with the item that is not HOLE@DEPTH in err (which
+ * names no file), or CORAX_ENOMEM; the items before it are kept. */
+corax_status corax_station_refs_parse(const char *text, corax_station_ref **refs, size_t *n,
+                                      corax_error *err);
+
 /* What the loader assumes about the tables. */
 typedef struct corax_load_options {
     corax_table_settings collars, surveys;

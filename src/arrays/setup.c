@@ -192,31 +192,11 @@ static corax_status table_key(corax_setup *s, const char *key, const char *value
 static corax_status reject_stations(corax_setup *s, const char *key, const char *value,
                                     corax_error *err)
 {
-    for (const char *p = value; *p;) {
-        const char *end = strchr(p, ',');
-        if (!end)
-            end = p + strlen(p);
-        while (p < end && (*p == ' ' || *p == '\t'))
-            p++;
-        const char *at = memchr(p, '@', (size_t)(end - p));
-        double depth;
-        if (!at || at == p ||
-            corax_parse_number(at + 1, (size_t)(end - at - 1), '.', &depth) != CORAX_NUMBER_OK ||
-            depth < 0)
-            return corax_error_set(err, CORAX_EVALUE, NULL, 0, "%s: '%.*s' is not HOLE@DEPTH",
-                                   key, (int)(end - p), p);
-        size_t hl = (size_t)(at - p);
-        while (hl && (p[hl - 1] == ' ' || p[hl - 1] == '\t'))
-            hl--;
-        corax_station_ref *r = realloc(s->reject, (s->nreject + 1) * sizeof *r);
-        if (r)
-            s->reject = r;
-        char *hole = r ? strndup(p, hl) : NULL;
-        if (!hole)
-            return corax_error_set(err, CORAX_ENOMEM, NULL, 0, "out of memory");
-        s->reject[s->nreject++] = (corax_station_ref){hole, depth};
-        p = *end ? end + 1 : end;
-    }
+    corax_error e;
+    corax_error_clear(&e);
+    corax_status st = corax_station_refs_parse(value, &s->reject, &s->nreject, &e);
+    if (st != CORAX_OK) /* the key first: "reject_station: 'X' is not HOLE@DEPTH" */
+        return corax_error_set(err, st, NULL, 0, "%s: %s", key, e.message);
     return CORAX_OK;
 }
 

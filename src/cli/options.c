@@ -2,6 +2,7 @@
  * options, and the parse that applies the project first and the command line
  * over it. */
 #include <stdio.h>
+#include <stdint.h>
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
@@ -137,35 +138,26 @@ static const char *own_string(cli_common *c, char *s)
 /* "QC003@120,QC004@36.5": stations to leave out. 0, or -1 with why filled. */
 static int reject_stations(cli_common *c, const char *arg, char *why, size_t wl)
 {
-    for (const char *p = arg; *p;) {
-        const char *end = strchr(p, ',');
-        if (!end)
-            end = p + strlen(p);
-        while (p < end && (*p == ' ' || *p == '\t'))
-            p++;
-        const char *at = memchr(p, '@', (size_t)(end - p));
-        double depth;
-        if (!at || at == p ||
-            corax_parse_number(at + 1, (size_t)(end - at - 1), '.', &depth) != CORAX_NUMBER_OK ||
-            depth < 0) {
-            snprintf(why, wl, "'%.*s' is not HOLE@DEPTH", (int)(end - p), p);
-            return -1;
+    corax_error err;
+    corax_error_clear(&err);
+    size_t before = c->nreject, n = c->nreject;
+    corax_status st = corax_station_refs_parse(arg, &c->reject, &n, &err);
+    for (size_t i = before; i < n; i++) { /* the names are the run's to free */
+        char *hole = (char *)(uintptr_t)c->reject[i].hole;
+        if (c->nreject == i && own_string(c, hole)) { /* own_string frees it if not */
+            c->nreject++;
+        } else {
+            if (c->nreject == i) {
+                st = CORAX_ENOMEM;
+                snprintf(err.message, sizeof err.message, "out of memory");
+            } else {
+                free(hole);
+            }
         }
-        size_t hl = (size_t)(at - p);
-        while (hl && (p[hl - 1] == ' ' || p[hl - 1] == '\t'))
-            hl--;
-        corax_station_ref *r = realloc(c->reject, (c->nreject + 1) * sizeof *r);
-        const char *hole = r ? own_string(c, strndup(p, hl)) : NULL;
-        if (r)
-            c->reject = r;
-        if (!hole) {
-            snprintf(why, wl, "out of memory");
-            return -1;
-        }
-        c->reject[c->nreject++] = (corax_station_ref){hole, depth};
-        p = *end ? end + 1 : end;
     }
-    return 0;
+    if (st != CORAX_OK)
+        snprintf(why, wl, "%s", err.message);
+    return st == CORAX_OK ? 0 : -1;
 }
 
 /* An output table's delimiter or decimal mark (never found: corax decides). */

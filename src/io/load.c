@@ -554,3 +554,34 @@ corax_status corax_program_load(const char *collars_path, const char *surveys_pa
     *out = prog;
     return CORAX_OK;
 }
+
+corax_status corax_station_refs_parse(const char *text, corax_station_ref **refs, size_t *n,
+                                      corax_error *err)
+{
+    for (const char *p = text; *p;) {
+        const char *end = strchr(p, ',');
+        if (!end)
+            end = p + strlen(p);
+        while (p < end && (*p == ' ' || *p == '\t'))
+            p++;
+        const char *at = memchr(p, '@', (size_t)(end - p));
+        double depth;
+        if (!at || at == p ||
+            corax_parse_number(at + 1, (size_t)(end - at - 1), '.', &depth) != CORAX_NUMBER_OK ||
+            depth < 0)
+            return corax_error_set(err, CORAX_EVALUE, NULL, 0, "'%.*s' is not HOLE@DEPTH",
+                                   (int)(end - p), p);
+        size_t hl = (size_t)(at - p);
+        while (hl && (p[hl - 1] == ' ' || p[hl - 1] == '\t'))
+            hl--;
+        corax_station_ref *r = realloc(*refs, (*n + 1) * sizeof *r);
+        if (r)
+            *refs = r;
+        char *hole = r ? strndup(p, hl) : NULL;
+        if (!hole)
+            return corax_error_set(err, CORAX_ENOMEM, NULL, 0, "out of memory");
+        (*refs)[(*n)++] = (corax_station_ref){hole, depth};
+        p = *end ? end + 1 : end;
+    }
+    return CORAX_OK;
+}
