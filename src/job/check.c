@@ -285,10 +285,31 @@ static corax_status write_report(corax_job *job, const corax_check_job_options *
     return CORAX_OK;
 }
 
+/* ---- work split by hole ---- */
+
+static int sharded(const corax_check_job_options *o) { return o->qa.shards > 1; }
+
+/* The findings so far (the program's loading, the runs table's rows) of the
+ * holes of the shard; one about no hole goes with the empty name's shard, so
+ * that the shards together hold each once. */
+static void keep_shard(const corax_check_job_options *o, corax_findings *found)
+{
+    size_t kept = 0;
+    for (size_t i = 0; i < found->count; i++) {
+        const corax_finding *f = &found->item[i];
+        if (corax_shard_of(f->hole, strlen(f->hole), o->qa.shards) == o->qa.shard)
+            found->item[kept++] = *f;
+    }
+    found->count = kept;
+}
+
 static void record(corax_record *a, const corax_check_job_options *o)
 {
     const corax_qa_options *q = &o->qa;
     corax_record_section(a, "check");
+    if (sharded(o))
+        corax_record_set(a, "shard", "%u/%u (holes by corax_shard_of; each hole's own checks, "
+                         "the program-wide ones left out)", q->shard, q->shards);
     for (size_t i = 0; i < o->nlogs; i++)
         corax_record_set(a, "structures", "%s", o->logs[i]);
     corax_record_set(a, "runs", "%s", o->runs ? o->runs : "inferred from the readings' depths");
@@ -362,6 +383,16 @@ corax_status corax_check_job_run(corax_job *job, const corax_program *prog,
     memset(&l, 0, sizeof l);
     memset(sum, 0, sizeof *sum);
     corax_runs runs = {0};
+    if (sharded(o) && (o->qa.shard < 1 || o->qa.shard > o->qa.shards)) {
+        job_usage(job, "shard %u of %u: a shard is 1 to %u", o->qa.shard, o->qa.shards,
+                  o->qa.shards);
+        return CORAX_EARG;
+    }
+    if (sharded(o) && o->report) {
+        job_usage(job, "--report cannot go with --shard: the report is of the whole program "
+                       "(run check without --shard for it)");
+        return CORAX_EARG;
+    }
     corax_status rc = load_logs(job, o, prog, &l);
     if (rc == CORAX_OK && o->runs)
         rc = corax_runs_load(job, o->runs, &o->runs_table, o->confidence_codes,
@@ -369,6 +400,13 @@ corax_status corax_check_job_run(corax_job *job, const corax_program *prog,
     if (rc == CORAX_OK && corax_qa_log_sort(l.log) != CORAX_OK) {
         job_error(job, NULL, 0, "out of memory");
         rc = CORAX_ENOMEM;
+    }
+    if (rc == CORAX_OK && sharded(o)) {
+        keep_shard(o, found);
+        job_note(job, "shard %u of %u: each hole's own checks only; the program-wide checks (the "
+                      "azimuth offset the holes share, the conventions, holes scattered or "
+                      "turned against the rest) need every hole: run check without --shard for "
+                      "them", o->qa.shard, o->qa.shards);
     }
     if (rc == CORAX_OK) {
         mark_arbitrary_lines(o, &runs, &l);
@@ -388,6 +426,7 @@ corax_status corax_check_job_run(corax_job *job, const corax_program *prog,
         record(job->record, o);
         sum->holes = corax_program_size(prog);
         sum->readings = corax_qa_log_size(l.log);
+        sum->other_shards = l.other;
         sum->errors = corax_findings_count(found, CORAX_ERROR);
         sum->warnings = corax_findings_count(found, CORAX_WARNING) - sum->errors;
         sum->notes = found->count - sum->errors - sum->warnings;
