@@ -176,9 +176,12 @@ static int setup(void **state)
     make_readings(w);
     corax_qa_options o = corax_qa_options_default();
     corax_convert_options co = corax_convert_options_default();
-    if (corax_qa_surveys(w->prog, "surveys.csv", &o, &w->found) != CORAX_OK ||
-        corax_qa_readings(w->prog, w->r, w->n, NULL, 0, &co, &o, &w->found) != CORAX_OK ||
-        corax_findings_sort(&w->found) != CORAX_OK)
+    corax_qa_log *log = test_qa_log(w->r, w->n);
+    corax_status st = corax_qa_surveys(w->prog, "surveys.csv", &o, &w->found);
+    if (st == CORAX_OK)
+        st = corax_qa_readings(w->prog, log, NULL, 0, &co, &o, &w->found);
+    corax_qa_log_free(log);
+    if (st != CORAX_OK || corax_findings_sort(&w->found) != CORAX_OK)
         return -1;
     *state = w;
     return 0;
@@ -312,7 +315,9 @@ static void test_given_runs(void **state)
     corax_findings found = {0};
     corax_qa_options o = corax_qa_options_default();
     corax_convert_options co = corax_convert_options_default();
-    assert_int_equal(corax_qa_readings(w->prog, w->r, w->n, runs, n, &co, &o, &found), CORAX_OK);
+    corax_qa_log *log = test_qa_log(w->r, w->n);
+    assert_int_equal(corax_qa_readings(w->prog, log, runs, n, &co, &o, &found), CORAX_OK);
+    corax_qa_log_free(log);
     world v = *w;
     v.found = found;
     expect(&v, "H08", "low-confidence", 101, "in runs marked 'poor'", CORAX_NOTE);

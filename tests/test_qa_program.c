@@ -172,9 +172,11 @@ static void fan_program(world *w, double step, int how, int parallel)
 static void run(world *w, const corax_convert_options *co, const corax_qa_options *o)
 {
     assert_int_equal(corax_qa_surveys(w->prog, "surveys.csv", o, &w->found), CORAX_OK);
-    if (w->n)
-        assert_int_equal(corax_qa_readings(w->prog, w->r, w->n, NULL, 0, co, o, &w->found),
-                         CORAX_OK);
+    if (w->n) {
+        corax_qa_log *log = test_qa_log(w->r, w->n);
+        assert_int_equal(corax_qa_readings(w->prog, log, NULL, 0, co, o, &w->found), CORAX_OK);
+        corax_qa_log_free(log);
+    }
 }
 
 static void run_default(world *w)

@@ -54,6 +54,7 @@ typedef struct fixture {
     corax_program *program;
     corax_qa_reading reading[64];
     size_t nreading;
+    corax_qa_log *log; /* of the readings (fixture_log) */
     corax_findings findings;
     corax_convert_options convert;
     const char *inputs[2];
@@ -71,6 +72,14 @@ static void add_reading(fixture *f, const char *name, double depth, double alpha
     q->reading.depth = depth;
     q->reading.alpha = corax_rad(alpha);
     q->reading.beta = corax_rad(beta); /* NaN stays NaN */
+}
+
+/* The log of the fixture's readings, made again after readings are added. */
+static void fixture_log(fixture *f)
+{
+    corax_qa_log_free(f->log);
+    f->log = test_qa_log(f->reading, f->nreading);
+    f->in.log = f->log;
 }
 
 /* Four holes in the collars (one named with markup in it, one without a
@@ -123,8 +132,9 @@ static fixture *make_fixture(void)
     f->inputs[1] = "in/log.csv";
     f->in = (corax_report_input){.title = "Test <program>", .inputs = f->inputs, .ninputs = 2,
                                  .version = "9.9.9", .when = "2026-01-02 03:04",
-                                 .program = f->program, .findings = F, .readings = f->reading,
-                                 .nreadings = f->nreading, .convert = &f->convert};
+                                 .program = f->program, .findings = F,
+                                 .convert = &f->convert};
+    fixture_log(f);
     return f;
 }
 
@@ -132,6 +142,7 @@ static void free_fixture(fixture *f)
 {
     corax_findings_clear(&f->findings);
     corax_program_free(f->program);
+    corax_qa_log_free(f->log);
     free(f);
 }
 
@@ -273,19 +284,22 @@ static void test_flagged_readings_picked_out(void **state)
     const report_hole *h = &m.hole[1];
     assert_int_equal(h->nreading, 8);
     assert_int_equal(h->nfinding, 3);
+    report_readings rr;
+    assert_int_equal(corax_report_readings(&m, h, &rr), CORAX_OK);
+    assert_int_equal(rr.n, 8);
     size_t flagged = 0;
-    for (size_t k = 0; k < h->nreading; k++) {
-        size_t i = h->reading[k];
-        flagged += m.flagged[i];
+    for (size_t k = 0; k < rr.n; k++) {
+        flagged += rr.flagged[k];
         if (k) /* by depth */
-            assert_true(f->reading[h->reading[k - 1]].reading.depth <= f->reading[i].reading.depth);
-        double d = f->reading[i].reading.depth;
-        assert_int_equal(m.flagged[i], (d >= 20 && d <= 30) || fabs(d - 45) < 0.005);
+            assert_true(rr.reading[k - 1].depth <= rr.reading[k].depth);
+        double d = rr.reading[k].depth;
+        assert_int_equal(rr.flagged[k], (d >= 20 && d <= 30) || fabs(d - 45) < 0.005);
     }
     assert_int_equal(flagged, 4);
     report_net_counts c;
     corax_svg *svg;
-    assert_int_equal(corax_report_net(&m, h, 2, &c, &svg), CORAX_OK);
+    assert_int_equal(corax_report_net(&m, h, &rr, 2, &c, &svg), CORAX_OK);
+    corax_report_readings_free(&rr);
     assert_non_null(svg);
     assert_int_equal(c.placed, 7);
     assert_int_equal(c.flagged, 4);
@@ -322,7 +336,10 @@ static void test_strip_to_scale(void **state)
     assert_string_equal(m.hole[3].name, "DH10");
     report_strip_counts c;
     corax_svg *svg;
-    assert_int_equal(corax_report_strip(&m, &m.hole[3], &c, &svg), CORAX_OK);
+    report_readings rr;
+    assert_int_equal(corax_report_readings(&m, &m.hole[3], &rr), CORAX_OK);
+    assert_int_equal(corax_report_strip(&m, &m.hole[3], &rr, &c, &svg), CORAX_OK);
+    corax_report_readings_free(&rr);
     assert_int_equal(c.step, 1);
     assert_int_equal(c.drawn, 1);
     const char *doc = corax_svg_finish(svg, NULL);
@@ -402,17 +419,21 @@ static void test_large_hole_thinned(void **state)
     corax_findings F = {0};
     assert_int_equal(corax_findings_add_range(&F, CORAX_WARNING, "run", NULL, 0, "BIG", 100, 110,
                                               "flagged"), CORAX_OK);
-    corax_report_input in = {.program = p, .findings = &F, .readings = r, .nreadings = N};
+    corax_qa_log *log = test_qa_log(r, N);
+    corax_report_input in = {.program = p, .findings = &F, .log = log};
     report_model m;
     assert_int_equal(corax_report_model_build(&m, &in), CORAX_OK);
+    report_readings rr;
+    assert_int_equal(corax_report_readings(&m, &m.hole[0], &rr), CORAX_OK);
     report_strip_counts sc;
     corax_svg *svg;
-    assert_int_equal(corax_report_strip(&m, &m.hole[0], &sc, &svg), CORAX_OK);
+    assert_int_equal(corax_report_strip(&m, &m.hole[0], &rr, &sc, &svg), CORAX_OK);
     assert_int_equal(sc.step, 2);
     assert_int_equal(sc.drawn, N / 2);
     corax_svg_free(svg);
     report_net_counts nc;
-    assert_int_equal(corax_report_net(&m, &m.hole[0], 1, &nc, &svg), CORAX_OK);
+    assert_int_equal(corax_report_net(&m, &m.hole[0], &rr, 1, &nc, &svg), CORAX_OK);
+    corax_report_readings_free(&rr);
     assert_int_equal(nc.placed, N);
     assert_true(nc.drawn <= REPORT_NET_CAP && nc.drawn > REPORT_NET_CAP / 2);
     char want[64];
@@ -431,6 +452,7 @@ static void test_large_hole_thinned(void **state)
     unlink(path_out);
     corax_findings_clear(&F);
     corax_program_free(p);
+    corax_qa_log_free(log);
     free(r);
 }
 
@@ -476,8 +498,8 @@ static void test_many_holes_keep_to_the_budget(void **state)
     }
     corax_findings_sort(&F);
     const char *path_out = test_tmp_path("report-budget.html");
-    corax_report_input in = {.program = p, .findings = &F, .readings = r,
-                             .nreadings = HOLES * PER,
+    corax_qa_log *log = test_qa_log(r, HOLES * PER);
+    corax_report_input in = {.program = p, .findings = &F, .log = log,
                              .findings_table = test_tmp_path("findings-budget.csv")};
     corax_error err;
     assert_int_equal(corax_report_write(&in, NULL, path_out, &err), CORAX_OK);
@@ -527,6 +549,7 @@ static void test_many_holes_keep_to_the_budget(void **state)
     unlink(path_out);
     corax_findings_clear(&F);
     corax_program_free(p);
+    corax_qa_log_free(log);
     free(r);
     free(name);
 }
@@ -591,8 +614,14 @@ static void test_failed_write_leaves_nothing(void **state)
     assert_int_equal(entries(dir), 1);
     assert_int_equal(corax_report_write(NULL, NULL, page, &err), CORAX_EARG);
     f->findings.item[0].severity = CORAX_NOTE;
-    f->in.readings = NULL; /* counted but not given */
+    corax_qa_log *unsorted = corax_qa_log_new(); /* a log not sorted */
+    assert_non_null(unsorted);
+    assert_int_equal(corax_qa_log_add(unsorted, &f->reading[0]), CORAX_OK);
+    f->in.log = unsorted;
     assert_int_equal(corax_report_write(&f->in, NULL, page, &err), CORAX_EARG);
+    assert_int_equal(entries(dir), 1);
+    f->in.log = f->log;
+    corax_qa_log_free(unsorted);
     unlink(inside);
     rmdir(taken);
     rmdir(dir);
@@ -638,13 +667,16 @@ static void test_net_contours_need_twenty_poles(void **state)
         fixture *f = make_fixture();
         for (int k = 0; k < (many ? 19 : 10); k++) /* DH10 has one already */
             add_reading(f, "DH10", 5 + 5 * k, 50 + k % 7, 280 + 3 * k, "bedding");
-        f->in.nreadings = f->nreading;
+        fixture_log(f);
         report_model m;
         assert_int_equal(corax_report_model_build(&m, &f->in), CORAX_OK);
         assert_string_equal(m.hole[3].name, "DH10");
+        report_readings rr;
+        assert_int_equal(corax_report_readings(&m, &m.hole[3], &rr), CORAX_OK);
         report_net_counts c;
         corax_svg *svg;
-        assert_int_equal(corax_report_net(&m, &m.hole[3], 4, &c, &svg), CORAX_OK);
+        assert_int_equal(corax_report_net(&m, &m.hole[3], &rr, 4, &c, &svg), CORAX_OK);
+        corax_report_readings_free(&rr);
         assert_int_equal(c.poles, many ? 20 : 11);
         assert_int_equal(c.contoured, many);
         corax_svg_free(svg);
@@ -672,7 +704,7 @@ static void test_too_steep_to_place(void **state)
     add_reading(f, "V1", 20, 40, 100, "bedding");
     add_reading(f, "V1", 25, 45, 120, "bedding");
     add_reading(f, "V1", 30, 90, 0, "bedding"); /* square to the core: placed all the same */
-    f->in.nreadings = f->nreading;
+    fixture_log(f);
     char *doc = write_page(&f->in, "report-steep.html");
     size_t part = at(doc, "<h3>V1</h3>");
     at(doc + part, "2 readings could not be oriented (a dip at most): the hole is within 5 "

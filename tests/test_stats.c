@@ -4,6 +4,7 @@
 #include <math.h>
 #include <stdint.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "corax/projection.h"
 #include "corax/stats.h"
@@ -74,6 +75,75 @@ static void test_axial_summary_takes_sign_from_tensor(void **state)
     assert_close(s.weight_sum, 10, 0, 0, "weight sum without weights");
     check_ten(&s.fisher, "axial mean of the ten directions (Tauxe, Essentials ch. 11)");
     assert_true(angle_deg(s.tensor.axis[0], s.fisher.mean) < 1.0);
+}
+
+/* The summary is, bit for bit, the tensor of the readings (corax_tensor_compute)
+ * and the Fisher mean of the readings turned to its first axis
+ * (corax_fisher_mean), weighted or not, whether it is met in arrays or in
+ * passes over the readings (corax_axial_stream): the larger jobs (the QA's
+ * convention test) take it in passes over data they cannot hold. Random
+ * axial sets, a property of the code, no outside value. */
+static void test_axial_summary_in_passes_is_exact(void **state)
+{
+    (void)state;
+    enum { N = 500 };
+    static corax_vec3 v[N], turned[N];
+    static double w[N];
+    uint64_t seed = 77;
+    for (size_t n = 1; n <= N; n = n * 3 + 1)
+        for (int weighted = 0; weighted < 2; weighted++) {
+            for (size_t i = 0; i < n; i++) {
+                v[i] = corax_fisher_draw(line(120, 30), 5.0, test_uniform(&seed),
+                                         test_uniform(&seed));
+                if (test_uniform(&seed) < 0.5)
+                    v[i] = (corax_vec3){-v[i].x, -v[i].y, -v[i].z};
+                w[i] = 1.0 + 9.0 * test_uniform(&seed);
+            }
+            const double *wp = weighted ? w : NULL;
+            corax_axial_summary s, p;
+            assert_int_equal(corax_axial_summary_compute(v, wp, n, &s), CORAX_OK);
+            corax_tensor t;
+            corax_fisher f;
+            assert_int_equal(corax_tensor_compute(v, wp, n, &t), CORAX_OK);
+            for (size_t i = 0; i < n; i++) {
+                double d = v[i].x * t.axis[0].x + v[i].y * t.axis[0].y + v[i].z * t.axis[0].z;
+                turned[i] = d < 0 ? (corax_vec3){-v[i].x, -v[i].y, -v[i].z} : v[i];
+            }
+            assert_int_equal(corax_fisher_mean(turned, wp, n, &f), CORAX_OK);
+            if (f.mean.z > 0)
+                f.mean = (corax_vec3){-f.mean.x, -f.mean.y, -f.mean.z};
+            assert_true(memcmp(&s.tensor, &t, sizeof t) == 0);
+            assert_true(s.fisher.resultant == f.resultant && s.fisher.n == f.n);
+            assert_true(s.fisher.mean.x == f.mean.x && s.fisher.mean.y == f.mean.y &&
+                        s.fisher.mean.z == f.mean.z);
+            assert_true(n < 3 || (s.fisher.kappa == f.kappa && s.fisher.alpha95 == f.alpha95));
+            corax_axial_stream st;
+            corax_axial_stream_begin(&st, weighted);
+            for (size_t i = 0; i < n; i++)
+                corax_axial_stream_weigh(&st, w[i]);
+            for (size_t i = 0; i < n; i++)
+                corax_axial_stream_tensor(&st, v[i], w[i]);
+            corax_axial_stream_axes(&st);
+            for (size_t i = 0; i < n; i++)
+                corax_axial_stream_mean(&st, v[i], w[i]);
+            assert_int_equal(corax_axial_stream_end(&st, &p), CORAX_OK);
+            assert_true(memcmp(&p.tensor, &s.tensor, sizeof p.tensor) == 0);
+            assert_true(p.n == s.n && p.weight_sum == s.weight_sum);
+            assert_true(p.fisher.mean.x == s.fisher.mean.x && p.fisher.mean.z == s.fisher.mean.z &&
+                        p.fisher.resultant == s.fisher.resultant);
+        }
+    /* bad weights fail in passes as in arrays; none at all is no summary */
+    corax_axial_stream st;
+    corax_axial_summary p;
+    corax_axial_stream_begin(&st, 1);
+    corax_axial_stream_weigh(&st, 1.0);
+    corax_axial_stream_weigh(&st, -1.0);
+    assert_int_equal(corax_axial_stream_end(&st, &p), CORAX_EARG);
+    assert_int_equal(p.n, 2);
+    assert_true(isnan(p.fisher.resultant) && isnan(p.tensor.eigenvalue[0]));
+    corax_axial_stream_begin(&st, 0);
+    assert_int_equal(corax_axial_stream_end(&st, &p), CORAX_OK);
+    assert_true(p.n == 0 && isnan(p.fisher.kappa));
 }
 
 /* SciPy's directional_stats documentation (general statistics library):
@@ -518,6 +588,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_fisher_ten_directions_tauxe),
         cmocka_unit_test(test_axial_summary_takes_sign_from_tensor),
+        cmocka_unit_test(test_axial_summary_in_passes_is_exact),
         cmocka_unit_test(test_fisher_two_vectors_scipy),
         cmocka_unit_test(test_fisher_zero_weight_removes_pull),
         cmocka_unit_test(test_wood_sampler_check_values),

@@ -209,14 +209,20 @@ int main(int argc, char **argv)
         make_reading(&s, NULL, "EF099", &state);
     if (st == CORAX_OK)
         st = planted(&s, nholes);
+    corax_qa_log *log = corax_qa_log_new(); /* the readings as the report takes them */
+    if (!log)
+        st = CORAX_ENOMEM;
+    for (size_t k = 0; k < s.nreadings && st == CORAX_OK; k++)
+        st = corax_qa_log_add(log, &s.readings[k]);
+    if (st == CORAX_OK)
+        st = corax_qa_log_sort(log);
     const char *inputs[] = {"ember_flats/collars.csv", "ember_flats/surveys.csv",
                             "ember_flats/core_log.csv", "ember_flats/runs.csv"};
     corax_convert_options conv = corax_convert_options_default();
     corax_report_input in = {.title = "Ember Flats (an invented prospect)", .inputs = inputs,
                              .ninputs = 4, .version = CORAX_VERSION,
                              .when = "2026-06-01 09:30 (invented)", .program = s.program,
-                             .findings = &s.findings, .readings = s.readings,
-                             .nreadings = s.nreadings, .convert = &conv};
+                             .findings = &s.findings, .log = log, .convert = &conv};
     corax_error err = {0};
     double t0 = seconds();
     if (st == CORAX_OK)
@@ -236,6 +242,7 @@ int main(int argc, char **argv)
     }
     corax_findings_clear(&s.findings);
     corax_program_free(s.program);
+    corax_qa_log_free(log);
     free(s.readings);
     free(s.names);
     return rc;

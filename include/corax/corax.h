@@ -36,6 +36,7 @@
 #include "corax/report.h"
 #include "corax/section.h"
 #include "corax/section_drawing.h"
+#include "corax/shard.h"
 #include "corax/solve.h"
 #include "corax/stats.h"
 #include "corax/status.h"

@@ -24,6 +24,7 @@
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/qa.h"
+#include "corax/shard.h"
 #include "corax/table.h"
 #include "corax/uncertainty.h"
 
@@ -212,13 +213,7 @@ long corax_runs_find(const corax_runs *runs, const char *hole, size_t len, doubl
  * mark: it is `word`, without regard to case or surrounding blanks. */
 int corax_unoriented_confidence(const char *text, size_t len, const char *word);
 
-/* Work split by hole across machines: the shard (1 to count) of a hole
- * named by len bytes. The hash is FNV-1a 64 (offset basis
- * 14695981039346656037, prime 1099511628211) of the name's bytes as the
- * table holds them, taken modulo count, plus one: stable across machines,
- * runs and versions, so that shards run anywhere merge into the single run.
- * count 0 or 1: every hole is shard 1. */
-unsigned corax_shard_of(const char *name, size_t len, unsigned count);
+/* Work split by hole across machines: corax_shard_of() (shard.h). */
 
 #ifdef __cplusplus
 }

@@ -2,7 +2,14 @@
  * logs and the runs are checked (qa.h), and every finding placed at its hole
  * and depth goes to a table (hole, depth, depth_to, severity, check,
  * message, file, line; sorted by hole and depth) and, when asked, to an HTML
- * report. Bad data becomes findings and the rest is still checked. */
+ * report. Bad data becomes findings and the rest is still checked.
+ *
+ * The logs are read row by row into a compact log (corax_qa_log, a few
+ * dozen bytes a reading), which the checks and the report go over hole by
+ * hole. Work split by hole (qa.shard, qa.shards: corax_shard_of()) checks
+ * only the holes of one shard, each on its own: the findings of the N
+ * shards together hold each of the single run's findings about a hole
+ * once, and the program-wide checks are left out. */
 #ifndef CORAX_JOB_CHECK_H
 #define CORAX_JOB_CHECK_H
 
@@ -43,6 +50,7 @@ corax_check_job_options corax_check_job_options_default(void);
 
 typedef struct corax_check_job_summary {
     size_t holes, readings;
+    size_t other_shards;            /* readings left to the other shards */
     size_t errors, warnings, notes; /* findings by severity */
     /* kind and confidence codes without a word, each with its count and first
      * place (they are warnings too) */
@@ -56,7 +64,10 @@ void corax_check_job_summary_clear(corax_check_job_summary *summary);
  * which is sorted, and written to output (the report too, when asked). The
  * job's record gets a [check] section. An error message and a status only
  * when a table cannot be read or lacks a required column, or an output
- * cannot be written. */
+ * cannot be written; CORAX_EARG (a usage message) for a report asked of a
+ * shard. Under shards the findings already in *found (the program's
+ * loading) are kept for the holes of the shard (one about no hole goes
+ * with the shard of the empty name), and a note says what is left out. */
 corax_status corax_check_job_run(corax_job *job, const corax_program *program,
                                  const corax_check_job_options *options, corax_findings *found,
                                  const char *output, corax_check_job_summary *summary);

@@ -20,6 +20,7 @@
 #include "corax/convert.h"
 #include "corax/correction.h"
 #include "corax/finding.h"
+#include "corax/shard.h"
 #include "corax/survey.h"
 
 #ifdef __cplusplus
@@ -60,6 +61,14 @@ typedef struct corax_qa_options {
                                 (default 300: common practice for field acceptance) */
     double field_dip;        /* a measured dip of the field this far from the model's
                                 (default 0.45 deg: common practice) */
+    unsigned shard, shards;  /* work split by hole (shard.h): only the holes in shard
+                                `shard` of `shards` are checked, each on its own, and
+                                the checks that compare holes (the azimuth offset
+                                they share, the convention test, the program's
+                                scattered and turned holes) are left out with their
+                                findings about no hole in particular; a hole's own
+                                checks still take out the offset most holes share.
+                                shards 0 or 1: the whole program (default) */
 } corax_qa_options;
 
 corax_qa_options corax_qa_options_default(void);
@@ -75,6 +84,46 @@ typedef struct corax_qa_reading {
     long line;
     const char *problem;     /* why the row's values could not be read, else NULL */
 } corax_qa_reading;
+
+/* The readings of a program's core logs, held for the checks and the report
+ * in a compact record each (48 bytes: the hole, kind, confidence and file
+ * as numbers into tables of the names met, the depth, the angles as whole
+ * millionths of a degree, the line), so that a log of millions of readings
+ * fits in memory. Every value comes back exactly as added: a reading whose
+ * values a record cannot hold exactly (an angle with more than six decimals
+ * of a degree, as computed angles have, a row with a problem, a line past
+ * 4,294,967,295, a thousand kinds) keeps them whole beside its record. */
+typedef struct corax_qa_log corax_qa_log;
+
+/* NULL when out of memory. */
+corax_qa_log *corax_qa_log_new(void);
+void corax_qa_log_free(corax_qa_log *log);
+
+/* Add a reading. Its hole, kind, confidence and problem are copied (each
+ * name held once); its file is borrowed and must outlive the log and the
+ * findings made from it; the first path given for a hole is its path. A
+ * NULL hole, kind or confidence is taken as "". The log is then unsorted.
+ * CORAX_ENOMEM, also past 4,294,967,294 readings. */
+corax_status corax_qa_log_add(corax_qa_log *log, const corax_qa_reading *reading);
+
+/* Group the readings by hole, holes in the order they first appear, each
+ * hole's by depth (no depth last) and in the order added where depths tie:
+ * the order the checks and the report take them in. CORAX_ENOMEM. */
+corax_status corax_qa_log_sort(corax_qa_log *log);
+
+/* Whether the log is sorted (no reading added since corax_qa_log_sort()). */
+int corax_qa_log_sorted(const corax_qa_log *log);
+
+size_t corax_qa_log_size(const corax_qa_log *log);
+
+/* Reading i (0 .. size - 1), in the order added, or once sorted in the
+ * log's order. Its strings are the log's, valid until a reading is added
+ * or the log freed. */
+void corax_qa_log_get(const corax_qa_log *log, size_t i, corax_qa_reading *out);
+
+/* Mark reading i as measured from an arbitrary line (reading.arbitrary_line),
+ * once its run says so, or not. */
+void corax_qa_log_set_arbitrary(corax_qa_log *log, size_t i, int arbitrary);
 
 /* An orientation run: the core between two marks of the orientation line. */
 typedef struct corax_qa_run {
@@ -102,14 +151,18 @@ corax_status corax_qa_surveys(const corax_program *program, const char *surveys_
 corax_status corax_qa_field(const corax_corrections *stations, const char *surveys_file,
                             const corax_qa_options *options, corax_findings *out);
 
-/* The orientation and program checks. runs may be NULL (nruns 0); a hole
- * without runs has them inferred from its readings (readings in a row that
- * sit off their neighbours alike, however densely it is logged). convert
- * gives the conventions the readings were taken under: when the program
- * reads clearly better under others, a finding says so and the checks of
- * each hole against the rest read it that way. Findings are appended. */
-corax_status corax_qa_readings(const corax_program *program, const corax_qa_reading *readings,
-                               size_t n, const corax_qa_run *runs, size_t nruns,
+/* The orientation and program checks of a sorted log (corax_qa_log_sort();
+ * CORAX_EARG when it is not; NULL: no readings). runs may be NULL (nruns
+ * 0); a hole without runs has them inferred from its readings (readings in
+ * a row that sit off their neighbours alike, however densely it is
+ * logged). convert gives the conventions the readings were taken under:
+ * when the program reads clearly better under others, a finding says so and
+ * the checks of each hole against the rest read it that way. The checks go
+ * over the log hole by hole, each hole's readings converted as it comes,
+ * so that the memory they take beyond the log's grows with the largest
+ * hole, not the program. Findings are appended. */
+corax_status corax_qa_readings(const corax_program *program, const corax_qa_log *log,
+                               const corax_qa_run *runs, size_t nruns,
                                const corax_convert_options *convert,
                                const corax_qa_options *options, corax_findings *out);
 

@@ -30,9 +30,9 @@ typedef struct corax_report_input {
     const corax_program *program;         /* the desurveyed holes (NULL: none) */
     const corax_findings *findings;       /* sorted by hole and depth (corax_findings_sort);
                                              each hole's are shown in the order given */
-    const corax_qa_reading *readings;     /* the core log (may be NULL, n 0); each reading
-                                             goes to the hole its name names */
-    size_t nreadings;
+    const corax_qa_log *log;              /* the core log, sorted (corax_qa_log_sort());
+                                             NULL: none. Each reading goes to the hole
+                                             its name names */
     const corax_convert_options *convert; /* how readings convert (for the nets; NULL:
                                              the defaults) */
     const char *findings_table;           /* the findings as a table (corax check -o), which
@@ -48,8 +48,12 @@ typedef struct corax_report_input {
  * findings, a share of each hole's findings) and links to the findings
  * table for the rest, so that it stays a few megabytes. Text from the data
  * is escaped; nothing on the page is fetched or run.
- * CORAX_EARG for a NULL input or path, a finding of no known severity, or a
- * count without its array; CORAX_EIO (err names the file), CORAX_ENOMEM. */
+ * The page's model keeps a few numbers per hole and finding, not per
+ * reading: a hole's readings are unpacked from the log only while its
+ * figures are drawn.
+ * CORAX_EARG for a NULL input or path, a finding of no known severity, a
+ * count without its array or a log not sorted; CORAX_EIO (err names the
+ * file), CORAX_ENOMEM. */
 corax_status corax_report_write(const corax_report_input *input, corax_outputs *set,
                                 const char *path,
                                 corax_error *err);

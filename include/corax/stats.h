@@ -93,6 +93,39 @@ typedef struct corax_axial_summary {
 corax_status corax_axial_summary_compute(const corax_vec3 *v, const double *w, size_t n,
                                          corax_axial_summary *out);
 
+/* The same summary of readings too many to hold, met in three passes over
+ * them, in the same order each time: their weights, then their tensor, then
+ * their mean, each turned to the side of the tensor's first axis.
+ * corax_axial_summary_compute() goes over its arrays this way, so the two
+ * agree to the last bit. Fill it with corax_axial_stream_begin(); every step
+ * after a failure does nothing, and corax_axial_stream_end() says what
+ * failed. */
+typedef struct corax_axial_stream {
+    int weighted;             /* 0: every weight is 1, whatever is given */
+    corax_status status;      /* CORAX_EARG for a bad weight, CORAX_ENOMEM */
+    size_t n;                 /* readings of the first pass */
+    double weight_sum, scale; /* the weights' sum as given; n over it */
+    double sums[9];           /* the tensor's */
+    corax_vec3 sum;           /* the resultant's */
+    corax_axial_summary out;
+} corax_axial_stream;
+
+void corax_axial_stream_begin(corax_axial_stream *s, int weighted);
+
+/* The first pass: a reading's weight. */
+void corax_axial_stream_weigh(corax_axial_stream *s, double weight);
+
+/* The second pass: a reading and its weight; then the tensor's axes. */
+void corax_axial_stream_tensor(corax_axial_stream *s, corax_vec3 v, double weight);
+void corax_axial_stream_axes(corax_axial_stream *s);
+
+/* The third pass: a reading and its weight; then the summary into out (n
+ * readings, NaN where nothing can be said, as corax_axial_summary_compute()
+ * leaves it) and the status: CORAX_EARG for a weight that is negative or not
+ * finite, or all zero; CORAX_ENOMEM. */
+void corax_axial_stream_mean(corax_axial_stream *s, corax_vec3 v, double weight);
+corax_status corax_axial_stream_end(corax_axial_stream *s, corax_axial_summary *out);
+
 /* Terzaghi's (1965) weight for a plane of unit normal `normal` met by a
  * borehole (or scanline) of unit direction `hole`: 1 / |cos delta|, delta the
  * angle between them, i.e. 1 / sin of the angle between hole and plane. Planes

@@ -24,6 +24,12 @@ static const char check_help[] =
     "                        without it, runs are inferred from the readings' depths\n"
     "  --report FILE         the findings as one self-contained HTML page\n"
     "  --title TEXT          the report's title (default: the project file's name)\n"
+    "  --shard K/N           only the holes in shard K of N (by their names, as convert\n"
+    "                        --shard), each hole's own checks: the findings of the N\n"
+    "                        shards together hold each finding about a hole once; the\n"
+    "                        program-wide checks (azimuth offset, conventions, holes\n"
+    "                        against the rest) need every hole and are left out;\n"
+    "                        not with --report\n"
     "Thresholds (defaults in brackets; degrees and metres):\n"
     "  --gap M               stations further apart [60]\n"
     "  --dogleg DEG          dogleg severity per 30 m [3]\n"
@@ -68,6 +74,7 @@ enum {
     OPT_TOTAL_FIELD,
     OPT_FIELD_DIP,
     OPT_UNORIENTED_WORD,
+    OPT_SHARD,
 };
 
 typedef struct check_opts {
@@ -137,6 +144,7 @@ static int check_option(void *ctx, int opt, const char *arg, char *why, size_t w
     case OPT_TITLE: o->title = arg; return 0;
     case OPT_LOW_CONFIDENCE: return low_confidence(o, arg, why, wl);
     case OPT_UNORIENTED_WORD: o->unoriented_word = arg; return 0;
+    case OPT_SHARD: return cli_value_shard(arg, &o->qa.shard, &o->qa.shards, why, wl);
     }
     snprintf(why, wl, "not an option of this command");
     return -1;
@@ -166,6 +174,7 @@ static int parse(int argc, char **argv, check_opts *o)
         {"total-field", required_argument, NULL, OPT_TOTAL_FIELD},
         {"field-dip", required_argument, NULL, OPT_FIELD_DIP},
         {"unoriented-word", required_argument, NULL, OPT_UNORIENTED_WORD},
+        {"shard", required_argument, NULL, OPT_SHARD},
         {NULL, 0, NULL, 0},
     };
     int rc = cli_parse(argc, argv, &o->c, longopts, check_help, 1, check_option, o);
@@ -233,9 +242,13 @@ static int check(check_opts *o)
         rc = EXIT_DATA;
     if (rc == EXIT_OK && !o->c.quiet) {
         size_t n = found.count;
-        fprintf(stderr, "corax: %zu finding%s: %zu error%s, %zu warning%s, %zu note%s\n", n,
+        fprintf(stderr, "corax: %zu finding%s: %zu error%s, %zu warning%s, %zu note%s", n,
                 n == 1 ? "" : "s", sum.errors, sum.errors == 1 ? "" : "s", sum.warnings,
                 sum.warnings == 1 ? "" : "s", sum.notes, sum.notes == 1 ? "" : "s");
+        if (sum.other_shards)
+            fprintf(stderr, "; %zu reading%s of other shards left out", sum.other_shards,
+                    sum.other_shards == 1 ? "" : "s");
+        fputc('\n', stderr);
     }
     corax_record_free(record);
     corax_check_job_summary_clear(&sum);

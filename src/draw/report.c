@@ -301,8 +301,8 @@ static void head(page *p)
     size_t collared = in->program ? corax_program_size(in->program) : 0;
     corax_writer_printf(p->w, "</dd>\n<dt>Program</dt><dd>%zu hole%s in the collars, "
                               "%zu reading%s",
-                        collared, collared == 1 ? "" : "s", in->nreadings,
-                        in->nreadings == 1 ? "" : "s");
+                        collared, collared == 1 ? "" : "s", m->nreadings,
+                        m->nreadings == 1 ? "" : "s");
     if (m->unreadable)
         corax_writer_printf(p->w, " (%zu that could not be read or name no hole)",
                             m->unreadable);
@@ -741,17 +741,26 @@ static corax_status hole_figures(page *p, const report_hole *h, size_t index)
     corax_svg *svg = NULL;
     report_strip_counts drawn;
     report_net_counts counts;
+    report_readings rr;
     out(p, "<div class=\"hole-figs\">\n<figure class=\"fig strip\">\n");
-    corax_status st = corax_report_strip(p->m, h, &drawn, &svg);
+    corax_status st = corax_report_readings(p->m, h, &rr);
+    if (st != CORAX_OK) {
+        corax_report_readings_free(&rr);
+        return st;
+    }
+    st = corax_report_strip(p->m, h, &rr, &drawn, &svg);
     if (st == CORAX_OK)
         st = picture(p, svg);
     corax_svg_free(svg);
     strip_caption(p, h, &drawn);
     out(p, "</figure>\n");
-    if (st != CORAX_OK)
+    if (st != CORAX_OK) {
+        corax_report_readings_free(&rr);
         return st;
+    }
     svg = NULL;
-    st = corax_report_net(p->m, h, index, &counts, &svg);
+    st = corax_report_net(p->m, h, &rr, index, &counts, &svg);
+    corax_report_readings_free(&rr);
     out(p, "<figure class=\"net\">\n");
     if (st == CORAX_OK && svg) {
         st = picture(p, svg);
@@ -843,8 +852,8 @@ static corax_status check_input(const corax_report_input *in, corax_error *err)
         if ((unsigned)f->item[i].severity >= REPORT_SEVERITIES)
             return corax_error_set(err, CORAX_EARG, NULL, 0,
                                    "finding %zu has no severity the report knows", i + 1);
-    if (in->nreadings && !in->readings)
-        return corax_error_set(err, CORAX_EARG, NULL, 0, "readings counted but not given");
+    if (!corax_qa_log_sorted(in->log))
+        return corax_error_set(err, CORAX_EARG, NULL, 0, "the core log is not sorted");
     if (in->ninputs && !in->inputs)
         return corax_error_set(err, CORAX_EARG, NULL, 0, "inputs counted but not given");
     return CORAX_OK;

@@ -1,7 +1,9 @@
 /* Internal to src/draw: the QA report's model of a drill program, shared by
  * the page (report.c), its plan and section (report_views.c) and the strip
  * and stereonet of each hole (report_strip.c). Built once from the report's
- * input (report_model.c); everything it points to is borrowed from there. */
+ * input (report_model.c); everything it points to is borrowed from there.
+ * It keeps nothing per reading: a hole's readings are unpacked from the log
+ * while its figures are drawn. */
 #ifndef CORAX_REPORT_INT_H
 #define CORAX_REPORT_INT_H
 
@@ -12,6 +14,8 @@
 #include "draw/palette.h"
 
 enum { REPORT_SEVERITIES = 3 }; /* note, warning, error: corax_severity's values */
+
+#define REPORT_NONE ((size_t)-1)
 
 /* How a severity looks, wherever it is shown: a palette colour, a shape (so
  * that colour is never the only cue), the character of that shape for text,
@@ -46,8 +50,8 @@ typedef struct report_hole {
     size_t *finding;        /* indices of its findings, in the order given */
     size_t nfinding;
     size_t nwhole;          /* of which about the whole hole (no depth) */
-    size_t *reading;        /* indices of its readings, by depth */
-    size_t nreading;
+    size_t log_hole;        /* its number in the log, or REPORT_NONE */
+    size_t nreading;        /* its readings (those that could be read) */
     size_t count[REPORT_SEVERITIES];
     int drawn;              /* its path is on the plan and section (REPORT_PATH_HOLES) */
     int listed;             /* it has a row in the summary and a part of its own */
@@ -67,9 +71,8 @@ typedef struct report_model {
     size_t count[REPORT_SEVERITIES];
     const char **kind;            /* the readings' feature kinds, sorted ("" for none) */
     size_t nkind;
-    size_t *kind_of;              /* per reading: its index in kind */
-    unsigned char *flagged;       /* per reading: inside a stretch named by a
-                                     warning or an error of its hole */
+    size_t *kind_of;              /* per kind number of the log: its index in kind */
+    size_t nreadings;             /* the log's readings */
     size_t unreadable;            /* readings whose values could not be read */
     corax_convert_options convert;
     size_t *store;                /* the storage behind the holes' index lists */
@@ -128,6 +131,21 @@ int corax_report_hole_at(const report_hole *h, double depth, corax_vec3 *at);
  * its range, or at its depth to the centimetre. */
 int corax_report_finding_holds(const corax_finding *f, double depth);
 
+/* A hole's readings unpacked for its figures: those that could be read, by
+ * depth, each with its kind (an index in the model's kinds) and whether it
+ * lies in a stretch that a warning or an error of the hole names. */
+typedef struct report_readings {
+    corax_reading *reading;
+    size_t *kind;
+    unsigned char *flagged;
+    size_t n;
+} report_readings;
+
+/* CORAX_ENOMEM; free with corax_report_readings_free() either way. */
+corax_status corax_report_readings(const report_model *m, const report_hole *h,
+                                   report_readings *out);
+void corax_report_readings_free(report_readings *rr);
+
 /* The pictures, as SVG documents the caller frees. CORAX_ENOMEM. */
 corax_status corax_report_plan(const report_model *m, corax_svg **out);
 corax_status corax_report_section(const report_model *m, double *azimuth, corax_svg **out);
@@ -148,7 +166,8 @@ typedef struct report_strip_counts {
 /* The strip of a hole: depth down the page; survey stations, readings (alpha
  * and beta, by feature kind) and findings. */
 corax_status corax_report_strip(const report_model *m, const report_hole *h,
-                                report_strip_counts *counts, corax_svg **out);
+                                const report_readings *rr, report_strip_counts *counts,
+                                corax_svg **out);
 
 /* What a hole's stereonet shows. */
 typedef struct report_net_counts {
@@ -172,8 +191,9 @@ enum { REPORT_NET_CONTOURS = 20 };
 /* The stereonet of a hole's readings: those in flagged stretches picked out
  * from the rest. *out is NULL when nothing could be placed. `index` makes its
  * ids unique on the page. */
-corax_status corax_report_net(const report_model *m, const report_hole *h, size_t index,
-                              report_net_counts *counts, corax_svg **out);
+corax_status corax_report_net(const report_model *m, const report_hole *h,
+                              const report_readings *rr, size_t index, report_net_counts *counts,
+                              corax_svg **out);
 
 /* Where a finding lies, for people: "whole hole", "120.5" or "120.5-129"
  * (an en dash), metres; into buf of REPORT_DEPTHS bytes; returns the length. */

@@ -1,6 +1,6 @@
 /* draw: the QA report's model of a drill program. Every hole named by the
  * program, the findings or the readings, in the order the findings are
- * sorted in; each with its findings, its readings by depth and its path
+ * sorted in; each with its findings, the log's readings of it and its path
  * sampled for the plan and the section. */
 #include <math.h>
 #include <stdlib.h>
@@ -8,6 +8,7 @@
 
 #include "common/order.h"
 #include "draw/report_int.h"
+#include "qa/log_int.h"
 
 /* The colours are the palette's brick, orange and sky: they differ in
  * lightness as well as hue, and each severity has its own shape too. */
@@ -69,14 +70,31 @@ static long hole_index(const report_model *m, const char *name)
     return -1;
 }
 
-static int usable(const corax_qa_reading *r) { return !r->problem && r->hole && *r->hole; }
+/* Whether a reading of the log can be placed: it could be read and names a
+ * hole. */
+static int usable(const corax_qa_log *log, const qa_rec *r)
+{
+    return !(r->flags & QA_REC_PROBLEM) && qa_log_hole_name(log, r->hole)[0];
+}
+
+/* The readings of each of the log's holes that can be placed. */
+static size_t *usable_counts(const corax_qa_log *log)
+{
+    size_t n = log ? corax_strset_count(log->holes) : 0;
+    size_t *count = calloc(n + 1, sizeof *count);
+    for (size_t i = 0; count && log && i < log->n; i++)
+        count[log->rec[i].hole] += usable(log, &log->rec[i]);
+    return count;
+}
 
 /* The names of every hole: the program's, then those of findings and readings. */
-static corax_status collect_holes(report_model *m)
+static corax_status collect_holes(report_model *m, const size_t *usable_in)
 {
     const corax_report_input *in = m->in;
+    const corax_qa_log *log = in->log;
     size_t nprogram = in->program ? corax_program_size(in->program) : 0;
-    const char **names = malloc((nprogram + m->nfinding + in->nreadings + 1) * sizeof *names);
+    size_t nlog = log ? corax_strset_count(log->holes) : 0;
+    const char **names = malloc((nprogram + m->nfinding + nlog + 1) * sizeof *names);
     if (!names)
         return CORAX_ENOMEM;
     size_t n = 0;
@@ -85,9 +103,9 @@ static corax_status collect_holes(report_model *m)
     for (size_t i = 0; i < m->nfinding; i++)
         if (m->finding[i].hole[0])
             names[n++] = m->finding[i].hole;
-    for (size_t i = 0; i < in->nreadings; i++)
-        if (usable(&in->readings[i]))
-            names[n++] = in->readings[i].hole;
+    for (size_t h = 0; h < nlog; h++)
+        if (usable_in[h])
+            names[n++] = qa_log_hole_name(log, h);
     n = sort_unique(names, n, name_order);
     m->hole = calloc(n ? n : 1, sizeof *m->hole);
     if (!m->hole) {
@@ -99,41 +117,24 @@ static corax_status collect_holes(report_model *m)
         report_hole *h = &m->hole[i];
         h->name = names[i];
         h->path = in->program ? corax_program_find(in->program, names[i], strlen(names[i])) : NULL;
+        long k = log ? corax_strset_find(log->holes, names[i], strlen(names[i])) : -1;
+        h->log_hole = k >= 0 && usable_in[k] ? (size_t)k : REPORT_NONE;
+        h->nreading = k >= 0 ? usable_in[k] : 0;
+        m->unreadable -= h->nreading;
     }
     free(names);
     return CORAX_OK;
 }
 
-typedef struct keyed_depth {
-    double depth;
-    size_t index;
-} keyed_depth;
-
-static int depth_order(const void *pa, const void *pb)
-{
-    const keyed_depth *a = pa, *b = pb;
-    int na = isnan(a->depth), nb = isnan(b->depth);
-    if (na != nb)
-        return na - nb; /* no depth last */
-    if (!na && a->depth != b->depth)
-        return a->depth < b->depth ? -1 : 1;
-    return (a->index > b->index) - (a->index < b->index);
-}
-
-/* Each hole's findings and readings as index lists in one store; the
- * readings by depth. */
+/* Each hole's findings as index lists in one store. */
 static corax_status assign(report_model *m)
 {
-    const corax_report_input *in = m->in;
-    long *owner = malloc((m->nfinding + in->nreadings + 1) * sizeof *owner);
-    m->store = malloc((m->nfinding + in->nreadings + 1) * sizeof *m->store);
-    keyed_depth *keys = malloc((in->nreadings + 1) * sizeof *keys);
-    if (!owner || !m->store || !keys) {
+    long *owner = malloc((m->nfinding + 1) * sizeof *owner);
+    m->store = malloc((m->nfinding + 1) * sizeof *m->store);
+    if (!owner || !m->store) {
         free(owner);
-        free(keys);
         return CORAX_ENOMEM;
     }
-    long *reading_owner = owner + m->nfinding;
     for (size_t i = 0; i < m->nfinding; i++) {
         const corax_finding *f = &m->finding[i];
         m->count[f->severity]++;
@@ -143,22 +144,13 @@ static corax_status assign(report_model *m)
         else
             m->hole[owner[i]].nfinding++;
     }
-    for (size_t i = 0; i < in->nreadings; i++) {
-        reading_owner[i] = usable(&in->readings[i]) ? hole_index(m, in->readings[i].hole) : -1;
-        if (reading_owner[i] < 0)
-            m->unreadable++;
-        else
-            m->hole[reading_owner[i]].nreading++;
-    }
     size_t *next = m->store; /* hand out the store, then fill each list in order */
     m->wide = next;
     next += m->nwide;
     for (size_t h = 0; h < m->nhole; h++) {
         m->hole[h].finding = next;
         next += m->hole[h].nfinding;
-        m->hole[h].reading = next;
-        next += m->hole[h].nreading;
-        m->hole[h].nfinding = m->hole[h].nreading = 0;
+        m->hole[h].nfinding = 0;
     }
     m->nwide = 0;
     for (size_t i = 0; i < m->nfinding; i++) {
@@ -171,22 +163,7 @@ static corax_status assign(report_model *m)
         h->count[m->finding[i].severity]++;
         h->nwhole += isnan(m->finding[i].depth);
     }
-    for (size_t i = 0; i < in->nreadings; i++)
-        if (reading_owner[i] >= 0) {
-            report_hole *h = &m->hole[reading_owner[i]];
-            h->reading[h->nreading++] = i;
-        }
-    for (size_t h = 0; h < m->nhole; h++) {
-        report_hole *hole = &m->hole[h];
-        for (size_t k = 0; k < hole->nreading; k++)
-            keys[k] = (keyed_depth){in->readings[hole->reading[k]].reading.depth,
-                                    hole->reading[k]};
-        qsort(keys, hole->nreading, sizeof *keys, depth_order);
-        for (size_t k = 0; k < hole->nreading; k++)
-            hole->reading[k] = keys[k].index;
-    }
     free(owner);
-    free(keys);
     return CORAX_OK;
 }
 
@@ -203,38 +180,80 @@ int corax_report_finding_holds(const corax_finding *f, double depth)
     return depth >= lo - same_depth && depth <= hi + same_depth;
 }
 
-/* The feature kinds, each reading's kind, and whether it lies in a stretch
- * that a warning or an error of its hole names. */
+/* The feature kinds of the readings that can be placed, sorted, and where
+ * each of the log's kinds falls among them. */
 static corax_status classify(report_model *m)
 {
-    const corax_report_input *in = m->in;
-    size_t n = in->nreadings;
-    m->kind = malloc((n + 1) * sizeof *m->kind);
-    m->kind_of = calloc(n + 1, sizeof *m->kind_of);
-    m->flagged = calloc(n + 1, 1);
-    if (!m->kind || !m->kind_of || !m->flagged)
+    const corax_qa_log *log = m->in->log;
+    size_t nkinds = log ? corax_strset_count(log->kinds) : 0;
+    unsigned char *used = calloc(nkinds + 1, 1);
+    m->kind = malloc((nkinds + 1) * sizeof *m->kind);
+    m->kind_of = calloc(nkinds + 1, sizeof *m->kind_of);
+    if (!used || !m->kind || !m->kind_of) {
+        free(used);
         return CORAX_ENOMEM;
-    for (size_t i = 0; i < n; i++)
-        if (usable(&in->readings[i]))
-            m->kind[m->nkind++] = in->readings[i].kind ? in->readings[i].kind : "";
+    }
+    for (size_t i = 0; log && i < log->n; i++)
+        if (usable(log, &log->rec[i]))
+            used[qa_rec_kind(log, &log->rec[i])] = 1;
+    for (size_t k = 0; k < nkinds; k++)
+        if (used[k])
+            m->kind[m->nkind++] = corax_strset_at(log->kinds, k, NULL);
     m->nkind = sort_unique(m->kind, m->nkind, text_order);
-    for (size_t i = 0; i < n; i++)
-        if (usable(&in->readings[i])) {
-            const char *k = in->readings[i].kind ? in->readings[i].kind : "";
-            m->kind_of[i] = (size_t)find_name(m->kind, m->nkind, k, text_order);
-        }
-    for (size_t h = 0; h < m->nhole; h++) {
-        const report_hole *hole = &m->hole[h];
-        for (size_t k = 0; k < hole->nreading; k++) {
-            size_t r = hole->reading[k];
-            for (size_t j = 0; j < hole->nfinding && !m->flagged[r]; j++) {
-                const corax_finding *f = &m->finding[hole->finding[j]];
-                m->flagged[r] = f->severity >= CORAX_WARNING &&
-                                corax_report_finding_holds(f, in->readings[r].reading.depth);
-            }
-        }
+    for (size_t k = 0; k < nkinds; k++)
+        if (used[k])
+            m->kind_of[k] = (size_t)find_name(m->kind, m->nkind,
+                                              corax_strset_at(log->kinds, k, NULL), text_order);
+    free(used);
+    return CORAX_OK;
+}
+
+/* Whether a depth lies in a stretch that a warning or an error of the hole
+ * names. */
+static int flagged_at(const report_model *m, const report_hole *h, double depth)
+{
+    for (size_t j = 0; j < h->nfinding; j++) {
+        const corax_finding *f = &m->finding[h->finding[j]];
+        if (f->severity >= CORAX_WARNING && corax_report_finding_holds(f, depth))
+            return 1;
+    }
+    return 0;
+}
+
+corax_status corax_report_readings(const report_model *m, const report_hole *h,
+                                   report_readings *out)
+{
+    const corax_qa_log *log = m->in->log;
+    size_t n = h->log_hole == REPORT_NONE ? 0 : h->nreading;
+    out->n = 0;
+    out->reading = malloc((n + 1) * sizeof *out->reading);
+    out->kind = malloc((n + 1) * sizeof *out->kind);
+    out->flagged = malloc(n + 1);
+    if (!out->reading || !out->kind || !out->flagged)
+        return CORAX_ENOMEM;
+    if (!n)
+        return CORAX_OK;
+    const qa_log_hole *lh = &log->hole[h->log_hole];
+    for (size_t i = lh->first; i < lh->first + lh->n; i++) {
+        const qa_rec *r = &log->rec[i];
+        if (!usable(log, r))
+            continue;
+        corax_qa_reading q;
+        corax_qa_log_get(log, i, &q);
+        out->reading[out->n] = q.reading;
+        out->kind[out->n] = m->kind_of[qa_rec_kind(log, r)];
+        out->flagged[out->n] = (unsigned char)flagged_at(m, h, q.reading.depth);
+        out->n++;
     }
     return CORAX_OK;
+}
+
+void corax_report_readings_free(report_readings *rr)
+{
+    free(rr->reading);
+    free(rr->kind);
+    free(rr->flagged);
+    memset(rr, 0, sizeof *rr);
 }
 
 static double deeper(double a, double b) { return isfinite(b) && b > a ? b : a; }
@@ -243,8 +262,11 @@ static double deeper(double a, double b) { return isfinite(b) && b > a ? b : a; 
  * depth its strip must show. */
 static corax_status trace(report_model *m, report_hole *h)
 {
-    for (size_t k = 0; k < h->nreading; k++)
-        h->depth_shown = deeper(h->depth_shown, m->in->readings[h->reading[k]].reading.depth);
+    const corax_qa_log *log = m->in->log;
+    const qa_log_hole *lh = h->log_hole == REPORT_NONE ? NULL : &log->hole[h->log_hole];
+    for (size_t i = lh ? lh->first : 0; lh && i < lh->first + lh->n; i++)
+        if (usable(log, &log->rec[i]))
+            h->depth_shown = deeper(h->depth_shown, log->rec[i].depth);
     for (size_t k = 0; k < h->nfinding; k++) {
         const corax_finding *f = &m->finding[h->finding[k]];
         h->depth_shown = deeper(deeper(h->depth_shown, f->depth), f->depth_to);
@@ -380,7 +402,10 @@ corax_status corax_report_model_build(report_model *m, const corax_report_input 
     m->finding = in->findings ? in->findings->item : NULL;
     m->nfinding = in->findings ? in->findings->count : 0;
     m->convert = in->convert ? *in->convert : corax_convert_options_default();
-    corax_status st = collect_holes(m);
+    m->nreadings = m->unreadable = corax_qa_log_size(in->log);
+    size_t *usable_in = usable_counts(in->log);
+    corax_status st = usable_in ? collect_holes(m, usable_in) : CORAX_ENOMEM;
+    free(usable_in);
     if (st == CORAX_OK)
         st = assign(m);
     if (st == CORAX_OK)
@@ -403,6 +428,5 @@ void corax_report_model_free(report_model *m)
     free(m->shown_store);
     free(m->kind);
     free(m->kind_of);
-    free(m->flagged);
     memset(m, 0, sizeof *m);
 }

@@ -20,6 +20,7 @@ typedef struct strip {
     corax_svg *svg;
     const report_model *m;
     const report_hole *h;
+    const report_readings *rr; /* its readings */
     double depth;  /* the depth at the foot of the plot, metres */
     double ppm;    /* pixels per metre down the page */
     double bottom; /* the plot's foot, pixels */
@@ -199,16 +200,14 @@ enum lane { ALPHA_FILLED, ALPHA_OPEN, BETA };
 static void lane_of_kind(const strip *s, size_t k, enum lane lane, size_t step_by,
                          size_t *drawn)
 {
-    const report_model *m = s->m;
-    const report_hole *h = s->h;
+    const report_readings *rr = s->rr;
     glyphs g;
     glyphs_start(&g, s->svg, corax_palette_shape_of(k), lane == ALPHA_OPEN ? "reading open"
                                                                           : "reading",
                  corax_palette_colour_of(k));
-    for (size_t j = 0; j < h->nreading; j += step_by) {
-        size_t i = h->reading[j];
-        const corax_reading *r = &m->in->readings[i].reading;
-        if (m->kind_of[i] != k || !isfinite(r->depth) || !isfinite(r->alpha) ||
+    for (size_t j = 0; j < rr->n; j += step_by) {
+        const corax_reading *r = &rr->reading[j];
+        if (rr->kind[j] != k || !isfinite(r->depth) || !isfinite(r->alpha) ||
             (lane == ALPHA_OPEN) == isfinite(r->beta))
             continue;
         double y = y_of(s, r->depth);
@@ -225,10 +224,10 @@ static void lane_of_kind(const strip *s, size_t k, enum lane lane, size_t step_b
 /* The readings, kind by kind. */
 static void readings(const strip *s, report_strip_counts *c)
 {
-    const report_hole *h = s->h;
-    c->step = every_kth(h->nreading, REPORT_STRIP_CAP);
-    for (size_t j = 0; j < h->nreading; j++) {
-        const corax_reading *r = &s->m->in->readings[h->reading[j]].reading;
+    const report_readings *rr = s->rr;
+    c->step = every_kth(rr->n, REPORT_STRIP_CAP);
+    for (size_t j = 0; j < rr->n; j++) {
+        const corax_reading *r = &rr->reading[j];
         c->blank += !isfinite(r->depth) || !isfinite(r->alpha);
     }
     for (size_t k = 0; k < s->m->nkind; k++)
@@ -309,8 +308,8 @@ static void strip_key(const strip *s, report_key *k)
     char t[128], cls[32];
     for (size_t i = 0; i < m->nkind; i++) { /* the kinds of this hole, with their counts */
         size_t count = 0;
-        for (size_t j = 0; j < s->h->nreading; j++)
-            count += m->kind_of[s->h->reading[j]] == i;
+        for (size_t j = 0; j < s->rr->n; j++)
+            count += s->rr->kind[j] == i;
         if (!count)
             continue;
         snprintf(t, sizeof t, "%s (%zu)", *m->kind[i] ? m->kind[i] : "no kind given", count);
@@ -326,11 +325,12 @@ static void strip_key(const strip *s, report_key *k)
 }
 
 corax_status corax_report_strip(const report_model *m, const report_hole *h,
-                                report_strip_counts *counts, corax_svg **out)
+                                const report_readings *rr, report_strip_counts *counts,
+                                corax_svg **out)
 {
     *out = NULL;
     memset(counts, 0, sizeof *counts);
-    strip s = {NULL, m, h, 0, 0, 0};
+    strip s = {NULL, m, h, rr, 0, 0, 0};
     s.depth = fmax(h->depth_shown, 10.0) * 1.02;
     double plot_h = fmin(fmax(h->depth_shown * 2.2, 320.0), 1000.0);
     s.ppm = plot_h / s.depth;
@@ -361,12 +361,13 @@ corax_status corax_report_strip(const report_model *m, const report_hole *h,
 
 /* ---- the stereonet ---- */
 
-corax_status corax_report_net(const report_model *m, const report_hole *h, size_t index,
-                              report_net_counts *counts, corax_svg **out)
+corax_status corax_report_net(const report_model *m, const report_hole *h,
+                              const report_readings *rr, size_t index, report_net_counts *counts,
+                              corax_svg **out)
 {
     *out = NULL;
     memset(counts, 0, sizeof *counts);
-    size_t n = h->nreading;
+    size_t n = rr->n;
     /* poles and lines, each list split: the rest from the front, the
      * flagged from the back */
     corax_vec3 *poles = malloc((n + 1) * sizeof *poles), *lines = malloc((n + 1) * sizeof *lines);
@@ -377,8 +378,7 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         st = CORAX_ENOMEM;
     size_t hint = 0, rest = 0;
     for (size_t j = 0; j < n && st == CORAX_OK; j++) {
-        size_t i = h->reading[j];
-        const corax_reading *r = &m->in->readings[i].reading;
+        const corax_reading *r = &rr->reading[j];
         corax_convert_reading(h->path, r, &m->convert, &hint, &res[j]);
         keep[j] = res[j].has_plane || res[j].has_line;
         counts->placed += keep[j];
@@ -387,8 +387,8 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
         counts->too_steep += !keep[j] &&
                              (res[j].conditions & (CORAX_COND_NO_REFERENCE | CORAX_COND_DIP_ONLY)) &&
                              isfinite(r->beta);
-        counts->flagged += keep[j] && m->flagged[i];
-        rest += keep[j] && !m->flagged[i];
+        counts->flagged += keep[j] && rr->flagged[j];
+        rest += keep[j] && !rr->flagged[j];
     }
     /* the flagged first, all of them up to the cap; the rest share what is left */
     size_t step_flagged = every_kth(counts->flagged, REPORT_NET_CAP), seen_flagged = 0;
@@ -398,7 +398,7 @@ corax_status corax_report_net(const report_model *m, const report_hole *h, size_
     for (size_t j = 0; j < n && st == CORAX_OK; j++) {
         if (!keep[j])
             continue;
-        int flagged = m->flagged[h->reading[j]];
+        int flagged = rr->flagged[j];
         if (flagged ? seen_flagged++ % step_flagged : seen++ % step)
             continue;
         counts->drawn++;

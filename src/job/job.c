@@ -2,7 +2,6 @@
  * message (handed to the caller's callback, or kept), its long steps stages
  * for a progress display, and the tables it reads a list for the record. */
 #include <stdarg.h>
-#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -403,16 +402,4 @@ corax_status corax_job_program_load(corax_job *job, const char *collars, const c
         *out = NULL;
     }
     return st;
-}
-
-unsigned corax_shard_of(const char *name, size_t len, unsigned count)
-{
-    if (count <= 1)
-        return 1;
-    uint64_t h = 14695981039346656037u; /* FNV-1a 64 */
-    for (size_t i = 0; i < len; i++) {
-        h ^= (unsigned char)name[i];
-        h *= 1099511628211u;
-    }
-    return (unsigned)(h % count) + 1;
 }

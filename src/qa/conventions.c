@@ -42,24 +42,26 @@ static const double deciding_gain = 0.1745; /* 10 degrees */
 
 typedef struct kind_stat {
     const char *name;
-    size_t first, n;          /* its readings in the grouped order */
+    size_t n;                 /* its readings */
     size_t holes;             /* holes with min_run or more of them */
     int fabric;               /* consistent under some reading */
     double kappa[QA_READINGS], resultant[QA_READINGS], strength[QA_READINGS];
     corax_vec3 axis[QA_READINGS];
+    corax_axial_stream stream[QA_READINGS]; /* while they are measured */
 } kind_stat;
 
+/* The test goes over the program hole by hole, once to find the kinds and
+ * weigh their readings, then twice to measure their clustering under every
+ * reading of the conventions at once (the tensor, then the mean about its
+ * axis), so that nothing is kept per reading. */
 typedef struct test {
     qa_data *d;
     kind_stat kind[MAX_KINDS];
     size_t nkind;
-    size_t *item;      /* the readings, grouped by kind */
-    size_t *hole;      /* each one's hole */
-    double *weight;    /* Terzaghi's */
-    corax_vec3 *v;     /* normals under the reading being measured */
-    size_t n;
+    size_t n;          /* readings with a kind */
+    const char *file;  /* the first one's */
     double pooled[QA_READINGS];
-    double *work;
+    double *work;      /* one per reading of the largest hole */
     /* per hole, for the words */
     const char **names;
     struct gain *gain;
@@ -71,90 +73,137 @@ typedef struct gain {
     double by;
 } gain;
 
-static int kind_of(test *t, const char *name)
-{
-    for (size_t k = 0; k < t->nkind; k++)
-        if (strcasecmp(t->kind[k].name, name) == 0)
-            return (int)k;
-    if (t->nkind == MAX_KINDS)
-        return -1;
-    t->kind[t->nkind].name = name;
-    return (int)t->nkind++;
-}
-
 static int usable(const qa_item *it)
 {
     return it->res.has_plane && it->r->kind[0] && it->r->path && isfinite(it->r->reading.beta);
 }
 
-/* The oriented readings with a kind, grouped by kind, with their weights. */
+/* The kind of an item among those found, or -1 (not usable, or not found). */
+static int kind_found(const test *t, const qa_item *it)
+{
+    if (!usable(it))
+        return -1;
+    for (size_t k = 0; k < t->nkind; k++)
+        if (strcasecmp(t->kind[k].name, it->r->kind) == 0)
+            return (int)k;
+    return -1;
+}
+
+/* The same, the kind added when it is new and there is room. */
+static int kind_of(test *t, const qa_item *it)
+{
+    int k = kind_found(t, it);
+    if (k >= 0 || !usable(it) || t->nkind == MAX_KINDS)
+        return k;
+    kind_stat *ks = &t->kind[t->nkind];
+    ks->name = it->r->kind;
+    for (int how = 0; how < QA_READINGS; how++)
+        corax_axial_stream_begin(&ks->stream[how], 1);
+    return (int)t->nkind++;
+}
+
+/* Terzaghi's weight of a reading against the sampling bias of its hole. */
+static double weight_of(const qa_item *it)
+{
+    const double cap_angle = corax_rad(15.0); /* Terzaghi's weight at most 1 / sin 15 */
+    return corax_terzaghi_weight(it->res.normal, it->res.point.tangent, cap_angle);
+}
+
+/* The oriented readings with a kind: the kinds in the order they appear,
+ * each weighed, and the holes with enough of each. */
 static corax_status gather(test *t)
 {
     qa_data *d = t->d;
-    size_t cap = d->nitems ? d->nitems : 1;
-    int *kind = malloc(cap * sizeof *kind);
-    t->item = malloc(cap * sizeof *t->item);
-    t->hole = malloc(cap * sizeof *t->hole);
-    t->weight = malloc(cap * sizeof *t->weight);
-    t->v = malloc(cap * sizeof *t->v);
-    t->work = malloc(cap * sizeof *t->work);
-    size_t holes = d->nholes ? d->nholes : 1;
-    t->names = malloc(holes * sizeof *t->names);
-    t->gain = malloc(holes * sizeof *t->gain);
-    t->dir = malloc(holes * sizeof *t->dir);
-    if (!kind || !t->item || !t->hole || !t->weight || !t->v || !t->work || !t->names ||
-        !t->gain || !t->dir) {
-        free(kind);
+    size_t most = 1;
+    for (size_t h = 0; h < d->nholes; h++)
+        most = d->holes[h].n > most ? d->holes[h].n : most;
+    t->work = malloc(most * sizeof *t->work);
+    t->names = malloc(d->nholes * sizeof *t->names);
+    t->gain = malloc(d->nholes * sizeof *t->gain);
+    t->dir = malloc(d->nholes * sizeof *t->dir);
+    if (!t->work || !t->names || !t->gain || !t->dir)
         return CORAX_ENOMEM;
-    }
-    const double cap_angle = corax_rad(15.0); /* Terzaghi's weight at most 1 / sin 15 */
-    for (size_t i = 0; i < d->nitems; i++)
-        kind[i] = usable(&d->items[i]) ? kind_of(t, d->items[i].r->kind) : -1;
-    for (size_t k = 0; k < t->nkind; k++) {
-        kind_stat *ks = &t->kind[k];
-        ks->first = t->n;
-        for (size_t h = 0; h < d->nholes; h++) {
-            size_t mine = 0;
-            for (size_t i = d->holes[h].first; i < d->holes[h].first + d->holes[h].n; i++) {
-                if (kind[i] != (int)k)
-                    continue;
-                const qa_item *it = &d->items[i];
-                t->item[t->n] = i;
-                t->hole[t->n] = h;
-                t->weight[t->n] = corax_terzaghi_weight(it->res.normal, it->res.point.tangent,
-                                                        cap_angle);
-                t->n++;
-                mine++;
-            }
-            ks->holes += mine >= d->o->min_run;
+    for (size_t h = 0; h < d->nholes; h++) {
+        corax_status st = qa_load(d, h);
+        if (st != CORAX_OK)
+            return st;
+        size_t mine[MAX_KINDS] = {0};
+        for (size_t i = 0; i < d->nitems; i++) {
+            const qa_item *it = &d->items[i];
+            int k = kind_of(t, it);
+            if (k < 0)
+                continue;
+            if (!t->file)
+                t->file = it->r->file;
+            double w = weight_of(it);
+            for (int how = 0; how < QA_READINGS; how++)
+                corax_axial_stream_weigh(&t->kind[k].stream[how], w);
+            t->kind[k].n++;
+            t->n++;
+            mine[k]++;
         }
-        ks->n = t->n - ks->first;
+        for (size_t k = 0; k < t->nkind; k++)
+            t->kind[k].holes += mine[k] >= d->o->min_run;
     }
-    free(kind);
     return CORAX_OK;
 }
 
-/* Every kind's clustering with beta read `how`. */
-static corax_status measure(test *t, int how)
+/* A reading's normal with beta read `how`. */
+static corax_vec3 normal_as(const qa_data *d, const qa_item *it, int how)
 {
-    for (size_t j = 0; j < t->n; j++) {
-        const qa_item *it = &t->d->items[t->item[j]];
-        if (!qa_normal_as(t->d, it, how, &t->v[j]))
-            t->v[j] = it->res.normal; /* cannot happen: beta never decides whether a plane exists */
-    }
-    for (size_t k = 0; k < t->nkind; k++) {
-        kind_stat *ks = &t->kind[k];
-        corax_axial_summary s;
-        corax_status st =
-            corax_axial_summary_compute(t->v + ks->first, t->weight + ks->first, ks->n, &s);
+    corax_vec3 v;
+    if (!qa_normal_as(d, it, how, &v))
+        v = it->res.normal; /* cannot happen: beta never decides whether a plane exists */
+    return v;
+}
+
+/* One pass over the program for every kind's clustering under every
+ * reading: the tensor (pass 0), then the mean (pass 1). */
+static corax_status measure_pass(test *t, int pass)
+{
+    qa_data *d = t->d;
+    for (size_t h = 0; h < d->nholes; h++) {
+        corax_status st = qa_load(d, h);
         if (st != CORAX_OK)
             return st;
-        ks->kappa[how] = s.fisher.kappa;
-        ks->resultant[how] = s.fisher.resultant;
-        ks->strength[how] = s.tensor.eigenvalue[0];
-        ks->axis[how] = s.tensor.axis[0];
+        for (size_t i = 0; i < d->nitems; i++) {
+            const qa_item *it = &d->items[i];
+            int k = kind_found(t, it);
+            if (k < 0)
+                continue;
+            double w = weight_of(it);
+            for (int how = 0; how < QA_READINGS; how++) {
+                corax_axial_stream *s = &t->kind[k].stream[how];
+                if (pass == 0)
+                    corax_axial_stream_tensor(s, normal_as(d, it, how), w);
+                else
+                    corax_axial_stream_mean(s, normal_as(d, it, how), w);
+            }
+        }
     }
     return CORAX_OK;
+}
+
+/* Every kind's clustering with beta read each way. */
+static corax_status measure(test *t)
+{
+    corax_status st = measure_pass(t, 0);
+    for (size_t k = 0; k < t->nkind && st == CORAX_OK; k++)
+        for (int how = 0; how < QA_READINGS; how++)
+            corax_axial_stream_axes(&t->kind[k].stream[how]);
+    if (st == CORAX_OK)
+        st = measure_pass(t, 1);
+    for (size_t k = 0; k < t->nkind && st == CORAX_OK; k++)
+        for (int how = 0; how < QA_READINGS && st == CORAX_OK; how++) {
+            kind_stat *ks = &t->kind[k];
+            corax_axial_summary s;
+            st = corax_axial_stream_end(&ks->stream[how], &s);
+            ks->kappa[how] = s.fisher.kappa;
+            ks->resultant[how] = s.fisher.resultant;
+            ks->strength[how] = s.tensor.eigenvalue[0];
+            ks->axis[how] = s.tensor.axis[0];
+        }
+    return st;
 }
 
 /* The fabrics: kinds with enough readings in two holes or more that are
@@ -240,17 +289,20 @@ static void fabric_lists(const test *t, int how, char *names, size_t nsize, char
 }
 
 /* The median angle of a hole's fabric readings to their kind's axis under
- * `how`; NaN when it has none. */
+ * `how`; NaN when it has none (or it cannot be loaded). */
 static double hole_misfit(test *t, size_t h, int how)
 {
+    qa_data *d = t->d;
     size_t m = 0;
+    if (qa_load(d, h) != CORAX_OK)
+        return NAN;
     for (size_t k = 0; k < t->nkind; k++) {
         const kind_stat *ks = &t->kind[k];
         if (!ks->fabric)
             continue;
-        for (size_t j = ks->first; j < ks->first + ks->n; j++) {
+        for (size_t i = 0; i < d->nitems; i++) {
             corax_vec3 v;
-            if (t->hole[j] == h && qa_normal_as(t->d, &t->d->items[t->item[j]], how, &v))
+            if (kind_found(t, &d->items[i]) == (int)k && qa_normal_as(d, &d->items[i], how, &v))
                 t->work[m++] = qa_axial_angle(v, ks->axis[how]);
         }
     }
@@ -287,10 +339,10 @@ static void hole_spread(test *t, char *buf, size_t size, double *widest, size_t 
     size_t n = 0;
     for (size_t h = 0; h < d->nholes; h++) {
         corax_vec3 sum = vec3(0, 0, 0);
-        for (size_t k = 0; k < t->nkind; k++)
-            for (size_t j = t->kind[k].first; t->kind[k].fabric && j < t->kind[k].first + t->kind[k].n; j++)
-                if (t->hole[j] == h && d->items[t->item[j]].res.located)
-                    sum = vec_add(sum, d->items[t->item[j]].res.point.tangent);
+        for (size_t k = 0; k < t->nkind && qa_load(d, h) == CORAX_OK; k++)
+            for (size_t i = 0; t->kind[k].fabric && i < d->nitems; i++)
+                if (kind_found(t, &d->items[i]) == (int)k && d->items[i].res.located)
+                    sum = vec_add(sum, d->items[i].res.point.tangent);
         if (vec_norm(sum) > 0.0) {
             t->dir[n] = vec_unit(sum);
             t->names[n++] = d->holes[h].name;
@@ -317,8 +369,7 @@ static corax_status say_better(test *t, int best)
     if (more)
         snprintf(others, sizeof others, "; %zu more fabric%s alike", more, more == 1 ? "" : "s");
     deciding_holes(t, best, holes, sizeof holes);
-    const char *file = d->items[t->item[0]].r->file;
-    return corax_findings_add(d->out, CORAX_WARNING, "program-conventions", file, 0, NULL, NAN,
+    return corax_findings_add(d->out, CORAX_WARNING, "program-conventions", t->file, 0, NULL, NAN,
                               "the log reads as if %s: read that way, %s cluster%s across the "
                               "holes with kappa %s, against %s as stated (Fisher's kappa, "
                               "Terzaghi-weighted%s); decided most by %s",
@@ -336,16 +387,15 @@ static corax_status say_cannot_tell(test *t, int rival)
     describe(as, sizeof as, &d->convert->conventions, rival);
     kappa_text(rk, sizeof rk, t->pooled[rival]);
     kappa_text(sk, sizeof sk, t->pooled[QA_AS_STATED]);
-    const char *file = d->items[t->item[0]].r->file;
     if (widest < corax_rad(30.0))
-        return corax_findings_add(d->out, CORAX_NOTE, "program-conventions", file, 0, NULL, NAN,
+        return corax_findings_add(d->out, CORAX_NOTE, "program-conventions", t->file, 0, NULL, NAN,
                                   "the program cannot tell whether its conventions are right: "
                                   "its %zu holes with fabric readings (%s) run within %.0f "
                                   "degrees of one another, so turning or mirroring every "
                                   "reading about its hole changes little. The fabrics cluster "
                                   "with kappa %s as stated, and %s as if %s",
                                   count, holes, corax_deg(widest), sk, rk, as);
-    return corax_findings_add(d->out, CORAX_NOTE, "program-conventions", file, 0, NULL, NAN,
+    return corax_findings_add(d->out, CORAX_NOTE, "program-conventions", t->file, 0, NULL, NAN,
                               "the program cannot tell whether its conventions are right, "
                               "although its holes (%s) spread %.0f degrees: the fabrics cluster "
                               "with kappa %s as stated, and %s as if %s. Some holes may have "
@@ -354,18 +404,12 @@ static corax_status say_cannot_tell(test *t, int rival)
 }
 
 /* From now on read every beta `how`: the per-hole checks then judge each
- * hole against a program that hangs together. */
+ * hole against a program that hangs together (the holes are converted so
+ * as they are loaded). */
 static void read_program_as(qa_data *d, int how)
 {
     d->reading = how;
-    for (size_t i = 0; i < d->nitems; i++) {
-        qa_item *it = &d->items[i];
-        if (!it->res.has_plane || !isfinite(it->r->reading.beta))
-            continue;
-        corax_reading rd = it->r->reading;
-        rd.beta = corax_wrap_azimuth(qa_beta_read(rd.beta, how));
-        corax_convert_reading(it->r->path, &rd, d->convert, NULL, &it->res);
-    }
+    d->loaded = QA_NONE;
 }
 
 corax_status qa_check_conventions(qa_data *d)
@@ -374,8 +418,8 @@ corax_status qa_check_conventions(qa_data *d)
     memset(&t, 0, sizeof t);
     t.d = d;
     corax_status st = gather(&t);
-    for (int how = 0; how < QA_READINGS && st == CORAX_OK; how++)
-        st = measure(&t, how);
+    if (st == CORAX_OK && t.n)
+        st = measure(&t);
     if (st == CORAX_OK && t.n && choose_fabrics(&t)) {
         int best = QA_AS_STATED, rival = QA_AS_STATED;
         for (int how = 1; how < QA_READINGS; how++) {
@@ -391,10 +435,6 @@ corax_status qa_check_conventions(qa_data *d)
         } else if (t.pooled[QA_AS_STATED] < clearly * t.pooled[rival])
             st = say_cannot_tell(&t, rival);
     }
-    free(t.item);
-    free(t.hole);
-    free(t.weight);
-    free(t.v);
     free(t.work);
     free(t.names);
     free(t.gain);

@@ -2,7 +2,7 @@
 #include <math.h>
 #include <stdio.h>
 
-#include "corax/qa.h"
+#include "qa/qa_int.h"
 
 /* One station: a warning when its field departs beyond the tolerances. */
 static corax_status check_station(const corax_station_record *r, const char *file,
@@ -35,7 +35,7 @@ corax_status corax_qa_field(const corax_corrections *stations, const char *file,
     size_t unmodelled = 0;
     for (size_t i = 0; i < stations->count; i++) {
         const corax_station_record *r = &stations->item[i];
-        if (isnan(r->total_field) && isnan(r->field_dip))
+        if ((isnan(r->total_field) && isnan(r->field_dip)) || !qa_in_shard(o, r->hole))
             continue;
         if (!r->correction.field.model) { /* no model, or a station not read magnetically */
             unmodelled += r->correction.north == CORAX_NORTH_MAGNETIC;
@@ -45,7 +45,7 @@ corax_status corax_qa_field(const corax_corrections *stations, const char *file,
         if (st != CORAX_OK)
             return st;
     }
-    if (unmodelled == 0)
+    if (unmodelled == 0 || o->shards > 1) /* a note about no hole: the whole program's */
         return CORAX_OK;
     return corax_findings_add(out, CORAX_NOTE, "survey-field", file, 0, NULL, NAN,
                               "%zu station%s measured the magnetic field, but there is no "

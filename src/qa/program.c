@@ -16,18 +16,21 @@
 enum { MAX_KINDS = 32 };
 
 /* The program's consistent fabrics: kinds whose poles, over all holes, share
- * an axis strongly enough. Per kind, the tensor sums of each hole. */
+ * an axis strongly enough. Per kind, the tensor sums of each hole, and how
+ * each hole's readings of it scatter. */
 typedef struct fabric {
     const char *kind;
     double all[9];
-    double *hole; /* 9 sums per hole */
+    double *hole;   /* 9 sums per hole */
+    double *spread; /* per hole: the median angle of its readings from their own
+                       axis; NaN with fewer than min_fabric of them */
     size_t n;
 } fabric;
 
 typedef struct program {
     fabric f[MAX_KINDS];
     size_t nf;
-    double *work; /* scratch for medians */
+    double *work; /* scratch for medians: one per reading of the largest hole */
 } program;
 
 static int kind_index(const program *p, const char *kind)
@@ -38,26 +41,74 @@ static int kind_index(const program *p, const char *kind)
     return -1;
 }
 
-static corax_status gather(const qa_data *d, program *p)
+static size_t readings_of(const fabric *f, size_t h)
 {
-    for (size_t h = 0; h < d->nholes; h++)
-        for (size_t i = d->holes[h].first; i < d->holes[h].first + d->holes[h].n; i++) {
+    const double *t = f->hole + 9 * h;
+    return (size_t)llround(t[0] + t[4] + t[8]); /* each unit vector adds 1 to the trace */
+}
+
+/* A new kind, its sums and spreads for every hole. */
+static int add_kind(const qa_data *d, program *p, const char *kind)
+{
+    if (p->nf == MAX_KINDS)
+        return -1;
+    fabric *f = &p->f[p->nf];
+    size_t holes = d->nholes ? d->nholes : 1;
+    f->kind = kind;
+    f->hole = calloc(9 * holes, sizeof(double));
+    f->spread = malloc(holes * sizeof(double));
+    if (!f->hole || !f->spread) {
+        free(f->hole);
+        free(f->spread);
+        f->hole = f->spread = NULL;
+        return -2;
+    }
+    for (size_t h = 0; h < holes; h++)
+        f->spread[h] = NAN;
+    return (int)p->nf++;
+}
+
+/* The median angle of the loaded hole h's readings of a kind from their own
+ * axis. */
+static double hole_spread(const qa_data *d, program *p, size_t h, const fabric *f)
+{
+    corax_vec3 axis;
+    if (!qa_principal(f->hole + 9 * h, &axis, NULL))
+        return NAN;
+    size_t n = 0;
+    for (size_t i = 0; i < d->nitems; i++) {
+        const qa_item *it = &d->items[i];
+        if (it->res.has_plane && strcasecmp(it->r->kind, f->kind) == 0)
+            p->work[n++] = qa_axial_angle(it->res.normal, axis);
+    }
+    return n ? gsl_stats_select(p->work, 1, n, n / 2) : (double)NAN;
+}
+
+/* Every kind's tensor sums, over the program and per hole, and the spread of
+ * each hole with enough readings of it, hole by hole. */
+static corax_status gather(qa_data *d, program *p)
+{
+    for (size_t h = 0; h < d->nholes; h++) {
+        corax_status st = qa_load(d, h);
+        if (st != CORAX_OK)
+            return st;
+        for (size_t i = 0; i < d->nitems; i++) {
             const qa_item *it = &d->items[i];
             if (!it->res.has_plane || !it->r->kind[0])
                 continue;
             int k = kind_index(p, it->r->kind);
-            if (k < 0) {
-                if (p->nf == MAX_KINDS)
-                    continue;
-                k = (int)p->nf++;
-                p->f[k].kind = it->r->kind;
-                if (!(p->f[k].hole = calloc(9 * (d->nholes ? d->nholes : 1), sizeof(double))))
-                    return CORAX_ENOMEM;
-            }
+            if (k < 0 && (k = add_kind(d, p, it->r->kind)) == -2)
+                return CORAX_ENOMEM;
+            if (k < 0)
+                continue;
             qa_tensor_add(p->f[k].all, it->res.normal, 1.0);
             qa_tensor_add(p->f[k].hole + 9 * h, it->res.normal, 1.0);
             p->f[k].n++;
         }
+        for (size_t k = 0; k < p->nf; k++)
+            if (readings_of(&p->f[k], h) >= d->o->min_fabric)
+                p->f[k].spread[h] = hole_spread(d, p, h, &p->f[k]);
+    }
     return CORAX_OK;
 }
 
@@ -69,59 +120,33 @@ static int program_fabric(const qa_data *d, const fabric *f)
            strength >= d->o->fabric_strength;
 }
 
-static size_t readings_of(const fabric *f, size_t h)
-{
-    const double *t = f->hole + 9 * h;
-    return (size_t)llround(t[0] + t[4] + t[8]); /* each unit vector adds 1 to the trace */
-}
-
 /* ---- spread ---- */
-
-/* The median angle of a hole's readings of a kind from their own axis. */
-static double hole_spread(const qa_data *d, program *p, size_t h, const fabric *f)
-{
-    corax_vec3 axis;
-    if (!qa_principal(f->hole + 9 * h, &axis, NULL))
-        return NAN;
-    size_t n = 0;
-    const qa_hole *hole = &d->holes[h];
-    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
-        const qa_item *it = &d->items[i];
-        if (it->res.has_plane && strcasecmp(it->r->kind, f->kind) == 0)
-            p->work[n++] = qa_axial_angle(it->res.normal, axis);
-    }
-    return n ? gsl_stats_select(p->work, 1, n, n / 2) : (double)NAN;
-}
 
 static corax_status check_spread(qa_data *d, program *p)
 {
-    double *spread = malloc((d->nholes ? d->nholes : 1) * sizeof *spread);
     double *typical = malloc((d->nholes ? d->nholes : 1) * sizeof *typical);
-    corax_status st = spread && typical ? CORAX_OK : CORAX_ENOMEM;
+    corax_status st = typical ? CORAX_OK : CORAX_ENOMEM;
     for (size_t k = 0; k < p->nf && st == CORAX_OK; k++) {
         const fabric *f = &p->f[k];
         if (!program_fabric(d, f))
             continue;
         size_t m = 0;
-        for (size_t h = 0; h < d->nholes; h++) {
-            spread[h] = readings_of(f, h) >= d->o->min_fabric ? hole_spread(d, p, h, f) : (double)NAN;
-            if (!isnan(spread[h]))
-                typical[m++] = spread[h];
-        }
+        for (size_t h = 0; h < d->nholes; h++)
+            if (!isnan(f->spread[h]))
+                typical[m++] = f->spread[h];
         if (m < 3) /* too few holes to say what is typical */
             continue;
         double mid = gsl_stats_select(typical, 1, m, m / 2);
         for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++)
-            if (spread[h] > d->o->spread_ratio * mid)
+            if (f->spread[h] > d->o->spread_ratio * mid)
                 st = corax_findings_add(
-                    d->out, CORAX_WARNING, "hole-spread", d->items[d->holes[h].first].r->file, 0,
+                    d->out, CORAX_WARNING, "hole-spread", qa_hole_file(d, h), 0,
                     d->holes[h].name, NAN,
                     "the %s of this hole scatters %.0f degrees about its mean (median), against "
                     "%.0f in a typical hole of the program: spun core, a misfitted orientation "
                     "line, or careless reading?",
-                    f->kind, corax_deg(spread[h]), corax_deg(mid));
+                    f->kind, corax_deg(f->spread[h]), corax_deg(mid));
     }
-    free(spread);
     free(typical);
     return st;
 }
@@ -147,14 +172,13 @@ static int turned(const qa_data *d, const qa_item *it, int mode, double angle, c
     }
 }
 
-/* The median misfit of hole h's fabric readings to the rest of the program
- * under a trial turn. */
-static double misfit(const qa_data *d, program *p, size_t h, const corax_vec3 *reference,
-                     int mode, double angle)
+/* The median misfit of the loaded hole's fabric readings to the rest of the
+ * program under a trial turn. */
+static double misfit(const qa_data *d, program *p, const corax_vec3 *reference, int mode,
+                     double angle)
 {
-    const qa_hole *hole = &d->holes[h];
     size_t n = 0;
-    for (size_t i = hole->first; i < hole->first + hole->n; i++) {
+    for (size_t i = 0; i < d->nitems; i++) {
         const qa_item *it = &d->items[i];
         int k = it->res.has_plane ? kind_index(p, it->r->kind) : -1;
         corax_vec3 v;
@@ -166,13 +190,13 @@ static double misfit(const qa_data *d, program *p, size_t h, const corax_vec3 *r
 }
 
 /* The best turn of one kind: a coarse sweep, then finer steps about the best. */
-static double best_turn(const qa_data *d, program *p, size_t h, const corax_vec3 *reference,
-                        int mode, double *angle)
+static double best_turn(const qa_data *d, program *p, const corax_vec3 *reference, int mode,
+                        double *angle)
 {
     double span = mode == TURN_VERTICAL ? 0.5 * CORAX_PI : CORAX_PI;
     double best = INFINITY, at = 0.0, step = corax_rad(5.0);
     for (double a = -span; a < span + 1e-9; a += step) {
-        double m = misfit(d, p, h, reference, mode, a);
+        double m = misfit(d, p, reference, mode, a);
         if (m < best) {
             best = m;
             at = a;
@@ -180,7 +204,7 @@ static double best_turn(const qa_data *d, program *p, size_t h, const corax_vec3
     }
     for (double fine = step / 2; fine > corax_rad(0.2); fine /= 2)
         for (int s = -1; s <= 1; s += 2) {
-            double m = misfit(d, p, h, reference, mode, at + s * fine);
+            double m = misfit(d, p, reference, mode, at + s * fine);
             if (m < best) {
                 best = m;
                 at += s * fine;
@@ -251,24 +275,27 @@ static size_t references(const qa_data *d, const program *p, size_t h, corax_vec
 /* One hole against the rest: which turn, if any, fits it clearly better.
  * A turn is only told from a fabric that differs in the hole when two
  * fabrics or more agree on it: one fabric can always be brought onto the
- * rest by some turn. -1 when none. */
-static int hole_turn(const qa_data *d, program *p, size_t h, double *angle, double *got,
-                     double *base)
+ * rest by some turn. *best -1 when none. */
+static corax_status hole_turn(qa_data *d, program *p, size_t h, int *best, double *angle,
+                              double *got, double *base)
 {
     corax_vec3 reference[MAX_KINDS];
     size_t kinds;
+    *best = -1;
     if (references(d, p, h, reference, &kinds) < d->o->min_fabric || kinds < 2)
-        return -1;
-    *base = misfit(d, p, h, reference, TURN_BETA, 0.0);
-    int best = -1;
+        return CORAX_OK;
+    corax_status st = qa_load(d, h);
+    if (st != CORAX_OK)
+        return st;
+    *base = misfit(d, p, reference, TURN_BETA, 0.0);
     for (int mode = 0; mode < NTURNS; mode++) {
-        got[mode] = best_turn(d, p, h, reference, mode, &angle[mode]);
+        got[mode] = best_turn(d, p, reference, mode, &angle[mode]);
         int far = mode == TURN_MIRROR || fabs(angle[mode]) > d->o->hole_turn;
         if (far && got[mode] < (1.0 - d->o->turn_gain) * *base &&
-            (best < 0 || got[mode] < got[best]))
-            best = mode;
+            (*best < 0 || got[mode] < got[*best]))
+            *best = mode;
     }
-    return best;
+    return CORAX_OK;
 }
 
 /* Several holes turned alike about the vertical: one correction missing or
@@ -296,7 +323,7 @@ static corax_status turned_alike(qa_data *d, vertical_turn *v, size_t n)
             qa_name_list(list, sizeof list, names, m, 6);
             double mean = gsl_stats_mean(a, 1, m), sd = gsl_stats_sd_m(a, 1, m, mean);
             st = corax_findings_add(
-                d->out, CORAX_WARNING, "holes-turned-alike", d->items[d->holes[v[0].hole].first].r->file,
+                d->out, CORAX_WARNING, "holes-turned-alike", qa_hole_file(d, v[0].hole),
                 0, NULL, NAN,
                 "%zu holes (%s) fit the rest of the program best turned %.1f +- %.1f degrees %s "
                 "about the vertical (seen from above): a declination or grid correction missed, "
@@ -320,15 +347,15 @@ static corax_status check_turns(qa_data *d, program *p)
     corax_status st = CORAX_OK;
     for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++) {
         double angle[NTURNS], got[NTURNS], base;
-        int best = hole_turn(d, p, h, angle, got, &base);
-        if (best < 0)
+        int best;
+        if ((st = hole_turn(d, p, h, &best, angle, got, &base)) != CORAX_OK || best < 0)
             continue;
         if (best == TURN_VERTICAL)
             vertical[nvertical++] = (vertical_turn){h, angle[best]};
         char how[240];
         turn_words(how, sizeof how, best, angle[best]);
         st = corax_findings_add(d->out, CORAX_WARNING, "hole-turned",
-                                d->items[d->holes[h].first].r->file, 0, d->holes[h].name, NAN,
+                                qa_hole_file(d, h), 0, d->holes[h].name, NAN,
                                 "the readings of this hole fit the rest of the program%s best %s "
                                 "(typical misfit %.0f degrees, %.0f as read)",
                                 d->reading ? " (read as the program-wide finding suggests)" : "",
@@ -344,14 +371,19 @@ corax_status qa_check_program(qa_data *d)
 {
     program p;
     memset(&p, 0, sizeof p);
-    p.work = malloc((d->nitems ? d->nitems : 1) * sizeof *p.work);
+    size_t most = 1;
+    for (size_t h = 0; h < d->nholes; h++)
+        most = d->holes[h].n > most ? d->holes[h].n : most;
+    p.work = malloc(most * sizeof *p.work);
     corax_status st = p.work ? gather(d, &p) : CORAX_ENOMEM;
     if (st == CORAX_OK)
         st = check_spread(d, &p);
     if (st == CORAX_OK)
         st = check_turns(d, &p);
-    for (size_t k = 0; k < p.nf; k++)
+    for (size_t k = 0; k < p.nf; k++) {
         free(p.f[k].hole);
+        free(p.f[k].spread);
+    }
     free(p.work);
     return st;
 }

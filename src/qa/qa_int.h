@@ -11,12 +11,14 @@
 typedef struct qa_item {
     const corax_qa_reading *r;
     corax_result res;
-    size_t run;  /* index into the runs, or QA_NONE */
+    size_t run;  /* index into the hole's runs, or QA_NONE */
 } qa_item;
 
 #define QA_NONE ((size_t)-1)
 
-/* The readings of one hole, sorted by depth: items[first .. first + n). */
+/* The readings of one hole, sorted by depth: the log's [first, first + n)
+ * (qa_data.holes), or, for the hole loaded (qa_load), items[first ..
+ * first + n) with first 0. */
 typedef struct qa_hole {
     const char *name;
     const corax_hole *path;
@@ -32,21 +34,48 @@ enum { QA_AS_STATED = 0, QA_PLUS_180 = 1, QA_MIRRORED = 2, QA_READINGS = 4 };
 /* A measured beta read another way. */
 double qa_beta_read(double beta, int how);
 
-/* Everything the checks share. */
+/* Everything the checks share. The program's holes are gone over one at a
+ * time: qa_load() converts a hole's readings and places them in its runs,
+ * so that the memory taken grows with the largest hole, not the program. */
 typedef struct qa_data {
     const corax_qa_options *o;
     const corax_convert_options *convert;
-    qa_item *items;      /* grouped by hole (in order of first appearance), by depth */
-    size_t nitems;
-    qa_hole *holes;
+    const corax_qa_log *log;
+    qa_hole *holes;      /* the log's, in order of first appearance */
     size_t nholes;
-    corax_qa_run *runs;  /* by hole as in holes[], then by depth */
-    size_t nruns;
+    corax_qa_run *given; /* the runs table, by hole and depth */
+    size_t ngiven;
     double barrel;       /* metres: an orientation run's usual length */
     int reading;         /* how the program's betas are read (QA_*): QA_AS_STATED
                             unless the convention test found another fits */
     corax_findings *out;
+    /* the hole loaded */
+    size_t loaded;           /* its number, or QA_NONE */
+    qa_hole hole;            /* it, with first 0 */
+    corax_qa_reading *reading_of; /* its readings unpacked */
+    qa_item *items;          /* and converted, by depth */
+    size_t nitems;
+    corax_qa_run *runs;      /* its runs, by depth */
+    size_t nruns, runs_cap;
 } qa_data;
+
+/* Set up d (its options, log and findings given) for the log's holes and
+ * the runs table; qa_close() frees what it holds, either way. CORAX_ENOMEM. */
+corax_status qa_open(qa_data *d, const corax_qa_run *runs, size_t nruns);
+void qa_close(qa_data *d);
+
+/* Load hole h (0 .. nholes - 1): its readings converted with their betas read
+ * as d->reading says, in d->items[0 .. n), each placed in its run (d->runs:
+ * the table's, else inferred from its depths); d->hole is the hole with
+ * first 0. CORAX_ENOMEM. */
+corax_status qa_load(qa_data *d, size_t h);
+
+/* The file of hole h's first reading. */
+const char *qa_hole_file(const qa_data *d, size_t h);
+
+/* Whether a hole (NUL-ended name) is one the options check: all without
+ * shards, else those of their shard. */
+int qa_in_shard(const corax_qa_options *o, const char *name);
 
 /* The angle between two axes (lines without sense), in [0, pi/2]. */
 double qa_axial_angle(corax_vec3 a, corax_vec3 b);
@@ -74,8 +103,8 @@ int qa_principal(const double t[9], corax_vec3 *axis, double *strength);
  * past `shown`. */
 void qa_name_list(char *buf, size_t size, const char *const *names, size_t n, size_t shown);
 
-/* The run checks, the program-wide convention test, and the program checks
- * (qa/runs.c, qa/conventions.c, qa/program.c). */
+/* The run checks of the hole loaded, the program-wide convention test, and
+ * the program checks (qa/runs.c, qa/conventions.c, qa/program.c). */
 corax_status qa_check_runs(qa_data *d);
 corax_status qa_check_conventions(qa_data *d);
 corax_status qa_check_program(qa_data *d);

@@ -678,9 +678,8 @@ static int judge_setup(judge_ctx *c, qa_data *d, const qa_hole *hole)
 
 corax_status qa_check_runs(qa_data *d)
 {
-    size_t most = 1;
-    for (size_t h = 0; h < d->nholes; h++)
-        most = d->holes[h].n > most ? d->holes[h].n : most;
+    const qa_hole *hole = &d->hole;
+    size_t most = hole->n ? hole->n : 1;
     judge_ctx c;
     c.kind = malloc(most * sizeof *c.kind);
     c.work = malloc(most * sizeof *c.work);
@@ -688,12 +687,10 @@ corax_status qa_check_runs(qa_data *d)
     c.off = calloc(most, 1);
     c.member = malloc(most * sizeof *c.member);
     corax_status st = c.kind && c.work && c.use && c.off && c.member ? CORAX_OK : CORAX_ENOMEM;
-    for (size_t h = 0; h < d->nholes && st == CORAX_OK; h++) {
-        const qa_hole *hole = &d->holes[h];
+    if (st == CORAX_OK)
         st = tally_runs(d, hole);
-        if (st == CORAX_OK && judge_setup(&c, d, hole))
-            st = hole->given_runs ? judge_given(&c) : judge_inferred(&c);
-    }
+    if (st == CORAX_OK && judge_setup(&c, d, hole))
+        st = hole->given_runs ? judge_given(&c) : judge_inferred(&c);
     free(c.kind);
     free(c.work);
     free(c.use);

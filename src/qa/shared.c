@@ -1,4 +1,4 @@
-/* qa: what the run, convention and program checks share: angles between
+/* qa: what the checks share: the holes a shard checks, angles between
  * axes, a measured beta read another way, readings converted again, names
  * listed in a message, and the orientation tensor's principal axis. */
 #include <math.h>
@@ -9,6 +9,11 @@
 #include "corax/stats.h"
 #include "geometry/vec.h"
 #include "qa/qa_int.h"
+
+int qa_in_shard(const corax_qa_options *o, const char *name)
+{
+    return o->shards <= 1 || corax_shard_of(name, strlen(name), o->shards) == o->shard;
+}
 
 double qa_axial_angle(corax_vec3 a, corax_vec3 b)
 {

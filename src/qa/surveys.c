@@ -361,15 +361,17 @@ static corax_status check_shared_offset(const corax_program *prog, const char *f
             snprintf(others, sizeof others, " (all but %s)", list);
         }
         *shared = mean;
-        st = corax_findings_add(out, CORAX_WARNING, "azimuth-offset", file, 0, NULL, NAN,
-                                "survey azimuths sit %.1f +- %.1f degrees %s of the collar "
-                                "set-ups in %zu of %zu holes%s, comparing each collar with its "
-                                "first station: %s",
-                                fabs(corax_deg(mean)), corax_deg(sd),
-                                mean < 0.0 ? "west" : "east", most, g.n, others, cause);
+        if (o->shards <= 1) /* a finding about no hole: the whole program's */
+            st = corax_findings_add(out, CORAX_WARNING, "azimuth-offset", file, 0, NULL, NAN,
+                                    "survey azimuths sit %.1f +- %.1f degrees %s of the collar "
+                                    "set-ups in %zu of %zu holes%s, comparing each collar with "
+                                    "its first station: %s",
+                                    fabs(corax_deg(mean)), corax_deg(sd),
+                                    mean < 0.0 ? "west" : "east", most, g.n, others, cause);
     }
     size_t few = most >= 3 && st == CORAX_OK ? group(&g, 2, &gmean, &gsd) : 0;
-    if (few >= 2 && fabs(gmean - mean) >= matters && fabs(gmean - mean) >= 3.0 * gsd) {
+    if (few >= 2 && fabs(gmean - mean) >= matters && fabs(gmean - mean) >= 3.0 * gsd &&
+        o->shards <= 1) {
         group_names(&g, 2, 1, list, sizeof list);
         char rest[48] = "none";
         if (fabs(corax_deg(mean)) >= 0.05)
@@ -402,6 +404,8 @@ corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_fil
         hole_ctx c;
         c.h = corax_program_hole(prog, k);
         c.name = corax_hole_name(c.h);
+        if (!qa_in_shard(o, c.name))
+            continue;
         c.o = o;
         c.out = out;
         c.file = surveys_file;
@@ -434,7 +438,7 @@ corax_status corax_qa_surveys(const corax_program *prog, const char *surveys_fil
             (st = check_steep(&c)) != CORAX_OK)
             return st;
     }
-    if (shuffled)
+    if (shuffled && o->shards <= 1) /* a note about no hole: the whole program's */
         return corax_findings_add(out, CORAX_NOTE, "survey-order", surveys_file, 0, NULL, NAN,
                                   "the survey rows of %zu hole%s are in no particular depth "
                                   "order; that is fine (corax sorts them), but a mistyped depth "

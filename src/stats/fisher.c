@@ -21,25 +21,30 @@ corax_status corax_fisher_mean(const corax_vec3 *v, const double *w, size_t n,
     corax_vec3 sum = vec3(0, 0, 0);
     for (size_t i = 0; i < n; i++)
         sum = vec_add(sum, vec_scale(v[i], corax_stats_weight(w, i, scale)));
-    double r = vec_norm(sum), nn = (double)n;
+    corax_fisher_finish(sum, out);
+    return CORAX_OK;
+}
+
+void corax_fisher_finish(corax_vec3 sum, corax_fisher *out)
+{
+    double r = vec_norm(sum), nn = (double)out->n;
     out->resultant = r;
     out->mean = vec_unit(sum);
-    if (n < CORAX_FISHER_MIN_READINGS)
-        return CORAX_OK;
+    if (out->n < CORAX_FISHER_MIN_READINGS)
+        return;
     if (r >= nn) { /* every reading the same: no spread at all */
         out->kappa = INFINITY;
         out->alpha95 = 0.0;
-        return CORAX_OK;
+        return;
     }
     out->kappa = (nn - 1.0) / (nn - r);
     if (r <= 0.0) {
         out->alpha95 = CORAX_PI;
-        return CORAX_OK;
+        return;
     }
     /* a very loose sample drives the argument below -1: the cone covers all */
     double c = 1.0 - (nn - r) / r * (pow(20.0, 1.0 / (nn - 1.0)) - 1.0);
     out->alpha95 = acos(fmax(c, -1.0));
-    return CORAX_OK;
 }
 
 double corax_fisher_cosine(double kappa, double u1)

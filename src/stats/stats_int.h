@@ -4,6 +4,7 @@
 
 #include <stddef.h>
 
+#include "corax/stats.h"
 #include "corax/status.h"
 
 /* The factor that rescales the weights w (NULL: all ones) of n readings to
@@ -16,5 +17,10 @@ static inline double corax_stats_weight(const double *w, size_t i, double scale)
 {
     return w ? w[i] * scale : 1.0;
 }
+
+/* The Fisher statistics of out->n readings (set) from their weighted
+ * resultant `sum`: the mean, R, and kappa and the cone from enough
+ * readings (the rest NaN as they are). */
+void corax_fisher_finish(corax_vec3 sum, corax_fisher *out);
 
 #endif

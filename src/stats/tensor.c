@@ -5,6 +5,7 @@
 #include <gsl/gsl_matrix.h>
 #include <math.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "corax/stats.h"
 #include "geometry/vec.h"
@@ -24,6 +25,15 @@ double corax_woodcock_shape(const double s[3])
 
 double corax_woodcock_strength(const double s[3]) { return log_ratio(s[0], s[2]); }
 
+/* Add wi v v^T to the sums t. */
+static void tensor_add(double t[9], corax_vec3 v, double wi)
+{
+    double c[3] = {v.x, v.y, v.z};
+    for (int r = 0; r < 3; r++)
+        for (int k = 0; k < 3; k++)
+            t[3 * r + k] += wi * c[r] * c[k];
+}
+
 corax_status corax_tensor_compute(const corax_vec3 *v, const double *w, size_t n,
                                   corax_tensor *out)
 {
@@ -34,12 +44,8 @@ corax_status corax_tensor_compute(const corax_vec3 *v, const double *w, size_t n
     if (st != CORAX_OK)
         return st;
     double t[9] = {0};
-    for (size_t i = 0; i < n; i++) {
-        double c[3] = {v[i].x, v[i].y, v[i].z}, wi = corax_stats_weight(w, i, scale) / (double)n;
-        for (int r = 0; r < 3; r++)
-            for (int k = 0; k < 3; k++)
-                t[3 * r + k] += wi * c[r] * c[k];
-    }
+    for (size_t i = 0; i < n; i++)
+        tensor_add(t, v[i], corax_stats_weight(w, i, scale) / (double)n);
     return corax_tensor_from_sums(t, out);
 }
 
@@ -76,35 +82,101 @@ corax_status corax_tensor_from_sums(const double sums[9], corax_tensor *out)
     return st;
 }
 
-corax_status corax_axial_summary_compute(const corax_vec3 *v, const double *w, size_t n,
-                                         corax_axial_summary *out)
+/* ---- the summary, in passes ---- */
+
+void corax_axial_stream_begin(corax_axial_stream *s, int weighted)
 {
-    out->n = n;
-    out->weight_sum = 0.0;
+    memset(s, 0, sizeof *s);
+    s->weighted = weighted;
+    s->sum = vec3(0, 0, 0);
+    corax_axial_summary *out = &s->out;
     for (int k = 0; k < 3; k++) {
         out->tensor.eigenvalue[k] = NAN;
         out->tensor.axis[k] = vec3(0, 0, 0);
     }
     out->tensor.shape = out->tensor.strength = NAN;
-    corax_fisher_mean(v, w, 0, &out->fisher);
-    if (n == 0)
-        return CORAX_OK;
-    double scale;
-    corax_status st = corax_stats_weight_scale(w, n, &scale, &out->weight_sum);
-    if (st == CORAX_OK)
-        st = corax_tensor_compute(v, w, n, &out->tensor);
-    if (st != CORAX_OK)
-        return st;
-    /* turn every reading to the side of axis 1, then take the Fisher mean */
-    corax_vec3 *turned = malloc(n * sizeof *turned);
-    if (!turned)
-        return CORAX_ENOMEM;
-    corax_vec3 e1 = out->tensor.axis[0];
+    corax_fisher_mean(NULL, NULL, 0, &out->fisher);
+}
+
+/* The pass's weight of a reading, rescaled. */
+static double rescaled(const corax_axial_stream *s, double w)
+{
+    return s->weighted ? w * s->scale : 1.0;
+}
+
+void corax_axial_stream_weigh(corax_axial_stream *s, double w)
+{
+    s->n++;
+    if (!s->weighted)
+        return;
+    if (!(w >= 0.0) || !isfinite(w)) /* as corax_stats_weight_scale() */
+        s->status = CORAX_EARG;
+    s->weight_sum += w;
+}
+
+/* The end of the first pass, at the first step after it: the weights' sum
+ * and their scale. 0 when there is nothing more to do. */
+static int weighed(corax_axial_stream *s)
+{
+    if (s->status != CORAX_OK || s->n == 0)
+        return 0;
+    if (s->scale > 0.0)
+        return 1;
+    if (!s->weighted)
+        s->weight_sum = (double)s->n;
+    else if (!(s->weight_sum > 0.0)) {
+        s->status = CORAX_EARG;
+        return 0;
+    }
+    s->scale = (double)s->n / s->weight_sum;
+    return 1;
+}
+
+void corax_axial_stream_tensor(corax_axial_stream *s, corax_vec3 v, double w)
+{
+    if (weighed(s))
+        tensor_add(s->sums, v, rescaled(s, w) / (double)s->n);
+}
+
+void corax_axial_stream_axes(corax_axial_stream *s)
+{
+    if (weighed(s))
+        s->status = corax_tensor_from_sums(s->sums, &s->out.tensor);
+}
+
+void corax_axial_stream_mean(corax_axial_stream *s, corax_vec3 v, double w)
+{
+    if (!weighed(s))
+        return;
+    corax_vec3 turned = vec_dot(v, s->out.tensor.axis[0]) < 0.0 ? vec_neg(v) : v;
+    s->sum = vec_add(s->sum, vec_scale(turned, rescaled(s, w)));
+}
+
+corax_status corax_axial_stream_end(corax_axial_stream *s, corax_axial_summary *out)
+{
+    s->out.n = s->n;
+    if (weighed(s)) {
+        s->out.weight_sum = s->weight_sum;
+        s->out.fisher.n = s->n;
+        corax_fisher_finish(s->sum, &s->out.fisher);
+        if (s->out.fisher.mean.z > 0.0)
+            s->out.fisher.mean = vec_neg(s->out.fisher.mean);
+    }
+    *out = s->out;
+    return s->status;
+}
+
+corax_status corax_axial_summary_compute(const corax_vec3 *v, const double *w, size_t n,
+                                         corax_axial_summary *out)
+{
+    corax_axial_stream s;
+    corax_axial_stream_begin(&s, w != NULL);
     for (size_t i = 0; i < n; i++)
-        turned[i] = vec_dot(v[i], e1) < 0.0 ? vec_neg(v[i]) : v[i];
-    st = corax_fisher_mean(turned, w, n, &out->fisher);
-    free(turned);
-    if (out->fisher.mean.z > 0.0)
-        out->fisher.mean = vec_neg(out->fisher.mean);
-    return st;
+        corax_axial_stream_weigh(&s, w ? w[i] : 1.0);
+    for (size_t i = 0; i < n; i++)
+        corax_axial_stream_tensor(&s, v[i], w ? w[i] : 1.0);
+    corax_axial_stream_axes(&s);
+    for (size_t i = 0; i < n; i++)
+        corax_axial_stream_mean(&s, v[i], w ? w[i] : 1.0);
+    return corax_axial_stream_end(&s, out);
 }

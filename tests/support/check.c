@@ -71,3 +71,13 @@ void test_write_file(const char *path, const char *text)
     fputs(text, f);
     assert_int_equal(fclose(f), 0);
 }
+
+corax_qa_log *test_qa_log(const corax_qa_reading *r, size_t n)
+{
+    corax_qa_log *log = corax_qa_log_new();
+    assert_non_null(log);
+    for (size_t i = 0; i < n; i++)
+        assert_int_equal(corax_qa_log_add(log, &r[i]), CORAX_OK);
+    assert_int_equal(corax_qa_log_sort(log), CORAX_OK);
+    return log;
+}

@@ -9,6 +9,8 @@
 
 #include <cmocka.h>
 
+#include "corax/qa.h"
+
 /* |a - b| <= atol + rtol |b|, else fail with both values and the context
  * (which should name the source of the expected value). cmocka 1.1.5 has no
  * double assertion, and assert_float_equal rounds to float. */
@@ -28,6 +30,10 @@ const char *test_tmp_path(const char *name);
 
 /* Write text to a file (for table tests); fails the test on error. */
 void test_write_file(const char *path, const char *text);
+
+/* A sorted QA log of n readings (corax_qa_log_sort()); fails the test on
+ * error. corax_qa_log_free() it. */
+corax_qa_log *test_qa_log(const corax_qa_reading *r, size_t n);
 
 /* A whole file in memory, NUL-terminated (it may hold other NULs: *length,
  * which may be NULL, gets its size); fails the test on error. free() it. */
