@@ -69,7 +69,7 @@ $(LIB_OBJ): PIC := -fPIC -fno-semantic-interposition
 # from their own files, one per command from command.c. `make check` links
 # them with replay.c and runs their seed corpus once; `make fuzz` links them
 # with libFuzzer (clang) and fuzzes each for FUZZ_SECONDS.
-FUZZ_COMMANDS  := trace convert check stereonet section export plan
+FUZZ_COMMANDS  := trace convert check stereonet section export plan solve merge
 FUZZ_HARNESSES := reader names project $(FUZZ_COMMANDS)
 FUZZ_BIN       := $(FUZZ_HARNESSES:%=$(BUILD)/fuzz/%)
 FUZZ_AUX_OBJ   := $(BUILD)/obj/tests/fuzz/run.o $(BUILD)/obj/tests/fuzz/commands.o

@@ -23,48 +23,83 @@ typedef struct shard_file {
     size_t rows;
 } shard_file;
 
+/* What the shards' header says of their rows. */
+typedef struct shard_layout {
+    char delim;   /* the delimiter */
+    long hole;    /* the hole's column, or -1 */
+    size_t width; /* the number of fields of every row */
+} shard_layout;
+
+/* A record's bounds, as the table reader's (reader.c): a shard that passes
+ * them reads back whole in every command. */
+enum { MAX_LINE = 1 << 20, MAX_RECORD = 1 << 24 };
+
+/* Append a byte to the record; 0 when out of memory. */
+static int record_put(shard_file *s, char c)
+{
+    if (s->len + 2 > s->cap) {
+        size_t cap = s->cap ? s->cap * 2 : 4096;
+        char *r = realloc(s->rec, cap);
+        if (!r)
+            return 0;
+        s->rec = r;
+        s->cap = cap;
+    }
+    s->rec[s->len++] = c;
+    return 1;
+}
+
 /* Read a shard's next record (lines until its quotes pair up): 1, 0 at the
- * end, -1 on a read error or a record cut by the end (said). */
+ * end, -1 on a read error, a record cut by the end, a NUL byte or a record
+ * beyond the reader's bounds (said). */
 static int read_record(corax_job *job, shard_file *s)
 {
     s->len = 0;
     s->line = s->next_line;
     int quotes = 0;
-    do {
-        char *line = NULL;
-        size_t cap = 0;
-        ssize_t n = getline(&line, &cap, s->f);
-        if (n < 0) {
-            free(line);
+    size_t line_len = 0;
+    for (;;) {
+        int c = getc_unlocked(s->f);
+        if (c == EOF) {
             if (ferror(s->f)) {
-                job_error(job, s->path, s->line, "cannot be read: %s", strerror(errno));
+                job_error(job, s->path, s->next_line, "cannot be read: %s", strerror(errno));
                 return -1;
             }
-            if (s->len) {
+            if (quotes) {
                 job_error(job, s->path, s->line, "a quoted field is not closed before the end");
                 return -1;
             }
-            return 0;
+            break;
         }
-        if (s->len + (size_t)n + 1 > s->cap) {
-            size_t cap2 = (s->len + (size_t)n + 1) * 2;
-            char *r = realloc(s->rec, cap2);
-            if (!r) {
-                free(line);
-                job_error(job, s->path, s->line, "out of memory");
-                return -1;
-            }
-            s->rec = r;
-            s->cap = cap2;
+        if (c == '\0') {
+            job_error(job, s->path, s->next_line,
+                      "the file holds NUL bytes: it is not a converted table");
+            return -1;
         }
-        memcpy(s->rec + s->len, line, (size_t)n);
-        for (ssize_t i = 0; i < n; i++)
-            quotes ^= line[i] == '"';
-        s->len += (size_t)n;
-        s->rec[s->len] = '\0';
-        free(line);
+        if (++line_len > MAX_LINE || s->len + 1 > MAX_RECORD) {
+            job_error(job, s->path, s->next_line, "%s",
+                      line_len > MAX_LINE ? "the line is longer than 1 MiB: is this a table?"
+                                          : "the row is longer than 16 MiB (a quote never "
+                                            "closed?)");
+            return -1;
+        }
+        if (!record_put(s, (char)c)) {
+            job_error(job, s->path, s->line, "out of memory");
+            return -1;
+        }
+        quotes ^= c == '"';
+        if (c == '\n') {
+            s->next_line++;
+            line_len = 0;
+            if (!quotes)
+                break;
+        }
+    }
+    if (s->len == 0)
+        return 0;
+    if (s->rec[s->len - 1] != '\n') /* the last line, without its end */
         s->next_line++;
-    } while (quotes);
+    s->rec[s->len] = '\0';
     return 1;
 }
 
@@ -115,38 +150,61 @@ static size_t field_at(const char *rec, size_t len, char delim, size_t index, ch
     return (size_t)-1;
 }
 
-/* The number of fields of a record. */
+/* The number of fields of a record as convert writes one, or 0 when it is
+ * not so written: every field is bare (no quote, carriage return or line
+ * break in it) or wholly quoted (quotes inside doubled), and the record
+ * does not open with '#' (which a reader takes for a comment). A record that
+ * passes reads back as one row of that many fields. */
 static size_t field_count(const char *rec, size_t len, char delim)
 {
     len = record_length(rec, len);
-    size_t n = 1;
-    int quoted = 0;
-    for (size_t i = 0; i < len; i++)
-        if (rec[i] == '"')
-            quoted = !quoted;
-        else if (rec[i] == delim && !quoted)
-            n++;
-    return n;
+    if (len && rec[0] == '#')
+        return 0;
+    size_t n = 1, i = 0;
+    for (;;) {
+        if (i < len && rec[i] == '"') { /* a quoted field, to its closing quote */
+            for (i++;; i++) {
+                if (i >= len)
+                    return 0;
+                if (rec[i] == '"' && !(i + 1 < len && rec[i + 1] == '"'))
+                    break;
+                if (rec[i] == '"')
+                    i++;
+            }
+            i++;
+            if (i < len && rec[i] != delim)
+                return 0;
+        } else {
+            for (; i < len && rec[i] != delim; i++)
+                if (rec[i] == '"' || rec[i] == '\r' || rec[i] == '\n')
+                    return 0;
+        }
+        if (i >= len)
+            return n;
+        n++;
+        i++; /* past the delimiter */
+    }
 }
 
-/* The delimiter of a converted table's header, which ends with "note", and
- * its hole column (-1: none). 0, or -1 when it is not a converted table. */
-static int converted_header(const char *rec, size_t len, char *delim, long *hole)
+/* The delimiter of a converted table's header, which ends with "note", its
+ * hole column (-1: none) and its width. 0, or -1 when it is not a converted
+ * table. */
+static int converted_header(const char *rec, size_t len, shard_layout *lay)
 {
     static const char delims[] = {',', ';', '\t'};
     len = record_length(rec, len);
-    *hole = -1;
+    lay->hole = -1;
     for (size_t d = 0; d < sizeof delims; d++)
         if (len > 5 && rec[len - 5] == delims[d] && memcmp(rec + len - 4, "note", 4) == 0) {
-            *delim = delims[d];
-            size_t n = field_count(rec, len, *delim);
-            for (size_t k = 0; k < n && *hole < 0; k++) {
+            lay->delim = delims[d];
+            lay->width = field_count(rec, len, lay->delim);
+            for (size_t k = 0; k < lay->width && lay->hole < 0; k++) {
                 char name[8];
-                if (field_at(rec, len, *delim, k, name, sizeof name) == 4 &&
+                if (field_at(rec, len, lay->delim, k, name, sizeof name) == 4 &&
                     memcmp(name, "hole", 4) == 0)
-                    *hole = (long)k;
+                    lay->hole = (long)k;
             }
-            return 0;
+            return lay->width ? 0 : -1;
         }
     return -1;
 }
@@ -164,7 +222,7 @@ static void close_shards(shard_file *s, size_t n)
 /* Open every shard and read its header; the first's is the output's, and
  * every other must be the same. */
 static corax_status open_shards(corax_job *job, shard_file *s, const char *const *paths,
-                                size_t n, char *delim, long *hole)
+                                size_t n, shard_layout *lay)
 {
     for (size_t i = 0; i < n; i++) {
         s[i].path = paths[i];
@@ -181,7 +239,7 @@ static corax_status open_shards(corax_job *job, shard_file *s, const char *const
             job_error(job, paths[i], 0, "is empty: not a converted table");
             return CORAX_EFORMAT;
         }
-        if (i == 0 && converted_header(s[0].rec, s[0].len, delim, hole) != 0) {
+        if (i == 0 && converted_header(s[0].rec, s[0].len, lay) != 0) {
             job_error(job, paths[0], 1, "not a converted table (its header does not end with "
                       "a note column)");
             return CORAX_EFORMAT;
@@ -197,7 +255,7 @@ static corax_status open_shards(corax_job *job, shard_file *s, const char *const
 
 /* Copy the rows of one log from their shards. */
 static corax_status merge_log(corax_job *job, const corax_table_settings *t, const char *path,
-                              shard_file *s, size_t n, char delim, long hole, corax_writer *w,
+                              shard_file *s, size_t n, const shard_layout *lay, corax_writer *w,
                               corax_merge_job_summary *sum)
 {
     static const char *const names[] = {"hole"};
@@ -232,8 +290,20 @@ static corax_status merge_log(corax_job *job, const corax_table_settings *t, con
             st = CORAX_EFORMAT;
             break;
         }
+        size_t fields = field_count(f->rec, f->len, lay->delim);
+        if (fields != lay->width) {
+            if (fields)
+                job_error(job, f->path, f->line, "the row has %zu fields but the header has "
+                          "%zu: not as convert wrote it", fields, lay->width);
+            else
+                job_error(job, f->path, f->line, "the row is not as convert writes one (a quote "
+                          "out of place, a bare carriage return, or a '#' first)");
+            st = CORAX_EFORMAT;
+            break;
+        }
         char got_name[256];
-        size_t gl = hole >= 0 ? field_at(f->rec, f->len, delim, (size_t)hole, got_name,
+        long hole = lay->hole;
+        size_t gl = hole >= 0 ? field_at(f->rec, f->len, lay->delim, (size_t)hole, got_name,
                                          sizeof got_name)
                               : len;
         if (hole >= 0 && (gl != len || memcmp(got_name, name, len) != 0)) {
@@ -281,14 +351,13 @@ corax_status corax_merge_job_run(corax_job *job, const corax_table_settings *t,
         return CORAX_EARG;
     }
     shard_file *s = calloc(nshards, sizeof *s);
-    char delim = ',';
-    long hole = -1;
-    corax_status st = s ? open_shards(job, s, shards, nshards, &delim, &hole) : CORAX_ENOMEM;
+    shard_layout lay = {',', -1, 0};
+    corax_status st = s ? open_shards(job, s, shards, nshards, &lay) : CORAX_ENOMEM;
     corax_writer *w = st == CORAX_OK ? job_output(job, output, &st) : NULL;
     if (w)
         corax_writer_text(w, s[0].rec, s[0].len);
     for (size_t i = 0; i < nlogs && st == CORAX_OK; i++)
-        st = merge_log(job, t, logs[i], s, nshards, delim, hole, w, sum);
+        st = merge_log(job, t, logs[i], s, nshards, &lay, w, sum);
     for (size_t k = 0; k < nshards && st == CORAX_OK; k++) {
         int got = read_record(job, &s[k]);
         if (got < 0) {

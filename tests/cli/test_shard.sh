@@ -68,6 +68,26 @@ if "$CORAX" merge -q --structures "$T/sorted.csv" -o "$T/bad.csv" "$T/part1.csv"
     "$T/part3.csv" "$T/part4.csv" 2> /dev/null; then
     fail "merge against the log in another order succeeded"
 fi
+# a shard that no reader would take (a NUL byte; a line of over 1 MiB), or
+# with a row that would not read back as convert wrote it (a field too many,
+# a '#' first, which makes it a comment, a quote in a bare field), is refused,
+# not copied into a merged table
+for fault in nul long wide comment quote; do
+    cp "$T/part1.csv" "$T/faulty.csv"
+    case $fault in
+    nul) printf 'x\000y\n' >> "$T/faulty.csv"; want="holds NUL bytes" ;;
+    long) head -c 1100000 /dev/zero | tr '\0' a >> "$T/faulty.csv"; want="longer than 1 MiB" ;;
+    wide) sed -i '2s/$/,more/' "$T/faulty.csv"; want="fields but the header has" ;;
+    comment) sed -i '2s/^/#/' "$T/faulty.csv"; want="not as convert writes one" ;;
+    quote) sed -i '2s/^\([^,]*\),/\1x"y"z,/' "$T/faulty.csv"; want="not as convert writes one" ;;
+    esac
+    if "$CORAX" merge -q --structures "$T/log.csv" -o "$T/bad.csv" "$T/faulty.csv" \
+        "$T/part2.csv" "$T/part3.csv" "$T/part4.csv" 2> "$T/err.txt"; then
+        fail "merge of a shard with $fault succeeded"
+    fi
+    [ ! -e "$T/bad.csv" ] || fail "merge of a shard with $fault wrote its output"
+    grep -q "faulty.csv:[0-9]*: .*$want" "$T/err.txt" || fail "shard with $fault: $(cat "$T/err.txt")"
+done
 if "$CORAX" convert -q $P --shard 5/4 -o "$T/bad.csv" "$T/log.csv" 2> "$T/err.txt"; then
     fail "--shard 5/4 accepted"
 fi

@@ -1,6 +1,6 @@
 /* Fuzzing harness: one command run in-process on fuzzed tables and project
  * files. Built once per command (FUZZ_COMMAND names it: trace, convert,
- * check, stereonet, section, export, plan). The input: byte 0 picks one of
+ * check, stereonet, section, export, plan, solve, merge). The input: byte 0 picks one of
  * the command's argument lines, byte 1 where the main output goes and
  * which output operation fails (see run.c), and the rest, split at 0x1e,
  * fills the command's files in order (tests/fuzz/commands.c). */

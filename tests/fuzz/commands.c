@@ -93,6 +93,18 @@ const fuzz_cmd fuzz_commands[] = {
       "from-vertical --declination 5 --near-parallel 20 --pierce {o.csv} -o {s.csv}",
       "plan --holes {holes.csv} --sets {sets.csv} --targets {targets.csv} --sweep "
       "azimuth=90:270:60,dip=-45:-90:15 --best {o.csv} --svg {s.svg} -o {t.csv}"}, {NULL}},
+    {"solve", cmd_solve, {"collars.csv", "surveys.csv", "readings.csv", "project.ini"},
+     {"solve " PROGRAM " --draws 20 --seed 2 -o {o.csv} {readings.csv}",
+      "solve " PROGRAM " --draws 0 --residuals {s.csv} -o {o.csv} {readings.csv}",
+      "solve -p {project.ini} --draws 5 --svg {s.svg} -o {o.csv} {readings.csv}",
+      "solve " PROGRAM " --parallel-limit 5 --draws 10 --alpha-error 4 --svg {o.svg} "
+      "--draw-sets tuff --residuals {s.csv} -o {t.csv} {readings.csv}"}, {NULL}},
+    {"merge", cmd_merge, {"log.csv", "part1.csv", "part2.csv", "project.ini"},
+     {"merge --structures {log.csv} -o {o.csv} {part1.csv} {part2.csv}",
+      "merge -p {project.ini} --structures {log.csv} -o {o.csv} {part1.csv} {part2.csv}",
+      "merge --structures {log.csv} --structures {log.csv} -o {o.csv} {part1.csv} "
+      "{part2.csv}"},
+     {"log.csv", "log.csv", NULL}},
 };
 
 const size_t fuzz_ncommands = sizeof fuzz_commands / sizeof *fuzz_commands;
@@ -119,6 +131,8 @@ static const struct {
                   "T2,10,joint,30,200,,,ok\nT2,20,lineation,,,40,180,ok\n"},
     {"intervals.csv", "hole,from,to,unit\nT1,0,12.5,cover\nT1,12.5,40,basalt\n"
                       "T1,40,95,dolerite\n"},
+    {"readings.csv", "hole,depth,alpha,set\nT1,20,40,tuff\nT2,30,55,tuff\nT3,25,35,tuff\n"
+                     "T1,60,70,vein\n"},
     {"holes.csv", "hole,x,y,z,azimuth,dip,length,lift,drift\nPA,1000,2000,300,135,-60,250,,\n"
                   "PB,1100,2000,300,90,-70,300,2,1\n"},
     {"sets.csv", "set,dip,dip_direction,kappa,weight\nsteep,84,90,,1\ngentle,30,300,40,2\n"},

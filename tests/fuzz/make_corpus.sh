@@ -17,7 +17,7 @@ cd "$(dirname "$0")"
 D=../cli/data
 C=corpus
 mkdir -p "$C"
-for h in reader names project trace convert check stereonet section export plan; do
+for h in reader names project trace convert check stereonet section export plan solve merge; do
     mkdir -p "$C/$h"
     find "$C/$h" -type f ! -name 'finding-*' -delete
 done
@@ -243,6 +243,32 @@ done
 seed plan bad 0 0 $D/plan_bad_holes.csv $D/plan_sets.csv - -
 seed plan steep 5 0 $D/plan_steep_holes.csv $D/plan_vertical_set.csv $D/plan_targets.csv -
 seed plan q7 1 0 $D/plan_q7_10_hole.csv $D/plan_q7_10_sets.csv $D/plan_targets.csv -
+
+# ---- solve: collars, surveys, readings, project ----
+for v in 0 1 2 3; do
+    seed solve "v$v" $v 0 $D/solve_collars.csv $D/solve_surveys.csv $D/solve_readings.csv \
+        "$T/plan.ini"
+done
+for s in 1 3 6 7 4 12 5 69; do
+    seed solve "sink$s" 0 $s $D/solve_collars.csv $D/solve_surveys.csv $D/solve_readings.csv \
+        "$T/plan.ini"
+done
+
+# ---- merge: log, shard 1 of 2, shard 2 of 2, project (the shards made by
+# corax itself, CORAX or the build's) ----
+CORAX=${CORAX:-../../build/corax}
+for k in 1 2; do
+    "$CORAX" convert -q --collars $D/collars.csv --surveys $D/surveys.csv --shard $k/2 \
+        -o "$T/part$k.csv" $D/log.csv
+done
+for v in 0 1 2; do
+    seed merge "v$v" $v 0 $D/log.csv "$T/part1.csv" "$T/part2.csv" "$T/trace.ini"
+done
+for s in 1 3 6 7 4 12 5 69; do
+    seed merge "sink$s" 0 $s $D/log.csv "$T/part1.csv" "$T/part2.csv" -
+done
+seed merge swapped 0 0 $D/log.csv "$T/part2.csv" "$T/part1.csv" -
+seed merge short 0 0 $D/log2.csv "$T/part1.csv" "$T/part2.csv" -
 
 # ---- project: byte 0 the command (bits 0-2) and line (bits 3-7), byte 1 the
 # sink and the handler's stop (bits 4-7), then the project file ----
