@@ -359,6 +359,62 @@ static void test_big_sets_drawn_as_a_sample(void **state)
     free(poles);
 }
 
+/* Sets that lie one after another in one array (as the stereonet job keeps
+ * them) are contoured where they lie, not copied: the page is the same, byte
+ * for byte, as of the same sets each in an array of its own, with weights or
+ * without, and of lines when no set has poles; an empty set between them
+ * (holding NULL) changes nothing. */
+static void test_sets_in_one_array(void **state)
+{
+    (void)state;
+    enum { A = 40, B = 25, N = A + B };
+    corax_vec3 one[N], *apart_v[2];
+    double one_w[N], *apart_w[2];
+    uint64_t seed = 8;
+    for (int i = 0; i < N; i++) {
+        one[i] = corax_fisher_draw(i < A ? pole_of(30, 60) : pole_of(70, 250), 20,
+                                   test_uniform(&seed), test_uniform(&seed));
+        one_w[i] = 1.0 + 2.0 * test_uniform(&seed);
+    }
+    const size_t first[2] = {0, A}, size[2] = {A, B};
+    for (int k = 0; k < 2; k++) {
+        apart_v[k] = malloc(size[k] * sizeof *apart_v[k]);
+        apart_w[k] = malloc(size[k] * sizeof *apart_w[k]);
+        assert_true(apart_v[k] && apart_w[k]);
+        memcpy(apart_v[k], one + first[k], size[k] * sizeof *apart_v[k]);
+        memcpy(apart_w[k], one_w + first[k], size[k] * sizeof *apart_w[k]);
+    }
+    corax_net_style style = corax_net_style_default();
+    for (int form = 0; form < 3; form++) { /* poles, weighted poles, lines */
+        corax_net_set joined[3] = {{.name = "a"}, {.name = "empty"}, {.name = "b"}};
+        corax_net_set apart[3] = {{.name = "a"}, {.name = "empty"}, {.name = "b"}};
+        for (int k = 0; k < 2; k++) {
+            corax_net_set *j = &joined[2 * k], *a = &apart[2 * k];
+            if (form == 2) {
+                j->lines = one + first[k], a->lines = apart_v[k];
+                j->nlines = a->nlines = size[k];
+            } else {
+                j->poles = one + first[k], a->poles = apart_v[k];
+                j->npoles = a->npoles = size[k];
+            }
+            if (form == 1)
+                j->pole_weight = one_w + first[k], a->pole_weight = apart_w[k];
+        }
+        corax_svg *svg_joined, *svg_apart;
+        assert_int_equal(corax_stereonet_page(joined, 3, &style, 0, &svg_joined), CORAX_OK);
+        assert_int_equal(corax_stereonet_page(apart, 3, &style, 0, &svg_apart), CORAX_OK);
+        const char *doc = corax_svg_finish(svg_joined, NULL);
+        assert_int_equal(count(doc, "<clipPath"), 1); /* contoured */
+        assert_string_equal(doc, corax_svg_finish(svg_apart, NULL));
+        corax_svg_free(svg_joined);
+        corax_svg_free(svg_apart);
+    }
+    for (int k = 0; k < 2; k++) {
+        free(apart_v[k]);
+        free(apart_w[k]);
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -368,6 +424,7 @@ int main(void)
         cmocka_unit_test(test_great_circles_inside_primitive),
         cmocka_unit_test(test_small_circles_and_picks),
         cmocka_unit_test(test_big_sets_drawn_as_a_sample),
+        cmocka_unit_test(test_sets_in_one_array),
     };
     return cmocka_run_group_tests_name("draw_stereonet", tests, NULL, NULL);
 }

@@ -1,8 +1,9 @@
-/* corax: the stereonet job. Converted tables read whole, filtered and
- * grouped by their columns, their planes (rows with dip and dip_direction)
- * and lines (trend and plunge) drawn on a stereonet page, and each group's
- * orientation statistics (Fisher mean, kappa and alpha95, the orientation
- * tensor, Woodcock's K and C) as a table. */
+/* corax: the stereonet job. Converted tables read row by row (a few dozen
+ * bytes kept a reading), filtered and grouped by their columns, their planes
+ * (rows with dip and dip_direction) and lines (trend and plunge) drawn on a
+ * stereonet page, and each group's orientation statistics (Fisher mean,
+ * kappa and alpha95, the orientation tensor, Woodcock's K and C) as a
+ * table. */
 #ifndef CORAX_JOB_STEREONET_H
 #define CORAX_JOB_STEREONET_H
 

@@ -143,16 +143,24 @@ static every set_every(const plan *p, const corax_net_style *s, const corax_net_
     return e;
 }
 
-static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 **v, double **w,
-                           size_t *count, int *of_lines);
+/* The readings a net contours: in the sets' own arrays, or in copies of
+ * them (own_v and own_w, freed after). */
+typedef struct gathered {
+    const corax_vec3 *v;
+    const double *w; /* NULL: unweighted */
+    corax_vec3 *own_v;
+    double *own_w;
+} gathered;
+
+static corax_status gather(const corax_net_set *sets, size_t nsets, gathered *g, size_t *count,
+                           int *of_lines);
 
 /* The density of the net's readings on the grid, in multiples of sigma, and
  * the contour levels it reaches. */
 static corax_status plan_density(plan *p, const corax_net_style *s)
 {
-    corax_vec3 *v = NULL;
-    double *w = NULL;
-    corax_status st = gather(p->sets, p->nsets, &v, &w, &p->count, &p->of_lines);
+    gathered g = {0};
+    corax_status st = gather(p->sets, p->nsets, &g, &p->count, &p->of_lines);
     if (st != CORAX_OK || !s->contours || p->count < CORAX_FISHER_MIN_READINGS)
         goto done;
     corax_density d;
@@ -163,7 +171,7 @@ static corax_status plan_density(plan *p, const corax_net_style *s)
         st = CORAX_ENOMEM;
         goto done;
     }
-    if ((st = corax_density_grid(&d, v, w, s->grid, p->grid)) != CORAX_OK)
+    if ((st = corax_density_grid(&d, g.v, g.w, s->grid, p->grid)) != CORAX_OK)
         goto done;
     double top = 0.0;
     for (size_t k = 0; k < cells; k++) {
@@ -177,8 +185,8 @@ static corax_status plan_density(plan *p, const corax_net_style *s)
         p->levels = (size_t)floor(top / p->step);
     }
 done:
-    free(v);
-    free(w);
+    free(g.own_v);
+    free(g.own_w);
     return st;
 }
 
@@ -471,10 +479,37 @@ static void draw_set(const net *n, const plan *p, const corax_net_set *set, size
     }
 }
 
+/* The readings of the sets as they lie, when each set's follow the last's in
+ * memory, their weights too (as a caller that keeps every set in one array
+ * gives them): 1 with g->v and g->w set, else 0. */
+static int adjacent(const corax_net_set *sets, size_t nsets, int of_lines, int weighted,
+                    gathered *g)
+{
+    const corax_vec3 *next = NULL;
+    const double *next_w = NULL;
+    for (size_t i = 0; i < nsets; i++) {
+        size_t m = of_lines ? sets[i].nlines : sets[i].npoles;
+        const corax_vec3 *v = of_lines ? sets[i].lines : sets[i].poles;
+        const double *w = weighted ? sets[i].pole_weight : NULL;
+        if (m == 0) /* an empty set may hold NULL, or anything */
+            continue;
+        if ((weighted && !w) || (next && (v != next || w != next_w)))
+            return 0;
+        if (!next) {
+            g->v = v;
+            g->w = w;
+        }
+        next = v + m;
+        next_w = w ? w + m : NULL;
+    }
+    return 1;
+}
+
 /* Gather the readings to contour: the poles of every set on the net, or
- * their lines when there are no poles. */
-static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 **v, double **w,
-                           size_t *count, int *of_lines)
+ * their lines when there are no poles; copied only when they do not lie one
+ * after another already. */
+static corax_status gather(const corax_net_set *sets, size_t nsets, gathered *g, size_t *count,
+                           int *of_lines)
 {
     size_t poles = 0, lines = 0;
     int weighted = 0;
@@ -485,17 +520,21 @@ static corax_status gather(const corax_net_set *sets, size_t nsets, corax_vec3 *
     }
     *of_lines = poles == 0;
     *count = poles ? poles : lines;
-    *v = malloc((*count ? *count : 1) * sizeof **v);
-    *w = weighted && poles ? malloc(*count * sizeof **w) : NULL;
-    if (!*v || (weighted && poles && !*w))
+    weighted = weighted && poles;
+    if (adjacent(sets, nsets, *of_lines, weighted, g))
+        return CORAX_OK;
+    g->v = g->own_v = malloc(*count * sizeof *g->own_v);
+    g->w = g->own_w = weighted ? malloc(*count * sizeof *g->own_w) : NULL;
+    if (!g->own_v || (weighted && !g->own_w))
         return CORAX_ENOMEM;
     size_t k = 0;
     for (size_t i = 0; i < nsets; i++) {
         size_t m = *of_lines ? sets[i].nlines : sets[i].npoles;
         if (m) /* an empty set may hold NULL */
-            memcpy(*v + k, *of_lines ? sets[i].lines : sets[i].poles, m * sizeof **v);
-        for (size_t j = 0; *w && j < m; j++)
-            (*w)[k + j] = sets[i].pole_weight ? sets[i].pole_weight[j] : 1.0;
+            memcpy(g->own_v + k, *of_lines ? sets[i].lines : sets[i].poles,
+                   m * sizeof *g->own_v);
+        for (size_t j = 0; g->own_w && j < m; j++)
+            g->own_w[k + j] = sets[i].pole_weight ? sets[i].pole_weight[j] : 1.0;
         k += m;
     }
     return CORAX_OK;

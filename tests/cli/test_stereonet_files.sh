@@ -45,6 +45,14 @@ grep -q 'smoothed Kamb (Vollmer 1995), interval [0-9]* σ' "$T/angle.svg" || fai
 awk -F, 'NR == 1 || $6 == "vein"' "$T/structures.csv" > "$T/veins.csv"
 "$CORAX" stereonet "$T/veins.csv" -o "$T/v.svg" --stats "$T/v.csv" -q
 cmp -s "$T/w.csv" "$T/v.csv" || fail "--where differs from a filtered table"
+# each group of a grouped run (its readings met among the others' and kept in
+# one array with them) has the statistics of the table filtered to it
+for k in bedding fault foliation joint lineation vein; do
+    "$CORAX" stereonet "$T/structures.csv" --where kind=$k --group-by kind -o "$T/k.svg" \
+        --stats "$T/k.csv" -q
+    tail -n +2 "$T/k.csv" > "$T/k_rows.csv"
+    grep "^$k," "$T/kind.csv" | cmp -s - "$T/k_rows.csv" || fail "group $k differs from --where"
+done
 # several inputs are read as one table
 head -n 1501 "$T/structures.csv" > "$T/part1.csv"
 { head -n 1 "$T/structures.csv"; tail -n +1502 "$T/structures.csv"; } > "$T/part2.csv"
