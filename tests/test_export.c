@@ -224,7 +224,7 @@ static void test_vtk_spooled_same_as_array(void **state)
     enum { N = 30000 }; /* more than the spool's buffer holds */
     corax_export_structure *s = random_structures(N, 16);
     const char *a = test_tmp_path("array.vtk"), *b = test_tmp_path("spooled.vtk");
-    corax_spool *sp = corax_spool_new(sizeof *s, b);
+    corax_spool *sp = corax_spool_new(sizeof *s, b, NULL);
     assert_non_null(sp);
     for (size_t i = 0; i < N; i++)
         assert_int_equal(corax_spool_add(sp, &s[i], NULL), CORAX_OK);

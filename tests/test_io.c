@@ -749,7 +749,7 @@ static void test_spool_round_trip(void **state)
     setenv("TMPDIR", nowhere, 1); /* only the output's folder can take the file */
     size_t sizes[] = {0, 1, 7, 100000};
     for (size_t k = 0; k < sizeof sizes / sizeof sizes[0]; k++) {
-        corax_spool *s = corax_spool_new(sizeof(spooled), beside);
+        corax_spool *s = corax_spool_new(sizeof(spooled), beside, NULL);
         assert_non_null(s);
         assert_int_equal(spool_fill(s, sizes[k], NULL), CORAX_OK);
         assert_int_equal(corax_spool_count(s), sizes[k]);
@@ -762,20 +762,23 @@ static void test_spool_round_trip(void **state)
     }
     /* the output's folder is missing: the file goes to TMPDIR */
     setenv("TMPDIR", dir, 1);
-    corax_spool *s = corax_spool_new(sizeof(spooled), nowhere);
+    corax_spool *s = corax_spool_new(sizeof(spooled), nowhere, NULL);
     assert_int_equal(spool_fill(s, 50000, NULL), CORAX_OK);
     spool_reads_back(s, 50000);
     corax_spool_free(s);
     assert_true(folder_is_empty(dir));
     /* neither: adding fails once the buffer is full, and says why */
     setenv("TMPDIR", nowhere, 1);
-    s = corax_spool_new(sizeof(spooled), "-");
+    s = corax_spool_new(sizeof(spooled), "-", "spooled records");
     corax_error err;
     assert_int_equal(spool_fill(s, 50000, &err), CORAX_EIO);
-    assert_non_null(strstr(err.message, "temporary file"));
+    char want[700];
+    snprintf(want, sizeof want, "cannot make a temporary file in %s for spooled records: ",
+             nowhere);
+    assert_non_null(strstr(err.message, want));
     assert_int_equal(corax_spool_status(s, NULL), CORAX_EIO);
     corax_spool_free(s);
-    assert_null(corax_spool_new(0, NULL));
+    assert_null(corax_spool_new(0, NULL, NULL));
     if (saved)
         setenv("TMPDIR", saved, 1);
     else

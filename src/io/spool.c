@@ -23,15 +23,14 @@ struct corax_spool {
     int fd;           /* the file; -1 while every record is in buf */
     int reading;
     char *beside;     /* the output whose folder takes the file, or NULL */
+    const char *what; /* what the records are, for messages */
+    char where[256];  /* the folder of the file (or of the last try) */
     corax_status st;  /* the first failure, and what it was */
     corax_error err;
 };
 
 int corax_temp_file(const char *folder)
 {
-    const char *tmp = getenv("TMPDIR");
-    if (!folder)
-        folder = tmp && *tmp ? tmp : "/tmp";
     size_t n = strlen(folder) + 32;
     char *path = malloc(n);
     if (!path) {
@@ -46,7 +45,7 @@ int corax_temp_file(const char *folder)
     return fd;
 }
 
-corax_spool *corax_spool_new(size_t size, const char *beside)
+corax_spool *corax_spool_new(size_t size, const char *beside, const char *what)
 {
     if (size == 0 || size > SPOOL_MAX_RECORD)
         return NULL;
@@ -56,6 +55,7 @@ corax_spool *corax_spool_new(size_t size, const char *beside)
     s->size = size;
     s->cap = SPOOL_BUFFER / size ? SPOOL_BUFFER / size : 1;
     s->fd = -1;
+    s->what = what ? what : "records";
     s->buf = malloc(s->cap * size);
     if (beside && corax_path_replaceable(beside) && !(s->beside = strdup(beside))) {
         free(s->buf);
@@ -80,13 +80,25 @@ void corax_spool_free(corax_spool *s)
     free(s);
 }
 
-/* Keep the first failure. */
-static void fail(corax_spool *s, corax_status st, const char *what, int e)
+/* Keep the first failure: what could not be done to the file, and why. */
+static void fail(corax_spool *s, const char *verb, int e)
 {
     if (s->st != CORAX_OK)
         return;
-    s->st = st;
-    corax_error_set(&s->err, st, NULL, 0, "%s: %s", what, strerror(e));
+    s->st = CORAX_EIO;
+    corax_error_set(&s->err, CORAX_EIO, NULL, 0, "cannot %s a temporary file in %s for %s: %s",
+                    verb, s->where, s->what, strerror(e));
+}
+
+/* Try to make the file in a folder. */
+static void make_in(corax_spool *s, const char *folder)
+{
+    if (!folder) {
+        const char *tmp = getenv("TMPDIR");
+        folder = tmp && *tmp ? tmp : "/tmp";
+    }
+    snprintf(s->where, sizeof s->where, "%s", folder);
+    s->fd = corax_temp_file(folder);
 }
 
 /* The file, made in the output's folder, or else in the temporary folder. */
@@ -94,18 +106,18 @@ static int make_file(corax_spool *s)
 {
     char *slash = s->beside ? strrchr(s->beside, '/') : NULL;
     if (s->beside && !slash) {
-        s->fd = corax_temp_file(".");
+        make_in(s, ".");
     } else if (slash == s->beside && slash) {
-        s->fd = corax_temp_file("/");
+        make_in(s, "/");
     } else if (slash) {
         *slash = '\0'; /* the folder alone, for a moment */
-        s->fd = corax_temp_file(s->beside);
+        make_in(s, s->beside);
         *slash = '/';
     }
     if (s->fd < 0)
-        s->fd = corax_temp_file(NULL);
+        make_in(s, NULL);
     if (s->fd < 0)
-        fail(s, CORAX_EIO, "cannot make a temporary file to keep the records in", errno);
+        fail(s, "make", errno);
     return s->fd >= 0;
 }
 
@@ -117,7 +129,7 @@ static void write_out(corax_spool *s)
     while (n && s->st == CORAX_OK) {
         ssize_t k = CORAX_FAILS() ? -1 : write(s->fd, p, n);
         if (k < 0 && errno != EINTR)
-            fail(s, CORAX_EIO, "cannot write the temporary file of the records", errno);
+            fail(s, "write", errno);
         if (k > 0) {
             p += k;
             n -= (size_t)k;
@@ -163,9 +175,9 @@ static void read_in(corax_spool *s)
     while (got < want && s->st == CORAX_OK) {
         ssize_t k = pread(s->fd, s->buf + got, want - got, at + (off_t)got);
         if (k < 0 && errno != EINTR)
-            fail(s, CORAX_EIO, "cannot read the temporary file of the records", errno);
+            fail(s, "read back", errno);
         else if (k == 0)
-            fail(s, CORAX_EIO, "cannot read the temporary file of the records", EIO);
+            fail(s, "read back", EIO); /* shorter than written */
         else if (k > 0)
             got += (size_t)k;
     }

@@ -13,12 +13,13 @@
 
 typedef struct corax_spool corax_spool;
 
-/* A spool of records of `size` bytes (1 to 64 KiB). Its file, if it needs
- * one, goes in the folder of `beside` when that names a file corax writes
- * whole (an output; the disk that takes the output can take its records),
- * else, or when that folder refuses it, in TMPDIR (or /tmp). NULL when out
- * of memory or for a size out of range. */
-corax_spool *corax_spool_new(size_t size, const char *beside);
+/* A spool of records of `size` bytes (1 to 64 KiB), `what` (for messages,
+ * e.g. "the structures of the VTK file"; NULL: "records"; kept, not
+ * copied). Its file, if it needs one, goes in the folder of `beside` when
+ * that names a file corax writes whole (an output: the disk that takes the
+ * output can take its records), else, or when that folder refuses it, in
+ * TMPDIR (or /tmp). NULL when out of memory or for a size out of range. */
+corax_spool *corax_spool_new(size_t size, const char *beside, const char *what);
 
 /* Free it and close its file; NULL allowed. */
 void corax_spool_free(corax_spool *s);
@@ -42,8 +43,7 @@ const void *corax_spool_next(corax_spool *s);
 corax_status corax_spool_status(const corax_spool *s, corax_error *err);
 
 /* A temporary file open for reading and writing, already unlinked, in
- * `folder` (NULL: TMPDIR, or /tmp); -1 with errno set when it cannot be
- * made. */
+ * `folder`; -1 with errno set when it cannot be made. */
 int corax_temp_file(const char *folder);
 
 #endif

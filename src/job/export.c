@@ -172,8 +172,9 @@ static void about_export(corax_record *a, const export_opts *o, const corax_prog
 static int export_vtk(const export_opts *o, const corax_program *prog, corax_kinds *kinds,
                       size_t *written, size_t *left_out)
 {
-    located v = {o->job, corax_spool_new(sizeof(corax_export_structure), o->output), prog,
-                 kinds, 0};
+    corax_spool *spool = corax_spool_new(sizeof(corax_export_structure), o->output,
+                                         "the structures of the VTK file");
+    located v = {o->job, spool, prog, kinds, 0};
     if (!v.spool) {
         job_error(o->job, NULL, 0, "out of memory");
         return JOB_FAILED;
