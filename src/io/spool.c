@@ -1,6 +1,7 @@
 /* io: records spooled through a buffer and, when many, an unnamed
  * temporary file, to be read back in order as often as needed. */
 #include <errno.h>
+#include <fcntl.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -39,8 +40,10 @@ int corax_temp_file(const char *folder)
     }
     snprintf(path, n, "%s/.corax-spool-XXXXXX", folder);
     int fd = CORAX_MAY_WRITE(path) != 0 || CORAX_FAILS() ? -1 : mkstemp(path);
-    if (fd >= 0)
+    if (fd >= 0) {
         unlink(path); /* gone when closed, however the run ends */
+        fcntl(fd, F_SETFD, FD_CLOEXEC);
+    }
     free(path);
     return fd;
 }
@@ -130,7 +133,9 @@ static void write_out(corax_spool *s)
         ssize_t k = CORAX_FAILS() ? -1 : write(s->fd, p, n);
         if (k < 0 && errno != EINTR)
             fail(s, "write", errno);
-        if (k > 0) {
+        else if (k == 0)
+            fail(s, "write", EIO); /* nothing taken: as good as refused */
+        else if (k > 0) {
             p += k;
             n -= (size_t)k;
         }
