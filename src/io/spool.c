@@ -30,6 +30,12 @@ struct corax_spool {
     corax_error err;
 };
 
+const char *corax_temp_folder(void)
+{
+    const char *tmp = getenv("TMPDIR");
+    return tmp && *tmp ? tmp : "/tmp";
+}
+
 int corax_temp_file(const char *folder)
 {
     size_t n = strlen(folder) + 32;
@@ -96,10 +102,6 @@ static void fail(corax_spool *s, const char *verb, int e)
 /* Try to make the file in a folder. */
 static void make_in(corax_spool *s, const char *folder)
 {
-    if (!folder) {
-        const char *tmp = getenv("TMPDIR");
-        folder = tmp && *tmp ? tmp : "/tmp";
-    }
     snprintf(s->where, sizeof s->where, "%s", folder);
     s->fd = corax_temp_file(folder);
 }
@@ -118,7 +120,7 @@ static int make_file(corax_spool *s)
         *slash = '/';
     }
     if (s->fd < 0)
-        make_in(s, NULL);
+        make_in(s, corax_temp_folder());
     if (s->fd < 0)
         fail(s, "make", errno);
     return s->fd >= 0;

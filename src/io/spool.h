@@ -42,8 +42,12 @@ const void *corax_spool_next(corax_spool *s);
 /* CORAX_OK, or the first failure of adding or reading, with err filled. */
 corax_status corax_spool_status(const corax_spool *s, corax_error *err);
 
-/* A temporary file open for reading and writing, already unlinked, in
- * `folder`; -1 with errno set when it cannot be made. */
+/* The folder for temporary files: TMPDIR, or /tmp. */
+const char *corax_temp_folder(void);
+
+/* A temporary file open for reading and writing, already unlinked (gone
+ * when closed, however the run ends), in `folder`; -1 with errno set when
+ * it cannot be made. */
 int corax_temp_file(const char *folder);
 
 #endif
