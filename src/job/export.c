@@ -191,8 +191,8 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
         corax_export_counts counts;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st =
-            corax_export_vtk_spooled(o->job->outputs, o->output, prog, v.spool, &opt, &counts, &err);
+        corax_status st = corax_export_vtk_spooled(o->job->outputs, o->output, prog, v.spool,
+                                                   &opt, &counts, &err);
         if (st != CORAX_OK) {
             job_error_record(o->job, &err, st);
             rc = JOB_FAILED;
