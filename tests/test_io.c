@@ -1,5 +1,6 @@
 /* Tests of the io module: numbers, CSV reading and writing, column names,
  * whole-or-nothing output files, and loading a drill program. */
+#include <dirent.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -11,6 +12,7 @@
 #include "corax/load.h"
 #include "corax/output.h"
 #include "corax/table.h"
+#include "io/spool.h"
 #include "support/check.h"
 
 static corax_number_status parse(const char *s, char decimal, double *v)
@@ -675,6 +677,116 @@ static void test_table_in_memory(void **state)
     unlink(path);
 }
 
+/* A record of the spool tests: its number and values made from it. */
+typedef struct spooled {
+    size_t i;
+    double v[4];
+    char tag[12];
+} spooled;
+
+static spooled spooled_record(size_t i)
+{
+    spooled r;
+    memset(&r, 0, sizeof r);
+    r.i = i;
+    for (int k = 0; k < 4; k++)
+        r.v[k] = (double)i * 0.001 + k;
+    snprintf(r.tag, sizeof r.tag, "r%zu", i);
+    return r;
+}
+
+/* n records into a spool beside `beside`; the status of the adding. */
+static corax_status spool_fill(corax_spool *s, size_t n, corax_error *err)
+{
+    for (size_t i = 0; i < n; i++) {
+        spooled r = spooled_record(i);
+        corax_status st = corax_spool_add(s, &r, err);
+        if (st != CORAX_OK)
+            return st;
+    }
+    return CORAX_OK;
+}
+
+/* Every record read back in order, three times over. */
+static void spool_reads_back(corax_spool *s, size_t n)
+{
+    for (int pass = 0; pass < 3; pass++) {
+        corax_spool_rewind(s);
+        size_t i = 0;
+        for (const spooled *r; (r = corax_spool_next(s)); i++) {
+            spooled want = spooled_record(i);
+            assert_memory_equal(r, &want, sizeof want);
+        }
+        assert_int_equal(i, n);
+        assert_int_equal(corax_spool_status(s, NULL), CORAX_OK);
+    }
+}
+
+static int folder_is_empty(const char *path)
+{
+    DIR *d = opendir(path);
+    assert_non_null(d);
+    int empty = 1;
+    for (struct dirent *e; (e = readdir(d));)
+        empty &= strcmp(e->d_name, ".") == 0 || strcmp(e->d_name, "..") == 0;
+    closedir(d);
+    return empty;
+}
+
+/* A spool gives back what it took, in order, as often as asked: few records
+ * in its buffer, many through a file beside the output (and left nowhere),
+ * or in TMPDIR when the output's folder cannot take it; neither: an error. */
+static void test_spool_round_trip(void **state)
+{
+    (void)state;
+    const char *dir = test_tmp_path("spool");
+    mkdir(dir, 0777);
+    char beside[600], nowhere[600];
+    snprintf(beside, sizeof beside, "%s/out.vtk", dir);
+    snprintf(nowhere, sizeof nowhere, "%s/no-such-folder/out.vtk", dir);
+    const char *old = getenv("TMPDIR");
+    char *saved = old ? strdup(old) : NULL;
+    setenv("TMPDIR", nowhere, 1); /* only the output's folder can take the file */
+    size_t sizes[] = {0, 1, 7, 100000};
+    for (size_t k = 0; k < sizeof sizes / sizeof sizes[0]; k++) {
+        corax_spool *s = corax_spool_new(sizeof(spooled), beside, NULL);
+        assert_non_null(s);
+        assert_int_equal(spool_fill(s, sizes[k], NULL), CORAX_OK);
+        assert_int_equal(corax_spool_count(s), sizes[k]);
+        spool_reads_back(s, sizes[k]);
+        spooled r = spooled_record(0);
+        corax_error err;
+        assert_int_equal(corax_spool_add(s, &r, &err), CORAX_EARG);
+        corax_spool_free(s);
+        assert_true(folder_is_empty(dir));
+    }
+    /* the output's folder is missing: the file goes to TMPDIR */
+    setenv("TMPDIR", dir, 1);
+    corax_spool *s = corax_spool_new(sizeof(spooled), nowhere, NULL);
+    assert_int_equal(spool_fill(s, 50000, NULL), CORAX_OK);
+    spool_reads_back(s, 50000);
+    corax_spool_free(s);
+    assert_true(folder_is_empty(dir));
+    /* neither: adding fails once the buffer is full, and says why */
+    setenv("TMPDIR", nowhere, 1);
+    s = corax_spool_new(sizeof(spooled), "-", "spooled records");
+    corax_error err;
+    assert_int_equal(spool_fill(s, 50000, &err), CORAX_EIO);
+    char want[700];
+    snprintf(want, sizeof want, "cannot make a temporary file in %s for spooled records: ",
+             nowhere);
+    assert_non_null(strstr(err.message, want));
+    assert_int_equal(corax_spool_status(s, NULL), CORAX_EIO);
+    corax_spool_free(s);
+    assert_null(corax_spool_new(0, NULL, NULL));
+    if (saved)
+        setenv("TMPDIR", saved, 1);
+    else
+        unsetenv("TMPDIR");
+    free(saved);
+    rmdir(dir);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -695,6 +807,7 @@ int main(void)
         cmocka_unit_test(test_column_names_and_mapping),
         cmocka_unit_test(test_load_program_reports_row_faults),
         cmocka_unit_test(test_table_in_memory),
+        cmocka_unit_test(test_spool_round_trip),
     };
     return cmocka_run_group_tests_name("io", tests, NULL, NULL);
 }

@@ -169,8 +169,8 @@ typedef struct corax_export_options {
  * can read and compare, up to CORAX_EXPORT_ASCII_MAX structures; binary
  * above, where text is only larger and slower to write and read. A structure
  * takes, with its share of 2,000 traces sampled every 5 m (make bench): a
- * disc of 24 corners 1,340 bytes in ASCII and 905 in binary (written twice
- * as fast), a point with its normal 131 and 107 bytes. */
+ * disc of 24 corners 1,337 bytes in ASCII and 903 in binary (written four
+ * times as fast), a point with its normal 128 and 104 bytes. */
 enum { CORAX_EXPORT_ASCII_MAX = 100000 };
 
 /* The encoding an export of n structures is written in. */

@@ -7,7 +7,9 @@
 #include <string.h>
 
 #include "corax/export.h"
+#include "export/export_int.h"
 #include "io/fields.h"
+#include "io/spool.h"
 
 const char *const corax_export_csv_columns[9] = {
     "x", "y", "z", "dip", "dip_direction", "nx", "ny", "nz", "polarity"};
@@ -226,30 +228,95 @@ static size_t corners(const corax_export_options *o)
     return o->shape == CORAX_EXPORT_DISCS ? (size_t)o->disc_sides : 1;
 }
 
-void corax_export_disc(corax_plane plane, corax_vec3 centre, double radius, int sides,
-                       corax_vec3 *out)
+/* A disc's corners about the origin, along a (strike) and b (down dip):
+ * radius cos t and radius sin t of each corner's angle t. */
+typedef struct disc_ring {
+    double ca[360], sb[360];
+    int sides;
+} disc_ring;
+
+static void ring_make(disc_ring *r, double radius, int sides)
+{
+    r->sides = sides;
+    for (int j = 0; j < sides; j++) {
+        double t = 2.0 * CORAX_PI * (double)j / (double)sides;
+        r->ca[j] = radius * cos(t);
+        r->sb[j] = radius * sin(t);
+    }
+}
+
+static void ring_place(const disc_ring *r, corax_plane plane, corax_vec3 centre, corax_vec3 *out)
 {
     corax_vec3 a, b; /* along strike and down dip: the disc's own axes */
     corax_plane_axes(plane, &a, &b);
-    for (int j = 0; j < sides; j++) {
-        double t = 2.0 * CORAX_PI * (double)j / (double)sides;
-        double ca = radius * cos(t), sb = radius * sin(t);
+    for (int j = 0; j < r->sides; j++) {
+        double ca = r->ca[j], sb = r->sb[j];
         out[j] = (corax_vec3){centre.x + ca * a.x + sb * b.x, centre.y + ca * a.y + sb * b.y,
                               centre.z + ca * a.z + sb * b.z};
     }
 }
 
-static void structure_points(corax_vtk *v, const corax_export_structure *s, size_t n,
-                             const corax_export_options *o)
+void corax_export_disc(corax_plane plane, corax_vec3 centre, double radius, int sides,
+                       corax_vec3 *out)
+{
+    disc_ring r;
+    ring_make(&r, radius, sides);
+    ring_place(&r, plane, centre, out);
+}
+
+/* The structures, gone over once per block of the file: an array, or a
+ * spool of them (memory does not grow with their number). */
+typedef struct structure_set {
+    const corax_export_structure *array; /* or NULL, with spool */
+    corax_spool *spool;
+    size_t n, i;
+    size_t lines;  /* structures with a lineation */
+    int spread;    /* some structure has a Monte Carlo column */
+} structure_set;
+
+static const corax_export_structure *next(structure_set *s)
+{
+    if (s->spool)
+        return corax_spool_next(s->spool);
+    return s->i < s->n ? &s->array[s->i++] : NULL;
+}
+
+/* The first structure, to go over them again. */
+static const corax_export_structure *first(structure_set *s)
+{
+    s->i = 0;
+    if (s->spool)
+        corax_spool_rewind(s->spool);
+    return next(s);
+}
+
+#define EACH(p, s) for (const corax_export_structure *p = first(s); p; p = next(s))
+
+/* What the header of a block needs to know before its values. */
+static void survey(structure_set *s)
+{
+    s->lines = 0;
+    s->spread = 0;
+    EACH(p, s) {
+        s->lines += p->has_line != 0;
+        for (int k = 0; k < CORAX_EXPORT_SPREAD; k++)
+            s->spread |= isfinite(p->spread[k]);
+    }
+}
+
+static void structure_points(corax_vtk *v, structure_set *s, const corax_export_options *o)
 {
     size_t k = corners(o);
+    disc_ring ring;
     corax_vec3 disc[360];
-    for (size_t i = 0; i < n; i++) {
+    if (k > 1)
+        ring_make(&ring, o->disc_radius, (int)k);
+    EACH(p, s) {
         if (k == 1) {
-            corax_vtk_point(v, s[i].position);
+            corax_vtk_point(v, p->position);
             continue;
         }
-        corax_export_disc(s[i].plane, s[i].position, o->disc_radius, (int)k, disc);
+        ring_place(&ring, p->plane, p->position, disc);
         for (size_t j = 0; j < k; j++)
             corax_vtk_point(v, disc[j]);
     }
@@ -257,24 +324,22 @@ static void structure_points(corax_vtk *v, const corax_export_structure *s, size
 
 /* The structures' cells: a vertex or a disc each, their points numbered
  * after the traces' points. */
-static void structure_cells(corax_vtk *v, size_t n, size_t first, const corax_export_options *o)
+static void structure_cells(corax_vtk *v, size_t n, size_t first_point,
+                            const corax_export_options *o)
 {
     size_t k = corners(o);
     corax_vtk_cells(v, k == 1 ? "VERTICES" : "POLYGONS", n, n * k);
     for (size_t i = 0; i < n; i++) {
         corax_vtk_cell(v, k);
         for (size_t j = 0; j < k; j++)
-            corax_vtk_index(v, first + i * k + j);
+            corax_vtk_index(v, first_point + i * k + j);
     }
 }
 
 /* Structures drawn with an arrow along their lineation. */
-static size_t arrow_count(const corax_export_structure *s, size_t n, const corax_export_options *o)
+static size_t arrow_count(const structure_set *s, const corax_export_options *o)
 {
-    size_t k = 0;
-    for (size_t i = 0; o->arrow > 0.0 && i < n; i++)
-        k += s[i].has_line != 0;
-    return k;
+    return o->arrow > 0.0 ? s->lines : 0;
 }
 
 static int has_arrow(const corax_export_structure *s, const corax_export_options *o)
@@ -289,13 +354,14 @@ static corax_vec3 line_of(const corax_export_structure *s)
     return (corax_vec3){s->line[0], s->line[1], s->line[2]};
 }
 
-static void arrow_points(corax_vtk *v, const corax_export_structure *s, size_t n,
-                         const corax_export_options *o)
+static void arrow_points(corax_vtk *v, structure_set *s, const corax_export_options *o)
 {
-    for (size_t i = 0; i < n; i++) {
-        if (!has_arrow(&s[i], o))
+    if (!arrow_count(s, o))
+        return;
+    EACH(q, s) {
+        if (!has_arrow(q, o))
             continue;
-        corax_vec3 l = line_of(&s[i]), p = s[i].position;
+        corax_vec3 l = line_of(q), p = q->position;
         corax_vtk_point(v, p);
         corax_vtk_point(v, (corax_vec3){p.x + o->arrow * l.x, p.y + o->arrow * l.y,
                                         p.z + o->arrow * l.z});
@@ -306,14 +372,14 @@ static void arrow_points(corax_vtk *v, const corax_export_structure *s, size_t n
  * from `first_arrow`). */
 static void line_cells(corax_vtk *v, const traces *t, size_t narrows, size_t first_arrow)
 {
-    size_t nh = t->program ? corax_program_size(t->program) : 0, next = 0;
+    size_t nh = t->program ? corax_program_size(t->program) : 0, next_point = 0;
     corax_vtk_cells(v, "LINES", t->holes + narrows, t->points + 2 * narrows);
     for (size_t i = 0; i < nh; i++) {
         if (!t->count[i])
             continue;
         corax_vtk_cell(v, t->count[i]);
         for (size_t k = 0; k < t->count[i]; k++)
-            corax_vtk_index(v, next++);
+            corax_vtk_index(v, next_point++);
     }
     for (size_t i = 0; i < narrows; i++) {
         corax_vtk_cell(v, 2);
@@ -366,72 +432,72 @@ static double value_cone95(const corax_export_structure *s) { return spread_valu
 static double value_kappa(const corax_export_structure *s) { return spread_value(s, 3); }
 static double value_position_sd(const corax_export_structure *s) { return spread_value(s, 4); }
 
+/* One structure's value of a cell-data array (fn NULL: its lineation). */
+static void cell_value(corax_vtk *v, const corax_export_structure *s, cell_value_fn fn)
+{
+    if (fn)
+        corax_vtk_double(v, fn(s));
+    else
+        corax_vtk_vector(v, line_of(s));
+}
+
 /* Cell data in cell order: vertices, lines (traces, then arrows), polygons.
  * A trace cell's value is fn(NULL), except for the hole array, where it is
  * the trace's hole; an arrow carries its structure's values. With fn NULL,
  * the lineation vector instead (zero for a trace and a structure without). */
-static void cell_values(corax_vtk *v, const traces *t, const corax_export_structure *s,
-                        size_t n, const corax_export_options *o, cell_value_fn fn)
+static void cell_values(corax_vtk *v, const traces *t, structure_set *s,
+                        const corax_export_options *o, cell_value_fn fn)
 {
     int points = o->shape == CORAX_EXPORT_POINTS;
     size_t nh = t->program ? corax_program_size(t->program) : 0;
-    for (size_t i = 0; points && i < n; i++)
-        fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
+    if (points)
+        EACH(p, s)
+            cell_value(v, p, fn);
     for (size_t i = 0; i < nh; i++)
         if (t->count[i]) {
             if (!fn)
-                corax_vtk_vector(v, line_of(&(corax_export_structure){.has_line = 0}));
+                corax_vtk_vector(v, (corax_vec3){0.0, 0.0, 0.0});
             else
                 corax_vtk_double(v, fn == value_hole ? (double)i + 1.0 : fn(NULL));
         }
-    for (size_t i = 0; i < n; i++)
-        if (has_arrow(&s[i], o))
-            fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
-    for (size_t i = 0; !points && i < n; i++)
-        fn ? corax_vtk_double(v, fn(&s[i])) : corax_vtk_vector(v, line_of(&s[i]));
+    if (arrow_count(s, o))
+        EACH(p, s)
+            if (has_arrow(p, o))
+                cell_value(v, p, fn);
+    if (!points)
+        EACH(p, s)
+            cell_value(v, p, fn);
 }
 
-static int any_spread(const corax_export_structure *s, size_t n)
+static double depth_of(const corax_export_structure *s)
 {
-    for (size_t i = 0; i < n; i++)
-        for (int k = 0; k < CORAX_EXPORT_SPREAD; k++)
-            if (isfinite(s[i].spread[k]))
-                return 1;
-    return 0;
-}
-
-static int any_line(const corax_export_structure *s, size_t n)
-{
-    for (size_t i = 0; i < n; i++)
-        if (s[i].has_line)
-            return 1;
-    return 0;
+    return isnan(s->depth) ? -1.0 : s->depth;
 }
 
 /* Point data of the structures' points and then the arrows' points. */
-static void structure_depths(corax_vtk *v, const corax_export_structure *s, size_t n,
-                             const corax_export_options *o)
+static void structure_depths(corax_vtk *v, structure_set *s, const corax_export_options *o)
 {
     size_t k = corners(o);
-    for (size_t i = 0; i < n; i++)
+    EACH(p, s)
         for (size_t j = 0; j < k; j++)
-            corax_vtk_double(v, isnan(s[i].depth) ? -1.0 : s[i].depth);
-    for (size_t i = 0; i < n; i++)
-        for (int j = 0; has_arrow(&s[i], o) && j < 2; j++)
-            corax_vtk_double(v, isnan(s[i].depth) ? -1.0 : s[i].depth);
+            corax_vtk_double(v, depth_of(p));
+    if (arrow_count(s, o))
+        EACH(p, s)
+            for (int j = 0; has_arrow(p, o) && j < 2; j++)
+                corax_vtk_double(v, depth_of(p));
 }
 
-static void structure_normals(corax_vtk *v, const corax_export_structure *s, size_t n,
-                              const corax_export_options *o)
+static void structure_normals(corax_vtk *v, structure_set *s, const corax_export_options *o)
 {
-    for (size_t i = 0; i < n; i++)
-        corax_vtk_vector(v, corax_plane_normal(s[i].plane));
-    for (size_t i = 0; i < n; i++)
-        for (int j = 0; has_arrow(&s[i], o) && j < 2; j++)
-            corax_vtk_vector(v, corax_plane_normal(s[i].plane));
+    EACH(p, s)
+        corax_vtk_vector(v, corax_plane_normal(p->plane));
+    if (arrow_count(s, o))
+        EACH(p, s)
+            for (int j = 0; has_arrow(p, o) && j < 2; j++)
+                corax_vtk_vector(v, corax_plane_normal(p->plane));
 }
 
-static void attributes(corax_vtk *v, const traces *t, const corax_export_structure *s, size_t n,
+static void attributes(corax_vtk *v, const traces *t, structure_set *s,
                        const corax_export_options *o)
 {
     static const struct {
@@ -445,37 +511,37 @@ static void attributes(corax_vtk *v, const traces *t, const corax_export_structu
       lines[] = {{"trend", value_trend, CORAX_VTK_DOUBLE}, {"plunge", value_plunge, CORAX_VTK_DOUBLE}};
     static const cell_value_fn spread[CORAX_EXPORT_SPREAD] = {
         value_dip_sd, value_dd_sd, value_cone95, value_kappa, value_position_sd};
-    int with_lines = any_line(s, n), with_spread = any_spread(s, n);
-    corax_vtk_field(v, "attributes", 4 + (with_lines ? 3 : 0) + (with_spread ? 5 : 0));
+    int with_lines = s->lines > 0;
+    corax_vtk_field(v, "attributes", 4 + (with_lines ? 3 : 0) + (s->spread ? 5 : 0));
     for (int i = 0; i < 4; i++) {
         corax_vtk_array(v, base[i].name, 1, base[i].type);
-        cell_values(v, t, s, n, o, base[i].fn);
+        cell_values(v, t, s, o, base[i].fn);
     }
     if (with_lines) {
         corax_vtk_array(v, "lineation", 3, CORAX_VTK_DOUBLE);
-        cell_values(v, t, s, n, o, NULL);
+        cell_values(v, t, s, o, NULL);
         for (int i = 0; i < 2; i++) {
             corax_vtk_array(v, lines[i].name, 1, lines[i].type);
-            cell_values(v, t, s, n, o, lines[i].fn);
+            cell_values(v, t, s, o, lines[i].fn);
         }
     }
-    for (int i = 0; with_spread && i < CORAX_EXPORT_SPREAD; i++) {
+    for (int i = 0; s->spread && i < CORAX_EXPORT_SPREAD; i++) {
         corax_vtk_array(v, corax_export_spread_names[i], 1, CORAX_VTK_DOUBLE);
-        cell_values(v, t, s, n, o, spread[i]);
+        cell_values(v, t, s, o, spread[i]);
     }
 }
 
-static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_structure *s,
-                              size_t n, const corax_export_options *o)
+static corax_status write_vtk(corax_vtk *v, const traces *t, structure_set *s,
+                              const corax_export_options *o)
 {
-    size_t k = corners(o), na = arrow_count(s, n, o);
+    size_t n = s->n, k = corners(o), na = arrow_count(s, o);
     size_t npoints = t->points + n * k + 2 * na;
     corax_vtk_points(v, npoints);
     corax_status st = each_sample(t, v, put_position);
     if (st != CORAX_OK)
         return st;
-    structure_points(v, s, n, o);
-    arrow_points(v, s, n, o);
+    structure_points(v, s, o);
+    arrow_points(v, s, o);
     if (n && o->shape == CORAX_EXPORT_POINTS)
         structure_cells(v, n, t->points, o);
     if (t->holes + na)
@@ -487,18 +553,18 @@ static corax_status write_vtk(corax_vtk *v, const traces *t, const corax_export_
     corax_vtk_scalars(v, "depth", CORAX_VTK_DOUBLE);
     if ((st = each_sample(t, v, put_depth)) != CORAX_OK)
         return st;
-    structure_depths(v, s, n, o);
+    structure_depths(v, s, o);
     if (o->shape == CORAX_EXPORT_POINTS) {
         corax_vtk_normals(v, "normal");
         if ((st = each_sample(t, v, put_no_normal)) != CORAX_OK)
             return st;
-        structure_normals(v, s, n, o);
+        structure_normals(v, s, o);
     }
 
     corax_vtk_cell_data(v, t->holes + n + na);
     corax_vtk_scalars(v, "kind", CORAX_VTK_INT);
-    cell_values(v, t, s, n, o, value_kind);
-    attributes(v, t, s, n, o);
+    cell_values(v, t, s, o, value_kind);
+    attributes(v, t, s, o);
     return CORAX_OK;
 }
 
@@ -509,10 +575,9 @@ corax_vtk_encoding corax_export_encoding(const corax_export_options *o, size_t n
     return n > CORAX_EXPORT_ASCII_MAX ? CORAX_VTK_BINARY : CORAX_VTK_ASCII;
 }
 
-corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_program *program,
-                              const corax_export_structure *s, size_t n,
-                              const corax_export_options *o, corax_export_counts *counts,
-                              corax_error *err)
+static corax_status export_vtk(corax_outputs *set, const char *path, const corax_program *program,
+                               structure_set *s, const corax_export_options *o,
+                               corax_export_counts *counts, corax_error *err)
 {
     if (!(o->step > 0.0) || !(o->disc_radius > 0.0) || o->disc_sides < 3 ||
         o->disc_sides > 360 || !(o->arrow >= 0.0))
@@ -522,12 +587,15 @@ corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_
     traces t = {o->traces ? program : NULL, o->step, NULL, 0, 0};
     corax_status st = count_traces(&t);
     corax_vtk *v = NULL;
+    survey(s);
     if (st == CORAX_OK)
-        st = corax_vtk_open(set, path, corax_export_encoding(o, n),
+        st = corax_vtk_open(set, path, corax_export_encoding(o, s->n),
                             o->title ? o->title : "corax export", &v, err);
     if (st == CORAX_OK) {
         corax_vtk_decimals(v, 6);
-        st = write_vtk(v, &t, s, n, o);
+        st = write_vtk(v, &t, s, o);
+        if (st == CORAX_OK && s->spool)
+            st = corax_spool_status(s->spool, err); /* a structure not read back */
         if (st == CORAX_OK) {
             st = corax_vtk_commit(v, err);
         } else {
@@ -537,10 +605,28 @@ corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_
     if (st == CORAX_OK && counts) {
         counts->traces = t.holes;
         counts->trace_points = t.points;
-        counts->structures = n;
-        counts->points = t.points + n * corners(o) + 2 * arrow_count(s, n, o);
-        counts->cells = t.holes + n + arrow_count(s, n, o);
+        counts->structures = s->n;
+        counts->points = t.points + s->n * corners(o) + 2 * arrow_count(s, o);
+        counts->cells = t.holes + s->n + arrow_count(s, o);
     }
     free(t.count);
     return st;
+}
+
+corax_status corax_export_vtk(corax_outputs *set, const char *path, const corax_program *program,
+                              const corax_export_structure *s, size_t n,
+                              const corax_export_options *o, corax_export_counts *counts,
+                              corax_error *err)
+{
+    structure_set all = {s, NULL, n, 0, 0, 0};
+    return export_vtk(set, path, program, &all, o, counts, err);
+}
+
+corax_status corax_export_vtk_spooled(corax_outputs *set, const char *path,
+                                      const corax_program *program, corax_spool *spool,
+                                      const corax_export_options *o,
+                                      corax_export_counts *counts, corax_error *err)
+{
+    structure_set all = {NULL, spool, corax_spool_count(spool), 0, 0, 0};
+    return export_vtk(set, path, program, &all, o, counts, err);
 }

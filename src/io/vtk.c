@@ -24,7 +24,30 @@ struct corax_vtk {
     size_t data_items;   /* tuples per array in the current data section */
     size_t arrays_left;  /* arrays owed to the current FIELD */
     char fault[200];     /* the first misuse, reported at commit */
+    size_t nout;         /* bytes waiting in out */
+    char out[1 << 16];   /* values gathered, handed to the writer in large pieces */
 };
+
+/* Hand what is gathered to the writer. */
+static void flush_out(corax_vtk *v)
+{
+    corax_writer_text(v->w, v->out, v->nout);
+    v->nout = 0;
+}
+
+/* Bytes of the file, in order. A value is a few bytes: gathering them
+ * spares the writer a call each. */
+static inline void emit(corax_vtk *v, const void *p, size_t n)
+{
+    if (v->nout + n > sizeof v->out)
+        flush_out(v);
+    if (n > sizeof v->out) {
+        corax_writer_text(v->w, p, n);
+        return;
+    }
+    memcpy(v->out + v->nout, p, n);
+    v->nout += n;
+}
 
 /* Record the first misuse; the file is refused at commit. */
 static void fault(corax_vtk *v, const char *fmt, ...)
@@ -49,7 +72,7 @@ static void end_block(corax_vtk *v)
     if (v->left)
         fault(v, "VTK block %s lacks %zu values", v->block, v->left);
     if (v->block && (v->encoding == CORAX_VTK_BINARY || v->on_line))
-        corax_writer_text(v->w, "\n", 1); /* binary blocks end with a line break too */
+        emit(v, "\n", 1); /* binary blocks end with a line break too */
     v->left = 0;
     v->on_line = 0;
     v->block = NULL;
@@ -79,7 +102,7 @@ static void header_line(corax_vtk *v, const char *fmt, ...)
     va_start(ap, fmt);
     vsnprintf(line, sizeof line, fmt, ap);
     va_end(ap);
-    corax_writer_text(v->w, line, strlen(line));
+    emit(v, line, strlen(line));
 }
 
 /* A name fit for a keyword line: blanks become '_', empty becomes "data". */
@@ -214,16 +237,42 @@ static int take(corax_vtk *v)
 static void ascii_separator(corax_vtk *v)
 {
     if (v->on_line)
-        corax_writer_text(v->w, " ", 1);
+        emit(v, " ", 1);
     v->on_line++;
 }
 
 static void ascii_line_end(corax_vtk *v)
 {
     if (v->per_line && v->on_line == v->per_line) {
-        corax_writer_text(v->w, "\n", 1);
+        emit(v, "\n", 1);
         v->on_line = 0;
     }
+}
+
+/* The low n bytes of u (4 or 8), big-endian whatever the host: written
+ * straight into the gathered bytes, where the compiler makes one store of
+ * them. */
+static inline void put_big_endian(corax_vtk *v, uint64_t u, size_t n)
+{
+    if (v->nout + n > sizeof v->out)
+        flush_out(v);
+    unsigned char *p = (unsigned char *)v->out + v->nout;
+    v->nout += n;
+    if (n == 4) {
+        p[0] = (unsigned char)(u >> 24);
+        p[1] = (unsigned char)(u >> 16);
+        p[2] = (unsigned char)(u >> 8);
+        p[3] = (unsigned char)u;
+        return;
+    }
+    p[0] = (unsigned char)(u >> 56);
+    p[1] = (unsigned char)(u >> 48);
+    p[2] = (unsigned char)(u >> 40);
+    p[3] = (unsigned char)(u >> 32);
+    p[4] = (unsigned char)(u >> 24);
+    p[5] = (unsigned char)(u >> 16);
+    p[6] = (unsigned char)(u >> 8);
+    p[7] = (unsigned char)u;
 }
 
 static void put_int(corax_vtk *v, long x)
@@ -233,16 +282,13 @@ static void put_int(corax_vtk *v, long x)
         x = 0;
     }
     if (v->encoding == CORAX_VTK_BINARY) {
-        uint32_t u = (uint32_t)(int32_t)x;
-        unsigned char b[4] = {(unsigned char)(u >> 24), (unsigned char)(u >> 16),
-                              (unsigned char)(u >> 8), (unsigned char)u};
-        corax_writer_text(v->w, (const char *)b, 4);
+        put_big_endian(v, (uint32_t)(int32_t)x, 4);
         return;
     }
     char t[24];
     int n = snprintf(t, sizeof t, "%ld", x);
     ascii_separator(v);
-    corax_writer_text(v->w, t, (size_t)n);
+    emit(v, t, (size_t)n);
 }
 
 static void put_double(corax_vtk *v, double x)
@@ -254,16 +300,13 @@ static void put_double(corax_vtk *v, double x)
     if (v->encoding == CORAX_VTK_BINARY) {
         uint64_t u;
         memcpy(&u, &x, sizeof u);
-        unsigned char b[8];
-        for (int i = 0; i < 8; i++)
-            b[i] = (unsigned char)(u >> (56 - 8 * i)); /* big-endian whatever the host */
-        corax_writer_text(v->w, (const char *)b, 8);
+        put_big_endian(v, u, 8);
         return;
     }
     char t[48];
     size_t n = corax_format_fixed(t, x, v->decimals);
     ascii_separator(v);
-    corax_writer_text(v->w, t, n);
+    emit(v, t, n);
 }
 
 void corax_vtk_double(corax_vtk *v, double x)
@@ -307,7 +350,7 @@ void corax_vtk_cell(corax_vtk *v, size_t npoints)
     v->per_line = 0; /* one cell a line: the line ends with its last index */
     corax_vtk_int(v, (long)npoints);
     if (npoints == 0 && v->encoding == CORAX_VTK_ASCII) {
-        corax_writer_text(v->w, "\n", 1);
+        emit(v, "\n", 1);
         v->on_line = 0;
     }
 }
@@ -322,7 +365,7 @@ void corax_vtk_index(corax_vtk *v, size_t index)
         v->cell_left--;
     corax_vtk_int(v, (long)index);
     if (v->cell_left == 0 && v->encoding == CORAX_VTK_ASCII) {
-        corax_writer_text(v->w, "\n", 1);
+        emit(v, "\n", 1);
         v->on_line = 0;
     }
 }
@@ -339,6 +382,7 @@ corax_status corax_vtk_commit(corax_vtk *v, corax_error *err)
         corax_vtk_discard(v);
         return CORAX_EARG;
     }
+    flush_out(v);
     corax_status st = corax_writer_commit(v->w, err);
     free(v);
     return st;

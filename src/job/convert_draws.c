@@ -21,6 +21,7 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "io/spool.h"
 #include "job/convert_int.h"
 
 enum { READ_ROWS = 16384, BLOCK_SHIFT = 16, BLOCK = 1 << BLOCK_SHIFT };
@@ -105,19 +106,16 @@ int convert_draws_match(const convert_draws *d, size_t rows) { return rows == d-
 
 FILE *convert_stdin_copy(corax_job *job)
 {
-    const char *dir = getenv("TMPDIR");
-    char path[4096];
-    snprintf(path, sizeof path, "%s/corax-stdin-XXXXXX", dir && *dir ? dir : "/tmp");
-    int fd = mkstemp(path);
+    const char *dir = corax_temp_folder();
+    int fd = corax_temp_file(dir); /* gone when closed */
     FILE *f = fd >= 0 ? fdopen(fd, "w+b") : NULL;
     if (!f) {
         job_error(job, NULL, 0, "cannot keep standard input for a second reading in %s: %s",
-                  dir && *dir ? dir : "/tmp", strerror(errno));
+                  dir, strerror(errno));
         if (fd >= 0)
             close(fd);
         return NULL;
     }
-    unlink(path); /* gone when closed */
     char buf[1 << 16];
     size_t n;
     while ((n = fread(buf, 1, sizeof buf, stdin)) > 0)

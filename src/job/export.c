@@ -7,8 +7,8 @@
 #include <string.h>
 #include <strings.h>
 
-#include "common/grow.h"
 #include "corax/corax.h"
+#include "export/export_int.h"
 #include "job/export_int.h"
 
 /* ---- CSV ---- */
@@ -81,24 +81,15 @@ static int export_csv(const export_opts *o, corax_writer *w, size_t *written, si
 
 /* ---- VTK ---- */
 
+/* The structures for VTK, kept in a spool: the file gives each block's
+ * size before its values, so they are gone over once per block. */
 typedef struct located {
     corax_job *job;
-    corax_export_structure *item;
-    size_t n, cap;
+    corax_spool *spool;
     const corax_program *prog;
     corax_kinds *kinds;
     size_t no_plane; /* lines without a plane: VTK draws planes */
 } located;
-
-static int push(located *v, const corax_export_structure *s)
-{
-    corax_export_structure *p = corax_grow(v->item, v->n, &v->cap, sizeof *p, 1024);
-    if (!p)
-        return 0;
-    v->item = p;
-    v->item[v->n++] = *s;
-    return 1;
-}
 
 static int vtk_row(void *ctx, int table, const corax_row *row, const corax_structure *s,
                    const corax_export_extra *x)
@@ -116,8 +107,15 @@ static int vtk_row(void *ctx, int table, const corax_row *row, const corax_struc
         x->has_line, {(float)x->line.x, (float)x->line.y, (float)x->line.z}, {0}};
     for (int i = 0; i < CORAX_EXPORT_SPREAD; i++)
         e.spread[i] = (float)x->spread[i];
-    if (e.kind < 0 || !push(v, &e)) {
+    if (e.kind < 0) {
         job_error(v->job, NULL, 0, "out of memory");
+        return -1;
+    }
+    corax_error err;
+    corax_error_clear(&err);
+    corax_status st = corax_spool_add(v->spool, &e, &err);
+    if (st != CORAX_OK) {
+        job_error_record(v->job, &err, st);
         return -1;
     }
     return 0;
@@ -174,7 +172,13 @@ static void about_export(corax_record *a, const export_opts *o, const corax_prog
 static int export_vtk(const export_opts *o, const corax_program *prog, corax_kinds *kinds,
                       size_t *written, size_t *left_out)
 {
-    located v = {o->job, NULL, 0, 0, prog, kinds, 0};
+    corax_spool *spool = corax_spool_new(sizeof(corax_export_structure), o->output,
+                                         "the structures of the VTK file");
+    located v = {o->job, spool, prog, kinds, 0};
+    if (!v.spool) {
+        job_error(o->job, NULL, 0, "out of memory");
+        return JOB_FAILED;
+    }
     export_visit visit = {NULL, NULL, vtk_row, 0};
     int rc = export_each_structure(o, &visit, &v);
     *left_out = visit.left_out + v.no_plane;
@@ -187,8 +191,8 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
         corax_export_counts counts;
         corax_error err;
         corax_error_clear(&err);
-        corax_status st =
-            corax_export_vtk(o->job->outputs, o->output, prog, v.item, v.n, &opt, &counts, &err);
+        corax_status st = corax_export_vtk_spooled(o->job->outputs, o->output, prog, v.spool,
+                                                   &opt, &counts, &err);
         if (st != CORAX_OK) {
             job_error_record(o->job, &err, st);
             rc = JOB_FAILED;
@@ -198,7 +202,7 @@ static int export_vtk(const export_opts *o, const corax_program *prog, corax_kin
                 job_note(o->job, "no hole has a path to trace");
         }
     }
-    free(v.item);
+    corax_spool_free(v.spool);
     return rc;
 }
 
