@@ -5,6 +5,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "common/grow.h"
 #include "common/strset.h"
 
 typedef struct slot {
@@ -99,14 +100,10 @@ long corax_strset_add(corax_strset *s, const char *text, size_t len)
         return -1;
     if (2 * (s->count + 1) > s->nslots && !rehash(s, s->nslots ? 2 * s->nslots : 64))
         return -1;
-    if (s->count == s->cap) {
-        size_t cap = s->cap ? 2 * s->cap : 64;
-        size_t *at = realloc(s->at, cap * sizeof *at);
-        if (!at)
-            return -1;
-        s->at = at;
-        s->cap = cap;
-    }
+    size_t *at = corax_grow(s->at, s->count, &s->cap, sizeof *at, 64);
+    if (!at)
+        return -1;
+    s->at = at;
     if (s->used + len + 1 > s->room) {
         size_t room = s->room ? s->room : 1024;
         while (room < s->used + len + 1)
