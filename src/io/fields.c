@@ -113,13 +113,24 @@ corax_status corax_column_missing(const char *path, const corax_row *header,
                                "no '%s' column in the header, which the column names give "
                                "for %s (it has: %s)",
                                mapped, logical, list);
-    int semicolons = header->count == 1 && strchr(header->field[0], ';');
+    /* a header read as one field: the table's delimiter is another */
+    static const struct {
+        char c;
+        const char *hint;
+    } other[] = {
+        {';', "; the header looks semicolon-separated: say delimiter = semicolon or "
+              "--delimiter ';'"},
+        {'\t', "; the header looks tab-separated: say delimiter = tab or --delimiter tab"},
+        {',', "; the header looks comma-separated: say delimiter = comma or --delimiter ','"},
+    };
+    const char *hint = "; a column name setting can map another name (corax help columns)";
+    for (size_t k = 0; header->count == 1 && k < sizeof other / sizeof other[0]; k++)
+        if (strchr(header->field[0], other[k].c)) {
+            hint = other[k].hint;
+            break;
+        }
     return corax_error_set(err, CORAX_EFORMAT, path, header->line,
-                           "no '%s' column in the header (it has: %s)%s", logical, list,
-                           semicolons ? "; the header looks semicolon-separated: say "
-                                        "delimiter = semicolon or --delimiter ';'"
-                                      : "; a column name setting can map another name "
-                                        "(corax help columns)");
+                           "no '%s' column in the header (it has: %s)%s", logical, list, hint);
 }
 
 corax_status corax_table_header(corax_reader *reader, const char *const *names, size_t n,
