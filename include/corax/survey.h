@@ -104,6 +104,11 @@ void corax_hole_free(corax_hole *hole);
  * a little later. hole may be NULL. */
 void corax_hole_prefetch(const corax_hole *hole);
 
+/* A hint, no more: start fetching the course that holds `depth` (metres),
+ * once corax_hole_prefetch() has brought the hole near. hole may be NULL and
+ * depth anything. */
+void corax_hole_prefetch_course(const corax_hole *hole, double depth);
+
 /* Position and tangent at a depth (metres). Interpolates on the arc between
  * stations. CORAX_EVALUE for a negative or non-finite depth.
  * hint (may be NULL) caches the last course used: pass the same size_t, set

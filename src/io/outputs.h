@@ -26,6 +26,11 @@ corax_status corax_target_open(corax_outputs *set, const char *path, corax_targe
 corax_status corax_target_close(corax_outputs *set, corax_target *t, int failed,
                                 corax_error *err);
 
+/* A hint, no more: start writing `length` bytes from `from` of a file to
+ * be synced at its close to the disk now, without waiting for them (where
+ * the system can; a target written straight is left alone). */
+void corax_target_writeback(const corax_target *t, long long from, long long length);
+
 /* Abandon a target: close it and remove its temporary. */
 void corax_target_discard(corax_outputs *set, corax_target *t);
 

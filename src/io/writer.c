@@ -16,7 +16,9 @@
 #include "io/fuzz.h"
 #include "io/outputs.h"
 
-enum { OUT_BUFFER = 1 << 18 };
+/* The buffer of a file writer; the bytes written between two starts of the
+ * disk's work on them (corax_target_writeback()). */
+enum { OUT_BUFFER = 1 << 18, WRITEBACK = 1 << 23 };
 
 struct corax_writer {
     int fd;         /* -1 for a memory writer */
@@ -28,6 +30,7 @@ struct corax_writer {
     size_t used;
     int failed;     /* errno of the first failed write, 0 if none */
     int row_start;  /* no field written yet on this row */
+    long long written, synced; /* bytes written to the file; of them, handed to the disk */
     char delimiter, decimal; /* ',' and '.' unless set */
 };
 
@@ -87,7 +90,12 @@ static void write_all(corax_writer *w, const char *p, size_t n)
         } else {
             p += k;
             n -= (size_t)k;
+            w->written += k;
         }
+    }
+    if (w->written - w->synced >= WRITEBACK) {
+        corax_target_writeback(&w->target, w->synced, w->written - w->synced);
+        w->synced = w->written;
     }
 }
 

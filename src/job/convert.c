@@ -14,9 +14,11 @@
 /* Rows are read a batch at a time and converted in chunks on every thread. */
 enum { BATCH_ROWS = 16384, BATCH_CHUNKS = 32 };
 
-/* Rows ahead whose hole is fetched toward the cache: a log of many holes
- * moves to another hole on every row, and the look-up waits on memory. */
-enum { PREFETCH_AHEAD = 4 };
+/* A log of many holes moves to another hole on every row, and the look-up
+ * waits on memory: the hole of the row HOLE_AHEAD rows on is fetched toward
+ * the cache, and once it is near (COURSE_AHEAD rows on) the course that holds
+ * that row's depth. HOLE_AHEAD is a power of two. */
+enum { HOLE_AHEAD = 8, COURSE_AHEAD = 4 };
 
 static void convert_row(const convert_run *r, convert_lane *ln, const corax_row *row)
 {
@@ -86,10 +88,18 @@ static corax_status convert_batch(convert_run *r, const corax_table *cur, conver
             ln->w = chunk[c];
             if (r->draws)
                 ln->next_draw = convert_draws_rank(r->draws, base + n * c / BATCH_CHUNKS);
-            size_t end = n * (c + 1) / BATCH_CHUNKS;
-            for (size_t i = n * c / BATCH_CHUNKS; i < end; i++) {
-                if (i + PREFETCH_AHEAD < end) /* the hole of a row to come, toward the cache */
-                    convert_prefetch(r, cur, i + PREFETCH_AHEAD);
+            size_t start = n * c / BATCH_CHUNKS, end = n * (c + 1) / BATCH_CHUNKS;
+            const corax_hole *ahead[HOLE_AHEAD]; /* the holes of the rows to come */
+            for (size_t i = start; i < start + HOLE_AHEAD && i < end; i++)
+                ahead[i % HOLE_AHEAD] = convert_prefetch(r, cur, i);
+            for (size_t i = start; i < end; i++) {
+                ln->known = ahead[i % HOLE_AHEAD]; /* no second look-up */
+                ln->has_known = 1;
+                if (i + COURSE_AHEAD < end)
+                    convert_prefetch_course(r, ln, cur, i + COURSE_AHEAD,
+                                            ahead[(i + COURSE_AHEAD) % HOLE_AHEAD]);
+                if (i + HOLE_AHEAD < end)
+                    ahead[i % HOLE_AHEAD] = convert_prefetch(r, cur, i + HOLE_AHEAD);
                 corax_row row;
                 corax_table_row(cur, i, ln->field, &row);
                 convert_row(r, ln, &row);

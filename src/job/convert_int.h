@@ -47,8 +47,9 @@ typedef struct convert_run {
     size_t seen;     /* rows of the shard read so far, over every log */
 } convert_run;
 
-/* Start fetching the hole of a batch's row toward the cache. */
-void convert_prefetch(const convert_run *r, const corax_table *batch, size_t row);
+/* Start fetching the hole of a batch's row toward the cache; the hole, or
+ * NULL. */
+const corax_hole *convert_prefetch(const convert_run *r, const corax_table *batch, size_t row);
 
 /* Whether a row's hole is in the run's shard (always, without shards). */
 int convert_row_in_shard(const convert_run *r, const corax_row *row);
@@ -67,11 +68,17 @@ typedef struct convert_lane {
     size_t last_len;
     const corax_hole *last_hole;
     size_t hint;
+    const corax_hole *known; /* the next row's hole, when has_known */
+    int has_known;
     size_t count[CORAX_COND_COUNT + 1]; /* rows by status; the last is "converted" */
     size_t rows;
     const char **field; /* room for a row's field pointers */
     size_t next_draw;   /* the next simulated row's place in r->draws */
 } convert_lane;
+
+/* Then, a few rows later, the course of the hole that holds the row's depth. */
+void convert_prefetch_course(const convert_run *r, const convert_lane *ln,
+                             const corax_table *batch, size_t row, const corax_hole *hole);
 
 /* One row, evaluated. */
 typedef struct convert_eval {

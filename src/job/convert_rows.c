@@ -72,6 +72,13 @@ static void write_header(convert_run *r, const corax_row *header)
 
 static const corax_hole *find_hole(const convert_run *shared, convert_lane *r, const char *name, size_t len)
 {
+    if (r->has_known) { /* looked up already, when it was fetched toward the cache */
+        r->has_known = 0;
+        if (r->known != r->last_hole)
+            r->hint = 0;
+        r->last_len = (size_t)-1;
+        return r->last_hole = r->known;
+    }
     if (len == r->last_len && len < sizeof r->last_name && memcmp(name, r->last_name, len) == 0)
         return r->last_hole;
     r->last_hole = corax_program_find(shared->prog, name, len);
@@ -271,11 +278,25 @@ static int arbitrary_line(const convert_run *r, const convert_lane *ln, const co
     return corax_unoriented_confidence(word, n, s->unoriented_word);
 }
 
-void convert_prefetch(const convert_run *r, const corax_table *batch, size_t row)
+const corax_hole *convert_prefetch(const convert_run *r, const corax_table *batch, size_t row)
 {
     size_t len;
     const char *name = corax_table_cell(batch, row, r->col[COL_HOLE], &len);
-    corax_hole_prefetch(corax_program_find(r->prog, name, len));
+    const corax_hole *hole = corax_program_find(r->prog, name, len);
+    corax_hole_prefetch(hole);
+    return hole;
+}
+
+void convert_prefetch_course(const convert_run *r, const convert_lane *ln,
+                             const corax_table *batch, size_t row, const corax_hole *hole)
+{
+    /* a log of intervals: the course of their start is near enough */
+    long col = r->col[COL_DEPTH] >= 0 ? r->col[COL_DEPTH] : r->col[COL_FROM];
+    size_t len;
+    const char *text = corax_table_cell(batch, row, col, &len);
+    double depth;
+    if (hole && corax_parse_number(text, len, ln->decimal, &depth) == CORAX_NUMBER_OK)
+        corax_hole_prefetch_course(hole, depth * r->s->log.unit);
 }
 
 int convert_row_in_shard(const convert_run *r, const corax_row *row)

@@ -228,6 +228,15 @@ void corax_hole_prefetch(const corax_hole *h)
         __builtin_prefetch(b + k);
 }
 
+void corax_hole_prefetch_course(const corax_hole *h, double depth)
+{
+    if (!h || !h->has_path || !(depth >= 0.0) || h->n < 2 || depth >= hole_depths(h)[h->n - 1])
+        return;
+    const char *b = (const char *)&hole_spans(h)[find_course(h, depth, NULL)];
+    __builtin_prefetch(b);
+    __builtin_prefetch(b + sizeof(corax_hole_span) - 1);
+}
+
 corax_status corax_hole_at(const corax_hole *h, double depth, size_t *hint,
                            corax_hole_point *pt)
 {
