@@ -30,47 +30,67 @@ static uint64_t round_scaled(double a, double s, double p)
     return (uint64_t)(e > 0.0 ? q : e < 0.0 ? q - 1 : q - (q & 1));
 }
 
+/* The last two digits of *q into p[-2], p[-1], taken off *q (a division by
+ * a constant: a multiplication). */
+static inline char *take_pair(char *p, uint64_t *q)
+{
+    uint64_t t = *q / 100;
+    const char *d = digit_pairs + 2 * (*q - 100 * t);
+    p[-1] = d[1];
+    p[-2] = d[0];
+    *q = t;
+    return p - 2;
+}
+
+static inline char *take_one(char *p, uint64_t *q)
+{
+    uint64_t t = *q / 10;
+    p[-1] = (char)('0' + (*q - 10 * t));
+    *q = t;
+    return p - 1;
+}
+
 size_t corax_format_fixed(char *buf, double v, int decimals)
 {
     static const double scale[] = {1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9};
-    if (isnan(v))
-        return 0;
-    if (decimals < 0)
-        decimals = 0;
-    if (decimals > 9)
-        decimals = 9;
+    if ((unsigned)decimals > 9)
+        decimals = decimals < 0 ? 0 : 9;
     double a = fabs(v), scaled = a * scale[decimals];
-    if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
-        return (size_t)snprintf(buf, 40, "%.17g", v);
-    if (scaled >= 0x1p52) /* whole numbers apart: printf's own rounding */
-        return (size_t)snprintf(buf, 40, "%.*f", decimals, v);
+    if (!(scaled < 0x1p52)) { /* the rare cases, NaN among them */
+        if (isnan(v))
+            return 0;
+        if (!(scaled < 9.0e15)) /* beyond exact integers: all digits, exponent form */
+            return (size_t)snprintf(buf, 40, "%.17g", v);
+        return (size_t)snprintf(buf, 40, "%.*f", decimals, v); /* printf's own rounding */
+    }
     uint64_t q = round_scaled(a, scale[decimals], scaled);
     int negative = v < 0.0 && q != 0; /* never "-0.00" */
     /* at most 16 digits, a point and a sign: written backwards into the
      * first 24 bytes of tmp, then copied whole (a copy of fixed size is a
-     * few moves, where a copy of the digits alone would call memcpy) */
+     * few moves, where a copy of the digits alone would call memcpy); the
+     * decimals by a switch, so that every division is by a constant */
     char tmp[48];
     char *end = tmp + 24, *p = end;
-    int frac = decimals;
-    for (; frac >= 2; frac -= 2, q /= 100) {
-        const char *d = digit_pairs + 2 * (q % 100);
-        *--p = d[1];
-        *--p = d[0];
-    }
-    if (frac) {
-        *--p = (char)('0' + q % 10);
-        q /= 10;
+    switch (decimals) {
+    case 9: p = take_one(p, &q); /* fall through */
+    case 8: p = take_pair(p, &q); /* fall through */
+    case 6: p = take_pair(p, &q); /* fall through */
+    case 4: p = take_pair(p, &q); /* fall through */
+    case 2: p = take_pair(p, &q); break;
+    case 7: p = take_pair(p, &q); /* fall through */
+    case 5: p = take_pair(p, &q); /* fall through */
+    case 3: p = take_pair(p, &q); /* fall through */
+    case 1: p = take_one(p, &q); break;
+    default: break;
     }
     if (decimals)
         *--p = '.';
-    for (; q >= 100; q /= 100) {
-        const char *d = digit_pairs + 2 * (q % 100);
-        *--p = d[1];
-        *--p = d[0];
-    }
+    while (q >= 100)
+        p = take_pair(p, &q);
     if (q >= 10) {
-        *--p = digit_pairs[2 * q + 1];
-        *--p = digit_pairs[2 * q];
+        p -= 2;
+        p[1] = digit_pairs[2 * q + 1];
+        p[0] = digit_pairs[2 * q];
     } else {
         *--p = (char)('0' + q);
     }

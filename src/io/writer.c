@@ -235,6 +235,30 @@ static void mark_decimal(corax_writer *w, size_t n)
 void corax_writer_field(corax_writer *w, const char *s, size_t n)
 {
     int first = w->row_start;
+    if (n <= 32 && make_room(w, n + 1) &&
+        !(n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
+                (first && s[0] == '#')))) {
+        /* the usual field: short, copied with its separator at once and
+         * checked for the bytes that need quotes as it is copied (the rare
+         * field that has one is written again, quoted) */
+        char *o = w->buf + w->used + !first;
+        unsigned char delimiter = (unsigned char)w->delimiter;
+        int special = 0;
+        for (size_t i = 0; i < n; i++) {
+            unsigned char c = (unsigned char)s[i];
+            o[i] = (char)c;
+            /* every special byte but ';' is below '-': one comparison clears most text */
+            special |= (c < '-' && (c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
+                       c == delimiter;
+        }
+        if (!special) {
+            if (!first)
+                o[-1] = w->delimiter;
+            w->row_start = 0;
+            w->used = (size_t)(o + n - w->buf);
+            return;
+        }
+    }
     separator(w);
     if (!needs_quotes(s, n, w->delimiter, first)) {
         corax_writer_text(w, s, n);
@@ -252,11 +276,23 @@ void corax_writer_field(corax_writer *w, const char *s, size_t n)
     corax_writer_text(w, "\"", 1);
 }
 
+/* Room for a separator and a number (which corax_format_fixed() writes in
+ * at most 48 bytes), the separator written: where the number goes, or NULL. */
+static inline char *number_room(corax_writer *w)
+{
+    if (!make_room(w, 49))
+        return NULL;
+    if (!w->row_start)
+        w->buf[w->used++] = w->delimiter;
+    w->row_start = 0;
+    return w->buf + w->used;
+}
+
 void corax_writer_number(corax_writer *w, double v, int decimals)
 {
-    separator(w);
-    if (make_room(w, 48)) {
-        size_t n = corax_format_fixed(w->buf + w->used, v, decimals);
+    char *o = number_room(w);
+    if (o) {
+        size_t n = corax_format_fixed(o, v, decimals);
         mark_decimal(w, n);
         w->used += n;
     }
@@ -266,12 +302,12 @@ void corax_writer_azimuth(corax_writer *w, double degrees, int decimals)
 {
     if (!(degrees >= 0.0 && degrees < 360.0) && !isnan(degrees))
         degrees = corax_wrap_degrees(degrees, decimals);
-    separator(w);
-    if (!make_room(w, 48))
+    char *o = number_room(w);
+    if (!o)
         return;
-    size_t n = corax_format_fixed(w->buf + w->used, degrees, decimals);
-    if (n >= 3 && memcmp(w->buf + w->used, "360", 3) == 0) /* 359.999 rounded up */
-        n = corax_format_fixed(w->buf + w->used, 0.0, decimals);
+    size_t n = corax_format_fixed(o, degrees, decimals);
+    if (n >= 3 && o[0] == '3' && o[1] == '6' && o[2] == '0') /* 359.999 rounded up */
+        n = corax_format_fixed(o, 0.0, decimals);
     mark_decimal(w, n);
     w->used += n;
 }
