@@ -53,8 +53,7 @@ static corax_status desurvey_nodes(corax_hole *h, corax_error *err)
                                    "dogleg has no arc)",
                                    h->name, sa->depth, sa->line, sz->depth, sz->line);
         }
-        corax_vec3 t;
-        corax_mc_along(a->r, a->t, z->t, &z->course, 1.0, &z->r, &t);
+        z->r = corax_mc_end(a->r, a->t, z->t, &z->course);
         set_span(h, i - 1);
     }
     return CORAX_OK;

@@ -22,8 +22,7 @@ corax_mc_course corax_mc_course_of(corax_vec3 t1, corax_vec3 t2, double length)
     corax_mc_course c;
     c.length = length;
     c.b = corax_mc_dogleg(t1, t2);
-    c.sin_b = sin(c.b);
-    c.cos_b = cos(c.b);
+    small_sincos(c.b, &c.sin_b, &c.cos_b); /* a dogleg is small, most often */
     c.inv_sin_b = c.b > 1e-6 ? 1.0 / c.sin_b : 0.0;
     return c;
 }

@@ -49,11 +49,22 @@ static inline void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, c
             tf = vec_comb(t1, w1 * c->inv_sin_b, t2, sfb * c->inv_sin_b);
         else /* a dogleg too small to divide by: the same weights, normalised */
             tf = vec_unit(vec_comb(t1, w1, t2, sfb));
-        rf = fb < 0.02 ? corax_mc_ratio_factor_series(fb) : 2.0 / fb * sfb / (1.0 + cfb);
+        rf = fb < 0.02 ? corax_mc_ratio_factor_series(fb) : 2.0 * sfb / (fb * (1.0 + cfb));
     }
     double k = 0.5 * f * c->length * rf;
     *r = vec_add(r1, vec_scale(vec_add(t1, tf), k));
     *t = tf;
+}
+
+/* The end of a course (corax_mc_along() at f = 1), from the sine and cosine
+ * the course keeps: a resurvey asks it of every node of every draw. */
+static inline corax_vec3 corax_mc_end(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2,
+                                      const corax_mc_course *c)
+{
+    double b = c->b, rf = 1.0;
+    if (b > 0.0)
+        rf = b < 0.02 ? corax_mc_ratio_factor_series(b) : 2.0 * c->sin_b / (b * (1.0 + c->cos_b));
+    return vec_add(r1, vec_scale(vec_add(t1, t2), 0.5 * c->length * rf));
 }
 
 

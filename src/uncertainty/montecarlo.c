@@ -285,14 +285,20 @@ static void finish(corax_mc *mc, const accum *ac, const corax_mc_reading *m,
     } else {
         out->dip_sd = out->dip_direction_sd = NAN;
     }
-    size_t k = 0; /* the draws that gave an answer, gathered */
-    for (size_t d = 0; d < draws; d++) {
-        corax_vec3 v = drawn[d];
-        if (v.x != 0.0 || v.y != 0.0 || v.z != 0.0)
-            mc->one[k++] = v;
+    /* the draws that gave an answer: all of them, most often; else gathered */
+    const corax_vec3 *answered = drawn;
+    size_t k = ac->n;
+    if (k < draws) {
+        k = 0;
+        for (size_t d = 0; d < draws; d++) {
+            corax_vec3 v = drawn[d];
+            if (v.x != 0.0 || v.y != 0.0 || v.z != 0.0)
+                mc->one[k++] = v;
+        }
+        answered = mc->one;
     }
     corax_vec3 mean;
-    if (!mc_cone95(mc->one, k, mc->dots, &mean, &out->kappa, &out->cone95))
+    if (!mc_cone95(answered, k, mc->dots, &mean, &out->kappa, &out->cone95))
         out->cone95 = out->kappa = NAN;
 }
 
