@@ -385,6 +385,60 @@ static void test_ratio_factor_series_meets_closed_form(void **state)
     assert_close(corax_mc_ratio_factor(0), 1.0, 0, 0, "RF(0) = 1");
 }
 
+/* A course's end as a resurvey takes it (from the sine and cosine the course
+ * keeps) is the end of its arc as corax_mc_along() gives it at f = 1, for
+ * doglegs on both sides of the series' hand-overs (0.02 for the ratio
+ * factor, 0.25 for the sine and cosine) and up to half a turn. */
+static void test_course_end_meets_the_arc(void **state)
+{
+    (void)state;
+    const double doglegs[] = {0.0, 1e-9, 1e-4, 0.0199, 0.0201, 0.1, 0.2499, 0.2501, 1.0, 3.0};
+    corax_vec3 r1 = {100.0, -50.0, 20.0};
+    corax_vec3 t1 = corax_direction(corax_rad(30), corax_rad(60));
+    for (size_t i = 0; i < sizeof doglegs / sizeof doglegs[0]; i++) {
+        /* t2: t1 turned by the dogleg about a horizontal axis across it */
+        corax_vec3 across = {cos(corax_rad(30)), -sin(corax_rad(30)), 0.0};
+        double b = doglegs[i], c = cos(b), sn = sin(b);
+        corax_vec3 cr = {across.y * t1.z - across.z * t1.y, across.z * t1.x - across.x * t1.z,
+                         across.x * t1.y - across.y * t1.x};
+        corax_vec3 t2 = {t1.x * c + cr.x * sn, t1.y * c + cr.y * sn, t1.z * c + cr.z * sn};
+        corax_mc_course course = corax_mc_course_of(t1, t2, 30.0);
+        assert_close(course.b, b, 0, 1e-12, "the dogleg as turned");
+        /* the series is good to 1e-13 below 0.25 (vec.h), libm beyond */
+        assert_close(course.sin_b, sin(course.b), 0, 1e-13, "its sine");
+        assert_close(course.cos_b, cos(course.b), 0, 1e-13, "its cosine");
+        corax_vec3 r, t, end = corax_mc_end(r1, t1, t2, &course);
+        corax_mc_along(r1, t1, t2, &course, 1.0, &r, &t);
+        assert_close(end.x, r.x, 0, 1e-11, "course end x");
+        assert_close(end.y, r.y, 0, 1e-11, "course end y");
+        assert_close(end.z, r.z, 0, 1e-11, "course end z");
+    }
+}
+
+/* The look-ahead hint reads only what is the hole's, whatever the depth
+ * (the sanitizer build holds it to that), and changes no answer. */
+static void test_course_prefetch_is_only_a_hint(void **state)
+{
+    (void)state;
+    corax_station s[3] = {inc_station(0, 30, 40), inc_station(50, 35, 50),
+                          inc_station(120, 38, 60)};
+    corax_hole *h = make_hole(s, 3, NULL);
+    corax_collar c = {{5, 6, 7}, 0, 0, 0, NAN};
+    corax_hole *bare = make_hole(NULL, 0, &c);
+    const double depths[] = {-5.0, 0.0, 10.0, 50.0, 119.9, 120.0, 500.0, 1e300, NAN, INFINITY};
+    corax_hole_point before, after;
+    at(h, 77.0, &before);
+    for (size_t i = 0; i < sizeof depths / sizeof depths[0]; i++) {
+        corax_hole_prefetch_course(h, depths[i]);
+        corax_hole_prefetch_course(bare, depths[i]);
+        corax_hole_prefetch_course(NULL, depths[i]);
+    }
+    at(h, 77.0, &after);
+    assert_memory_equal(&before.position, &after.position, sizeof before.position);
+    corax_hole_free(h);
+    corax_hole_free(bare);
+}
+
 static void test_program_lookup(void **state)
 {
     (void)state;
@@ -466,6 +520,8 @@ int main(void)
         cmocka_unit_test(test_up_hole_and_dogleg_severity),
         cmocka_unit_test(test_dip_conventions),
         cmocka_unit_test(test_ratio_factor_series_meets_closed_form),
+        cmocka_unit_test(test_course_end_meets_the_arc),
+        cmocka_unit_test(test_course_prefetch_is_only_a_hint),
         cmocka_unit_test(test_program_lookup),
         cmocka_unit_test(test_hole_depths),
     };
