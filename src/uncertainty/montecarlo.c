@@ -78,6 +78,8 @@ struct corax_mc {
     accum *acc;                   /* per block reading */
     prepared *prep;
     size_t block_cap;
+    struct drawing *now;          /* per block reading: this draw's */
+    size_t now_cap;
 };
 
 corax_mc *corax_mc_new(void)
@@ -98,6 +100,7 @@ void corax_mc_free(corax_mc *mc)
     free(mc->one);
     free(mc->acc);
     free(mc->prep);
+    free(mc->now);
     free(mc->dots);
     free(mc);
 }
@@ -198,12 +201,25 @@ static void prepare(const corax_mc_reading *m, const corax_convert_options *o, p
     p->position = m->nominal.point.position;
 }
 
-/* One draw of one reading in the resurveyed hole; 0 when it has no answer.
- * The errors are symmetric, so they are added to the canonical beta. */
-static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, size_t *hint,
-                    corax_vec3 *pos, corax_vec3 *dir)
+/* One draw of one reading, in two steps: its errors (drawn in the reading's
+ * order, so the stream of numbers is the same however the steps are laid
+ * out), then its place and direction in the resurveyed hole. A draw's
+ * readings go through each step in turn: each step's work on one reading is
+ * short and independent of the next reading's, so the processor overlaps
+ * them, where one reading's whole chain (the errors, the arc to its depth,
+ * the frame, the direction, the statistics) would wait on itself. */
+struct drawing {
+    double depth;
+    double sa, ca, sb, cb; /* sine and cosine of alpha and beta, turned by their errors */
+    corax_vec3 pos, dir;
+    int ok;                /* the draw has an answer */
+};
+
+/* The errors of one draw of one reading. The errors are symmetric, so they
+ * are added to the canonical beta. */
+static void draw_errors(corax_mc *mc, const prepared *p, struct drawing *w)
 {
-    double depth = p->depth + corax_gauss(&mc->zig, mc->rng, p->depth_sigma);
+    w->depth = p->depth + corax_gauss(&mc->zig, mc->rng, p->depth_sigma);
     double da = corax_gauss(&mc->zig, mc->rng, p->alpha_sigma);
     double db = corax_gauss(&mc->zig, mc->rng, p->beta_sigma);
     /* without a beta (alpha 90, or a line along the core) an error in alpha
@@ -212,29 +228,38 @@ static int draw_one(corax_mc *mc, const corax_hole *work, const prepared *p, siz
         db += 2.0 * CORAX_PI * corax_taus_uniform(mc->rng);
     /* the angles as read turned by their errors: sin(a + d) from sin a, cos a
      * and the small sine and cosine of d */
-    double sd, cd, sb, cb;
+    double sd, cd;
     small_sincos(da, &sd, &cd);
-    double sa = p->sin_alpha * cd + p->cos_alpha * sd, ca = p->cos_alpha * cd - p->sin_alpha * sd;
+    w->sa = p->sin_alpha * cd + p->cos_alpha * sd;
+    w->ca = p->cos_alpha * cd - p->sin_alpha * sd;
     small_sincos(db, &sd, &cd);
-    sb = p->sin_beta * cd + p->cos_beta * sd;
-    cb = p->cos_beta * cd - p->sin_beta * sd;
+    w->sb = p->sin_beta * cd + p->cos_beta * sd;
+    w->cb = p->cos_beta * cd - p->sin_beta * sd;
+}
+
+/* The place and direction of one draw of one reading in the resurveyed hole;
+ * w->ok 0 when it has no answer. */
+static void draw_place(const corax_hole *work, const prepared *p, size_t *hint,
+                       struct drawing *w)
+{
     corax_hole_point pt;
     corax_core_frame f;
-    if (hole_at(work, depth < 0.0 ? 0.0 : depth, hint, &pt) != CORAX_OK)
-        return 0;
+    w->ok = 0;
+    if (hole_at(work, w->depth < 0.0 ? 0.0 : w->depth, hint, &pt) != CORAX_OK)
+        return;
     if (core_frame_of(pt.tangent, &f) != CORAX_OK) { /* vertical: no bottom line */
         if (!isnan(p->beta))
-            return 0;
+            return;
         f.r = vec3(1.0, 0.0, 0.0); /* a beta drawn anywhere needs only some frame */
         f.s = vec_cross(f.t, f.r);
     }
-    *pos = pt.position;
+    w->pos = pt.position;
     /* e = cos(b) r + sin(b) s; a plane's normal sin(a) t - cos(a) e, a line
      * cos(a) t + sin(a) e. The raw formula is good for alpha past 0 or 90:
      * the same plane as the folded alpha with beta turned half way round. */
-    corax_vec3 e = vec_comb(f.r, cb, f.s, sb);
-    *dir = p->plane ? vec_comb(f.t, sa, e, -ca) : vec_comb(f.t, ca, e, sa);
-    return 1;
+    corax_vec3 e = vec_comb(f.r, w->cb, f.s, w->sb);
+    w->dir = p->plane ? vec_comb(f.t, w->sa, e, -w->ca) : vec_comb(f.t, w->ca, e, w->sa);
+    w->ok = 1;
 }
 
 static void add_draw(accum *ac, const prepared *p, corax_vec3 pos, corax_vec3 dir,
@@ -331,7 +356,8 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
     block = block < 1 ? 1 : block > n ? n : block;
     size_t acc_cap = mc->block_cap, prep_cap = mc->block_cap;
     if (!reserve(&mc->acc, &acc_cap, block, sizeof *mc->acc) ||
-        !reserve(&mc->prep, &prep_cap, block, sizeof *mc->prep))
+        !reserve(&mc->prep, &prep_cap, block, sizeof *mc->prep) ||
+        !reserve(&mc->now, &mc->now_cap, block, sizeof *mc->now))
         return CORAX_ENOMEM;
     mc->block_cap = acc_cap < prep_cap ? acc_cap : prep_cap;
     if (!reserve(&mc->d_azimuth, &mc->azimuth_cap, nodes * draws, sizeof(double)) ||
@@ -360,20 +386,24 @@ corax_status corax_mc_hole(corax_mc *mc, const corax_hole *hole, const corax_mc_
                     col[j * draws] = vec3(0.0, 0.0, 0.0);
                 continue;
             }
+            struct drawing *now = mc->now;
+            for (size_t j = 0; j < count; j++)
+                draw_errors(mc, &mc->prep[j], &now[j]);
             size_t hint = 0;
+            for (size_t j = 0; j < count; j++)
+                draw_place(work, &mc->prep[j], &hint, &now[j]);
             for (size_t j = 0; j < count; j++) {
                 const prepared *p = &mc->prep[j];
-                corax_vec3 pos, dir;
-                if (!draw_one(mc, work, p, &hint, &pos, &dir)) {
+                if (!now[j].ok) {
                     col[j * draws] = vec3(0.0, 0.0, 0.0);
                     continue;
                 }
-                add_draw(&mc->acc[j], p, pos, dir, &col[j * draws]);
+                add_draw(&mc->acc[j], p, now[j].pos, now[j].dir, &col[j * draws]);
                 if (on_draw) {
                     corax_plane plane;
                     if (p->plane)
-                        plane = corax_plane_from_normal(dir, NULL);
-                    on_draw(user, first + j, d, &pos, p->plane ? &plane : NULL);
+                        plane = corax_plane_from_normal(now[j].dir, NULL);
+                    on_draw(user, first + j, d, &now[j].pos, p->plane ? &plane : NULL);
                 }
             }
         }
