@@ -67,6 +67,8 @@ typedef struct cli_corrections {
     corax_magnetic_model *model;
     corax_corrector corrector;  /* what the loader is given */
     corax_corrections record;   /* every station's corrections, once loaded */
+    int keep_record;            /* the command reads the record (check, trace): only
+                                   then does the loader fill it */
 } cli_corrections;
 
 /* Options shared by the commands that read a drill program. */

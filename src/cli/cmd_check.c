@@ -262,6 +262,7 @@ int cmd_check(int argc, char **argv)
     check_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "check");
+    o.c.corr.keep_record = 1; /* the field checks compare each station's corrections */
     o.convert = corax_convert_options_default();
     o.qa = corax_qa_options_default();
     o.c.load.repair = 1; /* a faulty station becomes a finding, not the end of its hole */

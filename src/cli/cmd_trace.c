@@ -77,6 +77,7 @@ int cmd_trace(int argc, char **argv)
     trace_opts o;
     memset(&o, 0, sizeof o);
     cli_common_init(&o.c, "trace");
+    o.c.corr.keep_record = 1; /* --corrections writes it */
     int rc;
     corax_program *prog;
     if (!cli_begin(&o.c, parse(argc, argv, &o), 1, &prog, &rc))

@@ -118,7 +118,7 @@ int cli_corrections_prepare(cli_common *c)
     r->local_grid = k->grid_text ? &k->grid : NULL;
     r->north = (corax_north)k->north;
     c->load.corrector = r;
-    c->load.corrections = &k->record;
+    c->load.corrections = k->keep_record ? &k->record : NULL;
     return 0;
 }
 
