@@ -23,7 +23,14 @@ SANITIZE ?=
 # -isystem: the libraries' own headers are not ours to warn about (GDAL's
 # enumerators beyond int trip -Wpedantic)
 PKG_CFLAGS := $(patsubst -I%,-isystem %,$(shell pkg-config --cflags $(PKGS) 2>/dev/null))
-PKG_LIBS   := $(shell pkg-config --libs $(PKGS) 2>/dev/null) -lcsv -lm
+# GDAL is not linked: src/gis/ogr.c loads it (dlopen) when a GIS file is first
+# asked for, by the soname of the GDAL it is built against, so that commands
+# that write no GIS file do not pay for loading its libraries. Tests that read
+# GIS files back link it themselves.
+PKG_LIBS   := $(shell pkg-config --libs $(filter-out gdal,$(PKGS)) 2>/dev/null) -lcsv -lm -ldl
+GDAL_LIBS  := $(shell pkg-config --libs gdal 2>/dev/null)
+GDAL_SONAME := $(shell objdump -p $(shell $(CC) -print-file-name=libgdal.so) 2>/dev/null | \
+                 sed -n 's/^ *SONAME *//p')
 TEST_CFLAGS := $(shell pkg-config --cflags $(TESTPKG) 2>/dev/null)
 TEST_LIBS   := $(shell pkg-config --libs $(TESTPKG) 2>/dev/null)
 
@@ -119,7 +126,9 @@ $(BIN): $(CLI_OBJ) $(LIB)
 
 $(BUILD)/tests/%: $(BUILD)/obj/tests/%.o $(TEST_AUX_OBJ) $(LIB)
 	@mkdir -p $(dir $@)
-	$(CC) $(LDFLAGS_ALL) -o $@ $< $(TEST_AUX_OBJ) $(LIB) $(TEST_LIBS) $(PKG_LIBS)
+	$(CC) $(LDFLAGS_ALL) -o $@ $< $(TEST_AUX_OBJ) $(LIB) $(TEST_LIBS) $(PKG_LIBS) $(GDAL_LIBS)
+
+$(BUILD)/obj/src/gis/ogr.o: CFLAGS_ALL += $(if $(GDAL_SONAME),-DCORAX_GDAL_LIBRARY='"$(GDAL_SONAME)"')
 
 # The jobs' test uses the public API alone: no internal headers, no test
 # helpers, only the library.

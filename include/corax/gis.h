@@ -44,10 +44,14 @@ typedef enum corax_gis_shape {
     CORAX_GIS_LINES       /* LineStringZ, or LineStringZM with measures */
 } corax_gis_shape;
 
+/* GDAL is loaded at the first call of a function below that needs it (its
+ * libraries are not loaded with corax's). */
+
 /* The OGR driver for a format name: gpkg, geojson, dxf and shp stand for
  * GPKG, GeoJSON, DXF and "ESRI Shapefile"; any other name is taken as an
  * OGR driver's own short name (any case). NULL when this machine's GDAL
- * has no such driver, or it cannot create vector files. */
+ * has no such driver, or it cannot create vector files, or GDAL cannot be
+ * loaded. */
 const char *corax_gis_driver(const char *format);
 
 /* Whether a format name is one of corax's short names (gpkg, geojson, dxf,
@@ -55,10 +59,15 @@ const char *corax_gis_driver(const char *format);
 int corax_gis_known_format(const char *format);
 
 /* The short names of every OGR driver on this machine that creates vector
- * files, separated by ", ", into buf (cut to fit). */
+ * files, separated by ", ", into buf (cut to fit); "none" and why, when
+ * GDAL cannot be loaded. */
 void corax_gis_drivers(char *buf, size_t len);
 
-/* GDAL's release name, such as "3.6.2". */
+/* NULL when GDAL is there to write GIS files; else why not (it cannot be
+ * loaded, or lacks a function corax calls). */
+const char *corax_gis_unavailable(void);
+
+/* GDAL's release name, such as "3.6.2" ("none (not loaded)" without it). */
 const char *corax_gis_gdal_version(void);
 
 /* Create a file (or, for drivers that write folders, a folder) at path with

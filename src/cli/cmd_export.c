@@ -218,6 +218,10 @@ static int parse_vtk(export_opts *o)
 static int unknown_format(const export_opts *o)
 {
     char list[4096];
+    const char *missing = corax_gis_unavailable();
+    if (missing && corax_gis_known_format(o->j.format_name))
+        return cli_usage("export", "--format %s is written through GDAL: %s (install GDAL's "
+                                   "library, or export csv or vtk)", o->j.format_name, missing);
     corax_gis_drivers(list, sizeof list);
     if (corax_gis_known_format(o->j.format_name))
         return cli_usage("export", "this machine's GDAL has no driver that writes %s; its "

@@ -2,9 +2,13 @@
  * GDAL. Layers and features in, whole files out: OGR writes into a private
  * folder beside the real name and the commit moves the result into place.
  * GDAL's messages are caught (a quiet handler pushed around every call) and
- * returned in error records. */
+ * returned in error records. GDAL itself is loaded when a GIS file is first
+ * asked for, not when corax starts: its libraries take some 40 ms to load,
+ * which every command would pay. */
+#include <dlfcn.h>
 #include <errno.h>
 #include <math.h>
+#include <pthread.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -19,6 +23,96 @@
 
 #include "common/grow.h"
 #include "corax/gis.h"
+
+#ifndef CORAX_GDAL_LIBRARY /* the build gives the soname of the GDAL it builds against */
+#define CORAX_GDAL_LIBRARY "libgdal.so"
+#endif
+
+/* Every GDAL function corax calls, reached through this table once GDAL is
+ * loaded. */
+#define GDAL_FUNCTIONS(X) \
+    X(CPLErrorReset) \
+    X(CPLGetLastErrorMsg) \
+    X(CPLGetLastErrorType) \
+    X(CPLPopErrorHandler) \
+    X(CPLPushErrorHandler) \
+    X(CPLQuietErrorHandler) \
+    X(GDALAllRegister) \
+    X(GDALClose) \
+    X(GDALCreate) \
+    X(GDALDatasetCommitTransaction) \
+    X(GDALDatasetCreateLayer) \
+    X(GDALDatasetStartTransaction) \
+    X(GDALDatasetTestCapability) \
+    X(GDALGetDriver) \
+    X(GDALGetDriverByName) \
+    X(GDALGetDriverCount) \
+    X(GDALGetDriverShortName) \
+    X(GDALGetMetadataItem) \
+    X(GDALVersionInfo) \
+    X(OGR_FD_GetFieldIndex) \
+    X(OGR_F_Create) \
+    X(OGR_F_Destroy) \
+    X(OGR_F_GetGeometryRef) \
+    X(OGR_F_SetFieldDouble) \
+    X(OGR_F_SetFieldInteger64) \
+    X(OGR_F_SetFieldString) \
+    X(OGR_F_SetGeometryDirectly) \
+    X(OGR_Fld_Create) \
+    X(OGR_Fld_Destroy) \
+    X(OGR_G_AddPoint) \
+    X(OGR_G_AddPointZM) \
+    X(OGR_G_CreateGeometry) \
+    X(OGR_G_SetPoint) \
+    X(OGR_L_CreateFeature) \
+    X(OGR_L_CreateField) \
+    X(OGR_L_GetLayerDefn) \
+    X(OSRIsGeographic) \
+    X(OSRNewSpatialReference) \
+    X(OSRRelease) \
+    X(OSRSetAxisMappingStrategy) \
+    X(OSRSetFromUserInput)
+
+static struct {
+#define X(f) __typeof__(&f) f;
+    GDAL_FUNCTIONS(X)
+#undef X
+} gdal;
+
+static pthread_once_t gdal_once = PTHREAD_ONCE_INIT;
+static int gdal_ready;        /* GDAL is loaded and every function found */
+static char gdal_trouble[512]; /* why not, when it is not */
+
+static void load_gdal(void)
+{
+    void *lib = dlopen(CORAX_GDAL_LIBRARY, RTLD_NOW | RTLD_LOCAL);
+    if (!lib) {
+        const char *why = dlerror();
+        snprintf(gdal_trouble, sizeof gdal_trouble, "GDAL (%s) cannot be loaded: %s",
+                 CORAX_GDAL_LIBRARY, why ? why : "no reason given");
+        return;
+    }
+#define X(f)                                                                                  \
+    {                                                                                         \
+        void *sym = dlsym(lib, #f);                                                           \
+        if (!sym) {                                                                           \
+            snprintf(gdal_trouble, sizeof gdal_trouble, "GDAL (%s) has no %s",                \
+                     CORAX_GDAL_LIBRARY, #f);                                                 \
+            return;                                                                           \
+        }                                                                                     \
+        memcpy(&gdal.f, &sym, sizeof sym); /* POSIX: a function's address as a pointer */    \
+    }
+    GDAL_FUNCTIONS(X)
+#undef X
+    gdal_ready = 1;
+}
+
+/* Whether GDAL is there to call (loaded at the first call). */
+static int have_gdal(void)
+{
+    pthread_once(&gdal_once, load_gdal);
+    return gdal_ready;
+}
 
 /* corax's short names and the drivers they stand for. */
 static const struct {
@@ -56,33 +150,38 @@ struct corax_gis {
 
 static void quiet_begin(void)
 {
-    CPLPushErrorHandler(CPLQuietErrorHandler);
-    CPLErrorReset();
+    gdal.CPLPushErrorHandler(gdal.CPLQuietErrorHandler);
+    gdal.CPLErrorReset();
 }
 
-static void quiet_end(void) { CPLPopErrorHandler(); }
+static void quiet_end(void) { gdal.CPLPopErrorHandler(); }
 
 /* GDAL's last message, or `fallback`. */
 static const char *gdal_says(const char *fallback)
 {
-    const char *m = CPLGetLastErrorMsg();
+    const char *m = gdal.CPLGetLastErrorMsg();
     return m && *m ? m : fallback;
 }
 
-static int failed_quietly(void) { return CPLGetLastErrorType() >= CE_Failure; }
+static int failed_quietly(void) { return gdal.CPLGetLastErrorType() >= CE_Failure; }
 
 /* ---- drivers ---- */
 
-static void register_drivers(void) { GDALAllRegister(); }
+static void register_drivers(void) { gdal.GDALAllRegister(); }
 
 static int writes_vectors(GDALDriverH d)
 {
-    const char *vector = GDALGetMetadataItem(d, GDAL_DCAP_VECTOR, NULL);
-    const char *create = GDALGetMetadataItem(d, GDAL_DCAP_CREATE, NULL);
+    const char *vector = gdal.GDALGetMetadataItem(d, GDAL_DCAP_VECTOR, NULL);
+    const char *create = gdal.GDALGetMetadataItem(d, GDAL_DCAP_CREATE, NULL);
     return vector && create && strcasecmp(vector, "YES") == 0 && strcasecmp(create, "YES") == 0;
 }
 
-const char *corax_gis_gdal_version(void) { return GDALVersionInfo("RELEASE_NAME"); }
+const char *corax_gis_unavailable(void) { return have_gdal() ? NULL : gdal_trouble; }
+
+const char *corax_gis_gdal_version(void)
+{
+    return have_gdal() ? gdal.GDALVersionInfo("RELEASE_NAME") : "none (not loaded)";
+}
 
 int corax_gis_known_format(const char *format)
 {
@@ -102,22 +201,28 @@ static const char *ogr_name(const char *format)
 
 const char *corax_gis_driver(const char *format)
 {
+    if (!have_gdal())
+        return NULL;
     register_drivers();
-    GDALDriverH d = GDALGetDriverByName(ogr_name(format));
-    return d && writes_vectors(d) ? GDALGetDriverShortName(d) : NULL;
+    GDALDriverH d = gdal.GDALGetDriverByName(ogr_name(format));
+    return d && writes_vectors(d) ? gdal.GDALGetDriverShortName(d) : NULL;
 }
 
 void corax_gis_drivers(char *buf, size_t len)
 {
-    register_drivers();
     size_t used = 0;
     if (len)
         buf[0] = '\0';
-    for (int i = 0; i < GDALGetDriverCount() && used < len; i++) {
-        GDALDriverH d = GDALGetDriver(i);
+    if (!have_gdal()) {
+        snprintf(buf, len, "none (%s)", gdal_trouble);
+        return;
+    }
+    register_drivers();
+    for (int i = 0; i < gdal.GDALGetDriverCount() && used < len; i++) {
+        GDALDriverH d = gdal.GDALGetDriver(i);
         if (writes_vectors(d))
             used += (size_t)snprintf(buf + used, len - used, "%s%s", used ? ", " : "",
-                                     GDALGetDriverShortName(d));
+                                     gdal.GDALGetDriverShortName(d));
     }
 }
 
@@ -146,20 +251,20 @@ static corax_status set_crs(corax_gis *g, const char *crs, const char *path, cor
 {
     if (!crs)
         return CORAX_OK;
-    g->srs = OSRNewSpatialReference(NULL);
+    g->srs = gdal.OSRNewSpatialReference(NULL);
     if (!g->srs)
         return CORAX_ENOMEM;
     quiet_begin();
-    OGRErr e = OSRSetFromUserInput(g->srs, crs);
+    OGRErr e = gdal.OSRSetFromUserInput(g->srs, crs);
     quiet_end();
     if (e != OGRERR_NONE)
         return corax_error_set(err, CORAX_EARG, path, 0,
                                "crs '%s' is not a coordinate reference system GDAL knows", crs);
-    if (OSRIsGeographic(g->srs))
+    if (gdal.OSRIsGeographic(g->srs))
         return corax_error_set(err, CORAX_EARG, path, 0,
                                "crs '%s' is geographic (degrees); corax's coordinates are "
                                "metres east, north and up: give a projected system", crs);
-    OSRSetAxisMappingStrategy(g->srs, OAMS_TRADITIONAL_GIS_ORDER);
+    gdal.OSRSetAxisMappingStrategy(g->srs, OAMS_TRADITIONAL_GIS_ORDER);
     return CORAX_OK;
 }
 
@@ -167,11 +272,13 @@ corax_status corax_gis_open(corax_outputs *set, const char *path, const char *fo
                             const char *crs, corax_gis **out, corax_error *err)
 {
     *out = NULL;
+    if (!have_gdal())
+        return corax_error_set(err, CORAX_ENOTFOUND, NULL, 0, "%s", gdal_trouble);
     const char *name = corax_gis_driver(format);
     if (!name)
         return corax_error_set(err, CORAX_ENOTFOUND, NULL, 0,
                                corax_gis_known_format(format) ||
-                                       GDALGetDriverByName(ogr_name(format))
+                                       gdal.GDALGetDriverByName(ogr_name(format))
                                    ? "this machine's GDAL has no driver that writes %s"
                                    : "'%s' is not a vector format GDAL knows",
                                format);
@@ -190,7 +297,7 @@ corax_status corax_gis_open(corax_outputs *set, const char *path, const char *fo
         st = make_private(g, path, err);
     if (st == CORAX_OK) {
         quiet_begin();
-        g->ds = GDALCreate(GDALGetDriverByName(name), g->inside, 0, 0, 0, GDT_Unknown, NULL);
+        g->ds = gdal.GDALCreate(gdal.GDALGetDriverByName(name), g->inside, 0, 0, 0, GDT_Unknown, NULL);
         if (!g->ds)
             st = corax_error_set(err, CORAX_EIO, path, 0, "cannot write: %s",
                                  gdal_says("GDAL could not create it"));
@@ -200,9 +307,9 @@ corax_status corax_gis_open(corax_outputs *set, const char *path, const char *fo
         corax_gis_discard(g);
         return st;
     }
-    g->measured = !g->cad && GDALDatasetTestCapability(g->ds, ODsCMeasuredGeometries);
+    g->measured = !g->cad && gdal.GDALDatasetTestCapability(g->ds, ODsCMeasuredGeometries);
     quiet_begin();
-    g->transaction = GDALDatasetStartTransaction(g->ds, FALSE) == OGRERR_NONE;
+    g->transaction = gdal.GDALDatasetStartTransaction(g->ds, FALSE) == OGRERR_NONE;
     quiet_end();
     *out = g;
     return CORAX_OK;
@@ -232,16 +339,16 @@ static corax_status add_fields(corax_gis *g, OGRLayerH l, const corax_gis_field 
                                corax_error *err)
 {
     for (size_t i = 0; i < n; i++) {
-        OGRFieldDefnH d = OGR_Fld_Create(f[i].name, field_type(f[i].type));
+        OGRFieldDefnH d = gdal.OGR_Fld_Create(f[i].name, field_type(f[i].type));
         quiet_begin();
-        OGRErr e = OGR_L_CreateField(l, d, TRUE);
+        OGRErr e = gdal.OGR_L_CreateField(l, d, TRUE);
         const char *why = gdal_says("OGR refused it");
         corax_status st = e == OGRERR_NONE
                               ? CORAX_OK
                               : corax_error_set(err, CORAX_EIO, g->path, 0,
                                                 "cannot make field '%s': %s", f[i].name, why);
         quiet_end();
-        OGR_Fld_Destroy(d);
+        gdal.OGR_Fld_Destroy(d);
         if (st != CORAX_OK)
             return st;
     }
@@ -256,12 +363,12 @@ static corax_status ogr_layer(corax_gis *g, const char *name, corax_gis_shape sh
         *out = g->entities;
         return CORAX_OK;
     }
-    if (g->nlayers > 0 && !GDALDatasetTestCapability(g->ds, ODsCCreateLayer))
+    if (g->nlayers > 0 && !gdal.GDALDatasetTestCapability(g->ds, ODsCCreateLayer))
         return corax_error_set(err, CORAX_EARG, g->path, 0,
                                "%s holds one layer per file and '%s' is already in it: "
                                "choose one layer with --layers", g->driver, g->layer[0].name);
     quiet_begin();
-    OGRLayerH l = GDALDatasetCreateLayer(g->ds, g->cad ? "entities" : name, g->srs,
+    OGRLayerH l = gdal.GDALDatasetCreateLayer(g->ds, g->cad ? "entities" : name, g->srs,
                                          geometry_type(g, shape, measured), NULL);
     corax_status st = l ? CORAX_OK
                         : corax_error_set(err, CORAX_EIO, g->path, 0,
@@ -272,7 +379,7 @@ static corax_status ogr_layer(corax_gis *g, const char *name, corax_gis_shape sh
         return st;
     if (g->cad) {
         g->entities = l;
-        g->cad_layer_field = OGR_FD_GetFieldIndex(OGR_L_GetLayerDefn(l), "Layer");
+        g->cad_layer_field = gdal.OGR_FD_GetFieldIndex(gdal.OGR_L_GetLayerDefn(l), "Layer");
     }
     *out = l;
     return CORAX_OK;
@@ -312,13 +419,13 @@ corax_status corax_gis_layer(corax_gis *g, const char *name, corax_gis_shape sha
 corax_status corax_gis_feature(corax_gis *g, int layer)
 {
     if (g->feature)
-        OGR_F_Destroy(g->feature);
+        gdal.OGR_F_Destroy(g->feature);
     g->current = layer;
-    g->feature = OGR_F_Create(OGR_L_GetLayerDefn(g->layer[layer].layer));
+    g->feature = gdal.OGR_F_Create(gdal.OGR_L_GetLayerDefn(g->layer[layer].layer));
     if (!g->feature)
         return CORAX_ENOMEM;
     if (g->cad && g->cad_layer_field >= 0)
-        OGR_F_SetFieldString(g->feature, g->cad_layer_field, g->layer[layer].name);
+        gdal.OGR_F_SetFieldString(g->feature, g->cad_layer_field, g->layer[layer].name);
     return CORAX_OK;
 }
 
@@ -330,13 +437,13 @@ static int field_ok(const corax_gis *g, size_t field)
 void corax_gis_real(corax_gis *g, size_t field, double value)
 {
     if (field_ok(g, field) && isfinite(value))
-        OGR_F_SetFieldDouble(g->feature, (int)field, value);
+        gdal.OGR_F_SetFieldDouble(g->feature, (int)field, value);
 }
 
 void corax_gis_integer(corax_gis *g, size_t field, long long value)
 {
     if (field_ok(g, field))
-        OGR_F_SetFieldInteger64(g->feature, (int)field, (GIntBig)value);
+        gdal.OGR_F_SetFieldInteger64(g->feature, (int)field, (GIntBig)value);
 }
 
 void corax_gis_text(corax_gis *g, size_t field, const char *text, size_t length)
@@ -348,7 +455,7 @@ void corax_gis_text(corax_gis *g, size_t field, const char *text, size_t length)
         return;
     memcpy(s, text, length);
     s[length] = '\0';
-    OGR_F_SetFieldString(g->feature, (int)field, s);
+    gdal.OGR_F_SetFieldString(g->feature, (int)field, s);
     if (s != small)
         free(s);
 }
@@ -357,9 +464,9 @@ void corax_gis_point(corax_gis *g, corax_vec3 p)
 {
     if (!g->feature)
         return;
-    OGRGeometryH geom = OGR_G_CreateGeometry(wkbPoint25D);
-    OGR_G_SetPoint(geom, 0, p.x, p.y, p.z);
-    OGR_F_SetGeometryDirectly(g->feature, geom);
+    OGRGeometryH geom = gdal.OGR_G_CreateGeometry(wkbPoint25D);
+    gdal.OGR_G_SetPoint(geom, 0, p.x, p.y, p.z);
+    gdal.OGR_F_SetGeometryDirectly(g->feature, geom);
 }
 
 void corax_gis_line(corax_gis *g, const corax_vec3 *p, const double *m, size_t n)
@@ -367,27 +474,27 @@ void corax_gis_line(corax_gis *g, const corax_vec3 *p, const double *m, size_t n
     if (!g->feature)
         return;
     int with_m = m && g->measured;
-    OGRGeometryH geom = OGR_G_CreateGeometry(with_m ? wkbLineStringZM : wkbLineString25D);
+    OGRGeometryH geom = gdal.OGR_G_CreateGeometry(with_m ? wkbLineStringZM : wkbLineString25D);
     for (size_t i = 0; i < n; i++) {
         if (with_m)
-            OGR_G_AddPointZM(geom, p[i].x, p[i].y, p[i].z, m[i]);
+            gdal.OGR_G_AddPointZM(geom, p[i].x, p[i].y, p[i].z, m[i]);
         else
-            OGR_G_AddPoint(geom, p[i].x, p[i].y, p[i].z);
+            gdal.OGR_G_AddPoint(geom, p[i].x, p[i].y, p[i].z);
     }
-    OGR_F_SetGeometryDirectly(g->feature, geom);
+    gdal.OGR_F_SetGeometryDirectly(g->feature, geom);
 }
 
 corax_status corax_gis_write(corax_gis *g, corax_error *err)
 {
     if (!g->feature)
         return corax_error_set(err, CORAX_EARG, g->path, 0, "no feature begun");
-    if (g->cad && !OGR_F_GetGeometryRef(g->feature)) { /* nothing to draw */
-        OGR_F_Destroy(g->feature);
+    if (g->cad && !gdal.OGR_F_GetGeometryRef(g->feature)) { /* nothing to draw */
+        gdal.OGR_F_Destroy(g->feature);
         g->feature = NULL;
         return CORAX_OK;
     }
     quiet_begin();
-    OGRErr e = OGR_L_CreateFeature(g->layer[g->current].layer, g->feature);
+    OGRErr e = gdal.OGR_L_CreateFeature(g->layer[g->current].layer, g->feature);
     corax_status st = e == OGRERR_NONE
                           ? CORAX_OK
                           : corax_error_set(err, CORAX_EIO, g->path, 0,
@@ -395,7 +502,7 @@ corax_status corax_gis_write(corax_gis *g, corax_error *err)
                                             g->layer[g->current].name,
                                             gdal_says("OGR refused the feature"));
     quiet_end();
-    OGR_F_Destroy(g->feature);
+    gdal.OGR_F_Destroy(g->feature);
     g->feature = NULL;
     return st;
 }
@@ -405,9 +512,9 @@ corax_status corax_gis_write(corax_gis *g, corax_error *err)
 static void release(corax_gis *g)
 {
     if (g->feature)
-        OGR_F_Destroy(g->feature);
+        gdal.OGR_F_Destroy(g->feature);
     if (g->srs)
-        OSRRelease(g->srs);
+        gdal.OSRRelease(g->srs);
     for (size_t i = 0; i < g->nlayers; i++)
         free(g->layer[i].name);
     free(g->layer);
@@ -421,9 +528,9 @@ static void release(corax_gis *g)
 static int close_dataset(corax_gis *g, int keep)
 {
     quiet_begin();
-    if (g->transaction && keep && GDALDatasetCommitTransaction(g->ds) != OGRERR_NONE)
+    if (g->transaction && keep && gdal.GDALDatasetCommitTransaction(g->ds) != OGRERR_NONE)
         keep = 0;
-    GDALClose(g->ds);
+    gdal.GDALClose(g->ds);
     g->ds = NULL;
     int ok = keep && !failed_quietly();
     quiet_end();
