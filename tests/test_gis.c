@@ -159,6 +159,17 @@ static void test_whole_or_nothing(void **state)
     rmdir(path);
 }
 
+/* GDAL, not linked into corax, is loaded by the soname of the GDAL the build
+ * found; the one this test links is that GDAL, so the two agree. */
+static void test_gdal_is_loaded_on_demand(void **state)
+{
+    (void)state;
+    const char *why = corax_gis_unavailable();
+    if (why)
+        fail_msg("GDAL cannot be loaded: %s", why);
+    assert_string_equal(corax_gis_gdal_version(), GDALVersionInfo("RELEASE_NAME"));
+}
+
 static void test_formats(void **state)
 {
     (void)state;
@@ -190,6 +201,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_geopackage_read_back),
         cmocka_unit_test(test_whole_or_nothing),
+        cmocka_unit_test(test_gdal_is_loaded_on_demand),
         cmocka_unit_test(test_formats),
     };
     return cmocka_run_group_tests_name("gis", tests, setup, teardown);
