@@ -396,6 +396,40 @@ static void test_section_along_the_spread(void **state)
     corax_program_free(p);
 }
 
+/* A hole's name on the plan keeps off its own path: a hole running due east
+ * from its collar has its name to the left, not on the line to the right
+ * (where the first place tried would put it). */
+static void test_names_keep_off_the_paths(void **state)
+{
+    (void)state;
+    corax_program *p = corax_program_new();
+    assert_int_equal(corax_program_add(p, hole("EAST", 0, 0, 90, 30, 200, 1, 1)), CORAX_OK);
+    corax_report_input in = {.program = p};
+    report_model m;
+    assert_int_equal(corax_report_model_build(&m, &in), CORAX_OK);
+    corax_svg *svg;
+    assert_int_equal(corax_report_plan(&m, &svg), CORAX_OK);
+    const char *doc = corax_svg_finish(svg, NULL);
+    double cx, cy, tx, ty;
+    const char *c = strstr(doc, "<circle cx=");
+    const char *t = strstr(doc, "class=\"hole-name\">EAST<");
+    assert_non_null(c);
+    assert_non_null(t);
+    while (t > doc && strncmp(t, "<text ", 6) != 0)
+        t--;
+    assert_int_equal(sscanf(c, "<circle cx=\"%lf\" cy=\"%lf\"", &cx, &cy), 2);
+    assert_int_equal(sscanf(t, "<text x=\"%lf\" y=\"%lf\"", &tx, &ty), 2);
+    /* the name's box (its baseline ty, 12 px high) against the path, which
+     * runs from the collar to the right at the collar's height */
+    int across_path = ty - 10.0 <= cy && cy <= ty + 2.0;
+    if (across_path && tx > cx)
+        fail_msg("the name (x %g, y %g) sits on the path east of the collar (%g, %g)", tx, ty,
+                 cx, cy);
+    corax_svg_free(svg);
+    corax_report_model_free(&m);
+    corax_program_free(p);
+}
+
 /* A hole with more readings than the strip's cap draws every second one and
  * says so; its net draws no more than its cap, every flagged reading kept. */
 static void test_large_hole_thinned(void **state)
@@ -722,6 +756,7 @@ int main(void)
         cmocka_unit_test(test_flagged_readings_picked_out),
         cmocka_unit_test(test_strip_to_scale),
         cmocka_unit_test(test_section_along_the_spread),
+        cmocka_unit_test(test_names_keep_off_the_paths),
         cmocka_unit_test(test_large_hole_thinned),
         cmocka_unit_test(test_many_holes_keep_to_the_budget),
         cmocka_unit_test(test_empty_program),

@@ -272,49 +272,114 @@ static corax_status hole_path(corax_svg *svg, const view *v, const report_hole *
     return CORAX_OK;
 }
 
-/* Hole names beside their collars, each where it overlaps no other name. */
+/* Hole names beside their collars, each where it overlaps no other name
+ * and, where it can, crosses no hole's path, collar or finding mark. */
 typedef struct box {
     double x0, y0, x1, y1;
 } box;
 
+static int overlaps(const box *a, const box *b)
+{
+    return a->x0 < b->x1 && b->x0 < a->x1 && a->y0 < b->y1 && b->y0 < a->y1;
+}
+
 static int clear_of(const box *b, const box *placed, size_t n)
 {
     for (size_t i = 0; i < n; i++)
-        if (b->x0 < placed[i].x1 && placed[i].x0 < b->x1 && b->y0 < placed[i].y1 &&
-            placed[i].y0 < b->y1)
+        if (overlaps(b, &placed[i]))
             return 0;
     return 1;
 }
 
-/* Right, left, above or below the collar, else stacked higher above it:
- * the first place clear of every name placed so far. */
-static void hole_name(corax_svg *svg, double x, double y, const char *name, box *placed,
-                      size_t *nplaced)
+/* Whether the segment from (x1, y1) to (x2, y2) meets the box (Liang and
+ * Barsky's clipping: the part of the segment inside each edge's half-plane). */
+static int segment_meets(double x1, double y1, double x2, double y2, const box *b)
 {
-    static const double spot[][2] = {{8, 4}, {-8, 4}, {0, -9}, {0, 17},
-                                     {8, -9}, {8, 17}, {-8, -9}, {-8, 17}};
-    enum { SPOTS = sizeof spot / sizeof spot[0], STACKED = 8 };
-    double w = corax_report_text_width(name, 11.5), hgt = 12, base = y;
-    box b = {0, 0, 0, 0};
-    for (int k = 0; k < SPOTS + STACKED; k++) {
-        double dx = k < SPOTS ? spot[k][0] : 0.0;
-        base = y + (k < SPOTS ? spot[k][1] : -9.0 - 13.0 * (k - SPOTS + 1));
-        double x0 = dx > 0 ? x + dx : dx < 0 ? x + dx - w : x - w / 2;
-        b = (box){x0, base - hgt + 2, x0 + w, base + 2};
-        if (clear_of(&b, placed, *nplaced))
-            break;
+    double dx = x2 - x1, dy = y2 - y1, t0 = 0.0, t1 = 1.0;
+    const double p[4] = {-dx, dx, -dy, dy};
+    const double q[4] = {x1 - b->x0, b->x1 - x1, y1 - b->y0, b->y1 - y1};
+    for (int k = 0; k < 4; k++) {
+        if (p[k] == 0.0) {
+            if (q[k] < 0.0)
+                return 0; /* parallel to the edge, outside it */
+            continue;
+        }
+        double t = q[k] / p[k];
+        if (p[k] < 0.0 && t > t0)
+            t0 = t;
+        else if (p[k] > 0.0 && t < t1)
+            t1 = t;
+        if (t0 > t1)
+            return 0;
     }
-    placed[(*nplaced)++] = b;
-    corax_svg_text(svg, b.x0, base, "hole-name", "start", name);
+    return 1;
 }
 
-/* The collars and their names; CORAX_ENOMEM. */
-static corax_status collars(corax_svg *svg, const report_model *m, const view *v)
+/* What a name should not cover: the holes' paths on the page (polylines,
+ * one after another: path[k] starts at point start[k]) and the marks
+ * (collars and findings, as boxes). */
+typedef struct obstacles {
+    double *xy;
+    size_t *start, npaths, npoints;
+    box *mark;
+    size_t nmarks;
+} obstacles;
+
+static size_t hits(const obstacles *o, const box *b)
 {
-    box *placed = malloc((m->nhole + 1) * sizeof *placed);
-    size_t nplaced = 0;
-    if (!placed)
-        return CORAX_ENOMEM;
+    size_t n = 0;
+    for (size_t k = 0; k < o->npaths; k++) {
+        size_t end = k + 1 < o->npaths ? o->start[k + 1] : o->npoints;
+        for (size_t i = o->start[k]; i + 1 < end; i++) {
+            const double *a = &o->xy[2 * i];
+            if (segment_meets(a[0], a[1], a[2], a[3], b)) {
+                n++;
+                break; /* a path counts once */
+            }
+        }
+    }
+    for (size_t i = 0; i < o->nmarks; i++)
+        n += overlaps(b, &o->mark[i]);
+    return n;
+}
+
+/* Right, left, above or below the collar, else stacked higher above it: of
+ * the places clear of every name placed so far, the first that covers
+ * nothing, else the one that covers least. */
+static void hole_name(corax_svg *svg, double x, double y, const char *name, box *placed,
+                      size_t *nplaced, const obstacles *o)
+{
+    static const double spot[][2] = {{8, 4}, {-11, 4}, {0, -9}, {0, 17},
+                                     {8, -9}, {8, 17}, {-11, -9}, {-11, 17}};
+    enum { SPOTS = sizeof spot / sizeof spot[0], STACKED = 8 };
+    /* the names are bold: wider than the width of plain text says */
+    double w = 1.1 * corax_report_text_width(name, 11.5), hgt = 12;
+    box best = {0, 0, 0, 0};
+    double best_base = y;
+    size_t best_hits = (size_t)-1;
+    for (int k = 0; k < SPOTS + STACKED && best_hits > 0; k++) {
+        double dx = k < SPOTS ? spot[k][0] : 0.0;
+        double base = y + (k < SPOTS ? spot[k][1] : -9.0 - 13.0 * (k - SPOTS + 1));
+        double x0 = dx > 0 ? x + dx : dx < 0 ? x + dx - w : x - w / 2;
+        box b = {x0, base - hgt + 2, x0 + w, base + 2};
+        int last = k == SPOTS + STACKED - 1;
+        if (!clear_of(&b, placed, *nplaced) && !(last && best_hits == (size_t)-1))
+            continue;
+        box room = {b.x0 - 2, b.y0 - 1, b.x1 + 2, b.y1 + 1}; /* and a little air */
+        size_t n = hits(o, &room);
+        if (n < best_hits) {
+            best = b;
+            best_base = base;
+            best_hits = n;
+        }
+    }
+    placed[(*nplaced)++] = best;
+    corax_svg_text(svg, best.x0, best_base, "hole-name", "start", name);
+}
+
+/* The collars (drawn under the findings' marks). */
+static void collars(corax_svg *svg, const report_model *m, const view *v)
+{
     corax_svg_group(svg, "collars", NULL);
     for (size_t i = 0; i < m->nhole; i++) {
         const report_hole *h = &m->hole[i];
@@ -323,12 +388,93 @@ static corax_status collars(corax_svg *svg, const report_model *m, const view *v
         double x, y;
         on_page(v, h->trace[0].at, &x, &y);
         corax_svg_circle(svg, x, y, 3.6, h->traced ? "collar" : "collar untraced");
-        if (h->figures) /* named: the holes whose figures the page draws */
-            hole_name(svg, x, y, h->name, placed, &nplaced);
     }
     corax_svg_end_group(svg);
-    free(placed);
+}
+
+/* Where a finding's mark goes on the page. */
+static void finding_at(const view *v, const report_hole *h, const corax_finding *f, double *x,
+                       double *y)
+{
+    double at_depth = f->depth;
+    if (h->traced && isfinite(f->depth) && isfinite(f->depth_to))
+        at_depth = 0.5 * (f->depth + f->depth_to);
+    corax_vec3 at;
+    corax_report_hole_at(h, h->traced ? at_depth : 0.0, &at);
+    on_page(v, at, x, y);
+}
+
+static box around(double x, double y, double r)
+{
+    return (box){x - r, y - r, x + r, y + r};
+}
+
+/* The paths, collars and marks a name should keep off; CORAX_ENOMEM. */
+static corax_status gather_obstacles(const report_model *m, const view *v, obstacles *o)
+{
+    memset(o, 0, sizeof *o);
+    size_t points = 0, marks = 0;
+    for (size_t i = 0; i < m->nhole; i++) {
+        const report_hole *h = &m->hole[i];
+        points += h->drawn ? h->ntrace : 0;
+        marks += (h->ntrace && h->listed) + (h->path ? h->nshown : 0);
+    }
+    o->xy = malloc((points ? points : 1) * 2 * sizeof *o->xy);
+    o->start = malloc((m->nhole ? m->nhole : 1) * sizeof *o->start);
+    o->mark = malloc((marks ? marks : 1) * sizeof *o->mark);
+    if (!o->xy || !o->start || !o->mark)
+        return CORAX_ENOMEM;
+    for (size_t i = 0; i < m->nhole; i++) {
+        const report_hole *h = &m->hole[i];
+        if (h->drawn && h->ntrace) {
+            o->start[o->npaths++] = o->npoints;
+            for (size_t q = 0; q < h->ntrace; q++, o->npoints++)
+                on_page(v, h->trace[q].at, &o->xy[2 * o->npoints], &o->xy[2 * o->npoints + 1]);
+        }
+        double x, y;
+        if (h->ntrace && h->listed) {
+            on_page(v, h->trace[0].at, &x, &y);
+            o->mark[o->nmarks++] = around(x, y, 4.0);
+        }
+        for (size_t k = 0; k < h->nshown && h->path; k++) {
+            finding_at(v, h, &m->finding[h->shown[k]], &x, &y);
+            o->mark[o->nmarks++] = around(x, y, 6.0);
+        }
+    }
     return CORAX_OK;
+}
+
+static void obstacles_free(obstacles *o)
+{
+    free(o->xy);
+    free(o->start);
+    free(o->mark);
+}
+
+/* The names of the holes whose figures the page draws, over everything
+ * else; CORAX_ENOMEM. */
+static corax_status names(corax_svg *svg, const report_model *m, const view *v)
+{
+    obstacles o;
+    box *placed = malloc((m->nhole + 1) * sizeof *placed);
+    size_t nplaced = 0;
+    corax_status st = placed ? gather_obstacles(m, v, &o) : CORAX_ENOMEM;
+    if (st == CORAX_OK) {
+        corax_svg_group(svg, "names", NULL);
+        for (size_t i = 0; i < m->nhole; i++) {
+            const report_hole *h = &m->hole[i];
+            if (!h->ntrace || !h->listed || !h->figures)
+                continue;
+            double x, y;
+            on_page(v, h->trace[0].at, &x, &y);
+            hole_name(svg, x, y, h->name, placed, &nplaced, &o);
+        }
+        corax_svg_end_group(svg);
+    }
+    if (placed)
+        obstacles_free(&o);
+    free(placed);
+    return st;
 }
 
 /* ---- findings ---- */
@@ -395,15 +541,10 @@ static void findings(corax_svg *svg, const report_model *m, const view *v)
                     continue;
                 corax_svg_group(svg, NULL, NULL);
                 corax_report_finding_title(svg, f, 1);
-                double at_depth = f->depth;
-                if (h->traced && isfinite(f->depth) && isfinite(f->depth_to)) {
+                if (h->traced && isfinite(f->depth) && isfinite(f->depth_to))
                     stretch(svg, v, h, f->depth, f->depth_to, f->severity);
-                    at_depth = 0.5 * (f->depth + f->depth_to);
-                }
-                corax_vec3 at;
                 double x, y;
-                corax_report_hole_at(h, h->traced ? at_depth : 0.0, &at);
-                on_page(v, at, &x, &y);
+                finding_at(v, h, f, &x, &y);
                 corax_report_symbol(svg, f->severity, x, y, 11);
                 corax_svg_end_group(svg);
             }
@@ -486,9 +627,10 @@ static corax_status draw(const report_model *m, view *v, corax_svg **out)
         if (m->hole[i].drawn)
             st = hole_path(svg, v, &m->hole[i]);
     corax_svg_end_group(svg);
-    if (st == CORAX_OK)
-        st = collars(svg, m, v);
+    collars(svg, m, v);
     findings(svg, m, v);
+    if (st == CORAX_OK)
+        st = names(svg, m, v);
     scale_bar(svg, v);
     if (v->plan)
         north_arrow(svg, v);
