@@ -321,6 +321,7 @@ static int segment_meets(double x1, double y1, double x2, double y2, const box *
 typedef struct obstacles {
     double *xy;
     size_t *start, npaths, npoints;
+    box *extent; /* each path's bounding box */
     box *mark;
     size_t nmarks;
 } obstacles;
@@ -329,6 +330,8 @@ static size_t hits(const obstacles *o, const box *b)
 {
     size_t n = 0;
     for (size_t k = 0; k < o->npaths; k++) {
+        if (!overlaps(b, &o->extent[k])) /* most paths are nowhere near */
+            continue;
         size_t end = k + 1 < o->npaths ? o->start[k + 1] : o->npoints;
         for (size_t i = o->start[k]; i + 1 < end; i++) {
             const double *a = &o->xy[2 * i];
@@ -421,15 +424,22 @@ static corax_status gather_obstacles(const report_model *m, const view *v, obsta
     }
     o->xy = malloc((points ? points : 1) * 2 * sizeof *o->xy);
     o->start = malloc((m->nhole ? m->nhole : 1) * sizeof *o->start);
+    o->extent = malloc((m->nhole ? m->nhole : 1) * sizeof *o->extent);
     o->mark = malloc((marks ? marks : 1) * sizeof *o->mark);
-    if (!o->xy || !o->start || !o->mark)
+    if (!o->xy || !o->start || !o->extent || !o->mark)
         return CORAX_ENOMEM;
     for (size_t i = 0; i < m->nhole; i++) {
         const report_hole *h = &m->hole[i];
         if (h->drawn && h->ntrace) {
+            box *e = &o->extent[o->npaths];
             o->start[o->npaths++] = o->npoints;
-            for (size_t q = 0; q < h->ntrace; q++, o->npoints++)
-                on_page(v, h->trace[q].at, &o->xy[2 * o->npoints], &o->xy[2 * o->npoints + 1]);
+            *e = (box){INFINITY, INFINITY, -INFINITY, -INFINITY};
+            for (size_t q = 0; q < h->ntrace; q++, o->npoints++) {
+                double *xy = &o->xy[2 * o->npoints];
+                on_page(v, h->trace[q].at, &xy[0], &xy[1]);
+                *e = (box){fmin(e->x0, xy[0]), fmin(e->y0, xy[1]), fmax(e->x1, xy[0]),
+                           fmax(e->y1, xy[1])};
+            }
         }
         double x, y;
         if (h->ntrace && h->listed) {
@@ -448,6 +458,7 @@ static void obstacles_free(obstacles *o)
 {
     free(o->xy);
     free(o->start);
+    free(o->extent);
     free(o->mark);
 }
 
