@@ -67,7 +67,8 @@ void corax_gis_drivers(char *buf, size_t len);
  * loaded, or lacks a function corax calls). */
 const char *corax_gis_unavailable(void);
 
-/* GDAL's release name, such as "3.6.2" ("none (not loaded)" without it). */
+/* GDAL's release name, such as "3.6.2" ("none (not loaded)" without it):
+ * GDAL's own text, good until GDAL is asked for its version again. */
 const char *corax_gis_gdal_version(void);
 
 /* Create a file (or, for drivers that write folders, a folder) at path with
