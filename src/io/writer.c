@@ -205,20 +205,29 @@ static inline void separator(corax_writer *w)
     w->row_start = 0;
 }
 
-/* first: the field opens its row, where a '#' would make the line a
- * comment to a reader (corax's own among them). */
+/* Whether a field's ends need quotes: a blank at either end, or a '#'
+ * opening a row (first), which would make the line a comment to a reader
+ * (corax's own among them). */
+static inline int ends_need_quotes(const char *s, size_t n, int first)
+{
+    return n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
+                 (first && s[0] == '#'));
+}
+
+/* Whether a byte inside a field needs quotes. */
+static inline int special_byte(unsigned char c, unsigned char delimiter)
+{
+    /* every special byte but ';' is below '-': one comparison clears most text */
+    return (c < '-' && (c == '"' || c == '\n' || c == '\r' || c == '\t')) || c == delimiter;
+}
+
 static int needs_quotes(const char *s, size_t n, char delimiter, int first)
 {
-    if (n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
-              (first && s[0] == '#')))
+    if (ends_need_quotes(s, n, first))
         return 1;
-    for (size_t i = 0; i < n; i++) {
-        unsigned char c = (unsigned char)s[i];
-        /* every special byte but ';' is below '-': one comparison clears most text */
-        if ((c < '-' && (c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
-            c == (unsigned char)delimiter)
+    for (size_t i = 0; i < n; i++)
+        if (special_byte((unsigned char)s[i], (unsigned char)delimiter))
             return 1;
-    }
     return 0;
 }
 
@@ -235,9 +244,7 @@ static void mark_decimal(corax_writer *w, size_t n)
 void corax_writer_field(corax_writer *w, const char *s, size_t n)
 {
     int first = w->row_start;
-    if (n <= 32 && make_room(w, n + 1) &&
-        !(n && (s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t' ||
-                (first && s[0] == '#')))) {
+    if (n <= 32 && make_room(w, n + 1) && !ends_need_quotes(s, n, first)) {
         /* the usual field: short, copied with its separator at once and
          * checked for the bytes that need quotes as it is copied (the rare
          * field that has one is written again, quoted) */
@@ -247,9 +254,7 @@ void corax_writer_field(corax_writer *w, const char *s, size_t n)
         for (size_t i = 0; i < n; i++) {
             unsigned char c = (unsigned char)s[i];
             o[i] = (char)c;
-            /* every special byte but ';' is below '-': one comparison clears most text */
-            special |= (c < '-' && (c == '"' || c == '\n' || c == '\r' || c == '\t')) ||
-                       c == delimiter;
+            special |= special_byte(c, delimiter);
         }
         if (!special) {
             if (!first)

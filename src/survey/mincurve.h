@@ -17,6 +17,13 @@ static inline double corax_mc_ratio_factor_series(double b)
 }
 double corax_mc_ratio_factor(double b);
 
+/* RF(b) from b's sine and cosine, (2/b) sin b / (1 + cos b) (= (2/b)
+ * tan(b/2)), by its series for small b: one division, no tangent. */
+static inline double corax_mc_ratio_factor_sc(double b, double sin_b, double cos_b)
+{
+    return b < 0.02 ? corax_mc_ratio_factor_series(b) : 2.0 * sin_b / (b * (1.0 + cos_b));
+}
+
 /* A course between two stations: its length and dogleg, with the dogleg's
  * sine and cosine kept for interpolation. */
 typedef struct corax_mc_course {
@@ -49,7 +56,7 @@ static inline void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, c
             tf = vec_comb(t1, w1 * c->inv_sin_b, t2, sfb * c->inv_sin_b);
         else /* a dogleg too small to divide by: the same weights, normalised */
             tf = vec_unit(vec_comb(t1, w1, t2, sfb));
-        rf = fb < 0.02 ? corax_mc_ratio_factor_series(fb) : 2.0 * sfb / (fb * (1.0 + cfb));
+        rf = corax_mc_ratio_factor_sc(fb, sfb, cfb);
     }
     double k = 0.5 * f * c->length * rf;
     *r = vec_add(r1, vec_scale(vec_add(t1, tf), k));
@@ -61,9 +68,7 @@ static inline void corax_mc_along(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2, c
 static inline corax_vec3 corax_mc_end(corax_vec3 r1, corax_vec3 t1, corax_vec3 t2,
                                       const corax_mc_course *c)
 {
-    double b = c->b, rf = 1.0;
-    if (b > 0.0)
-        rf = b < 0.02 ? corax_mc_ratio_factor_series(b) : 2.0 * c->sin_b / (b * (1.0 + c->cos_b));
+    double rf = c->b > 0.0 ? corax_mc_ratio_factor_sc(c->b, c->sin_b, c->cos_b) : 1.0;
     return vec_add(r1, vec_scale(vec_add(t1, t2), 0.5 * c->length * rf));
 }
 
